@@ -1,0 +1,48 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/core/calc_line.hpp"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+using catchpeak::CalcLines;
+using catchpeak::sig;
+
+TEST(Sig, FourSignificantFigures) {
+    EXPECT_EQ(sig(31.8912), "31.89");
+    EXPECT_EQ(sig(0.0095), "0.009500");
+    EXPECT_EQ(sig(4780.0), "4780");
+    EXPECT_EQ(sig(123456.0), "123500");
+    EXPECT_EQ(sig(9.99996), "10.00");
+    EXPECT_EQ(sig(-2.5), "-2.500");
+    EXPECT_EQ(sig(0.0), "0");
+    EXPECT_EQ(sig(1.0), "1.000");
+    EXPECT_EQ(sig(1.5e-6), "1.500e-06");
+    EXPECT_EQ(sig(std::nan("")), "n/a");
+    EXPECT_EQ(sig(2.0 / 3.0, 3), "0.667");
+}
+
+TEST(Full, RoundTrips) {
+    const double v = 0.1 + 0.2;
+    EXPECT_EQ(std::stod(catchpeak::full(v)), v);
+}
+
+TEST(CalcLines, NumberedWithPrefix) {
+    CalcLines lines;
+    lines.calc("Area", "A", "A = 2.000", 2.0, "ha", "project input");
+    lines.warn("Area limit", "A = 90 ha exceeds 80 ha", "common practice, no source");
+    lines.note("Method", "Rational Method", "project input");
+    const auto next = catchpeak::number_lines(lines, "DP3");
+    EXPECT_EQ(next, 4u);
+    ASSERT_EQ(lines.size(), 3u);
+    EXPECT_EQ(lines.lines()[0].id, "DP3-L1");
+    EXPECT_EQ(lines.lines()[2].id, "DP3-L3");
+    EXPECT_EQ(lines.warning_count(), 1u);
+    EXPECT_EQ(lines.lines()[1].kind, catchpeak::LineKind::warning);
+    EXPECT_TRUE(std::isnan(lines.lines()[1].value));
+
+    CalcLines more;
+    more.calc("Q", "Q = C i A", "Q = ...", 1.5, "m3/s", "x");
+    lines.append(more);
+    EXPECT_EQ(lines.size(), 4u);
+}
