@@ -1,0 +1,151 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/units.hpp"
+
+#include <cstdint>
+#include <map>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+/// The results of a run, as `app` hands them to `report`. Plain values, SI throughout (units in
+/// the member names); `report` converts to the sheet's unit system when it renders.
+namespace catchpeak::report {
+
+/// Project information from the project file's [project] table.
+struct ProjectInfo {
+    std::string name;
+    std::string number;
+    std::string client;
+    std::string location; ///< in words
+    std::string prepared_by;
+    std::string checked_by;
+    std::string revision;
+    units::System units = units::System::si;
+    std::string page_size; ///< "letter" or "a4"
+};
+
+/// One input file and its SHA-256, for the stamp and for recheck.
+struct InputRecord {
+    std::string role; ///< "project file", "DEM", "design points", "land cover", "IDF", ...
+    std::string path; ///< as given in the project file (relative to it), never rewritten
+    std::string sha256;
+};
+
+/// The stamp: what was run, on what, when. Goes in the run record and on the sheet, never in
+/// results.json (which must be byte-identical between runs).
+struct Stamp {
+    std::string tool_version;
+    std::string git_commit;
+    std::string run_time_utc; ///< ISO 8601, e.g. "2026-12-02T10:15:00Z"
+    std::vector<InputRecord> inputs;
+};
+
+/// A ring or a line in CRS coordinates (metres).
+using Path = std::vector<std::pair<double, double>>;
+/// A polygon: outer ring first, then holes.
+using Polygon = std::vector<Path>;
+
+/// What the map of one design point shows. Everything in the DEM's CRS (metres).
+struct MapData {
+    std::vector<Polygon> catchment;       ///< total catchment outline
+    std::vector<Polygon> local_catchment; ///< own part, when nested points lie upstream
+    Path longest_flow_path;
+    std::vector<Path> streams;
+    std::pair<double, double> given_xy{0.0, 0.0};
+    std::pair<double, double> snapped_xy{0.0, 0.0};
+    /// Hillshade of the DEM around the catchment, 0-255, row-major, north up.
+    std::size_t hillshade_width = 0;
+    std::size_t hillshade_height = 0;
+    std::vector<std::uint8_t> hillshade;
+    double hillshade_min_x = 0.0, hillshade_min_y = 0.0; ///< lower-left corner
+    double hillshade_max_x = 0.0, hillshade_max_y = 0.0; ///< upper-right corner
+};
+
+/// Figures of a catchment, from the DEM or from a catchment table.
+struct CatchmentFigures {
+    double area_m2 = 0.0;
+    double local_area_m2 = 0.0; ///< equals area_m2 unless design points lie upstream
+    double longest_flow_path_m = 0.0;
+    double elevation_top_m = 0.0;
+    double elevation_outlet_m = 0.0;
+    double slope_flow_path = 0.0;             ///< H/L along the longest flow path, m/m
+    double slope_10_85 = 0.0;                 ///< m/m
+    double mean_slope = 0.0;                  ///< mean catchment slope (Horn 1981), m/m
+    std::vector<std::string> upstream_points; ///< ids of design points nested inside
+};
+
+/// One (land-cover class, hydrologic soil group) part of a catchment.
+struct LandPart {
+    std::string land_class;
+    std::string soil_group;
+    double area_m2 = 0.0;
+    double c = 0.0;
+    double cn = 0.0;
+    double impervious_share = 0.0; ///< 0..1
+};
+
+struct LandWeighting {
+    std::vector<LandPart> parts;
+    double c_weighted = 0.0;
+    double cn_weighted = 0.0;
+    double impervious_share = 0.0;
+    std::string c_table;  ///< which table the C values came from
+    std::string cn_table; ///< which table the CN values came from
+};
+
+/// A hydrograph: flow at equal time steps from the start of the storm.
+struct Hydrograph {
+    double step_s = 0.0;
+    std::vector<double> q_m3_s;
+    std::vector<double> rain_mm;   ///< incremental rainfall per step (for the hyetograph plot)
+    std::vector<double> excess_mm; ///< incremental rainfall excess per step
+};
+
+/// The peak flow of one method for one return period.
+struct Peak {
+    double return_period_yr = 0.0;
+    std::string method; ///< "rational", "tr55_graphical", "scs_unit_hydrograph"
+    double q_m3_s = 0.0;
+    /// The method's intermediates, SI with the unit in the key: "intensity_mm_per_h",
+    /// "runoff_depth_mm", "rainfall_depth_mm", "time_to_peak_min", "volume_m3", "c_cf", ...
+    std::map<std::string, double> intermediates;
+    std::optional<Hydrograph> hydrograph;
+};
+
+/// Everything about one design point.
+struct DesignPointResult {
+    std::string id;
+    std::pair<double, double> given_xy{0.0, 0.0};
+    std::pair<double, double> snapped_xy{0.0, 0.0};
+    double snap_distance_m = 0.0;
+    bool from_table = false; ///< catchment from a catchment table, not from the DEM
+    CatchmentFigures catchment;
+    LandWeighting land;
+    double tc_min = 0.0;
+    std::string tc_method;
+    std::vector<Peak> peaks;
+    /// The numbered calculation lines of this design point (ids "<id>-L<n>"), warnings
+    /// included, in the order they appear on the sheet.
+    CalcLines lines;
+    std::optional<MapData> map;
+};
+
+/// A published source the run used, for the references page.
+struct Reference {
+    std::string key;      ///< short form used in source lines, e.g. "TR-55 (1986)"
+    std::string citation; ///< full citation
+};
+
+struct RunResults {
+    ProjectInfo project;
+    Stamp stamp;
+    std::vector<DesignPointResult> points;
+    std::vector<Reference> references;
+    std::vector<std::string> caution_notes; ///< printed on the cover and in README
+};
+
+} // namespace catchpeak::report
