@@ -175,6 +175,27 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
                            sig(mm_to_sheet(out.value.depth_mm[peak], sheet_units)), sig(step_min)),
                mm_h_to_sheet(out.value.depth_mm[peak] / units::min_to_h(step_min), sheet_units),
                unit + "/h", source);
+    // Linear interpolation spreads the rain of one table interval evenly over the steps inside
+    // it: when the largest step lies inside an interval longer than a step, the peak intensity
+    // is that interval's average, lower than a finer table would give.
+    const auto hi = static_cast<std::size_t>(
+        std::upper_bound(d.hours.begin(), d.hours.end(), peak_start_h * (1.0 + 1e-12)) -
+        d.hours.begin());
+    if (hi > 0 && hi < d.hours.size()) {
+        const double h0 = d.hours[hi - 1];
+        const double h1 = d.hours[hi];
+        const double interval_min = units::h_to_min(h1 - h0);
+        if (peak_end_h <= h1 * (1.0 + 1e-12) && interval_min > step_min * (1.0 + 1e-9)) {
+            lines.warn("Peak averaged over a table interval",
+                       fmt::format("the largest step lies between the table's points at {} h "
+                                   "and {} h ({} min apart, {} min steps): the rain of that "
+                                   "interval is spread evenly over its steps, so the peak "
+                                   "intensity is the interval's average; a table with more "
+                                   "points near the peak would give a higher peak",
+                                   sig(h0), sig(h1), sig(interval_min), sig(step_min)),
+                       "linear interpolation of the storm table (property of the method)");
+        }
+    }
     return out;
 }
 

@@ -334,6 +334,20 @@ WithLines<double> Idf::intensity(double duration_min, double return_period_yr,
                              sheet_units);
 }
 
+WithLines<double> Idf::depth(double duration_min, double return_period_yr,
+                             units::System sheet_units) const {
+    auto out = intensity(duration_min, return_period_yr, sheet_units);
+    const bool us = sheet_units == units::System::us_customary;
+    const double i_sheet = us ? units::mm_per_h_to_in_per_h(out.value) : out.value;
+    out.value = out.value * units::min_to_h(duration_min);
+    out.lines.calc(
+        fmt::format("Rainfall depth, {} min, {} yr", sig(duration_min), sig(return_period_yr)),
+        "P = i t", fmt::format("P = {} x {} / 60", sig(i_sheet), sig(duration_min)),
+        us ? units::mm_to_in(out.value) : out.value, us ? "in" : "mm",
+        "depth from the intensity over the duration");
+    return out;
+}
+
 double Idf::intensity_mm_per_h(double duration_min, double return_period_yr) const {
     return intensity(duration_min, return_period_yr, units::System::si).value;
 }

@@ -98,7 +98,17 @@ TEST(StormHyetograph, SumsToTheDepthAndFollowsTheCurve) {
         }
     }
     // The steepest part (2 h to 3 h: 0.5 of P in 1 h) gives the largest step, 0.5 P / 4.
-    EXPECT_NEAR(r.lines.lines().back().value, 0.5 * p_mm, p_mm * rel_eps); // peak intensity mm/h
+    // Peak intensity line (mm/h), then the warning that it is the 2-3 h interval's average.
+    ASSERT_EQ(r.lines.warning_count(), 1U);
+    const auto &lines = r.lines.lines();
+    EXPECT_NEAR(lines[lines.size() - 2].value, 0.5 * p_mm, p_mm * rel_eps);
+    EXPECT_NE(lines.back().numbers.find("2.000 h and 3.000 h (60.00 min apart, 15.00 min steps)"),
+              std::string::npos)
+        << lines.back().numbers;
+}
+
+TEST(StormHyetograph, NoAveragingWarningWhenStepsMatchTheTable) {
+    const auto r = rain::storm_hyetograph(six_hour(), 80.0, 60.0, System::si);
     EXPECT_EQ(r.lines.warning_count(), 0U);
 }
 
@@ -106,9 +116,9 @@ TEST(StormHyetograph, UncheckedTableGivesAWarning) {
     auto d = six_hour();
     d.status = "from memory, not checked";
     const auto r = rain::storm_hyetograph(d, 50.0, 30.0, System::us_customary);
-    ASSERT_EQ(r.lines.warning_count(), 1U);
+    ASSERT_EQ(r.lines.warning_count(), 2U); // unchecked table; peak averaged over 2-3 h
     EXPECT_NE(r.lines.lines()[1].numbers.find("from memory, not checked"), std::string::npos);
-    EXPECT_EQ(r.lines.lines().back().unit, "in/h");
+    EXPECT_EQ(r.lines.lines()[r.lines.size() - 2].unit, "in/h");
 }
 
 TEST(StormHyetograph, ValidationMessages) {

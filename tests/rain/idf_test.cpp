@@ -214,3 +214,16 @@ TEST(IdfFormula, ValidationMessages) {
         EXPECT_NE(msg.find("2.000, 10.00 yr"), std::string::npos) << msg;
     }
 }
+
+TEST(Idf, DepthIsIntensityTimesDuration) {
+    const Idf idf(power_law_table());
+    const double i = 450.0 * std::pow(20.0, -0.6); // computed from the law
+    const auto si = idf.depth(20.0, 10.0, System::si);
+    EXPECT_NEAR(si.value, i * 20.0 / 60.0, i * rel_eps);
+    EXPECT_EQ(si.lines.lines().back().unit, "mm");
+    const auto us = idf.depth(20.0, 10.0, System::us_customary);
+    EXPECT_NEAR(us.value, si.value, si.value * rel_eps);
+    EXPECT_EQ(us.lines.lines().back().unit, "in");
+    EXPECT_NEAR(us.lines.lines().back().value, si.value / 25.4, si.value * rel_eps);
+    EXPECT_EQ(us.lines.size(), 2U); // the intensity line, then the depth line
+}

@@ -73,6 +73,12 @@ class Idf {
     [[nodiscard]] WithLines<double> intensity(double duration_min, double return_period_yr,
                                               units::System sheet_units) const;
 
+    /// Rainfall depth in mm for a duration and return period: P = i t, with the intensity's
+    /// lines followed by the depth line (in the sheet's units: mm, or in on a US customary
+    /// sheet). Throws what intensity() throws.
+    [[nodiscard]] WithLines<double> depth(double duration_min, double return_period_yr,
+                                          units::System sheet_units) const;
+
     /// intensity() without the lines, in mm/h.
     [[nodiscard]] double intensity_mm_per_h(double duration_min, double return_period_yr) const;
 
