@@ -10,11 +10,12 @@ namespace catchpeak::hydro {
 
 std::string TableOrigin::cite() const {
     std::string text = source.empty() ? std::string("table without source") : source;
-    if (!file.empty()) {
-        text += ", table " + file;
-    }
+    std::string detail = file.empty() ? std::string() : "table " + file;
     if (!status.empty()) {
-        text += " (" + status + ")";
+        detail += (detail.empty() ? "" : "; ") + status;
+    }
+    if (!detail.empty()) {
+        text += " [" + detail + "]";
     }
     return text;
 }

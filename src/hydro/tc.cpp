@@ -236,7 +236,7 @@ WithLines<double> channel_flow_tt_min(double manning_n, double flow_area_m2,
     const double r = a / pw;
     out.lines.calc("Hydraulic radius", "r = a / pw",
                    fmt::format("r = {} {}2 / {} {}", sig(a), lu, sig(pw), lu), r, lu,
-                   "TR-55 (1986) eq. 3-4");
+                   "TR-55 (1986) ch. 3");
     const double k = us ? 1.49 : 1.0;
     const double v = k / manning_n * std::pow(r, 2.0 / 3.0) * std::sqrt(slope_m_per_m);
     out.lines.calc("Velocity, channel flow (Manning)",
@@ -301,8 +301,7 @@ WithLines<double> sum_travel_times_min(const std::vector<double> &times_min, Sys
         terms += (terms.empty() ? "" : " + ") + sig(us ? units::min_to_h(t) : t);
     }
     out.lines.calc("Time of concentration, sum of travel times", "tc = sum of Tt", "tc = " + terms,
-                   us ? units::min_to_h(sum_min) : sum_min, us ? "h" : "min",
-                   "TR-55 (1986) ch. 3, eq. 3-5");
+                   us ? units::min_to_h(sum_min) : sum_min, us ? "h" : "min", "TR-55 (1986) ch. 3");
     out.value = sum_min;
     return out;
 }

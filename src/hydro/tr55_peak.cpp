@@ -18,6 +18,11 @@ constexpr const char *tr55_ch4 = "TR-55 (1986) ch. 4";
 
 double lerp(double a, double b, double w) { return a + w * (b - a); }
 
+/// A number for the numbers column, in parentheses when negative ("(-0.6151)").
+std::string num(double v, int digits = 4) {
+    return v < 0.0 ? "(" + sig(v, digits) + ")" : sig(v, digits);
+}
+
 } // namespace
 
 WithLines<Tr55Peak> tr55_peak(const PeakCoefficientTable &coefficients,
@@ -52,7 +57,7 @@ WithLines<Tr55Peak> tr55_peak(const PeakCoefficientTable &coefficients,
     }
 
     WithLines<Tr55Peak> out{};
-    const std::string coef_src = "TR-55 (1986) App. F coefficients: " + coefficients.origin.cite();
+    const std::string coef_src = coefficients.origin.cite();
     const bool us = system == System::us_customary;
     const double p = us ? units::mm_to_in(rainfall_mm) : rainfall_mm;
     const double ia = us ? units::mm_to_in(ia_mm) : ia_mm;
@@ -88,9 +93,9 @@ WithLines<Tr55Peak> tr55_peak(const PeakCoefficientTable &coefficients,
         out.lines.calc(fmt::format("Coefficient {}, {}, Ia/P = {}", name, type, sig(ratio)),
                        fmt::format("{} = {}a + (Ia/P - Ia/Pa) / (Ia/Pb - Ia/Pa) x ({}b - {}a)",
                                    name, name, name, name),
-                       fmt::format("{} = {} + ({} - {}) / ({} - {}) x ({} - {})", name, sig(a, 6),
+                       fmt::format("{} = {} + ({} - {}) / ({} - {}) x ({} - {})", name, num(a, 6),
                                    sig(ratio), sig(ra.ia_over_p), sig(rb.ia_over_p),
-                                   sig(ra.ia_over_p), sig(b, 6), sig(a, 6)),
+                                   sig(ra.ia_over_p), num(b, 6), num(a, 6)),
                        v, "", coef_src);
     };
     coef_line("C0", ra.c0, rb.c0, c0);
@@ -109,9 +114,9 @@ WithLines<Tr55Peak> tr55_peak(const PeakCoefficientTable &coefficients,
     const double lt = std::log10(tc_h);
     const double log_qu = c0 + c1 * lt + c2 * lt * lt;
     out.lines.calc("Unit peak discharge (log)", "log10(qu) = C0 + C1 log10(tc) + C2 (log10 tc)^2",
-                   fmt::format("log10(qu) = {} + {} x log10({}) + {} x (log10 {})^2", sig(c0, 6),
-                               sig(c1, 6), sig(tc_h), sig(c2, 6), sig(tc_h)),
-                   log_qu, "", "TR-55 (1986) App. F eq. F-1 (from memory)");
+                   fmt::format("log10(qu) = {} + {} x log10({}) + {} x (log10 {})^2", num(c0, 6),
+                               num(c1, 6), sig(tc_h), num(c2, 6), sig(tc_h)),
+                   log_qu, "", "TR-55 (1986) App. F (from memory)");
     const double qu = std::pow(10.0, log_qu);
     out.lines.calc("Unit peak discharge", "qu = 10^log10(qu)",
                    fmt::format("qu = 10^{}", sig(log_qu, 6)), qu, "ft3/s/mi2/in",
@@ -149,7 +154,7 @@ WithLines<Tr55Peak> tr55_peak(const PeakCoefficientTable &coefficients,
     }
     out.lines.calc("Pond and swamp adjustment factor",
                    fmt::format("Fp for {} % ponds and swamps", sig(pond_percent)), fp_how, fp, "",
-                   "TR-55 (1986) Table 4-2: " + pond_factors.origin.cite());
+                   pond_factors.origin.cite());
     out.value.fp = fp;
 
     double am_mi2 = units::m2_to_mi2(area_m2);

@@ -60,7 +60,7 @@ WithLines<Hydrograph> unit_hydrograph_from_excess(const DimensionlessUnitHydrogr
                           "at least 2 (t/tp, q/qp) pairs");
     }
     const bool us = system == System::us_customary;
-    const std::string table_src = std::string(neh16) + " Table 16-1: " + table.origin.cite();
+    const std::string table_src = table.origin.cite();
     WithLines<Hydrograph> out{};
 
     // Duration D: aggregate or split the hyetograph's steps so that D <= fraction x tc.
@@ -103,7 +103,7 @@ WithLines<Hydrograph> unit_hydrograph_from_excess(const DimensionlessUnitHydrogr
     const double tp_h = d_h / 2.0 + 0.6 * tc_h;
     out.lines.calc("Time to peak of the unit hydrograph", "tp = D/2 + 0.6 tc",
                    fmt::format("tp = {}/2 + 0.6 x {}", sig(d_h), sig(tc_h)), tp_h, "h",
-                   std::string(neh16) + " eq. 16-4 and lag = 0.6 tc");
+                   std::string(neh16) + ": tp = D/2 + L, lag L = 0.6 tc");
     if (d_h > 0.25 * tp_h * (1.0 + 1e-12)) {
         out.lines.warn("Unit hydrograph duration too long",
                        fmt::format("D = {} h exceeds 0.25 tp = {} h; the peak may be "
@@ -119,16 +119,15 @@ WithLines<Hydrograph> unit_hydrograph_from_excess(const DimensionlessUnitHydrogr
         qpu = 484.0 * a_mi2 / tp_h;
         out.lines.calc("Unit hydrograph peak per inch of runoff", "qp = 484 A Q / tp (Q = 1 in)",
                        fmt::format("qp = 484 x {} x 1 / {}", sig(a_mi2), sig(tp_h)), qpu,
-                       "ft3/s per in", std::string(neh16) + " eq. 16-13 (peak rate factor 484)");
+                       "ft3/s per in", std::string(neh16) + ", peak rate factor 484");
     } else {
         const double a_km2 = units::m2_to_km2(area_m2);
         qpu = 0.208 * a_km2 / tp_h;
-        out.lines.calc("Unit hydrograph peak per mm of runoff", "qp = 0.208 A Q / tp (Q = 1 mm)",
-                       fmt::format("qp = 0.208 x {} x 1 / {}", sig(a_km2), sig(tp_h)), qpu,
-                       "m3/s per mm",
-                       std::string(neh16) +
-                           " eq. 16-13, SI form 2.08 A Q / tp with Q in cm, i.e. 0.208 with Q "
-                           "in mm");
+        out.lines.calc(
+            "Unit hydrograph peak per mm of runoff", "qp = 0.208 A Q / tp (Q = 1 mm)",
+            fmt::format("qp = 0.208 x {} x 1 / {}", sig(a_km2), sig(tp_h)), qpu, "m3/s per mm",
+            std::string(neh16) + ", SI form 2.08 A Q / tp with Q in cm, i.e. 0.208 with Q "
+                                 "in mm");
     }
 
     // Unit hydrograph ordinates at steps of D, and the discrete convolution.

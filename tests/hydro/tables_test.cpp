@@ -42,7 +42,7 @@ TEST(DimensionlessUnitHydrograph, InterpolatesLinearly) {
 
 TEST(TableOrigin, CiteNamesSourceFileAndStatus) {
     h::TableOrigin o{"peaks.csv", "TR-55 (1986) App. F", "from memory, not checked"};
-    EXPECT_EQ(o.cite(), "TR-55 (1986) App. F, table peaks.csv (from memory, not checked)");
+    EXPECT_EQ(o.cite(), "TR-55 (1986) App. F [table peaks.csv; from memory, not checked]");
     EXPECT_EQ(h::TableOrigin{}.cite(), "table without source");
 }
 
