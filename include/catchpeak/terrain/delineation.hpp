@@ -50,9 +50,12 @@ struct DesignPointTerrain {
     double local_area_m2 = 0.0; ///< own part (equals area_m2 when no point lies upstream)
     /// Index (into TerrainResult::points) of the next design point downstream, if any.
     std::optional<std::size_t> downstream_point;
-    /// Indices of all design points inside this point's total catchment (nested upstream),
-    /// ascending; points sharing this point's cell are not listed.
+    /// Indices of the design points directly upstream (the next ones up each branch of the
+    /// nesting tree), ascending; points sharing this point's cell are not listed. All nested
+    /// points: follow upstream_points recursively (see all_upstream_points).
     std::vector<std::size_t> upstream_points;
+    /// Raster edge or nodata cells lie in the total catchment: it may extend beyond the DEM.
+    bool touches_dem_edge = false;
     FlowPath longest_flow_path;      ///< of the total catchment
     double mean_slope_m_per_m = 0.0; ///< Horn (1981) slope averaged over the total catchment
     std::vector<std::string> warnings;
@@ -80,5 +83,9 @@ struct TerrainResult {
 run_terrain(const Grid<float> &dem, const std::vector<DesignPoint> &points,
             const std::vector<BreachLine> &breach_lines, const TerrainSettings &settings,
             const ProgressFn &progress = {}, const std::string &where = "design points");
+
+/// Indices of all design points nested upstream of point `index` (recursively), ascending.
+[[nodiscard]] std::vector<std::size_t> all_upstream_points(const TerrainResult &result,
+                                                           std::size_t index);
 
 } // namespace catchpeak::terrain

@@ -31,14 +31,14 @@ struct FlowPath {
 /// Traces the longest flow path to `outlet` back upstream on `upstream_length_m` (from
 /// `accumulation_and_length`): at each cell, the upstream neighbour u maximising
 /// upstream_length(u) + step(u) (ties: lowest direction code) until a cell nothing drains into.
-/// Elevations come from `dem` (the unconditioned DEM); a nodata elevation on the path is
-/// bridged by the nearest valid ones along it.
+/// Elevations come from `dem` (the unconditioned DEM; every cell with a direction holds data).
 [[nodiscard]] FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
                                          const Grid<float> &upstream_length_m,
                                          const Grid<float> &dem, std::size_t outlet);
 
-/// Slope between the points at 10 % and 85 % of a path's length from its outlet: path cells
-/// from the top to the outlet with their elevations and step lengths. Exposed for tests.
+/// Slope between the points at 10 % and 85 % of a path's length from its outlet, from the
+/// path's vertices given by distance from the outlet (ascending, the outlet first at 0) and
+/// elevation; elevations interpolated linearly between vertices. Exposed for tests.
 struct Slope1085 {
     double slope_m_per_m = 0.0;
     double elevation_10_m = 0.0;

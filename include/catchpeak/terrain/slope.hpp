@@ -22,7 +22,7 @@ namespace catchpeak::terrain {
 [[nodiscard]] Grid<float> horn_slope_grid(const Grid<float> &dem, unsigned threads = 0);
 
 /// Sum and count of the Horn slope of the cells of each label (index k for label k; index 0 is
-/// the unlabelled cells). Sums are accumulated in fixed point (2^-32 m/m) so that the result
+/// the unlabelled cells). Sums are accumulated in fixed point (2^-24 m/m) so that the result
 /// is the same whatever the thread count and block order.
 struct SlopeSums {
     std::vector<double> sum_m_per_m;
