@@ -3,6 +3,7 @@
 
 #include "internal.hpp"
 
+#include <limits>
 #include <thread>
 
 namespace catchpeak::terrain {
@@ -58,24 +59,41 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                     }
                     double best = 0.0;
                     std::uint8_t best_k = d8::none;
+                    // Way out for a cell with no lower neighbour: an off-raster or nodata
+                    // neighbour, cardinal first, then the one opposite the highest neighbour
+                    // (water keeps its course), then the lowest code.
                     std::uint8_t out_k = d8::none;
+                    float out_score = 0.0F;
+                    const auto consider_out = [&](std::uint8_t k) {
+                        const long long oc = static_cast<long long>(c) - d8::dcol[k];
+                        const long long orow = static_cast<long long>(r) - d8::drow[k];
+                        float score = -std::numeric_limits<float>::infinity();
+                        if (dem.in_bounds(oc, orow)) {
+                            const float zo = dem[static_cast<std::size_t>(orow) * w +
+                                                 static_cast<std::size_t>(oc)];
+                            if (valid(zo)) {
+                                score = zo;
+                            }
+                        }
+                        const bool better =
+                            out_k == d8::none || (d8::is_diagonal(out_k) && !d8::is_diagonal(k)) ||
+                            (d8::is_diagonal(out_k) == d8::is_diagonal(k) && score > out_score);
+                        if (better) {
+                            out_k = k;
+                            out_score = score;
+                        }
+                    };
                     for (std::uint8_t k = 1; k <= 8; ++k) {
                         const long long nc = static_cast<long long>(c) + d8::dcol[k];
                         const long long nr = static_cast<long long>(r) + d8::drow[k];
                         if (!dem.in_bounds(nc, nr)) {
-                            if (out_k == d8::none ||
-                                (d8::is_diagonal(out_k) && !d8::is_diagonal(k))) {
-                                out_k = k;
-                            }
+                            consider_out(k);
                             continue;
                         }
                         const float zn =
                             dem[static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc)];
                         if (!valid(zn)) {
-                            if (out_k == d8::none ||
-                                (d8::is_diagonal(out_k) && !d8::is_diagonal(k))) {
-                                out_k = k;
-                            }
+                            consider_out(k);
                             continue;
                         }
                         if (zn < z) {

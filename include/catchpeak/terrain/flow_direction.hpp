@@ -52,8 +52,9 @@ inline constexpr std::size_t no_cell = static_cast<std::size_t>(-1);
 
 /// D8 directions of every cell of `dem` that has a strictly lower neighbour (drop / distance,
 /// the steepest wins; ties go to the lowest code). A valid cell with no lower valid neighbour
-/// that touches the raster edge or a nodata cell points out there (first such neighbour by
-/// code, cardinal before diagonal), so that edges drain. Every other cell (a flat or a pit) gets
+/// that touches the raster edge or a nodata cell points out there, so that edges drain: to a
+/// cardinal way out before a diagonal one, then to the one opposite its highest neighbour (water
+/// keeps its course), then to the lowest code. Every other cell (a flat or a pit) gets
 /// d8::none; `resolve_flats` deals with the flats of a filled DEM.
 /// Invalid cells (nodata, NaN) get d8::none.
 /// Computed by row blocks on `threads` threads (0 = all cores); the result does not depend on
