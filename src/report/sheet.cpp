@@ -278,6 +278,7 @@ class SheetWriter {
         set_rgb(cr(), color);
         cairo_move_to(cr(), x, y);
         pango_cairo_show_layout(cr(), l);
+        cairo_new_path(cr()); // no current point left behind for the next path
         return height_of(l);
     }
 
@@ -339,8 +340,7 @@ class SheetWriter {
         }
         for (std::size_t i = 0; i < cols.size() && i < row.cells.size(); ++i) {
             draw_text(x + cell_pad_pt, y_ + cell_pad_pt, row.cells[i].markup, row.cells[i].style,
-                      cols[i].width_pt - 2.0 * cell_pad_pt, black,
-                      header ? PANGO_ALIGN_LEFT : cols[i].align);
+                      cols[i].width_pt - 2.0 * cell_pad_pt, black, cols[i].align);
             x += cols[i].width_pt;
         }
         y_ += h;
@@ -363,7 +363,14 @@ class SheetWriter {
         for (const auto &row : rows) {
             heights.push_back(row_height(cols, row));
         }
-        ensure(head_h + (heights.empty() ? 0.0 : heights.front()));
+        // A short table is kept whole on one page; a long one starts with at least one row.
+        double total_h = head_h;
+        for (double h : heights) {
+            total_h += h;
+        }
+        ensure(total_h < 0.3 * (bottom_ - top_)
+                   ? total_h
+                   : head_h + (heights.empty() ? 0.0 : heights.front()));
         table_header(cols);
         for (std::size_t i = 0; i < rows.size(); ++i) {
             if (ensure(heights[i])) {
@@ -1241,6 +1248,7 @@ class SheetWriter {
         if (q_max > 0.0) {
             const double t_peak = static_cast<double>(k_max + 1) * step_min / t_div;
             const double px = tx(t_peak), py = qy(q_max);
+            cairo_new_path(c);
             cairo_arc(c, px, py, 2.2, 0.0, 2.0 * std::numbers::pi);
             set_rgb(c, path_rgb);
             cairo_fill(c);
@@ -1248,7 +1256,7 @@ class SheetWriter {
                                                sig(t_peak), hours ? "h" : "min"));
             const double tw = text_width(label, Style::tiny);
             const double lx = px + 5.0 + tw > right ? px - 5.0 - tw : px + 5.0;
-            draw_text(lx, py - 4.0, label, Style::tiny, -1.0, path_rgb);
+            draw_text(lx, py - 11.0, label, Style::tiny, -1.0, path_rgb);
         }
         // Key.
         double kx = left;
