@@ -312,8 +312,9 @@ class SheetWriter {
     double row_height(const std::vector<Column> &cols, const Row &row) const {
         double h = 0.0;
         for (std::size_t i = 0; i < cols.size() && i < row.cells.size(); ++i) {
+            const double right_gap = cols[i].align == PANGO_ALIGN_RIGHT ? 4.0 : 0.0;
             h = std::max(h, measure(row.cells[i].markup, row.cells[i].style,
-                                    cols[i].width_pt - 2.0 * cell_pad_pt));
+                                    cols[i].width_pt - 2.0 * cell_pad_pt - right_gap));
         }
         return h + 2.0 * cell_pad_pt;
     }
@@ -339,8 +340,10 @@ class SheetWriter {
             cairo_fill(cr());
         }
         for (std::size_t i = 0; i < cols.size() && i < row.cells.size(); ++i) {
+            // Right-aligned cells keep a wider gap to the next column.
+            const double right_gap = cols[i].align == PANGO_ALIGN_RIGHT ? 4.0 : 0.0;
             draw_text(x + cell_pad_pt, y_ + cell_pad_pt, row.cells[i].markup, row.cells[i].style,
-                      cols[i].width_pt - 2.0 * cell_pad_pt, black, cols[i].align);
+                      cols[i].width_pt - 2.0 * cell_pad_pt - right_gap, black, cols[i].align);
             x += cols[i].width_pt;
         }
         y_ += h;
