@@ -27,6 +27,7 @@ struct LayerFeature {
     geos::Geometry geom;
     std::string value; ///< class name, or the soil group as written
     SoilGroupReading soil;
+    double area_m2 = 0.0;
     bool repaired = false;
     std::string repair_reason;
 };
@@ -194,6 +195,7 @@ struct LandOverlay::Impl {
             lf.geom = std::move(read.geom);
             lf.repaired = read.repaired;
             lf.repair_reason = read.reason;
+            lf.area_m2 = area_of(ctx, lf.geom.get());
             if (lf.repaired) {
                 layer_warnings.warn("Invalid geometry made valid",
                                     fmt::format("{}: {} ({}); made valid", where,
@@ -402,73 +404,127 @@ CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wk
     const double tol_m2 = s.area_tolerance_share * out.area_m2;
     const auto prepared = geos::prepare(ctx, catchment);
 
-    auto land = im.cut(im.land, catchment, prepared.get());
+    // Soils first: few pieces, so their union (exact coverage and overlap check) is cheap.
     auto soil = im.cut(im.soils, catchment, prepared.get());
-    out.uncovered_land_cover_m2 =
-        im.settle_coverage(im.land, land, catchment, out.area_m2, tol_m2, label, warnings);
     out.uncovered_soils_m2 =
         im.settle_coverage(im.soils, soil, catchment, out.area_m2, tol_m2, label, warnings);
-
-    // Repaired layer polygons that reach into this catchment.
-    for (const auto *layer_pieces : {&land, &soil}) {
-        const Layer &layer = layer_pieces == &land ? im.land : im.soils;
-        for (const auto &p : *layer_pieces) {
-            if (p.feature != no_feature && layer.features[p.feature].repaired) {
-                const auto &f = layer.features[p.feature];
-                warnings.warn("Invalid layer polygon made valid",
-                              fmt::format("{}: feature {} was invalid ({}); made valid before the "
-                                          "overlay",
-                                          layer.source, f.fid, f.repair_reason),
-                              "GEOS MakeValid, structure method");
-            }
-        }
-    }
-
-    // Intersect land pieces with soil pieces; sum the areas per (class, soil group).
-    struct PartSum {
-        double area_m2 = 0.0;
-        std::int64_t first_fid = -1; ///< a land-cover feature of the class, for messages
-    };
-    std::map<std::pair<std::string, SoilGroup>, PartSum> sums;
-    std::set<std::string> duals;
     std::vector<geos::Prepared> soil_prepared;
     soil_prepared.reserve(soil.size());
     for (const auto &sp : soil) {
         soil_prepared.push_back(geos::prepare(ctx, sp.geom));
     }
-    for (const auto &lp : land) {
+
+    struct PartSum {
+        double area_m2 = 0.0;
+        std::int64_t first_fid = -1; ///< a land-cover feature of the class, for messages
+    };
+    std::map<std::pair<std::string, SoilGroup>, PartSum> sums;
+    std::set<std::size_t> land_used; ///< land-cover features found in the catchment
+    const auto add_part = [&](std::size_t land_feature, SoilGroup g, double a) {
+        const bool is_default = land_feature == no_feature;
         const std::string &cls =
-            lp.feature == no_feature ? s.default_class : im.land.features[lp.feature].value;
-        const std::int64_t fid = lp.feature == no_feature ? -1 : im.land.features[lp.feature].fid;
+            is_default ? s.default_class : im.land.features[land_feature].value;
+        auto &sum = sums[{cls, g}];
+        sum.area_m2 += a;
+        if (sum.first_fid < 0 && !is_default) {
+            sum.first_fid = im.land.features[land_feature].fid;
+        }
+        if (!is_default) {
+            land_used.insert(land_feature);
+        }
+    };
+    const auto group_of = [&](const Piece &sp) {
+        return sp.feature == no_feature ? im.default_soil.group
+                                        : im.soils.features[sp.feature].soil.group;
+    };
+    /// Area of a land polygon (or piece) inside soil piece k.
+    const auto area_in_soil = [&](std::size_t k, const GEOSGeometry *g, double g_area_m2,
+                                  bool properly) {
+        const bool inside =
+            properly ? GEOSPreparedContainsProperly_r(ctx.get(), soil_prepared[k].get(), g) == 1
+                     : GEOSPreparedContains_r(ctx.get(), soil_prepared[k].get(), g) == 1;
+        if (inside) {
+            return g_area_m2;
+        }
+        if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), g) != 1) {
+            return 0.0;
+        }
+        auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), soil[k].geom, g),
+                               "cannot intersect land cover with soils");
+        return area_of(ctx, inter.get());
+    };
+
+    // Fast path: every land-cover polygon against every soil piece (already cut to the
+    // catchment). If the land-cover layer covers the catchment once, the parts add up to the
+    // catchment's area; any difference (a gap or an overlap) sends us to the exact path.
+    bool exact = s.exact_coverage_check;
+    if (!exact) {
+        double sum_m2 = 0.0;
         for (std::size_t k = 0; k < soil.size(); ++k) {
-            const Piece &sp = soil[k];
-            if (lp.xmax < sp.xmin || sp.xmax < lp.xmin || lp.ymax < sp.ymin || sp.ymax < lp.ymin) {
-                continue;
-            }
-            double a = 0.0;
-            if (GEOSPreparedContains_r(ctx.get(), soil_prepared[k].get(), lp.geom) == 1) {
-                a = lp.area_m2;
-            } else if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), lp.geom) == 1) {
-                auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), lp.geom, sp.geom),
-                                       "cannot intersect land cover with soils");
-                a = area_of(ctx, inter.get());
-            }
-            if (a <= 0.0) {
-                continue;
-            }
-            SoilGroup g = im.default_soil.group;
-            if (sp.feature != no_feature) {
-                const auto &sf = im.soils.features[sp.feature];
-                g = sf.soil.group;
-                if (sf.soil.dual) {
-                    duals.insert(fmt::format("{} -> {}", sf.value, to_string(g)));
+            const SoilGroup g = group_of(soil[k]);
+            for (const std::size_t i : im.land.tree->query(soil[k].geom)) {
+                const auto &f = im.land.features[i];
+                const double a = area_in_soil(k, f.geom.get(), f.area_m2, true);
+                if (a > 0.0) {
+                    add_part(i, g, a);
+                    sum_m2 += a;
                 }
             }
-            auto &sum = sums[{cls, g}];
-            sum.area_m2 += a;
-            if (sum.first_fid < 0) {
-                sum.first_fid = fid;
+        }
+        exact = std::abs(sum_m2 - out.area_m2) > tol_m2;
+        if (exact) {
+            sums.clear();
+            land_used.clear();
+        }
+    }
+    // Exact path: cut the catchment by the land-cover layer, check coverage and overlaps with
+    // the union of the pieces (refusing, or giving the uncovered part the default class), then
+    // intersect the land pieces with the soil pieces.
+    if (exact) {
+        auto land = im.cut(im.land, catchment, prepared.get());
+        out.uncovered_land_cover_m2 =
+            im.settle_coverage(im.land, land, catchment, out.area_m2, tol_m2, label, warnings);
+        for (const auto &lp : land) {
+            for (std::size_t k = 0; k < soil.size(); ++k) {
+                const Piece &sp = soil[k];
+                if (lp.xmax < sp.xmin || sp.xmax < lp.xmin || lp.ymax < sp.ymin ||
+                    sp.ymax < lp.ymin) {
+                    continue;
+                }
+                const double a = area_in_soil(k, lp.geom, lp.area_m2, false);
+                if (a > 0.0) {
+                    add_part(lp.feature, group_of(sp), a);
+                }
             }
+        }
+    }
+
+    // Dual soil groups and repaired polygons that reach into this catchment.
+    std::set<std::string> duals;
+    for (const auto &sp : soil) {
+        if (sp.feature == no_feature) {
+            continue;
+        }
+        const auto &sf = im.soils.features[sp.feature];
+        if (sf.soil.dual) {
+            duals.insert(fmt::format("{} -> {}", sf.value, to_string(sf.soil.group)));
+        }
+        if (sf.repaired) {
+            warnings.warn("Invalid layer polygon made valid",
+                          fmt::format("{}: feature {} was invalid ({}); made valid before the "
+                                      "overlay",
+                                      im.soils.source, sf.fid, sf.repair_reason),
+                          "GEOS MakeValid, structure method");
+        }
+    }
+    for (const std::size_t i : land_used) {
+        const auto &f = im.land.features[i];
+        if (f.repaired) {
+            warnings.warn("Invalid layer polygon made valid",
+                          fmt::format("{}: feature {} was invalid ({}); made valid before the "
+                                      "overlay",
+                                      im.land.source, f.fid, f.repair_reason),
+                          "GEOS MakeValid, structure method");
         }
     }
 

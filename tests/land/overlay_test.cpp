@@ -234,18 +234,28 @@ TEST(LandOverlay, PartsAddUpToTheCatchmentForIrregularLayers) {
         return fs;
     };
     const double size = 220.0;
-    const LandOverlay overlay(land_layer(grid(22, size / 22, {"roof", "grass", "wood"}, "class")),
-                              soil_layer(grid(5, size / 5, {"A", "B", "C", "D", "B/D"}, "hsg")),
-                              test_tables(), OverlaySettings{});
-    const auto r = overlay.weight(
-        catchpeak::test::polygon_wkb(
-            {{{5, 7}, {150, 3}, {190, 80}, {120, 160}, {60, 120}, {20, 185}, {2, 90}}}),
-        "irregular", 0.03);
+    const auto land = land_layer(grid(22, size / 22, {"roof", "grass", "wood"}, "class"));
+    const auto soils = soil_layer(grid(5, size / 5, {"A", "B", "C", "D", "B/D"}, "hsg"));
+    const auto catchment = catchpeak::test::polygon_wkb(
+        {{{5, 7}, {150, 3}, {190, 80}, {120, 160}, {60, 120}, {20, 185}, {2, 90}}});
+    const LandOverlay overlay(land, soils, test_tables(), OverlaySettings{});
+    const auto r = overlay.weight(catchment, "irregular", 0.03);
     // Shoelace area of the catchment, computed by hand from its corners: 22844.5 m2.
     EXPECT_NEAR(r.area_m2, 22844.5, 22844.5 * rounding);
     EXPECT_NEAR(parts_sum(r), r.area_m2, r.area_m2 * 1e-9); // rounding of ~100 intersections
     EXPECT_GE(r.weighting.parts.size(), 6u);
     EXPECT_EQ(r.lines.warning_count(), 0u);
+    // The exact coverage check (catchment cut by the land-cover layer first, then by soils)
+    // gives the same parts, to the rounding of the intersections.
+    OverlaySettings exact;
+    exact.exact_coverage_check = true;
+    const auto e = LandOverlay(land, soils, test_tables(), exact).weight(catchment, "e", 0.03);
+    ASSERT_EQ(e.weighting.parts.size(), r.weighting.parts.size());
+    for (std::size_t i = 0; i < e.weighting.parts.size(); ++i) {
+        EXPECT_EQ(e.weighting.parts[i].land_class, r.weighting.parts[i].land_class);
+        EXPECT_EQ(e.weighting.parts[i].soil_group, r.weighting.parts[i].soil_group);
+        EXPECT_NEAR(e.weighting.parts[i].area_m2, r.weighting.parts[i].area_m2, r.area_m2 * 1e-9);
+    }
 }
 
 TEST(LandOverlay, NestedCatchmentsAreWeightedLocalAndTotal) {
@@ -319,11 +329,14 @@ TEST(LandOverlay, OverlappingPolygonsAreReportedWithTheirIds) {
     EXPECT_NE(msg.find("features 7 and 8 (1000 m2)"), std::string::npos) << msg;
     EXPECT_NE(msg.find("land.gpkg"), std::string::npos) << msg;
     EXPECT_EQ(msg.find("feature 9"), std::string::npos) << msg;
-    // A gap that would hide the overlap in a plain area balance: still found.
+    // A gap of the same area as the overlap hides it from the area balance; the exact
+    // coverage check still finds it.
+    OverlaySettings exact;
+    exact.exact_coverage_check = true;
     const LandOverlay hidden(land_layer({feature(1, rect_wkb(0, 0, 60, 100), "class", "roof"),
                                          feature(2, rect_wkb(50, 0, 90, 100), "class", "grass")}),
                              soil_layer({feature(1, rect_wkb(0, 0, 100, 100), "hsg", "B")}),
-                             test_tables(), OverlaySettings{});
+                             test_tables(), exact);
     const auto msg2 = message_of([&] { (void)hidden.weight(rect_wkb(0, 0, 100, 100), "DP6"); });
     EXPECT_NE(msg2.find("features 1 and 2"), std::string::npos) << msg2;
 }
