@@ -268,9 +268,10 @@ struct LandOverlay::Impl {
                          "cannot union the pieces of a layer");
     }
 
-    /// Pairs of pieces whose interiors overlap by more than `tol_m2`, for the message.
-    std::vector<std::string> overlapping_pairs(const Layer &layer, const std::vector<Piece> &pieces,
-                                               double tol_m2) const {
+    /// Pairs of pieces whose interiors overlap, for the message (every pair with a positive
+    /// overlap, so that many small overlaps that add up above the tolerance are all named).
+    std::vector<std::string> overlapping_pairs(const Layer &layer,
+                                               const std::vector<Piece> &pieces) const {
         std::vector<std::string> pairs;
         for (std::size_t i = 0; i < pieces.size(); ++i) {
             for (std::size_t j = i + 1; j < pieces.size(); ++j) {
@@ -282,7 +283,7 @@ struct LandOverlay::Impl {
                 auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), a.geom, b.geom),
                                        "cannot intersect two layer polygons");
                 const double area = area_of(ctx, inter.get());
-                if (area > tol_m2) {
+                if (area > 0.0) {
                     pairs.push_back(fmt::format("features {} and {} ({} m2)",
                                                 layer.features[a.feature].fid,
                                                 layer.features[b.feature].fid, sig(area)));
@@ -305,7 +306,7 @@ struct LandOverlay::Impl {
         const auto covered = union_of(pieces);
         const double covered_m2 = pieces.empty() ? 0.0 : area_of(ctx, covered.get());
         if (sum_m2 - covered_m2 > tol_m2) {
-            const auto pairs = overlapping_pairs(layer, pieces, tol_m2);
+            const auto pairs = overlapping_pairs(layer, pieces);
             throw_input_error(
                 layer.source,
                 fmt::format("polygons of the {} overlap inside catchment '{}' ({} m2 counted "

@@ -357,6 +357,17 @@ TEST(LandOverlay, InvalidGeometriesAreMadeValidWithAWarning) {
     EXPECT_NEAR(find_part(r, "roof", "C")->area_m2, 5000.0, 5000.0 * rounding);
     EXPECT_NEAR(find_part(r, "grass", "C")->area_m2, 5000.0, 5000.0 * rounding);
     EXPECT_TRUE(has_warning_containing(r.lines, "feature 3 was invalid"));
+    // A polygon that collapses to a line has no area left: it is kept out, with a warning.
+    const LandOverlay collapsed(
+        land_layer({feature(1, rect_wkb(0, 0, 100, 100), "class", "grass"),
+                    feature(2, catchpeak::test::polygon_wkb({{{0, 0}, {50, 50}, {100, 100}}}),
+                            "class", "roof")}),
+        soil_layer({feature(1, rect_wkb(0, 0, 100, 100), "hsg", "C")}), test_tables(),
+        OverlaySettings{});
+    EXPECT_EQ(collapsed.layer_warnings().warning_count(), 1u);
+    const auto c = collapsed.weight(rect_wkb(0, 0, 100, 100), "DP7b", 0.01);
+    ASSERT_EQ(c.weighting.parts.size(), 1u);
+    EXPECT_EQ(c.weighting.parts[0].land_class, "grass");
     // An invalid catchment is made valid too, with a warning.
     const auto bowtie = overlay.weight(
         catchpeak::test::polygon_wkb({{{0, 0}, {100, 100}, {100, 0}, {0, 100}}}), "DP8", 0.01);
