@@ -28,6 +28,7 @@ struct LayerFeature {
     std::string value; ///< class name, or the soil group as written
     SoilGroupReading soil;
     double area_m2 = 0.0;
+    double xmin = 0.0, ymin = 0.0, xmax = 0.0, ymax = 0.0; ///< envelope (all 0 when empty)
     bool repaired = false;
     std::string repair_reason;
 };
@@ -196,6 +197,12 @@ struct LandOverlay::Impl {
             lf.repaired = read.repaired;
             lf.repair_reason = read.reason;
             lf.area_m2 = area_of(ctx, lf.geom.get());
+            if (GEOSisEmpty_r(ctx.get(), lf.geom.get()) == 0) {
+                GEOSGeom_getXMin_r(ctx.get(), lf.geom.get(), &lf.xmin);
+                GEOSGeom_getYMin_r(ctx.get(), lf.geom.get(), &lf.ymin);
+                GEOSGeom_getXMax_r(ctx.get(), lf.geom.get(), &lf.xmax);
+                GEOSGeom_getYMax_r(ctx.get(), lf.geom.get(), &lf.ymax);
+            }
             if (lf.repaired) {
                 layer_warnings.warn("Invalid geometry made valid",
                                     fmt::format("{}: {} ({}); made valid", where,
@@ -438,12 +445,9 @@ CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wk
         return sp.feature == no_feature ? im.default_soil.group
                                         : im.soils.features[sp.feature].soil.group;
     };
-    /// Area of a land polygon (or piece) inside soil piece k.
-    const auto area_in_soil = [&](std::size_t k, const GEOSGeometry *g, double g_area_m2,
-                                  bool properly) {
-        const bool inside =
-            properly ? GEOSPreparedContainsProperly_r(ctx.get(), soil_prepared[k].get(), g) == 1
-                     : GEOSPreparedContains_r(ctx.get(), soil_prepared[k].get(), g) == 1;
+    /// Area of a land-cover piece inside soil piece k.
+    const auto area_in_soil = [&](std::size_t k, const GEOSGeometry *g, double g_area_m2) {
+        const bool inside = GEOSPreparedContains_r(ctx.get(), soil_prepared[k].get(), g) == 1;
         if (inside) {
             return g_area_m2;
         }
@@ -461,14 +465,54 @@ CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wk
     bool exact = s.exact_coverage_check;
     if (!exact) {
         double sum_m2 = 0.0;
-        for (std::size_t k = 0; k < soil.size(); ++k) {
-            const SoilGroup g = group_of(soil[k]);
-            for (const std::size_t i : im.land.tree->query(soil[k].geom)) {
-                const auto &f = im.land.features[i];
-                const double a = area_in_soil(k, f.geom.get(), f.area_m2, true);
+        std::vector<std::size_t> crossing; // soil pieces a land-cover polygon reaches into
+        for (const std::size_t i : im.land.tree->query(catchment)) {
+            const auto &f = im.land.features[i];
+            const GEOSGeometry *fg = f.geom.get();
+            if (f.area_m2 <= 0.0 || GEOSPreparedIntersects_r(ctx.get(), prepared.get(), fg) != 1) {
+                continue;
+            }
+            const bool inside = GEOSPreparedContainsProperly_r(ctx.get(), prepared.get(), fg) == 1;
+            crossing.clear();
+            bool whole = false;
+            for (std::size_t k = 0; k < soil.size() && !whole; ++k) {
+                const Piece &sp = soil[k];
+                if (f.xmax < sp.xmin || sp.xmax < f.xmin || f.ymax < sp.ymin || sp.ymax < f.ymin) {
+                    continue;
+                }
+                if (GEOSPreparedContainsProperly_r(ctx.get(), soil_prepared[k].get(), fg) == 1) {
+                    add_part(i, group_of(sp), f.area_m2);
+                    sum_m2 += f.area_m2;
+                    whole = true;
+                } else if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), fg) == 1) {
+                    crossing.push_back(k);
+                }
+            }
+            if (whole) {
+                continue;
+            }
+            double done_m2 = 0.0;
+            for (std::size_t j = 0; j < crossing.size(); ++j) {
+                const std::size_t k = crossing[j];
+                double a = 0.0;
+                if (inside && j + 1 == crossing.size()) {
+                    // A polygon inside the catchment is covered once by the soil pieces (their
+                    // coverage was settled above): the last piece holds the rest of its area.
+                    // A rest within the rounding of the subtraction (1e-12 of the polygon's
+                    // area) is a piece that only touches the polygon.
+                    a = f.area_m2 - done_m2;
+                    if (a <= std::max(tol_m2, 1e-12 * f.area_m2)) {
+                        a = 0.0;
+                    }
+                } else {
+                    auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), soil[k].geom, fg),
+                                           "cannot intersect land cover with soils");
+                    a = area_of(ctx, inter.get());
+                }
                 if (a > 0.0) {
-                    add_part(i, g, a);
+                    add_part(i, group_of(soil[k]), a);
                     sum_m2 += a;
+                    done_m2 += a;
                 }
             }
         }
@@ -492,7 +536,7 @@ CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wk
                     sp.ymax < lp.ymin) {
                     continue;
                 }
-                const double a = area_in_soil(k, lp.geom, lp.area_m2, false);
+                const double a = area_in_soil(k, lp.geom, lp.area_m2);
                 if (a > 0.0) {
                     add_part(lp.feature, group_of(sp), a);
                 }

@@ -134,6 +134,46 @@ TEST(LandOverlay, SquareSplitByTwoLayersGivesExactParts) {
     EXPECT_EQ(r.lines.warning_count(), 0u);
 }
 
+TEST(LandOverlay, PolygonTouchingASoilBoundaryGetsNoSliver) {
+    // Roof 20..50 x 20..80 lies inside the catchment and ends exactly on the soil boundary
+    // x = 50: all of its 1800 m2 is on soil A, nothing on soil B.
+    const LandOverlay overlay(land_layer({feature(1, rect_wkb(0, 0, 100, 100), "class", "grass"),
+                                          feature(2, rect_wkb(20, 20, 50, 80), "class", "roof")}),
+                              soil_layer({feature(1, rect_wkb(0, 0, 50, 100), "hsg", "A"),
+                                          feature(2, rect_wkb(50, 0, 100, 100), "hsg", "B")}),
+                              test_tables(), OverlaySettings{});
+    // The test layers overlap (roof on grass): refused, naming both.
+    const auto msg = message_of([&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP"); });
+    EXPECT_NE(msg.find("features 1 and 2 (1800 m2)"), std::string::npos) << msg;
+    const LandOverlay clean(land_layer({feature(1, rect_wkb(0, 0, 20, 100), "class", "grass"),
+                                        feature(2, rect_wkb(20, 0, 50, 100), "class", "roof"),
+                                        feature(3, rect_wkb(50, 0, 100, 100), "class", "grass")}),
+                            soil_layer({feature(1, rect_wkb(-10, -10, 50, 110), "hsg", "A"),
+                                        feature(2, rect_wkb(50, -10, 110, 110), "hsg", "B")}),
+                            test_tables(), OverlaySettings{});
+    // Catchment 10..90 x 10..90: roof lies across it, touching soil B only along x = 50.
+    const auto r = clean.weight(rect_wkb(10, 10, 90, 90), "DP", 0.01);
+    ASSERT_EQ(r.weighting.parts.size(), 3u);
+    EXPECT_EQ(find_part(r, "roof", "B"), nullptr);
+    EXPECT_NEAR(find_part(r, "roof", "A")->area_m2, 2400.0, 2400.0 * rounding);  // 30 x 80
+    EXPECT_NEAR(find_part(r, "grass", "A")->area_m2, 800.0, 800.0 * rounding);   // 10 x 80
+    EXPECT_NEAR(find_part(r, "grass", "B")->area_m2, 3200.0, 3200.0 * rounding); // 40 x 80
+    // A land polygon inside the catchment touching the soil boundary.
+    const LandOverlay inner(land_layer({feature(1, rect_wkb(0, 0, 30, 100), "class", "grass"),
+                                        feature(2, rect_wkb(30, 30, 50, 70), "class", "roof"),
+                                        feature(3, rect_wkb(30, 0, 50, 30), "class", "grass"),
+                                        feature(4, rect_wkb(30, 70, 50, 100), "class", "grass"),
+                                        feature(5, rect_wkb(50, 0, 100, 100), "class", "grass")}),
+                            soil_layer({feature(1, rect_wkb(-10, -10, 50, 110), "hsg", "A"),
+                                        feature(2, rect_wkb(50, -10, 110, 110), "hsg", "B")}),
+                            test_tables(), OverlaySettings{});
+    const auto q = inner.weight(rect_wkb(0, 0, 100, 100), "DP", 0.01);
+    EXPECT_EQ(find_part(q, "roof", "B"), nullptr);
+    EXPECT_NEAR(find_part(q, "roof", "A")->area_m2, 800.0, 800.0 * rounding); // 20 x 40
+    EXPECT_NEAR(find_part(q, "grass", "A")->area_m2, 4200.0, 4200.0 * rounding);
+    EXPECT_NEAR(find_part(q, "grass", "B")->area_m2, 5000.0, 5000.0 * rounding);
+}
+
 TEST(LandOverlay, TriangleAgainstTwoClasses) {
     // Catchment: the triangle (0,0), (100,0), (0,100), area 5000 m2. Land cover split at
     // x = 50: the part x < 50 has area 50 x 100 - 50 x 50 / 2 = 3750 m2, the rest 1250 m2.
