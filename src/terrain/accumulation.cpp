@@ -2,9 +2,11 @@
 #include "catchpeak/terrain/accumulation.hpp"
 
 #include "catchpeak/terrain/flow_direction.hpp"
+#include "internal.hpp"
 
 #include <algorithm>
 #include <array>
+#include <type_traits>
 
 namespace catchpeak::terrain {
 
@@ -62,10 +64,23 @@ Grid<std::uint32_t> flow_accumulation(const Grid<std::uint8_t> &dirs) {
 
 AccumulationAndLength accumulation_and_length(const Grid<std::uint8_t> &dirs) {
     AccumulationAndLength out;
-    out.accumulation = Grid<std::uint32_t>(dirs.width(), dirs.height(), 0);
-    out.accumulation.copy_georef_from(dirs);
-    out.upstream_length_m = Grid<float>(dirs.width(), dirs.height(), 0.0F);
-    out.upstream_length_m.copy_georef_from(dirs);
+    detail::accumulation_and_length_into(dirs, out);
+    return out;
+}
+
+void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
+                                          AccumulationAndLength &out) {
+    const auto reset = [&](auto &g, auto zero) {
+        if (g.width() != dirs.width() || g.height() != dirs.height()) {
+            g = std::remove_reference_t<decltype(g)>(dirs.width(), dirs.height(), zero);
+        } else {
+            std::fill(g.cells().begin(), g.cells().end(), zero);
+        }
+        g.copy_georef_from(dirs);
+        g.nodata.reset();
+    };
+    reset(out.accumulation, std::uint32_t{0});
+    reset(out.upstream_length_m, 0.0F);
     auto &acc = out.accumulation;
     auto &len = out.upstream_length_m;
     const double dx = dirs.transform.cell_dx();
@@ -85,7 +100,6 @@ AccumulationAndLength accumulation_and_length(const Grid<std::uint8_t> &dirs) {
             len[d] = std::max(len[d], len[i] + step[k]);
         }
     });
-    return out;
 }
 
 } // namespace catchpeak::terrain

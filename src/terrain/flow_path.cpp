@@ -111,11 +111,20 @@ FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &le
     path.elevation_10_m = s.elevation_10_m;
     path.elevation_85_m = s.elevation_85_m;
     std::reverse(cells.begin(), cells.end());
-    path.vertices_xy.reserve(cells.size());
-    for (const std::size_t i : cells) {
+    // Keep the first and last cell and those where the D8 direction changes: the cells left
+    // out lie on straight runs between kept ones, so the polyline is the same.
+    std::vector<std::size_t> kept;
+    for (std::size_t k = 0; k < cells.size(); ++k) {
+        if (k == 0 || k + 1 == cells.size() || dirs[cells[k]] != dirs[cells[k - 1]]) {
+            kept.push_back(cells[k]);
+        }
+    }
+    path.cell_count = cells.size();
+    path.vertices_xy.reserve(kept.size());
+    for (const std::size_t i : kept) {
         path.vertices_xy.push_back(dirs.transform.cell_centre(i % w, i / w));
     }
-    path.cells = std::move(cells);
+    path.cells = std::move(kept);
     return path;
 }
 

@@ -58,7 +58,11 @@ TEST(FlowPath, VValleyLengthWithinTheD8FactorAndExactHOverL) {
     ASSERT_EQ(p.cells.front() / w, 0U); // the remotest cell is on the top row ...
     EXPECT_TRUE(p.cells.front() % w == 0 || p.cells.front() % w == w - 1); // ... in a corner
     EXPECT_EQ(p.cells.back(), outlet);
-    EXPECT_EQ(p.vertices_xy.size(), 80U);
+    // 80 cells; as a polyline only the corner, the turn onto the channel and the outlet.
+    EXPECT_EQ(p.cell_count, 80U);
+    ASSERT_EQ(p.vertices_xy.size(), 3U);
+    EXPECT_DOUBLE_EQ(p.vertices_xy[1].first, 1205.0);
+    EXPECT_DOUBLE_EQ(p.vertices_xy[1].second, 4995.0);
     EXPECT_DOUBLE_EQ(p.vertices_xy.back().first, 1205.0);
     EXPECT_DOUBLE_EQ(p.vertices_xy.back().second, 5000.0 - 595.0);
 
@@ -89,11 +93,11 @@ TEST(FlowPath, LongestPathUsesTheUnconditionedElevations) {
     const std::size_t outlet = dem.index(20, 10);
     const FlowPath p = longest_flow_path(dirs, al.upstream_length_m, dem, outlet);
     EXPECT_DOUBLE_EQ(p.elevation_outlet_m, static_cast<double>(dem[outlet]));
-    bool passes_pit = false;
-    for (const std::size_t i : p.cells) {
-        passes_pit = passes_pit || i == dem.index(20, 5);
-    }
-    EXPECT_TRUE(passes_pit);
+    // The path runs down the channel through the filled pit: its polyline turns onto the
+    // channel at the top row and goes straight to the outlet, 10 rows down.
+    ASSERT_EQ(p.vertices_xy.size(), 3U);
+    EXPECT_DOUBLE_EQ(p.vertices_xy[1].first, 1205.0);
+    EXPECT_EQ(p.cell_count, 31U);
     EXPECT_DOUBLE_EQ(p.elevation_top_m, a * 20.0 + b * 59.0);
 }
 
