@@ -6,7 +6,9 @@
 #include "internal.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
+#include <cstddef>
 #include <deque>
 #include <functional>
 #include <limits>
@@ -65,22 +67,44 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         return static_cast<std::size_t>(i);
     };
 
-    // Seeds: valid cells on the raster edge or next to a nodata cell.
+    // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the raster's
+    // outer ring, whose neighbours need bounds checks; the others use index offsets.
+    constexpr std::uint8_t edge_flag = 2;
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        marks[i] = valid(dem[i]) ? 0 : closed_flag;
+    }
+    for (std::size_t c = 0; c < w; ++c) {
+        marks[c] |= edge_flag;
+        marks[(h - 1) * w + c] |= edge_flag;
+    }
     for (std::size_t r = 0; r < h; ++r) {
-        for (std::size_t c = 0; c < w; ++c) {
-            const std::size_t i = r * w + c;
-            if (!valid(dem[i])) {
-                continue;
-            }
-            bool edge = (r == 0 || c == 0 || r + 1 == h || c + 1 == w);
-            for (std::uint8_t k = 1; k <= 8 && !edge; ++k) {
-                const std::size_t n = neighbour(w, h, c, r, k);
-                edge = (n == no_cell || !valid(dem[n]));
-            }
-            if (edge) {
-                marks[i] = closed_flag;
-                open.push({dem[i], static_cast<Index>(i)});
-            }
+        marks[r * w] |= edge_flag;
+        marks[r * w + w - 1] |= edge_flag;
+    }
+    std::array<std::ptrdiff_t, 9> offset{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        offset[k] =
+            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
+    }
+    const auto neighbour_of = [&](std::size_t i, std::uint8_t k) {
+        if ((marks[i] & edge_flag) == 0) {
+            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset[k]);
+        }
+        return neighbour(w, h, i % w, i / w, k);
+    };
+
+    // Seeds: valid cells on the raster edge or next to a nodata cell.
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        if ((marks[i] & closed_flag) != 0) {
+            continue;
+        }
+        bool edge = (marks[i] & edge_flag) != 0;
+        for (std::uint8_t k = 1; k <= 8 && !edge; ++k) {
+            edge = !valid(dem[neighbour_of(i, k)]);
+        }
+        if (edge) {
+            marks[i] |= closed_flag;
+            open.push({dem[i], static_cast<Index>(i)});
         }
     }
     while (true) {
@@ -97,22 +121,20 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         } else {
             break;
         }
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
         const float z = dem[i];
         bool waits = false;
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
-            if (n == no_cell || marks[n] != 0 || !valid(dem[n])) {
+            const std::size_t n = neighbour_of(i, k);
+            if (n == no_cell || (marks[n] & closed_flag) != 0) {
                 continue;
             }
             if (dem[n] > z) {
-                marks[n] = closed_flag;
+                marks[n] |= closed_flag;
                 trace.push_back(static_cast<Index>(n));
             } else if (traced) {
                 waits = true; // leave it for the priority queue
             } else {
-                marks[n] = closed_flag;
+                marks[n] |= closed_flag;
                 dem[n] = z;
                 pit.push_back(static_cast<Index>(n));
             }
@@ -227,6 +249,15 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     if (!any_flat) {
         return;
     }
+    // Flat cells are found again by scanning for flat_flag (a byte test), rather than kept in
+    // a list that could hold most of the grid.
+    const auto for_each_flat = [&](auto body) {
+        for (std::size_t i = 0; i < dem.size(); ++i) {
+            if ((dirs[i] & flat_flag) != 0) {
+                body(i);
+            }
+        }
+    };
     // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
     // with a bias of 2^31 so that unsigned comparisons order it like the signed value.
     constexpr std::int64_t bias = std::int64_t{1} << 31;
@@ -235,10 +266,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     } else {
         std::fill(mask.cells().begin(), mask.cells().end(), 0U);
     }
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if (dirs[i] != flat_flag) {
-            continue;
-        }
+    for_each_flat([&](std::size_t i) {
         const std::size_t c = i % w;
         const std::size_t r = i / w;
         for (std::uint8_t k = 1; k <= 8; ++k) {
@@ -249,7 +277,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                 break;
             }
         }
-    }
+    });
     // Gradient away from higher terrain: BFS distance from the high edges (1 at the edge),
     // within each flat (equal elevation, flat cells). 0 where a flat has no higher edge.
     std::vector<std::size_t> next;
@@ -273,21 +301,23 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     // "highest away value of the flat" of Barnes et al. cancels when cells of one flat are
     // compared, so it is left out.
     constexpr std::uint8_t visited_flag = 0x20;
+    // Low edges are found from the flat cells (far fewer than all cells, usually), marked with
+    // low_edge_flag so that each is listed once.
+    constexpr std::uint8_t low_edge_flag = 0x80;
     frontier.clear();
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if (dirs[i] == d8::none || (dirs[i] & flat_flag) != 0) {
-            continue;
-        }
+    for_each_flat([&](std::size_t i) {
         const std::size_t c = i % w;
         const std::size_t r = i / w;
         for (std::uint8_t k = 1; k <= 8; ++k) {
             const std::size_t n = neighbour(w, h, c, r, k);
-            if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
-                frontier.push_back(i);
-                break;
+            if (n != no_cell && dirs[n] != d8::none &&
+                (dirs[n] & (flat_flag | low_edge_flag)) == 0 && dem[n] == dem[i]) {
+                dirs[n] |= low_edge_flag;
+                frontier.push_back(n);
             }
         }
-    }
+    });
+    std::sort(frontier.begin(), frontier.end()); // the same order whatever the scan found first
     std::int64_t t = 0;
     while (!frontier.empty()) {
         ++t;
@@ -308,11 +338,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     }
     // Directions of flat cells: to a low edge when one is adjacent, otherwise to the flat
     // neighbour of smallest combined value below the cell's own.
-    std::vector<std::uint8_t> chosen_codes;
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if ((dirs[i] & flat_flag) == 0) {
-            continue;
-        }
+    for_each_flat([&](std::size_t i) {
         if ((dirs[i] & visited_flag) == 0) {
             throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
         }
@@ -340,7 +366,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
         }
         dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
-    }
+    });
     for (auto &d : dirs.cells()) {
         d = static_cast<std::uint8_t>(d & code_mask);
     }
