@@ -168,9 +168,10 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     report("longest flow paths", 0.65);
     std::vector<FlowPath> paths(outlets.size());
     for (std::size_t k = 0; k < outlets.size(); ++k) {
-        paths[k] = longest_flow_path(dirs, al.upstream_length_m, dem, outlets[k]);
+        paths[k] = longest_flow_path(dirs, al.longest_upstream, dem, outlets[k]);
     }
     al.upstream_length_m = Grid<float>();
+    al.longest_upstream = Grid<std::uint8_t>();
 
     report("catchments", 0.75);
     detail::delineate_catchments_into(dirs, outlets, c);

@@ -46,51 +46,15 @@ Slope1085 slope_10_85(const std::vector<double> &distance_from_outlet_m,
     return out;
 }
 
-FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &len,
-                           const Grid<float> &dem, std::size_t outlet) {
+namespace {
+
+/// Builds the FlowPath from its cells, listed from the outlet up to the top.
+FlowPath finish_path(const Grid<std::uint8_t> &dirs, const Grid<float> &dem,
+                     std::vector<std::size_t> cells) {
     const std::size_t w = dirs.width();
     const double dx = dirs.transform.cell_dx();
     const double dy = dirs.transform.cell_dy();
-    std::array<float, 9> step{};
-    for (std::uint8_t k = 1; k <= 8; ++k) {
-        step[k] = static_cast<float>(step_length_m(k, dx, dy));
-    }
-    if (outlet >= dirs.size() || dirs[outlet] == d8::none) {
-        throw InternalError("longest_flow_path: outlet is not a valid cell");
-    }
     FlowPath path;
-    std::vector<std::size_t> cells{outlet};
-    std::size_t cur = outlet;
-    while (true) {
-        const long long c = static_cast<long long>(cur % w);
-        const long long r = static_cast<long long>(cur / w);
-        std::size_t best = no_cell;
-        float best_len = -1.0F;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const long long nc = c + d8::dcol[k];
-            const long long nr = r + d8::drow[k];
-            if (!dirs.in_bounds(nc, nr)) {
-                continue;
-            }
-            const std::size_t n = static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
-            if (dirs[n] != d8::opposite[k]) {
-                continue;
-            }
-            const float cand = len[n] + step[dirs[n]];
-            if (cand > best_len) {
-                best_len = cand;
-                best = n;
-            }
-        }
-        if (best == no_cell) {
-            break;
-        }
-        cells.push_back(best);
-        cur = best;
-        if (cells.size() > dirs.size()) {
-            throw InternalError("longest_flow_path: the directions contain a cycle");
-        }
-    }
     // cells runs outlet -> top here.
     std::vector<double> dist(cells.size(), 0.0);
     std::vector<double> z(cells.size(), 0.0);
@@ -126,6 +90,77 @@ FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &le
     }
     path.cells = std::move(kept);
     return path;
+}
+
+} // namespace
+
+FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &len,
+                           const Grid<float> &dem, std::size_t outlet) {
+    const std::size_t w = dirs.width();
+    const double dx = dirs.transform.cell_dx();
+    const double dy = dirs.transform.cell_dy();
+    std::array<float, 9> step{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        step[k] = static_cast<float>(step_length_m(k, dx, dy));
+    }
+    if (outlet >= dirs.size() || dirs[outlet] == d8::none) {
+        throw InternalError("longest_flow_path: outlet is not a valid cell");
+    }
+    std::vector<std::size_t> cells{outlet};
+    std::size_t cur = outlet;
+    while (true) {
+        const long long c = static_cast<long long>(cur % w);
+        const long long r = static_cast<long long>(cur / w);
+        std::size_t best = no_cell;
+        float best_len = -1.0F;
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const long long nc = c + d8::dcol[k];
+            const long long nr = r + d8::drow[k];
+            if (!dirs.in_bounds(nc, nr)) {
+                continue;
+            }
+            const std::size_t n = static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
+            if (dirs[n] != d8::opposite[k]) {
+                continue;
+            }
+            const float cand = len[n] + step[dirs[n]];
+            if (cand > best_len) {
+                best_len = cand;
+                best = n;
+            }
+        }
+        if (best == no_cell) {
+            break;
+        }
+        cells.push_back(best);
+        cur = best;
+        if (cells.size() > dirs.size()) {
+            throw InternalError("longest_flow_path: the directions contain a cycle");
+        }
+    }
+    return finish_path(dirs, dem, std::move(cells));
+}
+
+FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
+                           const Grid<std::uint8_t> &longest_upstream, const Grid<float> &dem,
+                           std::size_t outlet) {
+    if (outlet >= dirs.size() || dirs[outlet] == d8::none) {
+        throw InternalError("longest_flow_path: outlet is not a valid cell");
+    }
+    const std::size_t w = dirs.width();
+    std::vector<std::size_t> cells{outlet};
+    std::size_t cur = outlet;
+    while (longest_upstream[cur] != d8::none) {
+        const std::uint8_t k = longest_upstream[cur];
+        const long long col = static_cast<long long>(cur % w) + d8::dcol[k];
+        const long long row = static_cast<long long>(cur / w) + d8::drow[k];
+        cur = static_cast<std::size_t>(row) * w + static_cast<std::size_t>(col);
+        cells.push_back(cur);
+        if (cells.size() > dirs.size()) {
+            throw InternalError("longest_flow_path: the directions contain a cycle");
+        }
+    }
+    return finish_path(dirs, dem, std::move(cells));
 }
 
 } // namespace catchpeak::terrain

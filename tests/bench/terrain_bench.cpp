@@ -78,12 +78,17 @@ int generate(const std::string &path, std::size_t cells) {
         const double y = static_cast<double>(r);
         for (std::size_t c = 0; c < side; ++c) {
             const double x = static_cast<double>(c);
-            // Valleys: ridges and troughs across a surface falling to the south and east,
-            // a little noise (pits), flat terraces where the surface is rounded to 2 m,
-            // and a nodata hole.
+            // Valleys: ridges and troughs across a surface falling to the south and east (the
+            // troughs hold closed basins that the fill turns into lakes), 0.3 m of noise (small
+            // pits everywhere), single-cell pits 3 m deep (one cell in 2000), flat terraces where
+            // the surface is rounded to 2 m, and a nodata hole.
             double z = 0.04 * (s - y) + 0.02 * (s - x);
             z += 25.0 * std::sin(x / 90.0) * std::cos(y / 130.0) + 6.0 * std::sin((x + y) / 31.0);
-            z += static_cast<double>(rng() % 1000U) / 1000.0 * 1.5;
+            const std::uint32_t u = static_cast<std::uint32_t>(rng());
+            z += static_cast<double>(u % 1000U) / 1000.0 * 0.3;
+            if ((u >> 10) % 2000U == 0) {
+                z -= 3.0;
+            }
             if (((c / 256) + (r / 256)) % 5 == 0) {
                 z = 2.0 * std::floor(z / 2.0);
             }

@@ -114,3 +114,23 @@ TEST(FlowPath, Slope1085OnAStraightProfile) {
     EXPECT_NEAR(s.elevation_10_m, 2.0 + 0.05 * 14.0, 1e-12);
     EXPECT_NEAR(s.elevation_85_m, 2.0 + 0.05 * 119.0, 1e-12);
 }
+
+TEST(FlowPath, TracingByStoredCodesEqualsTracingBySearchOnRandomDems) {
+    for (const unsigned seed : {101U, 102U}) {
+        const auto dem = test::random_dem(90, 80, seed);
+        const auto dirs = conditioned_directions(dem, {}, 1);
+        const auto al = accumulation_and_length(dirs);
+        for (std::size_t i = 0; i < dirs.size(); i += 13) {
+            if (dirs[i] == d8::none) {
+                continue;
+            }
+            const FlowPath a = longest_flow_path(dirs, al.upstream_length_m, dem, i);
+            const FlowPath b = longest_flow_path(dirs, al.longest_upstream, dem, i);
+            ASSERT_EQ(a.cells, b.cells) << "seed " << seed << " outlet " << i;
+            EXPECT_EQ(a.length_m, b.length_m);
+            // The path length equals the stored upstream length (float storage: 1e-6 relative).
+            EXPECT_NEAR(a.length_m, static_cast<double>(al.upstream_length_m[i]),
+                        1e-5 * (1.0 + a.length_m));
+        }
+    }
+}

@@ -38,6 +38,11 @@ struct FlowPath {
 [[nodiscard]] FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
                                          const Grid<float> &upstream_length_m,
                                          const Grid<float> &dem, std::size_t outlet);
+/// The same path traced on AccumulationAndLength::longest_upstream (one step per cell, no
+/// search; the result is identical).
+[[nodiscard]] FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
+                                         const Grid<std::uint8_t> &longest_upstream,
+                                         const Grid<float> &dem, std::size_t outlet);
 
 /// Slope between the points at 10 % and 85 % of a path's length from its outlet, from the
 /// path's vertices given by distance from the outlet (ascending, the outlet first at 0) and
