@@ -234,6 +234,18 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
+    std::array<std::ptrdiff_t, 9> offset{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        offset[k] =
+            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
+    }
+    // Neighbour k of (c, r): index offsets inside the raster, bounds checks on its outer ring.
+    const auto near = [&](std::size_t c, std::size_t r, std::uint8_t k) {
+        if (c > 0 && r > 0 && c + 1 < w && r + 1 < h) {
+            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(r * w + c) + offset[k]);
+        }
+        return neighbour(w, h, c, r, k);
+    };
     constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
     constexpr std::uint8_t code_mask = 0x0F;
 
@@ -270,7 +282,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         const std::size_t c = i % w;
         const std::size_t r = i / w;
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
+            const std::size_t n = near(c, r, k);
             if (n != no_cell && valid(dem[n]) && dem[n] > dem[i]) {
                 frontier.push_back(i);
                 mask[i] = 1;
@@ -287,7 +299,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             const std::size_t c = i % w;
             const std::size_t r = i / w;
             for (std::uint8_t k = 1; k <= 8; ++k) {
-                const std::size_t n = neighbour(w, h, c, r, k);
+                const std::size_t n = near(c, r, k);
                 if (n != no_cell && dirs[n] == flat_flag && mask[n] == 0 && dem[n] == dem[i]) {
                     mask[n] = mask[i] + 1;
                     next.push_back(n);
@@ -309,7 +321,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         const std::size_t c = i % w;
         const std::size_t r = i / w;
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
+            const std::size_t n = near(c, r, k);
             if (n != no_cell && dirs[n] != d8::none &&
                 (dirs[n] & (flat_flag | low_edge_flag)) == 0 && dem[n] == dem[i]) {
                 dirs[n] |= low_edge_flag;
@@ -326,7 +338,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             const std::size_t c = i % w;
             const std::size_t r = i / w;
             for (std::uint8_t k = 1; k <= 8; ++k) {
-                const std::size_t n = neighbour(w, h, c, r, k);
+                const std::size_t n = near(c, r, k);
                 if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
                     dirs[n] = flat_flag | visited_flag;
                     mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
@@ -348,7 +360,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         std::uint8_t best = d8::none;
         std::uint32_t best_mask = mask[i];
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
+            const std::size_t n = near(c, r, k);
             if (n == no_cell || dem[n] != dem[i]) {
                 continue;
             }
