@@ -148,9 +148,69 @@ inline std::filesystem::path make_points(const std::filesystem::path &path,
             OGRPoint p(points[i].x, points[i].y);
             f.SetGeometry(&p);
         }
-        layer->CreateFeature(&f);
+        if (layer->CreateFeature(&f) != OGRERR_NONE) {
+            throw std::runtime_error("cannot write a test feature");
+        }
     }
     GDALClose(ds);
+    return path;
+}
+
+/// A row of make_layer: geometry as WKT ("" = none) and text values of the fields in order
+/// ("" = null).
+struct RowSpec {
+    std::string wkt;
+    std::vector<std::string> values;
+};
+
+/// Writes a layer with text fields `fields` and the given rows. Returns the path.
+inline std::filesystem::path make_layer(const std::filesystem::path &path,
+                                        const std::string &layer_name,
+                                        const std::vector<std::string> &fields,
+                                        const std::vector<RowSpec> &rows, const std::string &crs,
+                                        const std::string &driver = "GPKG",
+                                        GDALDataset *existing = nullptr) {
+    gdal_init();
+    GDALDataset *ds = existing;
+    if (ds == nullptr) {
+        GDALDriver *drv = GetGDALDriverManager()->GetDriverByName(driver.c_str());
+        ds = drv->Create(path.string().c_str(), 0, 0, 0, GDT_Unknown, nullptr);
+    }
+    if (ds == nullptr) {
+        throw std::runtime_error("cannot create " + path.string());
+    }
+    OGRSpatialReference *srs = nullptr;
+    if (!crs.empty()) {
+        srs = new OGRSpatialReference();
+        srs->SetFromUserInput(crs.c_str());
+    }
+    OGRLayer *layer = ds->CreateLayer(layer_name.c_str(), srs, wkbUnknown, nullptr);
+    if (srs != nullptr) {
+        srs->Release();
+    }
+    for (const auto &name : fields) {
+        OGRFieldDefn fd(name.c_str(), OFTString);
+        layer->CreateField(&fd);
+    }
+    for (const auto &row : rows) {
+        OGRFeature f(layer->GetLayerDefn());
+        for (std::size_t i = 0; i < row.values.size(); ++i) {
+            if (!row.values[i].empty()) {
+                f.SetField(static_cast<int>(i), row.values[i].c_str());
+            }
+        }
+        if (!row.wkt.empty()) {
+            OGRGeometry *g = nullptr;
+            OGRGeometryFactory::createFromWkt(row.wkt.c_str(), nullptr, &g);
+            f.SetGeometryDirectly(g);
+        }
+        if (layer->CreateFeature(&f) != OGRERR_NONE) {
+            throw std::runtime_error("cannot write a test feature");
+        }
+    }
+    if (existing == nullptr) {
+        GDALClose(ds);
+    }
     return path;
 }
 
