@@ -13,6 +13,7 @@
 #include "catchpeak/app/delineate.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/terrain/accumulation.hpp"
 #include "catchpeak/terrain/conditioning.hpp"
@@ -392,4 +393,25 @@ TEST_F(RealTerrain, NestedDesignPointsOnTheMainStemAreConsistent) {
         // Tolerance 1e-6 m2: floating-point slivers of GEOS's overlay on shared cell edges.
         EXPECT_NEAR(outside ? area_of(*outside) : 0.0, 0.0, 1e-6) << inner << " in " << outer;
     }
+}
+
+TEST_F(RealTerrain, ResultsAreByteIdenticalWhateverTheThreadCount) {
+    const auto d = catchpeak::io::read_dem(dem.utm);
+    const auto [x, y] =
+        d.elevation_m.transform.cell_centre(d.elevation_m.width() / 2, d.elevation_m.height() / 2);
+    t::make_points(dir / "centre.gpkg", {{x, y, "centre"}}, "EPSG:" + std::to_string(dem.epsg));
+    std::vector<std::string> texts;
+    for (const unsigned threads : {1u, 2u}) {
+        catchpeak::app::DelineateOptions o;
+        o.dem = dem.utm;
+        o.points = dir / "centre.gpkg";
+        o.id_field = "id";
+        o.snap_radius_m = 200.0;
+        o.out_dir = dir / ("threads_" + std::to_string(threads));
+        o.threads = threads;
+        const auto summary = catchpeak::app::delineate(o, nullptr);
+        texts.push_back(catchpeak::io::read_text_file(summary.json));
+    }
+    EXPECT_FALSE(texts[0].empty());
+    EXPECT_EQ(texts[0], texts[1]);
 }
