@@ -1,4 +1,5 @@
 // SPDX-License-Identifier: MIT
+#include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
 
 #include "catchpeak/core/error.hpp"
@@ -228,4 +229,21 @@ TEST(ReadPolygons, RefusesMissingClassFieldAndPoints) {
         t::make_layer(dir / "pts.gpkg", "pts", {"cover"}, {{"POINT (0 0)", {"x"}}}, utm33);
     const auto msg2 = input_error_of([&] { (void)io::read_polygons(q, "cover", ""); });
     EXPECT_NE(msg2.find("Point geometry"), std::string::npos) << msg2;
+}
+
+TEST(ReadDesignPoints, PointsInAFeetCrsComeInTheMetreCrsOfAFeetDem) {
+    const auto dir = t::scratch_dir("dp_feet");
+    const std::string feet = t::utm_in_unit(SRS_UL_FOOT, 0.3048);
+    t::RasterSpec s;
+    s.crs_wkt = feet;
+    s.gt = {1000.0, 10.0, 0.0, 20000.0, 0.0, -10.0};
+    const auto dem = catchpeak::io::read_dem(t::make_raster(dir / "dem_ft.tif", s));
+    const auto p =
+        t::make_layer(dir / "dp.shp", "dp", {"id"}, {{"POINT (1500 19000)", {"A"}}}, feet,
+                      "ESRI Shapefile"); // its .prj keeps this custom CRS in feet as it is
+    const auto dp = io::read_design_points(p, "id", dem.elevation_m.crs_wkt);
+    ASSERT_EQ(dp.points.size(), 1u);
+    // 1 ft = 0.3048 m exactly; tolerance 1 mm: rounding through PROJ's unit conversion.
+    EXPECT_NEAR(dp.points[0].x, 1500.0 * 0.3048, 1e-3);
+    EXPECT_NEAR(dp.points[0].y, 19000.0 * 0.3048, 1e-3);
 }
