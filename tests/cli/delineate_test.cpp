@@ -97,6 +97,14 @@ void make_inputs() {
 
     std::ofstream(data / "notes.txt") << "not a raster\n";
 
+    // A breach line across the valley near the outlet, and a polygon where lines belong.
+    t::make_layer(data / "breach.gpkg", "breach", {"name"},
+                  {{"LINESTRING (500250 4000100, 500350 4000100)", {"culvert"}}}, "EPSG:32633");
+    t::make_layer(data / "breach_polygon.gpkg", "breach", {"name"},
+                  {{"POLYGON ((500250 4000100, 500350 4000100, 500350 4000200, 500250 4000100))",
+                    {"culvert"}}},
+                  "EPSG:32633");
+
     // DP-1 near the outlet, DP-2 upstream on the same channel; both given 12 m off the channel.
     const double x_off = cell_centre_x(channel_col) + 12.0;
     t::make_points(data / "points.gpkg",
@@ -222,6 +230,14 @@ const std::vector<DelineateCase> &cases() {
          args_with({"--points", "{in}/points_wgs84.geojson"}),
          ExitCode::success,
          {"reprojected", "100 - done."}},
+        {"breach_lines_used",
+         args_with({"--breach-lines", "{in}/breach.gpkg"}),
+         ExitCode::success,
+         {"reading breach lines: 0"}},
+        {"breach_lines_not_lines",
+         args_with({"--breach-lines", "{in}/breach_polygon.gpkg"}),
+         ExitCode::bad_input,
+         {"breach_polygon.gpkg", "feature 1", "Polygon", "LineString"}},
         {"quiet_prints_no_progress", args_with({"--quiet", "true"}), ExitCode::success, {}},
     };
     return c;
