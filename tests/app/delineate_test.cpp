@@ -31,7 +31,6 @@
 #include <cstring>
 #include <fstream>
 #include <optional>
-#include <regex>
 
 namespace fs = std::filesystem;
 namespace t = catchpeak::test;
@@ -94,19 +93,31 @@ NpyMember read_npy(const fs::path &npz, const std::string &member) {
     const std::string header(m.bytes.begin() + static_cast<std::ptrdiff_t>(start),
                              m.bytes.begin() + static_cast<std::ptrdiff_t>(start + header_len));
     m.data_offset = start + header_len;
-    std::smatch match;
-    if (std::regex_search(header, match, std::regex("'descr':\\s*'([^']+)'"))) {
-        m.descr = match[1];
+    // The header is a Python dict literal, e.g.
+    // {'descr': '<i2', 'fortran_order': False, 'shape': (344, 403), }
+    if (const auto d = header.find("'descr':"); d != std::string::npos) {
+        const auto q1 = header.find('\'', d + 8);
+        const auto q2 = header.find('\'', q1 + 1);
+        m.descr = header.substr(q1 + 1, q2 - q1 - 1);
     }
     if (header.find("'fortran_order': True") != std::string::npos) {
         throw std::runtime_error(name + ": Fortran order not handled");
     }
-    if (std::regex_search(header, match, std::regex("'shape':\\s*\\(([^)]*)\\)"))) {
-        const std::string dims = match[1];
-        std::regex num("[0-9]+");
-        for (auto it = std::sregex_iterator(dims.begin(), dims.end(), num);
-             it != std::sregex_iterator(); ++it) {
-            m.shape.push_back(static_cast<std::size_t>(std::stoul(it->str())));
+    if (const auto sh = header.find("'shape':"); sh != std::string::npos) {
+        const auto open = header.find('(', sh);
+        const auto close = header.find(')', open);
+        std::size_t value = 0;
+        bool in_number = false;
+        for (std::size_t i = open + 1; i <= close; ++i) {
+            const char ch = header[i];
+            if (ch >= '0' && ch <= '9') {
+                value = value * 10 + static_cast<std::size_t>(ch - '0');
+                in_number = true;
+            } else if (in_number) {
+                m.shape.push_back(value);
+                value = 0;
+                in_number = false;
+            }
         }
     }
     return m;
