@@ -7,6 +7,9 @@
 #include <filesystem>
 #include <stdexcept>
 #include <string>
+#include <system_error>
+
+#include <unistd.h>
 
 namespace catchpeak::test {
 
@@ -26,9 +29,28 @@ inline std::filesystem::path config_dir() { return env_path("CATCHPEAK_CONFIG_DI
 /// The source tree's top folder (read only).
 inline std::filesystem::path source_dir() { return env_path("CATCHPEAK_SOURCE_DIR"); }
 
+/// The scratch root of this test process: "<CATCHPEAK_TEST_SCRATCH>/p<pid>". CTest runs every
+/// test in its own process, in parallel; a folder per process keeps two tests that choose the
+/// same scratch name (or a suite set-up run by each of them) from clobbering each other.
+/// The folder is removed when the process ends.
+inline const std::filesystem::path &process_scratch_root() {
+    struct Root {
+        std::filesystem::path path;
+        Root() : path(env_path("CATCHPEAK_TEST_SCRATCH") / ("p" + std::to_string(::getpid()))) {}
+        Root(const Root &) = delete;
+        Root &operator=(const Root &) = delete;
+        ~Root() {
+            std::error_code ec;
+            std::filesystem::remove_all(path, ec);
+        }
+    };
+    static const Root root;
+    return root.path;
+}
+
 /// A fresh, empty scratch folder for one test, under the build tree.
 inline std::filesystem::path scratch_dir(const std::string &test_name) {
-    auto dir = env_path("CATCHPEAK_TEST_SCRATCH") / test_name;
+    auto dir = process_scratch_root() / test_name;
     std::filesystem::remove_all(dir);
     std::filesystem::create_directories(dir);
     return dir;
