@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/hydro/tc.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
@@ -26,15 +27,6 @@ bool has_warning_containing(const catchpeak::CalcLines &lines, const std::string
         }
     }
     return false;
-}
-
-std::string input_error_message(const std::function<void()> &f) {
-    try {
-        f();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "no InputError";
 }
 
 TEST(Kirpich, UsSheetShowsThePublishedUsForm) {
@@ -73,8 +65,8 @@ TEST(Kirpich, WarnsOutsideKirpichsData) {
 }
 
 TEST(Kirpich, RefusesBadInput) {
-    const auto msg =
-        input_error_message([] { (void)h::kirpich_tc_min(-5.0, 0.05, 1e5, System::si); });
+    const auto msg = catchpeak::test::input_error_of(
+        [] { (void)h::kirpich_tc_min(-5.0, 0.05, 1e5, System::si); });
     EXPECT_NE(msg.find("longest flow path length"), std::string::npos) << msg;
     EXPECT_NE(msg.find("-5"), std::string::npos) << msg;
     EXPECT_NE(msg.find("accepted"), std::string::npos) << msg;

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
+#include "support/input_error.hpp"
 
 #include <gtest/gtest.h>
 
@@ -9,18 +10,7 @@
 using catchpeak::InputError;
 using catchpeak::io::parse_csv;
 
-namespace {
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "no InputError thrown";
-}
-
-} // namespace
+namespace {} // namespace
 
 TEST(Csv, HeaderRowsCommentsAndMetadata) {
     const auto t = parse_csv("# source: TR-55 (1986) Table 2-2a\n"
@@ -52,11 +42,11 @@ TEST(Csv, NumbersAreLocaleIndependent) {
 
 TEST(Csv, MessagesNameFileLineAndColumn) {
     const auto t = parse_csv("d_min,i_mm_per_h\n5,abc\n", "idf.csv");
-    const auto msg = message_of([&] { (void)t.number(t.rows[0], 1); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)t.number(t.rows[0], 1); });
     EXPECT_NE(msg.find("idf.csv:2: column 'i_mm_per_h'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("'abc' is not a number"), std::string::npos) << msg;
 
-    const auto missing = message_of([&] { (void)t.column("depth"); });
+    const auto missing = catchpeak::test::input_error_of([&] { (void)t.column("depth"); });
     EXPECT_NE(missing.find("no column 'depth'"), std::string::npos) << missing;
     EXPECT_NE(missing.find("d_min, i_mm_per_h"), std::string::npos) << missing;
 }
@@ -65,11 +55,13 @@ TEST(Csv, MalformedInputIsRefused) {
     EXPECT_THROW((void)parse_csv("", "e.csv"), InputError);
     EXPECT_THROW((void)parse_csv("# only a comment\n", "e.csv"), InputError);
     EXPECT_THROW((void)parse_csv("a,b\n\"open,1\n", "e.csv"), InputError);
-    const auto msg = message_of([] { (void)parse_csv("a,b\n1,2,3\n", "e.csv"); });
+    const auto msg =
+        catchpeak::test::input_error_of([] { (void)parse_csv("a,b\n1,2,3\n", "e.csv"); });
     EXPECT_NE(msg.find("e.csv:2"), std::string::npos) << msg;
 }
 
 TEST(Csv, MissingFileIsBadInput) {
-    const auto msg = message_of([] { (void)catchpeak::io::read_csv("/nonexistent/idf.csv"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [] { (void)catchpeak::io::read_csv("/nonexistent/idf.csv"); });
     EXPECT_NE(msg.find("/nonexistent/idf.csv"), std::string::npos) << msg;
 }

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/hydro_tables.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 
@@ -22,15 +23,6 @@ std::filesystem::path write(const std::string &test, const std::string &name,
     const auto path = catchpeak::test::scratch_dir(test) / name;
     std::ofstream(path) << text;
     return path;
-}
-
-std::string error_of(const std::function<void()> &f) {
-    try {
-        f();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "no InputError";
 }
 
 TEST(HydroTables, ShippedFrequencyFactors) {
@@ -84,18 +76,23 @@ TEST(HydroTables, ShippedPondFactorsAndUnitHydrograph) {
 TEST(HydroTables, RefusesATableWithoutSourceOrStatus) {
     const auto no_source =
         write("no_source", "cf.csv", "# status: x\nreturn_period_yr,cf\n10,1.0\n");
-    EXPECT_NE(error_of([&] { (void)io::read_frequency_factor_table(no_source); }).find("source"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  (void)io::read_frequency_factor_table(no_source);
+              }).find("source"),
               std::string::npos);
     const auto no_status =
         write("no_status", "cf.csv", "# source: x\nreturn_period_yr,cf\n10,1.0\n");
-    EXPECT_NE(error_of([&] { (void)io::read_frequency_factor_table(no_status); }).find("status"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  (void)io::read_frequency_factor_table(no_status);
+              }).find("status"),
               std::string::npos);
 }
 
 TEST(HydroTables, NamesFileLineColumnValueAndRange) {
     const auto bad_cf = write("bad_cf", "cf.csv",
                               "# source: x\n# status: y\nreturn_period_yr,cf\n10,1.0\n25,0.8\n");
-    const auto m = error_of([&] { (void)io::read_frequency_factor_table(bad_cf); });
+    const auto m =
+        catchpeak::test::input_error_of([&] { (void)io::read_frequency_factor_table(bad_cf); });
     EXPECT_NE(m.find("cf.csv:5"), std::string::npos) << m;
     EXPECT_NE(m.find("'cf'"), std::string::npos) << m;
     EXPECT_NE(m.find("0.8"), std::string::npos) << m;
@@ -103,13 +100,16 @@ TEST(HydroTables, NamesFileLineColumnValueAndRange) {
 
     const auto unsorted = write("unsorted", "cf.csv",
                                 "# source: x\n# status: y\nreturn_period_yr,cf\n25,1.1\n10,1.0\n");
-    EXPECT_NE(error_of([&] { (void)io::read_frequency_factor_table(unsorted); }).find("ascending"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  (void)io::read_frequency_factor_table(unsorted);
+              }).find("ascending"),
               std::string::npos);
 
     const auto bad_type =
         write("bad_type", "peaks.csv",
               "# source: x\n# status: y\nstorm_type,ia_over_p,c0,c1,c2\nV,0.1,2,-0.5,-0.1\n");
-    const auto mt = error_of([&] { (void)io::read_peak_coefficient_table(bad_type); });
+    const auto mt =
+        catchpeak::test::input_error_of([&] { (void)io::read_peak_coefficient_table(bad_type); });
     EXPECT_NE(mt.find("peaks.csv:4"), std::string::npos) << mt;
 
     const auto bad_ratio =
@@ -123,13 +123,16 @@ TEST(HydroTables, NamesFileLineColumnValueAndRange) {
 
     const auto bad_start =
         write("bad_start", "uh.csv", "# source: x\n# status: y\nt_over_tp,q_over_qp\n0.1,0\n1,1\n");
-    EXPECT_NE(
-        error_of([&] { (void)io::read_dimensionless_unit_hydrograph(bad_start); }).find("t/tp = 0"),
-        std::string::npos);
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  (void)io::read_dimensionless_unit_hydrograph(bad_start);
+              }).find("t/tp = 0"),
+              std::string::npos);
 
     const auto missing_col =
         write("missing_col", "fp.csv", "# source: x\n# status: y\npond_percent,factor\n0,1.0\n");
-    EXPECT_NE(error_of([&] { (void)io::read_pond_factor_table(missing_col); }).find("fp"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  (void)io::read_pond_factor_table(missing_col);
+              }).find("fp"),
               std::string::npos);
 }
 

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/idf_csv.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 
@@ -16,15 +17,6 @@ using catchpeak::io::parse_csv;
 using catchpeak::units::System;
 
 namespace {
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "(no InputError)";
-}
 
 const char *table_mm = "# name: test table\n"
                        "# unit: mm/h\n"
@@ -81,7 +73,7 @@ TEST(IdfCsv, ReadsTheSampleFileInConfig) {
 
 TEST(IdfCsv, MessagesNameFileLineAndColumn) {
     // Intensity that grows with duration: line 5, column '10'.
-    auto msg = message_of([] {
+    auto msg = catchpeak::test::input_error_of([] {
         (void)idf_from_csv(parse_csv("# unit: mm/h\n"
                                      "duration_min,2,10\n"
                                      "5,100,150\n"
@@ -93,27 +85,27 @@ TEST(IdfCsv, MessagesNameFileLineAndColumn) {
     EXPECT_NE(msg.find("not less than 120.0 mm/h"), std::string::npos) << msg;
 
     // Intensity that falls with return period: line 3, column '10'.
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)idf_from_csv(parse_csv("# unit: mm/h\nduration_min,2,10\n5,100,90\n", "rain.csv"));
     });
     EXPECT_NE(msg.find("rain.csv:3: column '10'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("not greater than 100.0 mm/h"), std::string::npos) << msg;
 
     // Not a number.
-    msg = message_of(
+    msg = catchpeak::test::input_error_of(
         [] { (void)idf_from_csv(parse_csv("# unit: mm/h\nduration_min,2\n5,abc\n", "rain.csv")); });
     EXPECT_NE(msg.find("rain.csv:3: column '2'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("'abc' is not a number"), std::string::npos) << msg;
 
     // Negative intensity.
-    msg = message_of(
+    msg = catchpeak::test::input_error_of(
         [] { (void)idf_from_csv(parse_csv("# unit: mm/h\nduration_min,2\n5,-3\n", "rain.csv")); });
     EXPECT_NE(msg.find("rain.csv:3: column '2': intensity -3.000 is not positive"),
               std::string::npos)
         << msg;
 
     // Durations out of order.
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)idf_from_csv(parse_csv("# unit: mm/h\nduration_min,2\n10,50\n5,60\n", "rain.csv"));
     });
     EXPECT_NE(msg.find("rain.csv:4: column 'duration_min': duration 5.000 min after 10.00 min"),
@@ -121,25 +113,26 @@ TEST(IdfCsv, MessagesNameFileLineAndColumn) {
         << msg;
 
     // A return period header that is not a number.
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)idf_from_csv(parse_csv("# unit: mm/h\nduration_min,2,ten\n5,50,60\n", "rain.csv"));
     });
     EXPECT_NE(msg.find("rain.csv: header, column 3"), std::string::npos) << msg;
 
     // Missing or unknown unit.
-    msg = message_of([] { (void)idf_from_csv(parse_csv("duration_min,2\n5,50\n", "rain.csv")); });
+    msg = catchpeak::test::input_error_of(
+        [] { (void)idf_from_csv(parse_csv("duration_min,2\n5,50\n", "rain.csv")); });
     EXPECT_NE(msg.find("rain.csv: no '# unit:' line"), std::string::npos) << msg;
-    msg = message_of(
+    msg = catchpeak::test::input_error_of(
         [] { (void)idf_from_csv(parse_csv("# unit: cm/h\nduration_min,2\n5,50\n", "rain.csv")); });
     EXPECT_NE(msg.find("unit 'cm/h'; accepted: mm/h or in/h"), std::string::npos) << msg;
 
     // Unknown header.
-    msg = message_of(
+    msg = catchpeak::test::input_error_of(
         [] { (void)idf_from_csv(parse_csv("# unit: mm/h\nminutes,2\n5,50\n", "rain.csv")); });
     EXPECT_NE(msg.find("header starts with 'minutes'"), std::string::npos) << msg;
 
     // Formula: constants that do not grow with the return period name the file.
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)idf_from_csv(parse_csv("# unit: mm/h\nreturn_period_yr,a,b_min,c\n"
                                      "2,900,10,0.8\n10,800,10,0.8\n",
                                      "formula.csv"));
@@ -148,7 +141,7 @@ TEST(IdfCsv, MessagesNameFileLineAndColumn) {
     EXPECT_NE(msg.find("does not increase with return period"), std::string::npos) << msg;
 
     // Formula: a negative b names its line and column.
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)idf_from_csv(
             parse_csv("# unit: mm/h\nreturn_period_yr,a,b_min,c\n2,900,-1,0.8\n", "formula.csv"));
     });

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/raster.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "gdal_test_data.hpp"
@@ -17,17 +18,6 @@ namespace fs = std::filesystem;
 namespace t = catchpeak::test;
 
 namespace {
-
-/// The InputError message of `f`, or "" (and a test failure) when it does not throw one.
-template <typename F> std::string input_error_of(F &&f) {
-    try {
-        f();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    ADD_FAILURE() << "no InputError thrown";
-    return {};
-}
 
 std::vector<float> ramp(int w, int h) {
     std::vector<float> v;
@@ -165,7 +155,7 @@ TEST(ReadDem, RefusesGeographicCrsAndSaysHowToReproject) {
     s.crs_wkt = t::crs_wkt("EPSG:4326");
     s.gt = {10.0, 0.001, 0.0, 45.0, 0.0, -0.001};
     const auto p = t::make_raster(dir / "geo.tif", s);
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find(p.string()), std::string::npos) << msg;
     EXPECT_NE(msg.find("geographic"), std::string::npos) << msg;
     EXPECT_NE(msg.find("gdalwarp -t_srs EPSG:"), std::string::npos) << msg;
@@ -174,7 +164,7 @@ TEST(ReadDem, RefusesGeographicCrsAndSaysHowToReproject) {
 TEST(ReadDem, RefusesMissingCrs) {
     const auto dir = t::scratch_dir("no_crs");
     const auto p = t::make_raster(dir / "nocrs.tif", t::RasterSpec{});
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find("no coordinate reference system"), std::string::npos) << msg;
     EXPECT_NE(msg.find(p.string()), std::string::npos) << msg;
 }
@@ -185,7 +175,7 @@ TEST(ReadDem, RefusesSeveralBands) {
     s.crs_wkt = t::crs_wkt("EPSG:32633");
     s.bands = 3;
     const auto p = t::make_raster(dir / "rgb.tif", s);
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find("3 bands"), std::string::npos) << msg;
     EXPECT_NE(msg.find("gdal_translate -b"), std::string::npos) << msg;
 }
@@ -197,7 +187,7 @@ TEST(ReadDem, RefusesAllNodata) {
     s.values = std::vector<float>(12, -9999.0f);
     s.has_nodata = true;
     const auto p = t::make_raster(dir / "empty.tif", s);
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find("every cell is nodata"), std::string::npos) << msg;
     EXPECT_NE(msg.find(p.string()), std::string::npos) << msg;
 }
@@ -208,7 +198,7 @@ TEST(ReadDem, RefusesRotatedGeotransform) {
     s.crs_wkt = t::crs_wkt("EPSG:32633");
     s.gt = {500000.0, 10.0, 1.0, 4000000.0, 1.0, -10.0};
     const auto p = t::make_raster(dir / "rot.tif", s);
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find("rotated"), std::string::npos) << msg;
 }
 
@@ -216,10 +206,11 @@ TEST(ReadDem, RefusesFileThatIsNotARaster) {
     const auto dir = t::scratch_dir("not_raster");
     const auto p = dir / "notes.txt";
     std::ofstream(p) << "this is not a raster\n";
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find(p.string()), std::string::npos) << msg;
     EXPECT_NE(msg.find("cannot be read as a raster"), std::string::npos) << msg;
-    const auto missing = input_error_of([&] { (void)read_dem(dir / "missing.tif"); });
+    const auto missing =
+        catchpeak::test::input_error_of([&] { (void)read_dem(dir / "missing.tif"); });
     EXPECT_NE(missing.find("file not found"), std::string::npos) << missing;
 }
 
@@ -229,7 +220,7 @@ TEST(ReadDem, RefusesUnknownElevationUnit) {
     s.crs_wkt = t::crs_wkt("EPSG:32633");
     s.unit = "furlong";
     const auto p = t::make_raster(dir / "furlong.tif", s);
-    const auto msg = input_error_of([&] { (void)read_dem(p); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)read_dem(p); });
     EXPECT_NE(msg.find("'furlong'"), std::string::npos) << msg;
 }
 
@@ -270,8 +261,8 @@ TEST(WriteGeotiff, RoundTripsEachTypeAndLeavesNoTemporaryFile) {
 TEST(WriteGeotiff, UnwritableFolderIsAnInputErrorAndLeavesNothing) {
     const auto dir = t::scratch_dir("unwritable");
     catchpeak::Grid<float> f(2, 2, 1.0f);
-    const auto msg =
-        input_error_of([&] { catchpeak::io::write_geotiff(f, dir / "no_such_folder" / "f.tif"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { catchpeak::io::write_geotiff(f, dir / "no_such_folder" / "f.tif"); });
     EXPECT_NE(msg.find("f.tif"), std::string::npos) << msg;
     EXPECT_FALSE(has_temp_files(dir));
 }

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/storm_table.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 
@@ -14,15 +15,6 @@ using catchpeak::io::parse_csv;
 using catchpeak::io::storm_from_csv;
 
 namespace {
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "(no InputError)";
-}
 
 const char *meta = "# name: test storm\n# source: invented\n# status: checked (invented)\n";
 
@@ -50,7 +42,7 @@ TEST(StormTable, ReadsEveryNrcsTableInConfig) {
 }
 
 TEST(StormTable, MessagesNameFileLineAndColumn) {
-    auto msg = message_of([] {
+    auto msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(parse_csv(
             std::string(meta) + "hour,cumulative_fraction\n0,0\n1,0.4\n2,0.3\n3,1\n", "storm.csv"));
     });
@@ -59,14 +51,14 @@ TEST(StormTable, MessagesNameFileLineAndColumn) {
               std::string::npos)
         << msg;
 
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(parse_csv(
             std::string(meta) + "hour,cumulative_fraction\n0,0\n2,0.4\n1,0.5\n3,1\n", "storm.csv"));
     });
     EXPECT_NE(msg.find("storm.csv:7: column 'hour': hour 1.000 after 2.000 h"), std::string::npos)
         << msg;
 
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(parse_csv(
             std::string(meta) + "hour,cumulative_fraction\n0,0\n1,0.4\n3,0.98\n", "storm.csv"));
     });
@@ -75,7 +67,7 @@ TEST(StormTable, MessagesNameFileLineAndColumn) {
               std::string::npos)
         << msg;
 
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(parse_csv(
             std::string(meta) + "hour,cumulative_fraction\n0,0\n1,1.4\n3,1\n", "storm.csv"));
     });
@@ -83,19 +75,19 @@ TEST(StormTable, MessagesNameFileLineAndColumn) {
               std::string::npos)
         << msg;
 
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(
             parse_csv(std::string(meta) + "hour,cumulative_fraction\n1,0\n3,1\n", "storm.csv"));
     });
     EXPECT_NE(msg.find("storm.csv:5: the first row is (1.000 h, 0)"), std::string::npos) << msg;
 
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(
             parse_csv("# name: x\n# source: y\nhour,cumulative_fraction\n0,0\n1,1\n", "storm.csv"));
     });
     EXPECT_NE(msg.find("storm.csv: no '# status:' line"), std::string::npos) << msg;
 
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)storm_from_csv(
             parse_csv(std::string(meta) + "hour,fraction\n0,0\n1,1\n", "storm.csv"));
     });
@@ -103,6 +95,7 @@ TEST(StormTable, MessagesNameFileLineAndColumn) {
 }
 
 TEST(StormTable, UnknownNrcsTypeListsTheAccepted) {
-    const auto msg = message_of([] { (void)catchpeak::io::nrcs_storm_file("config", "IV"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [] { (void)catchpeak::io::nrcs_storm_file("config", "IV"); });
     EXPECT_NE(msg.find("type 'IV'; accepted: I, IA, II or III"), std::string::npos) << msg;
 }

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "gdal_test_data.hpp"
@@ -16,16 +17,6 @@ namespace io = catchpeak::io;
 namespace t = catchpeak::test;
 
 namespace {
-
-template <typename F> std::string input_error_of(F &&f) {
-    try {
-        f();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    ADD_FAILURE() << "no InputError thrown";
-    return {};
-}
 
 std::unique_ptr<OGRGeometry> geometry(const std::vector<unsigned char> &wkb) {
     OGRGeometry *g = nullptr;
@@ -99,7 +90,7 @@ TEST(ReadVectorLayer, SeveralLayersNeedAName) {
     t::make_layer(p, "first", {"id"}, {{"POINT (1 1)", {"A"}}}, utm33, "GPKG", ds);
     t::make_layer(p, "second", {"id"}, {{"POINT (2 2)", {"B"}}}, utm33, "GPKG", ds);
     GDALClose(ds);
-    const auto msg = input_error_of([&] { (void)io::read_vector_layer(p, ""); });
+    const auto msg = catchpeak::test::input_error_of([&] { (void)io::read_vector_layer(p, ""); });
     EXPECT_NE(msg.find("2 layers ('first', 'second')"), std::string::npos) << msg;
     const auto second = io::read_vector_layer(p, "", "second");
     ASSERT_EQ(second.features.size(), 1u);
@@ -108,7 +99,8 @@ TEST(ReadVectorLayer, SeveralLayersNeedAName) {
 
 TEST(ReadVectorLayer, NotAVectorFile) {
     const auto dir = t::scratch_dir("not_vector");
-    const auto msg = input_error_of([&] { (void)io::read_vector_layer(dir / "none.gpkg", ""); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)io::read_vector_layer(dir / "none.gpkg", ""); });
     EXPECT_NE(msg.find("none.gpkg: file not found"), std::string::npos) << msg;
 }
 
@@ -139,8 +131,8 @@ TEST_P(ReadDesignPointsRefuses, WithAMessageNamingFileFieldAndFeature) {
     const auto &c = GetParam();
     const auto dir = t::scratch_dir("dp_bad_" + c.name);
     const auto p = t::make_layer(dir / "dp.gpkg", "dp", {"id", "note"}, c.rows, utm33);
-    const auto msg =
-        input_error_of([&] { (void)io::read_design_points(p, c.id_field, t::crs_wkt(utm33)); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)io::read_design_points(p, c.id_field, t::crs_wkt(utm33)); });
     EXPECT_NE(msg.find(p.string()), std::string::npos) << msg;
     for (const auto &e : c.expected) {
         EXPECT_NE(msg.find(e), std::string::npos) << "'" << e << "' not in: " << msg;
@@ -188,7 +180,8 @@ TEST(ReadLines, RefusesPolygons) {
     const auto dir = t::scratch_dir("lines_bad");
     const auto p = t::make_layer(dir / "l.gpkg", "l", {"name"},
                                  {{"POLYGON ((0 0, 1 0, 1 1, 0 0))", {"a"}}}, utm33);
-    const auto msg = input_error_of([&] { (void)io::read_lines(p, t::crs_wkt(utm33)); });
+    const auto msg =
+        catchpeak::test::input_error_of([&] { (void)io::read_lines(p, t::crs_wkt(utm33)); });
     EXPECT_NE(msg.find("feature 1"), std::string::npos) << msg;
     EXPECT_NE(msg.find("Polygon"), std::string::npos) << msg;
 }
@@ -221,13 +214,14 @@ TEST(ReadPolygons, RefusesMissingClassFieldAndPoints) {
     const auto dir = t::scratch_dir("polygons_bad");
     const auto p = t::make_layer(dir / "lc.gpkg", "lc", {"cover"},
                                  {{"POLYGON ((0 0, 1 0, 1 1, 0 0))", {"grass"}}}, utm33);
-    const auto msg =
-        input_error_of([&] { (void)io::read_polygons(p, "class", t::crs_wkt(utm33)); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)io::read_polygons(p, "class", t::crs_wkt(utm33)); });
     EXPECT_NE(msg.find("has no field 'class'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("'cover'"), std::string::npos) << msg;
     const auto q =
         t::make_layer(dir / "pts.gpkg", "pts", {"cover"}, {{"POINT (0 0)", {"x"}}}, utm33);
-    const auto msg2 = input_error_of([&] { (void)io::read_polygons(q, "cover", ""); });
+    const auto msg2 =
+        catchpeak::test::input_error_of([&] { (void)io::read_polygons(q, "cover", ""); });
     EXPECT_NE(msg2.find("Point geometry"), std::string::npos) << msg2;
 }
 

@@ -2,6 +2,7 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/land/overlay.hpp"
+#include "support/input_error.hpp"
 #include "support/wkb.hpp"
 
 #include <gtest/gtest.h>
@@ -26,15 +27,6 @@ namespace {
 // sums are exact in double precision up to the rounding of a few additions; the tolerance
 // below is that rounding (relative 1e-12), not an approximation.
 constexpr double rounding = 1e-12;
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "no InputError thrown";
-}
 
 /// Small tables of our own, so that the expected values below follow from them by hand.
 LandTables test_tables() {
@@ -143,7 +135,8 @@ TEST(LandOverlay, PolygonTouchingASoilBoundaryGetsNoSliver) {
                                           feature(2, rect_wkb(50, 0, 100, 100), "hsg", "B")}),
                               test_tables(), OverlaySettings{});
     // The test layers overlap (roof on grass): refused, naming both.
-    const auto msg = message_of([&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP"); });
     EXPECT_NE(msg.find("features 1 and 2 (1800 m2)"), std::string::npos) << msg;
     const LandOverlay clean(land_layer({feature(1, rect_wkb(0, 0, 20, 100), "class", "grass"),
                                         feature(2, rect_wkb(20, 0, 50, 100), "class", "roof"),
@@ -237,7 +230,8 @@ TEST(LandOverlay, DualGroupsFollowTheDrainedSetting) {
     const auto steep = overlay.weight(rect_wkb(0, 0, 10, 10), "DP", 0.08);
     EXPECT_DOUBLE_EQ(steep.weighting.c_weighted, 0.2);
     // No slope for a class with slope bands: refused, naming the class.
-    const auto msg = message_of([&] { (void)overlay.weight(rect_wkb(0, 0, 10, 10), "DP"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)overlay.weight(rect_wkb(0, 0, 10, 10), "DP"); });
     EXPECT_NE(msg.find("'grass'"), std::string::npos) << msg;
 }
 
@@ -328,7 +322,8 @@ TEST(LandOverlay, UncoveredPartIsRefusedByDefault) {
     const LandOverlay overlay(land_layer({feature(1, rect_wkb(0, 0, 90, 100), "class", "roof")}),
                               soil_layer({feature(1, rect_wkb(0, 0, 100, 100), "hsg", "B")}),
                               test_tables(), OverlaySettings{});
-    const auto msg = message_of([&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP4"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP4"); });
     EXPECT_NE(msg.find("land.gpkg"), std::string::npos) << msg;
     EXPECT_NE(msg.find("1000 m2 (10.00 % of catchment 'DP4')"), std::string::npos) << msg;
 }
@@ -365,7 +360,8 @@ TEST(LandOverlay, OverlappingPolygonsAreReportedWithTheirIds) {
                     feature(10, rect_wkb(90, 50, 150, 60), "class", "wood")}),
         soil_layer({feature(1, rect_wkb(0, 0, 200, 100), "hsg", "B")}), test_tables(),
         OverlaySettings{});
-    const auto msg = message_of([&] { (void)overlay.weight(rect_wkb(0, 0, 90, 100), "DP5"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)overlay.weight(rect_wkb(0, 0, 90, 100), "DP5"); });
     EXPECT_NE(msg.find("features 7 and 8 (1000 m2)"), std::string::npos) << msg;
     EXPECT_NE(msg.find("land.gpkg"), std::string::npos) << msg;
     EXPECT_EQ(msg.find("feature 9"), std::string::npos) << msg;
@@ -377,7 +373,8 @@ TEST(LandOverlay, OverlappingPolygonsAreReportedWithTheirIds) {
                                          feature(2, rect_wkb(50, 0, 90, 100), "class", "grass")}),
                              soil_layer({feature(1, rect_wkb(0, 0, 100, 100), "hsg", "B")}),
                              test_tables(), exact);
-    const auto msg2 = message_of([&] { (void)hidden.weight(rect_wkb(0, 0, 100, 100), "DP6"); });
+    const auto msg2 = catchpeak::test::input_error_of(
+        [&] { (void)hidden.weight(rect_wkb(0, 0, 100, 100), "DP6"); });
     EXPECT_NE(msg2.find("features 1 and 2"), std::string::npos) << msg2;
 }
 
@@ -420,7 +417,8 @@ TEST(LandOverlay, ClassMissingFromATableIsBadInput) {
         land_layer({feature(4, rect_wkb(0, 0, 100, 100), "class", "glacier")}),
         soil_layer({feature(1, rect_wkb(0, 0, 100, 100), "hsg", "B")}), test_tables(),
         OverlaySettings{});
-    const auto msg = message_of([&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP9"); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)overlay.weight(rect_wkb(0, 0, 100, 100), "DP9"); });
     EXPECT_NE(msg.find("'glacier'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("c_test.csv"), std::string::npos) << msg;
     EXPECT_NE(msg.find("feature 4"), std::string::npos) << msg;
@@ -430,7 +428,8 @@ TEST(LandOverlay, ClassMissingFromATableIsBadInput) {
     const LandOverlay no_c(land_layer({feature(4, rect_wkb(0, 0, 100, 100), "class", "glacier")}),
                            soil_layer({feature(1, rect_wkb(0, 0, 100, 100), "hsg", "B")}),
                            std::move(tables), OverlaySettings{});
-    const auto msg2 = message_of([&] { (void)no_c.weight(rect_wkb(0, 0, 100, 100), "DP9"); });
+    const auto msg2 = catchpeak::test::input_error_of(
+        [&] { (void)no_c.weight(rect_wkb(0, 0, 100, 100), "DP9"); });
     EXPECT_NE(msg2.find("cn_test.csv"), std::string::npos) << msg2;
 }
 
@@ -448,19 +447,19 @@ TEST(LandOverlay, OmittedTableGivesNoValue) {
 
 TEST(LandOverlay, BadLayersAreRefusedWithTheFeatureId) {
     const auto tables = test_tables();
-    auto msg = message_of([&] {
+    auto msg = catchpeak::test::input_error_of([&] {
         LandOverlay o(land_layer({feature(5, rect_wkb(0, 0, 1, 1), "landuse", "roof")}),
                       soil_layer({}), tables, OverlaySettings{});
     });
     EXPECT_NE(msg.find("land.gpkg: feature 5"), std::string::npos) << msg;
     EXPECT_NE(msg.find("no field 'class'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("landuse"), std::string::npos) << msg;
-    msg = message_of([&] {
+    msg = catchpeak::test::input_error_of([&] {
         LandOverlay o(land_layer({}), soil_layer({feature(6, rect_wkb(0, 0, 1, 1), "hsg", "E")}),
                       tables, OverlaySettings{});
     });
     EXPECT_NE(msg.find("soils.gpkg: feature 6"), std::string::npos) << msg;
-    msg = message_of([&] {
+    msg = catchpeak::test::input_error_of([&] {
         LandOverlay o(land_layer({feature(2, {1, 2, 3}, "class", "roof")}), soil_layer({}), tables,
                       OverlaySettings{});
     });
@@ -468,7 +467,8 @@ TEST(LandOverlay, BadLayersAreRefusedWithTheFeatureId) {
         << msg;
     OverlaySettings s;
     s.uncovered = Uncovered::use_default;
-    msg = message_of([&] { LandOverlay o(land_layer({}), soil_layer({}), tables, s); });
+    msg = catchpeak::test::input_error_of(
+        [&] { LandOverlay o(land_layer({}), soil_layer({}), tables, s); });
     EXPECT_NE(msg.find("no default class"), std::string::npos) << msg;
 }
 

@@ -2,6 +2,7 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/land/tables.hpp"
+#include "support/input_error.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
@@ -16,15 +17,6 @@ using catchpeak::io::parse_csv;
 using namespace catchpeak::land;
 
 namespace {
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "no InputError thrown";
-}
 
 LandTables shipped() { return read_default_land_tables(catchpeak::test::config_dir()); }
 
@@ -46,7 +38,8 @@ TEST(SoilGroup, SingleAndDualGroups) {
 
 TEST(SoilGroup, UnknownGroupsAreRefused) {
     for (const char *bad : {"E", "", "AB", "D/D", "A/B", "C/", "1"}) {
-        const auto msg = message_of([&] { (void)read_soil_group(bad, true, "soils.gpkg: fid 4"); });
+        const auto msg = catchpeak::test::input_error_of(
+            [&] { (void)read_soil_group(bad, true, "soils.gpkg: fid 4"); });
         EXPECT_NE(msg.find("soils.gpkg: fid 4"), std::string::npos) << msg;
         EXPECT_NE(msg.find("A, B, C, D, A/D, B/D, C/D"), std::string::npos) << msg;
     }
@@ -148,8 +141,8 @@ TEST(RunoffCoefficientTable, SlopeBandsAndSoilGroups) {
     EXPECT_FALSE(t.c->uses_slope("commercial"));
     // A class without bands needs no slope.
     EXPECT_DOUBLE_EQ(t.c->lookup("commercial", SoilGroup::d, std::nullopt).c, 0.825);
-    const auto msg =
-        message_of([&] { (void)t.c->lookup("open_space_good", SoilGroup::b, std::nullopt); });
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)t.c->lookup("open_space_good", SoilGroup::b, std::nullopt); });
     EXPECT_NE(msg.find("open_space_good"), std::string::npos) << msg;
     EXPECT_NE(msg.find("slope"), std::string::npos) << msg;
 }
@@ -168,54 +161,56 @@ TEST(RunoffCoefficientTable, OwnGroupRowIsPreferredOverAnyRow) {
 
 TEST(RunoffCoefficientTable, BadTablesAreRefused) {
     const std::string head = "class,soil_group,slope_min_percent,slope_max_percent,c\n";
-    auto msg = message_of([&] {
+    auto msg = catchpeak::test::input_error_of([&] {
         (void)RunoffCoefficientTable::from_csv(parse_csv(head + "grass,any,,,1.2\n", "c.csv"));
     });
     EXPECT_NE(msg.find("c.csv:2: column 'c'"), std::string::npos) << msg;
-    msg = message_of([&] {
+    msg = catchpeak::test::input_error_of([&] {
         (void)RunoffCoefficientTable::from_csv(parse_csv(head + "grass,E,,,0.2\n", "c.csv"));
     });
     EXPECT_NE(msg.find("'E' is not a soil group"), std::string::npos) << msg;
-    msg = message_of([&] {
+    msg = catchpeak::test::input_error_of([&] {
         (void)RunoffCoefficientTable::from_csv(parse_csv(head + "grass,A,5,2,0.2\n", "c.csv"));
     });
     EXPECT_NE(msg.find("c.csv:2"), std::string::npos) << msg;
     // Two rows that apply equally are ambiguous.
     const auto t = RunoffCoefficientTable::from_csv(
         parse_csv(head + "grass,A,,,0.2\ngrass,A,0,10,0.3\n", "c.csv"));
-    msg = message_of([&] { (void)t.lookup("grass", SoilGroup::a, 5.0); });
+    msg = catchpeak::test::input_error_of([&] { (void)t.lookup("grass", SoilGroup::a, 5.0); });
     EXPECT_NE(msg.find("rows 2 and 3"), std::string::npos) << msg;
     // A group without a row.
-    msg = message_of([&] { (void)t.lookup("grass", SoilGroup::b, 5.0); });
+    msg = catchpeak::test::input_error_of([&] { (void)t.lookup("grass", SoilGroup::b, 5.0); });
     EXPECT_NE(msg.find("no row for land-cover class 'grass', soil group B"), std::string::npos)
         << msg;
 }
 
 TEST(Tables, MissingClassNamesClassAndTable) {
     const auto t = shipped();
-    auto msg = message_of([&] { (void)t.cn->cn("moon_dust", SoilGroup::a); });
+    auto msg = catchpeak::test::input_error_of([&] { (void)t.cn->cn("moon_dust", SoilGroup::a); });
     EXPECT_NE(msg.find("'moon_dust'"), std::string::npos) << msg;
     EXPECT_NE(msg.find("curve_numbers.csv"), std::string::npos) << msg;
-    msg = message_of([&] { (void)t.c->lookup("moon_dust", SoilGroup::a, 1.0); });
+    msg =
+        catchpeak::test::input_error_of([&] { (void)t.c->lookup("moon_dust", SoilGroup::a, 1.0); });
     EXPECT_NE(msg.find("runoff_coefficients.csv"), std::string::npos) << msg;
-    msg = message_of([&] { (void)t.impervious->lookup("street_paved_ditched"); });
+    msg = catchpeak::test::input_error_of(
+        [&] { (void)t.impervious->lookup("street_paved_ditched"); });
     EXPECT_NE(msg.find("impervious_shares.csv"), std::string::npos) << msg;
 }
 
 TEST(CurveNumberTable, BadTablesAreRefused) {
-    auto msg = message_of([] {
+    auto msg = catchpeak::test::input_error_of([] {
         (void)CurveNumberTable::from_csv(parse_csv("class,A,B,C,D\nx,20,50,60,70\n", "cn.csv"));
     });
     EXPECT_NE(msg.find("cn.csv:2: column 'A'"), std::string::npos) << msg;
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)CurveNumberTable::from_csv(
             parse_csv("class,A,B,C,D\nx,40,50,60,70\nx,40,50,60,70\n", "cn.csv"));
     });
     EXPECT_NE(msg.find("listed twice"), std::string::npos) << msg;
-    msg =
-        message_of([] { (void)CurveNumberTable::from_csv(parse_csv("class,A,B,C\n", "cn.csv")); });
+    msg = catchpeak::test::input_error_of(
+        [] { (void)CurveNumberTable::from_csv(parse_csv("class,A,B,C\n", "cn.csv")); });
     EXPECT_NE(msg.find("no column 'D'"), std::string::npos) << msg;
-    msg = message_of([] {
+    msg = catchpeak::test::input_error_of([] {
         (void)ImperviousShareTable::from_csv(
             parse_csv("class,impervious_percent\nx,120\n", "imp.csv"));
     });

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/design_storm.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 
@@ -36,15 +37,6 @@ rain::Idf formula_idf() {
     return rain::Idf(f);
 }
 
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "(no InputError)";
-}
-
 } // namespace
 
 TEST(StormDistribution, LinearInterpolation) {
@@ -58,26 +50,33 @@ TEST(StormDistribution, LinearInterpolation) {
 TEST(StormDistribution, ValidationMessages) {
     auto d = six_hour();
     d.cumulative_fraction[2] = 0.05;
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   rain::validate(d);
               }).find("cumulative fraction decreases from 0.1000 at 1.000 h to 0.05000 at 2.000 h"),
               std::string::npos);
     d = six_hour();
     d.cumulative_fraction.back() = 0.99;
-    EXPECT_NE(
-        message_of([&] { rain::validate(d); }).find("the last cumulative fraction is 0.990000"),
-        std::string::npos);
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  rain::validate(d);
+              }).find("the last cumulative fraction is 0.990000"),
+              std::string::npos);
     d = six_hour();
     d.hours[0] = 0.5;
-    EXPECT_NE(message_of([&] { rain::validate(d); }).find("the first point is (0.5000 h, 0)"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  rain::validate(d);
+              }).find("the first point is (0.5000 h, 0)"),
               std::string::npos);
     d = six_hour();
     d.hours[3] = 2.0;
-    EXPECT_NE(message_of([&] { rain::validate(d); }).find("hours not strictly increasing"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  rain::validate(d);
+              }).find("hours not strictly increasing"),
               std::string::npos);
     d = six_hour();
     d.hours.pop_back();
-    EXPECT_NE(message_of([&] { rain::validate(d); }).find("4 hours but 5 cumulative fractions"),
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
+                  rain::validate(d);
+              }).find("4 hours but 5 cumulative fractions"),
               std::string::npos);
 }
 
@@ -123,15 +122,15 @@ TEST(StormHyetograph, UncheckedTableGivesAWarning) {
 
 TEST(StormHyetograph, ValidationMessages) {
     const auto d = six_hour();
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::storm_hyetograph(d, 50.0, 7.0, System::si);
               }).find("time step 7.000 min does not divide the storm duration of 360.0 min"),
               std::string::npos);
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::storm_hyetograph(d, 0.0, 6.0, System::si);
               }).find("storm depth 0 mm is not positive"),
               std::string::npos);
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::storm_hyetograph(d, 10.0, -6.0, System::si);
               }).find("time step -6.000 min is not positive"),
               std::string::npos);
@@ -184,7 +183,7 @@ TEST(AlternatingBlock, ReordersIncrementsThatDoNotDecrease) {
 
 TEST(AlternatingBlock, ValidationMessages) {
     const auto idf = formula_idf();
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::alternating_block_hyetograph(idf, 60.0, 25.0, 10.0, System::si);
               }).find("time step 25.00 min does not divide the storm duration of 60.00 min"),
               std::string::npos);
@@ -194,12 +193,12 @@ TEST(AlternatingBlock, ValidationMessages) {
     t.return_periods_yr = {10.0};
     t.intensity_mm_per_h = {{60.0, 20.0}}; // depth 10 mm at 10 min, 6.667 mm at 20 min
     const rain::Idf falling(t);
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::alternating_block_hyetograph(falling, 20.0, 10.0, 10.0, System::si);
               }).find("the IDF depth falls from 10.00 mm at 10.00 min to 6.667 mm at 20.00 min"),
               std::string::npos);
     // A table does not reach 5-min blocks when it starts at 10 min: the Idf's error passes.
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::alternating_block_hyetograph(falling, 20.0, 5.0, 10.0, System::si);
               }).find("outside the table's durations"),
               std::string::npos);

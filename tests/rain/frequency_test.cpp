@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/frequency.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 
@@ -24,15 +25,6 @@ constexpr double rel_eps = 1e-12;
 const std::vector<double> series25 = {62.0, 48.5, 71.2, 55.0, 90.3, 44.1, 58.7,  66.6, 52.9,
                                       80.4, 47.3, 61.8, 73.5, 50.2, 57.6, 101.9, 45.8, 63.3,
                                       69.0, 54.4, 77.7, 49.9, 59.1, 84.6, 56.2};
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "(no InputError)";
-}
 
 double mean_of(const std::vector<double> &v) {
     double s = 0.0;
@@ -88,7 +80,8 @@ TEST(Gumbel, UsSheetShowsInches) {
 
 TEST(Gumbel, RecordLengthRules) {
     const std::vector<double> nine(series25.begin(), series25.begin() + 9);
-    const auto msg = message_of([&] { (void)rain::gumbel_depth(nine, 10.0, System::si); });
+    const auto msg =
+        catchpeak::test::input_error_of([&] { (void)rain::gumbel_depth(nine, 10.0, System::si); });
     EXPECT_NE(msg.find("9 values"), std::string::npos) << msg;
     EXPECT_NE(msg.find("at least 10 years"), std::string::npos) << msg;
     EXPECT_NE(msg.find("common practice, no source"), std::string::npos) << msg;
@@ -106,17 +99,18 @@ TEST(Gumbel, RecordLengthRules) {
 }
 
 TEST(Gumbel, ValidationMessages) {
-    EXPECT_NE(
-        message_of([] { (void)rain::gumbel_frequency_factor(1.0); }).find("return period 1.000 yr"),
-        std::string::npos);
+    EXPECT_NE(catchpeak::test::input_error_of([] {
+                  (void)rain::gumbel_frequency_factor(1.0);
+              }).find("return period 1.000 yr"),
+              std::string::npos);
     auto bad = series25;
     bad[3] = -2.0;
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::gumbel_depth(bad, 10.0, System::si);
               }).find("value 4 (number 4) is -2.000 mm"),
               std::string::npos);
     const std::vector<double> flat(12, 50.0);
-    EXPECT_NE(message_of([&] {
+    EXPECT_NE(catchpeak::test::input_error_of([&] {
                   (void)rain::gev_depth(flat, 10.0, System::si);
               }).find("all 12 values are equal"),
               std::string::npos);

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/idf.hpp"
+#include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
@@ -37,15 +38,6 @@ IdfTable power_law_table() {
         t.intensity_mm_per_h.push_back(col);
     }
     return t;
-}
-
-std::string message_of(const auto &fn) {
-    try {
-        fn();
-    } catch (const InputError &e) {
-        return e.what();
-    }
-    return "(no InputError)";
 }
 
 } // namespace
@@ -93,7 +85,8 @@ TEST(IdfTable, InterpolationLineShowsBracketingValuesInSheetUnits) {
 
 TEST(IdfTable, RefusesDurationsOutsideTheTable) {
     const Idf idf(power_law_table());
-    const auto msg = message_of([&] { (void)idf.intensity(2.0, 10.0, System::si); });
+    const auto msg =
+        catchpeak::test::input_error_of([&] { (void)idf.intensity(2.0, 10.0, System::si); });
     EXPECT_NE(msg.find("duration 2.000 min"), std::string::npos) << msg;
     EXPECT_NE(msg.find("5.000 to 60.00 min"), std::string::npos) << msg;
     EXPECT_NE(msg.find("power law"), std::string::npos) << msg;
@@ -103,7 +96,8 @@ TEST(IdfTable, RefusesDurationsOutsideTheTable) {
 
 TEST(IdfTable, MissingReturnPeriodListsTheOnesItHas) {
     const Idf idf(power_law_table());
-    const auto msg = message_of([&] { (void)idf.intensity(10.0, 25.0, System::si); });
+    const auto msg =
+        catchpeak::test::input_error_of([&] { (void)idf.intensity(10.0, 25.0, System::si); });
     EXPECT_NE(msg.find("25.00 yr"), std::string::npos) << msg;
     EXPECT_NE(msg.find("2.000, 10.00, 100.0 yr"), std::string::npos) << msg;
 }
@@ -112,40 +106,40 @@ TEST(IdfTable, ValidationMessages) {
     {
         auto t = power_law_table();
         t.intensity_mm_per_h[1][2] = -1.0;
-        const auto msg = message_of([&] { Idf idf(t); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(t); });
         EXPECT_NE(msg.find("not positive"), std::string::npos) << msg;
         EXPECT_NE(msg.find("30.00 min, 10.00 yr"), std::string::npos) << msg;
     }
     {
         auto t = power_law_table();
         t.intensity_mm_per_h[0][2] = t.intensity_mm_per_h[0][1] * 1.01;
-        const auto msg = message_of([&] { Idf idf(t); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(t); });
         EXPECT_NE(msg.find("does not decrease with duration for 2.000 yr"), std::string::npos)
             << msg;
     }
     {
         auto t = power_law_table();
         t.intensity_mm_per_h[2][0] = t.intensity_mm_per_h[1][0];
-        const auto msg = message_of([&] { Idf idf(t); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(t); });
         EXPECT_NE(msg.find("does not increase with return period at 5.000 min"), std::string::npos)
             << msg;
     }
     {
         auto t = power_law_table();
         t.durations_min[2] = 10.0;
-        const auto msg = message_of([&] { Idf idf(t); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(t); });
         EXPECT_NE(msg.find("durations not strictly increasing"), std::string::npos) << msg;
     }
     {
         auto t = power_law_table();
         t.return_periods_yr[0] = 0.0;
-        const auto msg = message_of([&] { Idf idf(t); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(t); });
         EXPECT_NE(msg.find("return period 0 yr is not positive"), std::string::npos) << msg;
     }
     {
         auto t = power_law_table();
         t.intensity_mm_per_h[1].pop_back();
-        const auto msg = message_of([&] { Idf idf(t); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(t); });
         EXPECT_NE(msg.find("3 intensities for the 10.00 yr return period but 4 durations"),
                   std::string::npos)
             << msg;
@@ -191,26 +185,27 @@ TEST(IdfFormula, ValidationMessages) {
     {
         auto f = us_formula();
         f.constants[1].a = 30.0; // lower than the 2-yr curve everywhere
-        const auto msg = message_of([&] { Idf idf(f); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(f); });
         EXPECT_NE(msg.find("does not increase with return period"), std::string::npos) << msg;
         EXPECT_NE(msg.find("IDF formula 'us constants'"), std::string::npos) << msg;
     }
     {
         auto f = us_formula();
         f.constants[0].c = 0.0;
-        const auto msg = message_of([&] { Idf idf(f); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(f); });
         EXPECT_NE(msg.find("constants for 2.000 yr: c = 0 is not positive"), std::string::npos)
             << msg;
     }
     {
         auto f = us_formula();
         f.constants[0].b_min = -1.0;
-        const auto msg = message_of([&] { Idf idf(f); });
+        const auto msg = catchpeak::test::input_error_of([&] { Idf idf(f); });
         EXPECT_NE(msg.find("b = -1.000 min is negative"), std::string::npos) << msg;
     }
     {
         auto f = us_formula();
-        const auto msg = message_of([&] { (void)Idf(f).intensity(10.0, 5.0, System::si); });
+        const auto msg =
+            catchpeak::test::input_error_of([&] { (void)Idf(f).intensity(10.0, 5.0, System::si); });
         EXPECT_NE(msg.find("2.000, 10.00 yr"), std::string::npos) << msg;
     }
 }
