@@ -103,7 +103,7 @@ double idf_intensity_mm_per_h(const IdfTable &idf, double return_period_yr, doub
             idf.source,
             fmt::format("duration {} min is outside the table ({} to {} min); the table is not "
                         "extrapolated",
-                        sig(duration_min), sig(d.front()), sig(d.back())),
+                        sig(duration_min), d.front(), d.back()),
             "a table covering every tc of the project");
     }
     std::size_t k = 1;

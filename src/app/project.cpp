@@ -79,7 +79,17 @@ std::string closest_match(std::string_view word, const std::vector<std::string> 
     }
     // Close enough to be a typo: at most a third of the word's letters, and at least one.
     const std::size_t limit = std::max<std::size_t>(1, std::max(word.size(), best.size()) / 3);
-    return best_d <= limit ? best : std::string{};
+    if (best_d <= limit) {
+        return best;
+    }
+    // Or one starts with the other ("tc_minutes" for "tc_min").
+    for (const auto &c : candidates) {
+        const std::size_t n = std::min(word.size(), c.size());
+        if (n >= 4 && word.substr(0, n) == std::string_view(c).substr(0, n)) {
+            return c;
+        }
+    }
+    return {};
 }
 
 namespace {
