@@ -12,17 +12,6 @@ namespace catchpeak::test {
 
 inline std::filesystem::path env_path(const char *name) {
     const char *v = std::getenv(name);
-    // Compiled-in defaults (tests/CMakeLists.txt) when ctest did not pass the variable.
-    const std::string n(name);
-#ifdef CATCHPEAK_DEFAULT_TEST_SCRATCH
-    if (v == nullptr || *v == '\0') {
-        v = n == "CATCHPEAK_SOURCE_DIR"     ? CATCHPEAK_DEFAULT_SOURCE_DIR
-            : n == "CATCHPEAK_TEST_DATA"    ? CATCHPEAK_DEFAULT_TEST_DATA
-            : n == "CATCHPEAK_CONFIG_DIR"   ? CATCHPEAK_DEFAULT_CONFIG_DIR
-            : n == "CATCHPEAK_TEST_SCRATCH" ? CATCHPEAK_DEFAULT_TEST_SCRATCH
-                                            : nullptr;
-    }
-#endif
     if (v == nullptr || *v == '\0') {
         throw std::runtime_error(std::string("test environment variable not set: ") + name +
                                  " (run the tests through ctest)");

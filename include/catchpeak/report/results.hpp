@@ -110,6 +110,9 @@ struct Peak {
     double return_period_yr = 0.0;
     std::string method; ///< "rational", "tr55_graphical", "scs_unit_hydrograph"
     double q_m3_s = 0.0;
+    /// Id of the calculation line that gives q (e.g. "DP3-L18"), for summary.csv and the
+    /// summary page; empty when the runner did not record it.
+    std::string line_id;
     /// The method's intermediates, SI with the unit in the key: "intensity_mm_per_h",
     /// "runoff_depth_mm", "rainfall_depth_mm", "time_to_peak_min", "volume_m3", "c_cf", ...
     std::map<std::string, double> intermediates;

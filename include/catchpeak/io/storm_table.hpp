@@ -1,0 +1,36 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/io/csv.hpp"
+#include "catchpeak/rain/design_storm.hpp"
+
+#include <filesystem>
+#include <string_view>
+
+/// Reading a design storm distribution (cumulative fraction against hour) from a CSV file.
+///
+/// Format:
+///
+///     # name: NRCS 24-hour Type II      (required)
+///     # source: TP-149 (1973) Table 1   (required)
+///     # status: checked (primary)       (required: how sure the values are)
+///     hour,cumulative_fraction
+///     0,0
+///     ...
+///     24,1
+///
+/// Hours strictly increasing from 0; fractions from 0 to 1, never decreasing. Every message
+/// names the file, the line and the column.
+namespace catchpeak::io {
+
+[[nodiscard]] rain::StormDistribution storm_from_csv(const CsvTable &table);
+
+[[nodiscard]] rain::StormDistribution read_storm_table(const std::filesystem::path &path);
+
+/// The file of an NRCS 24-hour distribution in the config folder: `type` is "I", "IA", "II"
+/// or "III" (case-insensitive), the file config/storms/nrcs_type_<type>.csv. Throws InputError
+/// for another type, listing the accepted ones.
+[[nodiscard]] std::filesystem::path nrcs_storm_file(const std::filesystem::path &config_dir,
+                                                    std::string_view type);
+
+} // namespace catchpeak::io

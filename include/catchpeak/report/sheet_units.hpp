@@ -1,0 +1,43 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/core/units.hpp"
+
+#include <string>
+#include <string_view>
+
+/// The units the calculation sheet, summary.csv and the summary page show, by unit system.
+/// Values inside are SI; these convert them for display only.
+///
+///   quantity      SI sheet   US customary sheet
+///   area          ha         acre
+///   length        m          ft
+///   elevation     m          ft
+///   flow          m3/s       cfs
+///   depth         mm         in
+namespace catchpeak::report {
+
+/// A value converted for the sheet, with its unit label.
+struct SheetValue {
+    double value;
+    std::string_view unit;
+};
+
+[[nodiscard]] SheetValue sheet_area(double area_m2, units::System system) noexcept;
+[[nodiscard]] SheetValue sheet_length(double length_m, units::System system) noexcept;
+[[nodiscard]] SheetValue sheet_flow(double q_m3_s, units::System system) noexcept;
+[[nodiscard]] SheetValue sheet_depth(double depth_mm, units::System system) noexcept;
+
+/// Unit label of each quantity as it appears in CSV column names ("ha", "acre", "m3_s", "cfs").
+[[nodiscard]] std::string_view area_key_unit(units::System system) noexcept;
+[[nodiscard]] std::string_view flow_key_unit(units::System system) noexcept;
+
+/// Name of a peak flow method for the sheet: "rational" -> "Rational Method",
+/// "tr55_graphical" -> "TR-55 graphical peak", "scs_unit_hydrograph" -> "SCS unit hydrograph";
+/// any other name is shown as given.
+[[nodiscard]] std::string method_title(std::string_view method);
+
+/// A return period for the sheet: 10 -> "10-yr", 2.33 -> "2.33-yr".
+[[nodiscard]] std::string return_period_title(double return_period_yr);
+
+} // namespace catchpeak::report

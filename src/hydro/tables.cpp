@@ -1,0 +1,74 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/hydro/tables.hpp"
+
+#include "catchpeak/core/error.hpp"
+
+#include <algorithm>
+#include <cctype>
+
+namespace catchpeak::hydro {
+
+std::string TableOrigin::cite() const {
+    std::string text = source.empty() ? std::string("table without source") : source;
+    std::string detail = file.empty() ? std::string() : "table " + file;
+    if (!status.empty()) {
+        detail += (detail.empty() ? "" : "; ") + status;
+    }
+    if (!detail.empty()) {
+        text += " [" + detail + "]";
+    }
+    return text;
+}
+
+std::string to_string(StormType t) {
+    switch (t) {
+    case StormType::type_i:
+        return "I";
+    case StormType::type_ia:
+        return "IA";
+    case StormType::type_ii:
+        return "II";
+    case StormType::type_iii:
+        return "III";
+    }
+    return "II";
+}
+
+StormType parse_storm_type(const std::string &text, const std::string &where) {
+    std::string t;
+    for (char ch : text) {
+        if (ch != ' ') {
+            t += static_cast<char>(std::toupper(static_cast<unsigned char>(ch)));
+        }
+    }
+    if (t.rfind("TYPE", 0) == 0) {
+        t = t.substr(4);
+    }
+    if (t == "I") {
+        return StormType::type_i;
+    }
+    if (t == "IA") {
+        return StormType::type_ia;
+    }
+    if (t == "II") {
+        return StormType::type_ii;
+    }
+    if (t == "III") {
+        return StormType::type_iii;
+    }
+    throw_input_error(where, "storm type '" + text + "' is not known", "I, IA, II, III");
+}
+
+double DimensionlessUnitHydrograph::ratio_at(double x) const {
+    if (t_over_tp.empty() || x <= t_over_tp.front() || x >= t_over_tp.back()) {
+        return 0.0;
+    }
+    const auto it = std::upper_bound(t_over_tp.begin(), t_over_tp.end(), x);
+    const auto i = static_cast<std::size_t>(it - t_over_tp.begin());
+    const double x0 = t_over_tp[i - 1];
+    const double x1 = t_over_tp[i];
+    const double w = (x - x0) / (x1 - x0);
+    return q_over_qp[i - 1] + w * (q_over_qp[i] - q_over_qp[i - 1]);
+}
+
+} // namespace catchpeak::hydro

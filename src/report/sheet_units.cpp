@@ -1,0 +1,52 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/report/sheet_units.hpp"
+
+#include <fmt/format.h>
+
+namespace catchpeak::report {
+
+namespace {
+bool us(units::System s) { return s == units::System::us_customary; }
+} // namespace
+
+SheetValue sheet_area(double area_m2, units::System system) noexcept {
+    return us(system) ? SheetValue{units::m2_to_acre(area_m2), "acre"}
+                      : SheetValue{units::m2_to_ha(area_m2), "ha"};
+}
+
+SheetValue sheet_length(double length_m, units::System system) noexcept {
+    return us(system) ? SheetValue{units::m_to_ft(length_m), "ft"} : SheetValue{length_m, "m"};
+}
+
+SheetValue sheet_flow(double q_m3_s, units::System system) noexcept {
+    return us(system) ? SheetValue{units::m3s_to_cfs(q_m3_s), "cfs"} : SheetValue{q_m3_s, "m3/s"};
+}
+
+SheetValue sheet_depth(double depth_mm, units::System system) noexcept {
+    return us(system) ? SheetValue{units::mm_to_in(depth_mm), "in"} : SheetValue{depth_mm, "mm"};
+}
+
+std::string_view area_key_unit(units::System system) noexcept { return us(system) ? "acre" : "ha"; }
+
+std::string_view flow_key_unit(units::System system) noexcept {
+    return us(system) ? "cfs" : "m3_s";
+}
+
+std::string method_title(std::string_view method) {
+    if (method == "rational") {
+        return "Rational Method";
+    }
+    if (method == "tr55_graphical") {
+        return "TR-55 graphical peak";
+    }
+    if (method == "scs_unit_hydrograph") {
+        return "SCS unit hydrograph";
+    }
+    return std::string(method);
+}
+
+std::string return_period_title(double return_period_yr) {
+    return fmt::format("{:g}-yr", return_period_yr);
+}
+
+} // namespace catchpeak::report

@@ -1,0 +1,279 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/terrain/delineation.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/terrain/accumulation.hpp"
+#include "catchpeak/terrain/catchments.hpp"
+#include "catchpeak/terrain/flow_direction.hpp"
+#include "catchpeak/terrain/slope.hpp"
+#include "internal.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <unordered_map>
+
+// Memory plan (bytes per cell, besides the caller's DEM of 4): conditioning holds a float copy
+// (4), the directions (1) and a flat scratch grid (4) = 9; then the copy and scratch are freed
+// and accumulation (4), upstream flow length (4) and an in-degree byte (1) join the directions
+// = 10; after snapping, streams and flow paths those are freed and the labels (4) join = 5.
+
+namespace catchpeak::terrain {
+
+namespace {
+
+void check_inputs(const Grid<float> &dem, const TerrainSettings &s) {
+    if (dem.empty()) {
+        throw_input_error("DEM", "the DEM has no cells", "a raster with at least one cell");
+    }
+    if (!dem.transform.is_north_up()) {
+        throw_input_error("DEM", "the DEM's geotransform has rotation terms",
+                          "north-up rasters (no rotation)");
+    }
+    const double dx = dem.transform.cell_dx();
+    const double dy = dem.transform.cell_dy();
+    if (!(dx > 0.0) || !(dy > 0.0) || !std::isfinite(dx) || !std::isfinite(dy)) {
+        throw_input_error("DEM", fmt::format("cell size {} x {} m", dx, dy),
+                          "positive, finite cell sizes");
+    }
+    const auto check = [](double v, const char *name) {
+        if (!std::isfinite(v) || v < 0.0) {
+            throw_input_error("terrain settings", fmt::format("{} = {}", name, v),
+                              "a finite value >= 0");
+        }
+    };
+    check(s.snap_radius_m, "snap radius (m)");
+    check(s.far_snap_warning_m, "far snap warning distance (m)");
+    check(s.tiny_catchment_m2, "tiny catchment area (m2)");
+    if (!std::isfinite(s.stream_threshold_m2)) {
+        throw_input_error("terrain settings",
+                          fmt::format("stream threshold = {} m2", s.stream_threshold_m2),
+                          "a finite value (<= 0 for no streams)");
+    }
+}
+
+} // namespace
+
+std::vector<std::size_t> all_upstream_points(const TerrainResult &result, std::size_t index) {
+    std::vector<std::size_t> out;
+    if (index >= result.points.size()) {
+        return out;
+    }
+    std::vector<std::size_t> todo = result.points[index].upstream_points;
+    while (!todo.empty()) {
+        const std::size_t p = todo.back();
+        todo.pop_back();
+        out.push_back(p);
+        for (const std::size_t q : result.points[p].upstream_points) {
+            todo.push_back(q);
+        }
+    }
+    // Points sharing a cell with a nested point are nested too.
+    std::vector<std::uint32_t> labels;
+    for (const std::size_t p : out) {
+        labels.push_back(result.points[p].label);
+    }
+    std::sort(labels.begin(), labels.end());
+    for (std::size_t q = 0; q < result.points.size(); ++q) {
+        if (std::binary_search(labels.begin(), labels.end(), result.points[q].label)) {
+            out.push_back(q);
+        }
+    }
+    std::sort(out.begin(), out.end());
+    out.erase(std::unique(out.begin(), out.end()), out.end());
+    return out;
+}
+
+TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint> &points,
+                          const std::vector<BreachLine> &breach_lines,
+                          const TerrainSettings &settings, const ProgressFn &progress,
+                          const std::string &where) {
+    const auto report = [&](std::string_view step, double fraction) {
+        if (progress) {
+            progress(step, fraction);
+        }
+    };
+    check_inputs(dem, settings);
+    const detail::ValidTest valid(dem);
+    if (std::none_of(dem.cells().begin(), dem.cells().end(), valid)) {
+        throw_input_error("DEM", "every cell is nodata", "a DEM with elevation data");
+    }
+    const unsigned threads = thread_count(settings.threads);
+    const double cell_area = dem.transform.cell_area();
+    TerrainResult result;
+
+    report("conditioning", 0.0);
+    Grid<std::uint8_t> dirs = conditioned_directions(dem, breach_lines, threads);
+
+    report("flow accumulation", 0.35);
+    AccumulationAndLength al = accumulation_and_length(dirs);
+
+    report("snapping design points", 0.55);
+    result.points.resize(points.size());
+    std::vector<std::size_t> outlets;
+    std::unordered_map<std::size_t, std::uint32_t> label_of_cell;
+    for (std::size_t p = 0; p < points.size(); ++p) {
+        const SnappedPoint s =
+            snap_point(al.accumulation, points[p], settings.snap_radius_m, where);
+        DesignPointTerrain &r = result.points[p];
+        r.id = points[p].id;
+        r.given_x = points[p].x;
+        r.given_y = points[p].y;
+        r.snapped_x = s.x;
+        r.snapped_y = s.y;
+        r.snap_distance_m = s.distance_m;
+        r.cell = s.cell;
+        r.accumulation = s.accumulation;
+        r.accumulation_m2 = s.accumulation_m2;
+        const auto [it, inserted] =
+            label_of_cell.try_emplace(s.cell, static_cast<std::uint32_t>(outlets.size() + 1));
+        if (inserted) {
+            outlets.push_back(s.cell);
+        } else {
+            std::size_t first = 0;
+            while (result.points[first].cell != s.cell) {
+                ++first;
+            }
+            r.warnings.push_back(fmt::format(
+                "snapped to the same cell as design point '{}'; both get the same catchment",
+                result.points[first].id));
+        }
+        r.label = it->second;
+        if (r.snap_distance_m > settings.far_snap_warning_m) {
+            r.warnings.push_back(fmt::format(
+                "snapped {:.1f} m from the given location, more than {:.1f} m; check that it "
+                "lies on the intended channel",
+                r.snap_distance_m, settings.far_snap_warning_m));
+        }
+    }
+
+    if (settings.stream_threshold_m2 > 0.0) {
+        report("streams", 0.6);
+        result.streams = extract_streams(dirs, al.accumulation, settings.stream_threshold_m2);
+    }
+    if (settings.keep_accumulation) {
+        result.accumulation = std::move(al.accumulation);
+    }
+    al.accumulation = Grid<std::uint32_t>();
+
+    report("longest flow paths", 0.65);
+    std::vector<FlowPath> paths(outlets.size());
+    for (std::size_t k = 0; k < outlets.size(); ++k) {
+        paths[k] = longest_flow_path(dirs, al.upstream_length_m, dem, outlets[k]);
+    }
+    al.upstream_length_m = Grid<float>();
+
+    report("catchments", 0.75);
+    Catchments c = delineate_catchments(dirs, outlets);
+
+    // Local catchments touching the raster edge or nodata.
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    std::vector<char> edge_local(outlets.size() + 1, 0);
+    for (std::size_t i = 0; i < dirs.size(); ++i) {
+        const std::size_t col = i % w;
+        const std::size_t row = i / w;
+        if (dirs[i] == d8::none) {
+            for (std::uint8_t k = 1; k <= 8; ++k) {
+                const long long nc = static_cast<long long>(col) + d8::dcol[k];
+                const long long nr = static_cast<long long>(row) + d8::drow[k];
+                if (dirs.in_bounds(nc, nr)) {
+                    edge_local[c.labels(static_cast<std::size_t>(nc),
+                                        static_cast<std::size_t>(nr))] = 1;
+                }
+            }
+        } else if (row == 0 || col == 0 || row + 1 == h || col + 1 == w) {
+            edge_local[c.labels[i]] = 1;
+        }
+    }
+
+    report("slopes", 0.85);
+    const auto max_label = static_cast<std::uint32_t>(outlets.size());
+    const SlopeSums sums = slope_sums_by_label(dem, c.labels, max_label, threads);
+    if (!settings.keep_directions) {
+        dirs = Grid<std::uint8_t>();
+    } else {
+        result.directions = std::move(dirs);
+    }
+
+    // Totals over the nesting tree (slope sums, edge flags), leaves first.
+    std::vector<double> slope_total(max_label + 1, 0.0);
+    std::vector<std::uint64_t> count_total(max_label + 1, 0);
+    std::vector<char> edge_total(max_label + 1, 0);
+    {
+        std::vector<std::uint32_t> order;
+        std::vector<std::size_t> pending(max_label + 1, 0);
+        for (std::uint32_t k = 1; k <= max_label; ++k) {
+            pending[k] = c.upstream_labels[k - 1].size();
+            slope_total[k] = sums.sum_m_per_m[k];
+            count_total[k] = sums.count[k];
+            edge_total[k] = edge_local[k];
+            if (pending[k] == 0) {
+                order.push_back(k);
+            }
+        }
+        for (std::size_t head = 0; head < order.size(); ++head) {
+            const std::uint32_t k = order[head];
+            const std::uint32_t d = c.downstream_label[k - 1];
+            if (d == 0) {
+                continue;
+            }
+            if (--pending[d] == 0) {
+                // Children in ascending label order, so sums are formed the same way each run.
+                for (const std::uint32_t up : c.upstream_labels[d - 1]) {
+                    slope_total[d] += slope_total[up];
+                    count_total[d] += count_total[up];
+                    edge_total[d] = static_cast<char>(edge_total[d] | edge_total[up]);
+                }
+                order.push_back(d);
+            }
+        }
+    }
+
+    report("results", 0.95);
+    std::vector<std::size_t> first_point_of_label(max_label + 1, points.size());
+    for (std::size_t p = 0; p < points.size(); ++p) {
+        auto &f = first_point_of_label[result.points[p].label];
+        f = std::min(f, p);
+    }
+    for (std::size_t p = 0; p < points.size(); ++p) {
+        DesignPointTerrain &r = result.points[p];
+        const std::uint32_t k = r.label;
+        r.local_cells = c.local_cells[k - 1];
+        r.total_cells = c.total_cells[k - 1];
+        r.local_area_m2 = static_cast<double>(r.local_cells) * cell_area;
+        r.area_m2 = static_cast<double>(r.total_cells) * cell_area;
+        if (c.downstream_label[k - 1] != 0) {
+            r.downstream_point = first_point_of_label[c.downstream_label[k - 1]];
+        }
+        for (const std::uint32_t up : c.upstream_labels[k - 1]) {
+            for (std::size_t q = first_point_of_label[up]; q < points.size(); ++q) {
+                if (result.points[q].label == up) {
+                    r.upstream_points.push_back(q);
+                }
+            }
+        }
+        std::sort(r.upstream_points.begin(), r.upstream_points.end());
+        r.longest_flow_path = paths[k - 1];
+        r.mean_slope_m_per_m =
+            count_total[k] > 0 ? slope_total[k] / static_cast<double>(count_total[k]) : 0.0;
+        r.touches_dem_edge = edge_total[k] != 0;
+        if (r.area_m2 < settings.tiny_catchment_m2) {
+            r.warnings.push_back(fmt::format(
+                "the catchment is only {:.1f} m2, less than {:.1f} m2; the point may not lie on "
+                "a channel",
+                r.area_m2, settings.tiny_catchment_m2));
+        }
+        if (r.touches_dem_edge) {
+            r.warnings.push_back("the catchment reaches the edge of the DEM or a nodata area; "
+                                 "it may extend beyond the DEM and be too small");
+        }
+    }
+    result.downstream_label = std::move(c.downstream_label);
+    result.labels = std::move(c.labels);
+    report("done", 1.0);
+    return result;
+}
+
+} // namespace catchpeak::terrain

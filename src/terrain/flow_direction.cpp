@@ -1,0 +1,114 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/terrain/flow_direction.hpp"
+
+#include "internal.hpp"
+
+#include <limits>
+#include <thread>
+
+namespace catchpeak::terrain {
+
+unsigned thread_count(unsigned requested) noexcept {
+    if (requested != 0) {
+        return requested;
+    }
+    const unsigned hw = std::thread::hardware_concurrency();
+    return hw == 0 ? 1U : hw;
+}
+
+std::size_t downstream_cell(const Grid<std::uint8_t> &dirs, std::size_t i) noexcept {
+    const std::uint8_t k = dirs[i];
+    if (k == d8::none || k > 8) {
+        return no_cell;
+    }
+    const std::size_t w = dirs.width();
+    const long long col = static_cast<long long>(i % w) + d8::dcol[k];
+    const long long row = static_cast<long long>(i / w) + d8::drow[k];
+    if (!dirs.in_bounds(col, row)) {
+        return no_cell;
+    }
+    return static_cast<std::size_t>(row) * w + static_cast<std::size_t>(col);
+}
+
+Grid<std::uint8_t> d8_directions(const Grid<float> &dem, unsigned threads) {
+    Grid<std::uint8_t> dirs(dem.width(), dem.height(), d8::none);
+    dirs.copy_georef_from(dem);
+    detail::d8_directions_into(dem, dirs, threads);
+    return dirs;
+}
+
+void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs,
+                                unsigned threads) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    const double dx = dem.transform.cell_dx();
+    const double dy = dem.transform.cell_dy();
+    std::array<double, 9> inv_dist{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        inv_dist[k] = 1.0 / step_length_m(k, dx, dy);
+    }
+    const detail::ValidTest valid(dem);
+    detail::for_row_blocks(
+        h, thread_count(threads), 64, [&](std::size_t, std::size_t r0, std::size_t r1) {
+            for (std::size_t r = r0; r < r1; ++r) {
+                for (std::size_t c = 0; c < w; ++c) {
+                    const std::size_t i = r * w + c;
+                    const float z = dem[i];
+                    if (!valid(z)) {
+                        continue;
+                    }
+                    double best = 0.0;
+                    std::uint8_t best_k = d8::none;
+                    // Way out for a cell with no lower neighbour: an off-raster or nodata
+                    // neighbour, cardinal first, then the one opposite the highest neighbour
+                    // (water keeps its course), then the lowest code.
+                    std::uint8_t out_k = d8::none;
+                    float out_score = 0.0F;
+                    const auto consider_out = [&](std::uint8_t k) {
+                        const long long oc = static_cast<long long>(c) - d8::dcol[k];
+                        const long long orow = static_cast<long long>(r) - d8::drow[k];
+                        float score = -std::numeric_limits<float>::infinity();
+                        if (dem.in_bounds(oc, orow)) {
+                            const float zo = dem[static_cast<std::size_t>(orow) * w +
+                                                 static_cast<std::size_t>(oc)];
+                            if (valid(zo)) {
+                                score = zo;
+                            }
+                        }
+                        const bool better =
+                            out_k == d8::none || (d8::is_diagonal(out_k) && !d8::is_diagonal(k)) ||
+                            (d8::is_diagonal(out_k) == d8::is_diagonal(k) && score > out_score);
+                        if (better) {
+                            out_k = k;
+                            out_score = score;
+                        }
+                    };
+                    for (std::uint8_t k = 1; k <= 8; ++k) {
+                        const long long nc = static_cast<long long>(c) + d8::dcol[k];
+                        const long long nr = static_cast<long long>(r) + d8::drow[k];
+                        if (!dem.in_bounds(nc, nr)) {
+                            consider_out(k);
+                            continue;
+                        }
+                        const float zn =
+                            dem[static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc)];
+                        if (!valid(zn)) {
+                            consider_out(k);
+                            continue;
+                        }
+                        if (zn < z) {
+                            const double s =
+                                (static_cast<double>(z) - static_cast<double>(zn)) * inv_dist[k];
+                            if (s > best) {
+                                best = s;
+                                best_k = k;
+                            }
+                        }
+                    }
+                    dirs[i] = best_k != d8::none ? best_k : out_k;
+                }
+            }
+        });
+}
+
+} // namespace catchpeak::terrain

@@ -1,0 +1,64 @@
+// SPDX-License-Identifier: MIT
+// Helpers shared by the terrain sources (not public).
+#pragma once
+
+#include "catchpeak/core/grid.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstddef>
+#include <cstdint>
+#include <thread>
+#include <vector>
+
+namespace catchpeak::terrain::detail {
+
+/// Validity test for DEM values: not NaN and not the nodata value.
+class ValidTest {
+  public:
+    explicit ValidTest(const Grid<float> &dem)
+        : has_nodata_(dem.nodata.has_value()), nodata_(dem.nodata.value_or(0.0F)) {}
+    [[nodiscard]] bool operator()(float v) const noexcept {
+        return !std::isnan(v) && !(has_nodata_ && v == nodata_);
+    }
+
+  private:
+    bool has_nodata_;
+    float nodata_;
+};
+
+/// Runs body(row_begin, row_end) over fixed blocks of rows on up to `threads` threads. Blocks
+/// are fixed in size (independent of the thread count), so a body that writes only its own rows
+/// gives the same result whatever the thread count.
+template <typename Body>
+void for_row_blocks(std::size_t height, unsigned threads, std::size_t block_rows, Body body) {
+    const std::size_t blocks = (height + block_rows - 1) / block_rows;
+    const auto run_block = [&](std::size_t b) {
+        const std::size_t r0 = b * block_rows;
+        body(b, r0, std::min(height, r0 + block_rows));
+    };
+    if (threads <= 1 || blocks <= 1) {
+        for (std::size_t b = 0; b < blocks; ++b) {
+            run_block(b);
+        }
+        return;
+    }
+    const std::size_t n = std::min<std::size_t>(threads, blocks);
+    std::vector<std::thread> pool;
+    pool.reserve(n);
+    for (std::size_t t = 0; t < n; ++t) {
+        pool.emplace_back([&, t] {
+            for (std::size_t b = t; b < blocks; b += n) {
+                run_block(b);
+            }
+        });
+    }
+    for (auto &th : pool) {
+        th.join();
+    }
+}
+
+/// d8_directions writing into an existing grid of the DEM's size (every cell is overwritten).
+void d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs, unsigned threads);
+
+} // namespace catchpeak::terrain::detail

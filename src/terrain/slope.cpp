@@ -1,0 +1,111 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/terrain/slope.hpp"
+
+#include "catchpeak/terrain/flow_direction.hpp"
+#include "internal.hpp"
+
+#include <cmath>
+#include <limits>
+#include <mutex>
+
+namespace catchpeak::terrain {
+
+namespace {
+
+constexpr double fixed_scale = 16777216.0; // 2^24: sums in units of 2^-24 m/m
+
+inline double horn_at(const Grid<float> &dem, const detail::ValidTest &valid, double dx, double dy,
+                      std::size_t col, std::size_t row) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    const double e = static_cast<double>(dem[row * w + col]);
+    const auto z = [&](int dc, int dr) {
+        const long long c = static_cast<long long>(col) + dc;
+        const long long r = static_cast<long long>(row) + dr;
+        if (c < 0 || r < 0 || static_cast<std::size_t>(c) >= w ||
+            static_cast<std::size_t>(r) >= h) {
+            return e;
+        }
+        const float v = dem[static_cast<std::size_t>(r) * w + static_cast<std::size_t>(c)];
+        return valid(v) ? static_cast<double>(v) : e;
+    };
+    const double a = z(-1, -1), b = z(0, -1), c = z(1, -1);
+    const double d = z(-1, 0), f = z(1, 0);
+    const double g = z(-1, 1), hh = z(0, 1), i = z(1, 1);
+    const double dzdx = ((c + 2.0 * f + i) - (a + 2.0 * d + g)) / (8.0 * dx);
+    const double dzdy = ((g + 2.0 * hh + i) - (a + 2.0 * b + c)) / (8.0 * dy);
+    return std::sqrt(dzdx * dzdx + dzdy * dzdy);
+}
+
+} // namespace
+
+double horn_slope(const Grid<float> &dem, std::size_t col, std::size_t row) {
+    const detail::ValidTest valid(dem);
+    return horn_at(dem, valid, dem.transform.cell_dx(), dem.transform.cell_dy(), col, row);
+}
+
+Grid<float> horn_slope_grid(const Grid<float> &dem, unsigned threads) {
+    Grid<float> out(dem.width(), dem.height(), std::numeric_limits<float>::quiet_NaN());
+    out.copy_georef_from(dem);
+    const detail::ValidTest valid(dem);
+    const double dx = dem.transform.cell_dx();
+    const double dy = dem.transform.cell_dy();
+    const std::size_t w = dem.width();
+    detail::for_row_blocks(
+        dem.height(), thread_count(threads), 64, [&](std::size_t, std::size_t r0, std::size_t r1) {
+            for (std::size_t r = r0; r < r1; ++r) {
+                for (std::size_t c = 0; c < w; ++c) {
+                    if (valid(dem[r * w + c])) {
+                        out[r * w + c] = static_cast<float>(horn_at(dem, valid, dx, dy, c, r));
+                    }
+                }
+            }
+        });
+    return out;
+}
+
+SlopeSums slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> &labels,
+                              std::uint32_t max_label, unsigned threads) {
+    const detail::ValidTest valid(dem);
+    const double dx = dem.transform.cell_dx();
+    const double dy = dem.transform.cell_dy();
+    const std::size_t w = dem.width();
+    const std::size_t slots = static_cast<std::size_t>(max_label) + 1;
+    std::vector<std::uint64_t> sum(slots, 0);
+    std::vector<std::uint64_t> count(slots, 0);
+    std::mutex merge;
+    const unsigned n_threads = thread_count(threads);
+    // Each worker keeps its own integer sums; integer addition makes the merge order irrelevant.
+    detail::for_row_blocks(dem.height(), n_threads, (dem.height() + n_threads - 1) / n_threads,
+                           [&](std::size_t, std::size_t r0, std::size_t r1) {
+                               std::vector<std::uint64_t> s(slots, 0);
+                               std::vector<std::uint64_t> n(slots, 0);
+                               for (std::size_t r = r0; r < r1; ++r) {
+                                   for (std::size_t c = 0; c < w; ++c) {
+                                       const std::size_t i = r * w + c;
+                                       const std::uint32_t lab = labels[i];
+                                       if (lab > max_label || !valid(dem[i])) {
+                                           continue;
+                                       }
+                                       const double v = horn_at(dem, valid, dx, dy, c, r);
+                                       s[lab] += static_cast<std::uint64_t>(
+                                           std::llround(v * fixed_scale));
+                                       ++n[lab];
+                                   }
+                               }
+                               const std::lock_guard<std::mutex> lock(merge);
+                               for (std::size_t k = 0; k < slots; ++k) {
+                                   sum[k] += s[k];
+                                   count[k] += n[k];
+                               }
+                           });
+    SlopeSums out;
+    out.sum_m_per_m.resize(slots);
+    out.count = std::move(count);
+    for (std::size_t k = 0; k < slots; ++k) {
+        out.sum_m_per_m[k] = static_cast<double>(sum[k]) / fixed_scale;
+    }
+    return out;
+}
+
+} // namespace catchpeak::terrain

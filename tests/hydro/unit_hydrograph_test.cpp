@@ -1,0 +1,163 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/hydro/unit_hydrograph.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/core/units.hpp"
+
+#include <gtest/gtest.h>
+
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+namespace {
+
+using catchpeak::InputError;
+using catchpeak::rain::Hyetograph;
+using catchpeak::units::System;
+namespace u = catchpeak::units;
+namespace h = catchpeak::hydro;
+
+// An invented triangular dimensionless hydrograph: peak 1 at t/tp = 1, zero at 0 and 2.
+// Its area is 1, so the volume checks below are exact up to the sampling.
+h::DimensionlessUnitHydrograph triangle() {
+    h::DimensionlessUnitHydrograph t;
+    t.t_over_tp = {0.0, 1.0, 2.0};
+    t.q_over_qp = {0.0, 1.0, 0.0};
+    t.origin.source = "invented";
+    t.origin.status = "for a test";
+    return t;
+}
+
+const catchpeak::CalcLine &line_labelled(const catchpeak::CalcLines &lines,
+                                         const std::string &start) {
+    for (const auto &l : lines.lines()) {
+        if (l.label.rfind(start, 0) == 0) {
+            return l;
+        }
+    }
+    throw std::runtime_error("no line " + start);
+}
+
+TEST(ExcessHyetograph, CumulativeRunoffOfCumulativeRainfall) {
+    Hyetograph rain;
+    rain.step_s = 600.0;
+    rain.depth_mm = {5.0, 5.0, 20.0, 30.0, 10.0, 0.0, 5.0};
+    const auto e = h::excess_hyetograph(rain, 80.0);
+    ASSERT_EQ(e.steps(), rain.steps());
+    EXPECT_DOUBLE_EQ(e.step_s, 600.0);
+    // CN 80: Ia = 12.7 mm, so the first two steps (10 mm in all) give no excess.
+    EXPECT_DOUBLE_EQ(e.depth_mm[0], 0.0);
+    EXPECT_DOUBLE_EQ(e.depth_mm[1], 0.0);
+    EXPECT_GT(e.depth_mm[2], 0.0);
+    EXPECT_DOUBLE_EQ(e.depth_mm[5], 0.0); // no rain, no excess
+    EXPECT_NEAR(e.total_mm(), h::cn_runoff_depth_mm(rain.total_mm(), 80.0), 1e-9);
+    for (double d : e.depth_mm) {
+        EXPECT_GE(d, 0.0);
+    }
+}
+
+TEST(UnitHydrograph, AggregatesFineStepsToD) {
+    // tc = 60 min: 0.133 tc = 478.8 s; 60 s steps are aggregated 7 at a time: D = 420 s.
+    Hyetograph e;
+    e.step_s = 60.0;
+    e.depth_mm.assign(30, 1.0);
+    const auto r = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si);
+    EXPECT_DOUBLE_EQ(r.value.step_s, 420.0);
+    EXPECT_NEAR(r.value.runoff_mm, 30.0, 1e-12);
+    // tp = D/2 + 0.6 tc, in h.
+    EXPECT_NEAR(r.value.tp_h, 420.0 / 7200.0 + 0.6, 1e-12);
+    EXPECT_NEAR(line_labelled(r.lines, "Time to peak of the unit").value, r.value.tp_h, 1e-12);
+}
+
+TEST(UnitHydrograph, VolumeOfATriangleSampledAtItsCorners) {
+    // Fraction 0.14: 0.14 tc = 504 s, so D = 8 x 60 s = 480 s and tp = 240 + 2160 s = 5 D: the
+    // samples hit the triangle's corners and the trapezoid sum is its exact area, 1 x tp.
+    // Volume = qp tp with qp = 0.208 A Q / tp, i.e. 0.208 x 3.6 x Q A (Q A in m3 per 1000).
+    Hyetograph e;
+    e.step_s = 60.0;
+    e.depth_mm.assign(30, 1.0);
+    h::UnitHydrographSettings s;
+    s.step_fraction_of_tc = 0.14;
+    const auto r = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si, s);
+    EXPECT_DOUBLE_EQ(r.value.step_s, 480.0);
+    const double expected = 0.208 * 3.6 * 30.0 / 1000.0 * 1e6;
+    EXPECT_NEAR(r.value.volume_m3, expected, 1e-9 * expected);
+    EXPECT_NEAR(line_labelled(r.lines, "Hydrograph volume").value, r.value.volume_m3, 1e-6);
+}
+
+TEST(UnitHydrograph, SplitsCoarseStepsEvenly) {
+    // tc = 60 min, one-hour steps: m = ceil(3600 / 478.8) = 8, D = 450 s.
+    Hyetograph e;
+    e.step_s = 3600.0;
+    e.depth_mm = {10.0, 20.0};
+    const auto r = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si);
+    EXPECT_DOUBLE_EQ(r.value.step_s, 450.0);
+    EXPECT_NEAR(r.value.runoff_mm, 30.0, 1e-12);
+    EXPECT_NE(line_labelled(r.lines, "Unit hydrograph duration").label.find("split"),
+              std::string::npos);
+}
+
+TEST(UnitHydrograph, IsLinearInTheExcess) {
+    Hyetograph e;
+    e.step_s = 300.0;
+    e.depth_mm = {1.0, 4.0, 2.0};
+    Hyetograph twice = e;
+    for (double &d : twice.depth_mm) {
+        d *= 2.0;
+    }
+    const auto a = h::unit_hydrograph_from_excess(triangle(), e, 5e6, 45.0, System::us_customary);
+    const auto b =
+        h::unit_hydrograph_from_excess(triangle(), twice, 5e6, 45.0, System::us_customary);
+    ASSERT_EQ(a.value.flow_m3_s.size(), b.value.flow_m3_s.size());
+    for (std::size_t i = 0; i < a.value.flow_m3_s.size(); ++i) {
+        EXPECT_NEAR(b.value.flow_m3_s[i], 2.0 * a.value.flow_m3_s[i], 1e-12);
+    }
+    EXPECT_DOUBLE_EQ(a.value.time_to_peak_s, b.value.time_to_peak_s);
+    const auto peak = std::max_element(a.value.flow_m3_s.begin(), a.value.flow_m3_s.end());
+    EXPECT_DOUBLE_EQ(*peak, a.value.peak_m3_s);
+}
+
+TEST(UnitHydrograph, WarnsWhenDIsTooLongForTp) {
+    Hyetograph e;
+    e.step_s = 60.0;
+    e.depth_mm = {5.0};
+    h::UnitHydrographSettings s;
+    s.step_fraction_of_tc = 0.5; // D = 30 min > 0.25 tp = 0.2125 h
+    const auto r = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si, s);
+    EXPECT_EQ(r.lines.warning_count(), 1u);
+    const auto ok = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si);
+    EXPECT_EQ(ok.lines.warning_count(), 0u);
+}
+
+TEST(UnitHydrograph, FromRainfallStartsWithANoteAndUsesTheExcess) {
+    Hyetograph rain;
+    rain.step_s = 600.0;
+    rain.depth_mm = {5.0, 10.0, 40.0, 15.0, 5.0};
+    const auto r = h::unit_hydrograph_from_rainfall(triangle(), rain, 75.0, 2e6, 50.0, System::si);
+    EXPECT_EQ(r.lines.lines().front().kind, catchpeak::LineKind::note);
+    EXPECT_NEAR(r.value.runoff_mm, h::cn_runoff_depth_mm(75.0, 75.0), 1e-9);
+}
+
+TEST(UnitHydrograph, RefusesBadInput) {
+    Hyetograph e;
+    e.step_s = 60.0;
+    EXPECT_THROW((void)h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si),
+                 InputError); // no steps
+    e.depth_mm = {-1.0};
+    EXPECT_THROW((void)h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si),
+                 InputError);
+    e.depth_mm = {1.0};
+    EXPECT_THROW((void)h::unit_hydrograph_from_excess(triangle(), e, 0.0, 60.0, System::si),
+                 InputError);
+    EXPECT_THROW((void)h::unit_hydrograph_from_excess(triangle(), e, 1e6, -2.0, System::si),
+                 InputError);
+    EXPECT_THROW((void)h::unit_hydrograph_from_excess(h::DimensionlessUnitHydrograph{}, e, 1e6,
+                                                      60.0, System::si),
+                 InputError);
+    e.step_s = 0.0;
+    EXPECT_THROW((void)h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si),
+                 InputError);
+}
+
+} // namespace

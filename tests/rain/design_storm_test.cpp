@@ -1,0 +1,206 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/rain/design_storm.hpp"
+
+#include "catchpeak/core/error.hpp"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <string>
+
+using catchpeak::InputError;
+using catchpeak::units::System;
+namespace rain = catchpeak::rain;
+
+namespace {
+
+// Round-off of sums of a few hundred terms: relative.
+constexpr double rel_eps = 1e-12;
+
+/// An invented 6-hour distribution.
+rain::StormDistribution six_hour() {
+    rain::StormDistribution d;
+    d.name = "invented 6 h";
+    d.hours = {0.0, 1.0, 2.0, 3.0, 6.0};
+    d.cumulative_fraction = {0.0, 0.1, 0.3, 0.8, 1.0};
+    d.source = "invented for the test";
+    d.status = "checked (invented)";
+    return d;
+}
+
+rain::Idf formula_idf() {
+    rain::IdfFormula f;
+    f.name = "invented formula";
+    f.unit = rain::IntensityUnit::mm_per_h;
+    f.constants = {{10.0, 1500.0, 10.0, 0.8}};
+    return rain::Idf(f);
+}
+
+std::string message_of(const auto &fn) {
+    try {
+        fn();
+    } catch (const InputError &e) {
+        return e.what();
+    }
+    return "(no InputError)";
+}
+
+} // namespace
+
+TEST(StormDistribution, LinearInterpolation) {
+    const auto d = six_hour();
+    EXPECT_DOUBLE_EQ(rain::cumulative_fraction_at(d, 2.0), 0.3);
+    EXPECT_NEAR(rain::cumulative_fraction_at(d, 2.5), 0.55, 1e-15); // halfway 0.3 -> 0.8
+    EXPECT_NEAR(rain::cumulative_fraction_at(d, 4.5), 0.9, 1e-15);  // halfway 0.8 -> 1.0
+    EXPECT_DOUBLE_EQ(rain::cumulative_fraction_at(d, 6.0), 1.0);
+}
+
+TEST(StormDistribution, ValidationMessages) {
+    auto d = six_hour();
+    d.cumulative_fraction[2] = 0.05;
+    EXPECT_NE(message_of([&] {
+                  rain::validate(d);
+              }).find("cumulative fraction decreases from 0.1000 at 1.000 h to 0.05000 at 2.000 h"),
+              std::string::npos);
+    d = six_hour();
+    d.cumulative_fraction.back() = 0.99;
+    EXPECT_NE(
+        message_of([&] { rain::validate(d); }).find("the last cumulative fraction is 0.990000"),
+        std::string::npos);
+    d = six_hour();
+    d.hours[0] = 0.5;
+    EXPECT_NE(message_of([&] { rain::validate(d); }).find("the first point is (0.5000 h, 0)"),
+              std::string::npos);
+    d = six_hour();
+    d.hours[3] = 2.0;
+    EXPECT_NE(message_of([&] { rain::validate(d); }).find("hours not strictly increasing"),
+              std::string::npos);
+    d = six_hour();
+    d.hours.pop_back();
+    EXPECT_NE(message_of([&] { rain::validate(d); }).find("4 hours but 5 cumulative fractions"),
+              std::string::npos);
+}
+
+TEST(StormHyetograph, SumsToTheDepthAndFollowsTheCurve) {
+    const auto d = six_hour();
+    const double p_mm = 80.0;
+    const auto r = rain::storm_hyetograph(d, p_mm, 15.0, System::si);
+    ASSERT_EQ(r.value.steps(), 24U);
+    EXPECT_DOUBLE_EQ(r.value.step_s, 900.0);
+    EXPECT_NEAR(r.value.total_mm(), p_mm, p_mm * rel_eps);
+    // Each hour of the table: the cumulative depth equals P F(hour).
+    double cum = 0.0;
+    for (std::size_t k = 0; k < r.value.steps(); ++k) {
+        cum += r.value.depth_mm[k];
+        if ((k + 1) % 4 == 0) {
+            const double hour = static_cast<double>(k + 1) / 4.0;
+            EXPECT_NEAR(cum, p_mm * rain::cumulative_fraction_at(d, hour), p_mm * rel_eps) << hour;
+        }
+    }
+    // The steepest part (2 h to 3 h: 0.5 of P in 1 h) gives the largest step, 0.5 P / 4.
+    // Peak intensity line (mm/h), then the warning that it is the 2-3 h interval's average.
+    ASSERT_EQ(r.lines.warning_count(), 1U);
+    const auto &lines = r.lines.lines();
+    EXPECT_NEAR(lines[lines.size() - 2].value, 0.5 * p_mm, p_mm * rel_eps);
+    EXPECT_NE(lines.back().numbers.find("2.000 h and 3.000 h (60.00 min apart, 15.00 min steps)"),
+              std::string::npos)
+        << lines.back().numbers;
+}
+
+TEST(StormHyetograph, NoAveragingWarningWhenStepsMatchTheTable) {
+    const auto r = rain::storm_hyetograph(six_hour(), 80.0, 60.0, System::si);
+    EXPECT_EQ(r.lines.warning_count(), 0U);
+}
+
+TEST(StormHyetograph, UncheckedTableGivesAWarning) {
+    auto d = six_hour();
+    d.status = "from memory, not checked";
+    const auto r = rain::storm_hyetograph(d, 50.0, 30.0, System::us_customary);
+    ASSERT_EQ(r.lines.warning_count(), 2U); // unchecked table; peak averaged over 2-3 h
+    EXPECT_NE(r.lines.lines()[1].numbers.find("from memory, not checked"), std::string::npos);
+    EXPECT_EQ(r.lines.lines()[r.lines.size() - 2].unit, "in/h");
+}
+
+TEST(StormHyetograph, ValidationMessages) {
+    const auto d = six_hour();
+    EXPECT_NE(message_of([&] {
+                  (void)rain::storm_hyetograph(d, 50.0, 7.0, System::si);
+              }).find("time step 7.000 min does not divide the storm duration of 360.0 min"),
+              std::string::npos);
+    EXPECT_NE(message_of([&] {
+                  (void)rain::storm_hyetograph(d, 0.0, 6.0, System::si);
+              }).find("storm depth 0 mm is not positive"),
+              std::string::npos);
+    EXPECT_NE(message_of([&] {
+                  (void)rain::storm_hyetograph(d, 10.0, -6.0, System::si);
+              }).find("time step -6.000 min is not positive"),
+              std::string::npos);
+}
+
+TEST(AlternatingBlock, PeakBlockAndWindowSumsMatchTheIdf) {
+    const auto idf = formula_idf();
+    const double dt = 10.0;
+    for (std::size_t n : {1U, 5U, 12U}) {
+        const double td = dt * static_cast<double>(n);
+        const auto r = rain::alternating_block_hyetograph(idf, td, dt, 10.0, System::si);
+        ASSERT_EQ(r.value.steps(), n);
+        const std::size_t centre = (n - 1) / 2;
+        // The peak block is i(dt) dt (Chow et al. 1988, sec. 14.4).
+        const double peak = idf.intensity_mm_per_h(dt, 10.0) * dt / 60.0;
+        EXPECT_NEAR(r.value.depth_mm[centre], peak, peak * rel_eps);
+        // The k blocks placed first (centre, right, left, ...) form the window
+        // [centre - (k-1)/2, centre + k/2] and sum to the IDF depth i(k dt) k dt.
+        for (std::size_t k = 1; k <= n; ++k) {
+            double sum = 0.0;
+            for (std::size_t j = centre - (k - 1) / 2; j <= centre + k / 2; ++j) {
+                sum += r.value.depth_mm[j];
+            }
+            const double t = dt * static_cast<double>(k);
+            const double depth = idf.intensity_mm_per_h(t, 10.0) * t / 60.0;
+            EXPECT_NEAR(sum, depth, depth * rel_eps) << "n " << n << " k " << k;
+        }
+    }
+}
+
+TEST(AlternatingBlock, ReordersIncrementsThatDoNotDecrease) {
+    // A table whose depth grows faster between 20 and 30 min than between 10 and 20 min.
+    rain::IdfTable t;
+    t.name = "kinked";
+    t.durations_min = {10.0, 20.0, 30.0};
+    t.return_periods_yr = {10.0};
+    t.intensity_mm_per_h = {{60.0, 33.0, 30.0}}; // depths 10, 11, 15 mm: increments 10, 1, 4
+    const rain::Idf idf(t);
+    const auto r = rain::alternating_block_hyetograph(idf, 30.0, 10.0, 10.0, System::si);
+    ASSERT_EQ(r.value.steps(), 3U);
+    EXPECT_NEAR(r.value.depth_mm[1], 10.0, 1e-12); // centre: the largest
+    EXPECT_NEAR(r.value.depth_mm[2], 4.0, 1e-12);  // right of it: the second largest
+    EXPECT_NEAR(r.value.depth_mm[0], 1.0, 1e-12);
+    bool noted = false;
+    for (const auto &line : r.lines.lines()) {
+        noted = noted || line.label == "Blocks reordered";
+    }
+    EXPECT_TRUE(noted);
+}
+
+TEST(AlternatingBlock, ValidationMessages) {
+    const auto idf = formula_idf();
+    EXPECT_NE(message_of([&] {
+                  (void)rain::alternating_block_hyetograph(idf, 60.0, 25.0, 10.0, System::si);
+              }).find("time step 25.00 min does not divide the storm duration of 60.00 min"),
+              std::string::npos);
+    rain::IdfTable t;
+    t.name = "falling depth";
+    t.durations_min = {10.0, 20.0};
+    t.return_periods_yr = {10.0};
+    t.intensity_mm_per_h = {{60.0, 20.0}}; // depth 10 mm at 10 min, 6.667 mm at 20 min
+    const rain::Idf falling(t);
+    EXPECT_NE(message_of([&] {
+                  (void)rain::alternating_block_hyetograph(falling, 20.0, 10.0, 10.0, System::si);
+              }).find("the IDF depth falls from 10.00 mm at 10.00 min to 6.667 mm at 20.00 min"),
+              std::string::npos);
+    // A table does not reach 5-min blocks when it starts at 10 min: the Idf's error passes.
+    EXPECT_NE(message_of([&] {
+                  (void)rain::alternating_block_hyetograph(falling, 20.0, 5.0, 10.0, System::si);
+              }).find("outside the table's durations"),
+              std::string::npos);
+}

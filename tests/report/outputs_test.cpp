@@ -1,0 +1,44 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/report/outputs.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/report/results_json.hpp"
+#include "report/sample_results.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+
+#include <fstream>
+
+namespace catchpeak::report {
+namespace {
+
+TEST(Outputs, WritesTheFourFilesAndNothingPartial) {
+    const auto r = test::sample_results(2, units::System::si, {10}, false);
+    const auto dir = test::scratch_dir("outputs") / "new" / "folder";
+    const auto out = write_outputs(r, dir);
+    for (const auto &f : {out.results_json, out.run_record, out.summary_csv, out.sheet_pdf}) {
+        EXPECT_TRUE(std::filesystem::exists(f)) << f;
+        EXPECT_GT(std::filesystem::file_size(f), 0u) << f;
+    }
+    EXPECT_GE(out.sheet_pages, 4u);
+    std::size_t files = 0;
+    for (const auto &e : std::filesystem::directory_iterator(dir)) {
+        ++files;
+        EXPECT_EQ(e.path().string().find(".partial"), std::string::npos) << e.path();
+    }
+    EXPECT_EQ(files, 4u);
+    EXPECT_EQ(read_results_json(dir).points.size(), 2u);
+    EXPECT_EQ(read_run_record(dir).run_time_utc, r.stamp.run_time_utc);
+}
+
+TEST(Outputs, UnwritableFolderIsAnInputError) {
+    const auto base = test::scratch_dir("outputs_blocked");
+    const auto file = base / "not-a-folder";
+    std::ofstream(file) << "x";
+    const auto r = test::sample_results(1, units::System::si, {10}, false);
+    EXPECT_THROW((void)write_outputs(r, file / "out"), InputError);
+}
+
+} // namespace
+} // namespace catchpeak::report

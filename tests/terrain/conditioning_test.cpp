@@ -1,0 +1,243 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/terrain/conditioning.hpp"
+
+#include "catchpeak/terrain/accumulation.hpp"
+#include "catchpeak/terrain/flow_direction.hpp"
+#include "test_dems.hpp"
+
+#include <gtest/gtest.h>
+
+#include <limits>
+
+using namespace catchpeak;
+using namespace catchpeak::terrain;
+
+namespace {
+
+bool is_data(float v) { return !std::isnan(v) && v != test::nodata_value; }
+
+/// Reference fill by the method of Planchon and Darboux (2001, Catena 46:159-176), with no
+/// minimal slope: start from an infinitely high water surface W everywhere except on the outlet
+/// cells (raster edge, next to nodata), where W = Z, and lower W cell by cell
+/// (W(c) = max(Z(c), min over neighbours W(n))) until nothing changes. A different algorithm
+/// from Priority-Flood with the same result for a plain fill.
+Grid<float> planchon_darboux_fill(const Grid<float> &z) {
+    const std::size_t w = z.width();
+    const std::size_t h = z.height();
+    Grid<float> out = z;
+    const float inf = std::numeric_limits<float>::infinity();
+    const auto at = [&](long long c, long long r) -> const float * {
+        if (c < 0 || r < 0 || c >= static_cast<long long>(w) || r >= static_cast<long long>(h)) {
+            return nullptr;
+        }
+        return &z(static_cast<std::size_t>(c), static_cast<std::size_t>(r));
+    };
+    for (std::size_t r = 0; r < h; ++r) {
+        for (std::size_t c = 0; c < w; ++c) {
+            if (!is_data(z(c, r))) {
+                continue;
+            }
+            bool border = false;
+            for (int dr = -1; dr <= 1; ++dr) {
+                for (int dc = -1; dc <= 1; ++dc) {
+                    const float *n =
+                        at(static_cast<long long>(c) + dc, static_cast<long long>(r) + dr);
+                    border = border || n == nullptr || !is_data(*n);
+                }
+            }
+            out(c, r) = border ? z(c, r) : inf;
+        }
+    }
+    bool changed = true;
+    while (changed) {
+        changed = false;
+        for (std::size_t r = 1; r + 1 < h; ++r) {
+            for (std::size_t c = 1; c + 1 < w; ++c) {
+                if (!is_data(z(c, r)) || out(c, r) == z(c, r)) {
+                    continue;
+                }
+                for (int dr = -1; dr <= 1; ++dr) {
+                    for (int dc = -1; dc <= 1; ++dc) {
+                        const float wn = out(c + static_cast<std::size_t>(dc + 1) - 1,
+                                             r + static_cast<std::size_t>(dr + 1) - 1);
+                        if (!is_data(wn) || (dc == 0 && dr == 0)) {
+                            continue;
+                        }
+                        if (z(c, r) >= wn) {
+                            out(c, r) = z(c, r); // the cell can drain as it is
+                            changed = true;
+                        } else if (out(c, r) > wn) {
+                            out(c, r) = wn; // lower the water surface to the neighbour's
+                            changed = true;
+                        }
+                    }
+                }
+            }
+        }
+    }
+    return out;
+}
+
+} // namespace
+
+TEST(Conditioning, FillEqualsPlanchonDarbouxReferenceOnRandomDems) {
+    for (const unsigned seed : {1U, 2U, 3U, 4U}) {
+        const auto dem = test::random_dem(70, 55, seed);
+        auto filled = dem;
+        fill_depressions(filled);
+        const auto reference = planchon_darboux_fill(dem);
+        std::size_t raised = 0;
+        for (std::size_t i = 0; i < dem.size(); ++i) {
+            ASSERT_EQ(filled[i], reference[i]) << "seed " << seed << " cell " << i;
+            raised += filled[i] > dem[i] ? 1 : 0;
+        }
+        EXPECT_GT(raised, 0U) << "the test DEM should have depressions (seed " << seed << ")";
+    }
+}
+
+TEST(Conditioning, EveryValidCellDrainsToTheEdgeOrNodata) {
+    for (const unsigned seed : {11U, 12U, 13U}) {
+        const auto dem = test::random_dem(80, 60, seed);
+        const auto dirs = conditioned_directions(dem, {}, 1);
+        auto filled = dem;
+        fill_depressions(filled);
+        for (std::size_t i = 0; i < dem.size(); ++i) {
+            if (!is_data(dem[i])) {
+                EXPECT_EQ(dirs[i], d8::none);
+                continue;
+            }
+            ASSERT_NE(dirs[i], d8::none) << "seed " << seed << " cell " << i;
+            const std::size_t end = test::path_end(dirs, i);
+            ASSERT_NE(end, no_cell) << "seed " << seed << " cell " << i;
+            // The last cell hands its water off the raster or to nodata.
+            const std::size_t d = downstream_cell(dirs, end);
+            EXPECT_TRUE(d == no_cell || !is_data(dem[d]));
+            // Directions never lead up on the filled DEM.
+            const std::size_t next = downstream_cell(dirs, i);
+            if (next != no_cell && is_data(dem[next])) {
+                EXPECT_LE(filled[next], filled[i]);
+            }
+        }
+    }
+}
+
+TEST(Conditioning, ClosedBowlDrainsThroughItsSpillPoint) {
+    // A bowl (lowest in the middle) behind a rim of 50 m on the raster edge, with one spill
+    // cell of 6 m on the east edge. After the fill the bowl is a 6 m flat; every cell must
+    // drain through the spill cell.
+    const std::size_t n = 31;
+    auto dem = test::blank_dem(n, n);
+    for (std::size_t r = 0; r < n; ++r) {
+        for (std::size_t c = 0; c < n; ++c) {
+            const double dc = static_cast<double>(c) - 15.0;
+            const double dr = static_cast<double>(r) - 15.0;
+            const bool rim = (r == 0 || c == 0 || r + 1 == n || c + 1 == n);
+            dem(c, r) = rim ? 50.0F : static_cast<float>(5.0 + 0.001 * (dc * dc + dr * dr));
+        }
+    }
+    const std::size_t spill = dem.index(n - 1, 9);
+    dem[spill] = 6.0F;
+    const auto dirs = conditioned_directions(dem, {}, 2);
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        ASSERT_EQ(test::path_end(dirs, i), spill) << "cell " << i;
+    }
+    const auto acc = flow_accumulation(dirs);
+    EXPECT_EQ(acc[spill], n * n);
+}
+
+TEST(Conditioning, FlatsDrainTowardLowerTerrainAwayFromHigher) {
+    // A flat of 10 m between high walls (20 m) on the west, north and south and an outlet
+    // column on the east (the raster edge at 5 m). Every flat cell must drain, and directions in
+    // the flat must never point west (toward higher terrain).
+    auto dem = test::blank_dem(12, 7);
+    for (std::size_t r = 0; r < dem.height(); ++r) {
+        for (std::size_t c = 0; c < dem.width(); ++c) {
+            const bool wall = c == 0 || r == 0 || r + 1 == dem.height();
+            dem(c, r) = wall ? 20.0F : (c + 1 == dem.width() ? 5.0F : 10.0F);
+        }
+    }
+    const auto dirs = conditioned_directions(dem, {}, 1);
+    for (std::size_t r = 1; r + 1 < dem.height(); ++r) {
+        for (std::size_t c = 1; c + 1 < dem.width(); ++c) {
+            const std::uint8_t k = dirs(c, r);
+            ASSERT_NE(k, d8::none);
+            EXPECT_GE(d8::dcol[k], 0) << "col " << c << " row " << r;
+            EXPECT_NE(test::path_end(dirs, dirs.index(c, r)), no_cell);
+        }
+    }
+}
+
+TEST(Conditioning, RasterizedPolylineIsAnEightConnectedChain) {
+    const auto dem = test::blank_dem(40, 30);
+    // A polyline with a shallow and a steep leg, in CRS metres (cells 10 m, origin 1000, 5000).
+    const std::vector<std::pair<double, double>> line{
+        {1005.0, 4995.0}, {1255.0, 4905.0}, {1275.0, 4705.0}};
+    const auto cells = rasterize_polyline(dem.transform, dem.width(), dem.height(), line);
+    ASSERT_GE(cells.size(), 2U);
+    EXPECT_EQ(cells.front(), dem.index(0, 0));
+    EXPECT_EQ(cells.back(), dem.index(27, 29));
+    for (std::size_t k = 1; k < cells.size(); ++k) {
+        const long long dc =
+            static_cast<long long>(cells[k] % 40) - static_cast<long long>(cells[k - 1] % 40);
+        const long long dr =
+            static_cast<long long>(cells[k] / 40) - static_cast<long long>(cells[k - 1] / 40);
+        EXPECT_LE(std::abs(dc), 1);
+        EXPECT_LE(std::abs(dr), 1);
+        EXPECT_NE(cells[k], cells[k - 1]);
+    }
+}
+
+TEST(Conditioning, BreachLineDescendsFromItsHigherEndAndNeverRaises) {
+    auto dem = test::blank_dem(10, 3);
+    const float z[10] = {8, 9, 12, 12, 7, 11, 6, 6, 5, 4};
+    for (std::size_t c = 0; c < 10; ++c) {
+        dem(c, 1) = z[c];
+    }
+    const auto original = dem;
+    // Drawn from the low end (east) to the high end (west): the rule walks from the higher end.
+    apply_breach_lines(dem, {BreachLine{"culvert", {{1095.0, 4985.0}, {1005.0, 4985.0}}}});
+    const float expected[10] = {8, 8, 8, 8, 7, 7, 6, 6, 5, 4}; // running minimum from the west
+    for (std::size_t c = 0; c < 10; ++c) {
+        EXPECT_EQ(dem(c, 1), expected[c]) << "col " << c;
+        EXPECT_LE(dem(c, 1), original(c, 1));
+    }
+}
+
+TEST(Conditioning, BreachLineLetsWaterThroughAnEmbankment) {
+    // A valley falling south along column 20, crossed by a road embankment on row 20 (crest
+    // 30 m above the valley) whose lowest point is at column 3, walled on the other sides. Without
+    // a breach line the water above the road crosses it at column 3 (after filling); with a breach
+    // line drawn along the valley through the embankment it crosses at column 20.
+    const std::size_t w = 41;
+    const std::size_t h = 40;
+    auto dem = test::blank_dem(w, h);
+    for (std::size_t r = 0; r < h; ++r) {
+        for (std::size_t c = 0; c < w; ++c) {
+            const double side = std::abs(static_cast<double>(c) - 20.0);
+            dem(c, r) = static_cast<float>(0.5 * side + 0.2 * static_cast<double>(h - 1 - r));
+        }
+    }
+    for (std::size_t c = 0; c < w; ++c) {
+        dem(c, 20) = c == 3 ? 35.0F : 40.0F;
+        dem(c, 0) = 50.0F; // walls around the part above the road, so it can only leave
+    }                      // across the road
+    for (std::size_t r = 0; r < 20; ++r) {
+        dem(0, r) = 50.0F;
+        dem(w - 1, r) = 50.0F;
+    }
+    const std::size_t upstream = dem.index(20, 5);
+    const auto crossing_col = [&](const Grid<std::uint8_t> &dirs) {
+        std::size_t i = upstream;
+        while (i != no_cell && i / w < 20) {
+            i = downstream_cell(dirs, i);
+        }
+        if (i == no_cell) {
+            return w; // left the raster elsewhere
+        }
+        return i % w;
+    };
+    EXPECT_EQ(crossing_col(conditioned_directions(dem, {}, 1)), 3U);
+    const BreachLine culvert{"C1",
+                             {{1205.0, 5000.0 - 18.5 * 10.0}, {1205.0, 5000.0 - 22.5 * 10.0}}};
+    EXPECT_EQ(crossing_col(conditioned_directions(dem, {culvert}, 1)), 20U);
+}
