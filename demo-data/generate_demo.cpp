@@ -302,10 +302,12 @@ std::string fixed(double v, int decimals) {
 void write_rainfall(const fs::path &dir) {
     const std::vector<double> rps = {2, 5, 10, 25, 50, 100};
     std::string idf = "# Invented IDF table of the Wrenfield Hollow demo (not a real gauge).\n"
+                      "# name: Wrenfield Hollow IDF (invented)\n"
+                      "# unit: mm/h\n"
                       "# source: invented for the catchpeak demo\n"
                       "duration_min";
     for (double rp : rps) {
-        idf += "," + fixed(rp, 0) + "yr_mm_per_h";
+        idf += "," + fixed(rp, 0);
     }
     idf += "\n";
     for (double d : {5.0, 10.0, 15.0, 30.0, 60.0, 120.0, 360.0, 720.0, 1440.0}) {

@@ -4,11 +4,14 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/csv.hpp"
+#include "catchpeak/io/idf_csv.hpp"
+#include "catchpeak/rain/idf.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
 #include <cmath>
+#include <cstdlib>
 #include <fstream>
 #include <set>
 #include <utility>
@@ -18,10 +21,6 @@ namespace catchpeak::app {
 namespace fs = std::filesystem;
 
 namespace {
-
-bool ends_with(std::string_view s, std::string_view suffix) {
-    return s.size() >= suffix.size() && s.substr(s.size() - suffix.size()) == suffix;
-}
 
 /// The one column of `t` among `names` (with its index), or nullopt; two present is an error.
 std::optional<std::pair<std::string, std::size_t>>
@@ -65,66 +64,12 @@ double positive(const io::CsvTable &t, const io::CsvTable::Row &row, std::size_t
 
 } // namespace
 
-IdfTable read_idf_table(const fs::path &path) {
-    const io::CsvTable t = io::read_csv(path);
-    IdfTable idf;
-    idf.source = t.source;
-    const std::size_t dcol = t.column("duration_min");
-    std::vector<std::pair<double, std::size_t>> cols;
-    std::vector<double> factors;
-    for (std::size_t c = 0; c < t.header.size(); ++c) {
-        if (c == dcol) {
-            continue;
-        }
-        const std::string &h = t.header[c];
-        double factor = 1.0;
-        std::string_view rest;
-        if (ends_with(h, "yr_mm_per_h")) {
-            rest = std::string_view(h).substr(0, h.size() - 11);
-        } else if (ends_with(h, "yr_in_per_h")) {
-            rest = std::string_view(h).substr(0, h.size() - 11);
-            factor = units::mm_per_in;
-        } else {
-            throw_input_error(fmt::format("{}: column '{}'", t.source, h),
-                              "not a return period column",
-                              "'duration_min' and columns '<T>yr_mm_per_h' or '<T>yr_in_per_h', "
-                              "e.g. '10yr_mm_per_h'");
-        }
-        const double rp = io::parse_number(rest, fmt::format("{}: column '{}'", t.source, h));
-        if (!(rp > 1.0)) {
-            throw_input_error(fmt::format("{}: column '{}'", t.source, h),
-                              fmt::format("return period {} is not above 1 year", rp),
-                              "a return period > 1 year");
-        }
-        if (idf.intensity_mm_per_h.count(rp) != 0) {
-            throw_input_error(fmt::format("{}: column '{}'", t.source, h),
-                              fmt::format("the {}-year return period is given twice", rp));
-        }
-        idf.intensity_mm_per_h[rp] = {};
-        cols.emplace_back(rp, c);
-        factors.push_back(factor);
+std::filesystem::path config_dir() {
+    const char *env = std::getenv("CATCHPEAK_CONFIG_DIR");
+    if (env != nullptr && *env != '\0') {
+        return env;
     }
-    if (cols.empty()) {
-        throw_input_error(t.source, "no return period columns",
-                          "columns '<T>yr_mm_per_h' or '<T>yr_in_per_h' beside 'duration_min'");
-    }
-    if (t.rows.size() < 2) {
-        throw_input_error(t.source, fmt::format("{} duration rows", t.rows.size()),
-                          "at least two durations");
-    }
-    for (const auto &row : t.rows) {
-        const double d = positive(t, row, dcol);
-        if (!idf.durations_min.empty() && d <= idf.durations_min.back()) {
-            throw_input_error(t.where(row, dcol), fmt::format("duration {} does not increase", d),
-                              "durations in increasing order");
-        }
-        idf.durations_min.push_back(d);
-        for (std::size_t k = 0; k < cols.size(); ++k) {
-            idf.intensity_mm_per_h[cols[k].first].push_back(positive(t, row, cols[k].second) *
-                                                            factors[k]);
-        }
-    }
-    return idf;
+    return CATCHPEAK_BUILT_CONFIG_DIR;
 }
 
 std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
@@ -263,21 +208,26 @@ void check_project(const Project &p, Problems &problems) {
 
     if (p.rainfall.idf) {
         collect(problems, [&] {
-            const IdfTable idf = read_idf_table(p.rainfall.idf->resolved);
+            const rain::Idf idf = io::read_idf_csv(p.rainfall.idf->resolved);
+            const auto have = idf.return_periods_yr();
             for (double rp : p.rainfall.return_periods_yr) {
-                if (idf.intensity_mm_per_h.count(rp) == 0) {
-                    std::vector<std::string> have;
-                    for (const auto &[k, v] : idf.intensity_mm_per_h) {
-                        have.push_back(fmt::format("{}", k));
-                    }
+                if (std::find(have.begin(), have.end(), rp) == have.end()) {
                     problems.add(input_message(
                         fmt::format("{}: [rainfall] return_periods_yr", pf),
-                        fmt::format("the {}-year return period is not in the IDF table '{}'", rp,
+                        fmt::format("the {}-year return period is not in the IDF '{}'", rp,
                                     p.rainfall.idf->given),
-                        fmt::format("return periods of the table: {}", fmt::join(have, ", "))));
+                        fmt::format("return periods of the IDF: {}", fmt::join(have, ", "))));
                 }
             }
         });
+    }
+    if (p.uses_method("rational")) {
+        const auto cf = config_dir() / "rational_frequency_factors.csv";
+        if (!fs::exists(cf)) {
+            problems.add(input_message(cf.string(), "the frequency factor table is missing",
+                                       "config/rational_frequency_factors.csv, or "
+                                       "CATCHPEAK_CONFIG_DIR naming a folder that has it"));
+        }
     }
 
     std::set<std::string> ids;

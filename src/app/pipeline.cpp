@@ -5,7 +5,12 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/core/version.hpp"
+#include "catchpeak/hydro/rational.hpp"
+#include "catchpeak/hydro/tc.hpp"
 #include "catchpeak/io/csv.hpp"
+#include "catchpeak/io/hydro_tables.hpp"
+#include "catchpeak/io/idf_csv.hpp"
+#include "catchpeak/report/outputs.hpp"
 
 #include <fmt/format.h>
 
@@ -22,12 +27,6 @@ namespace catchpeak::app {
 namespace fs = std::filesystem;
 
 namespace {
-
-constexpr const char *kirpich_source = "Kirpich (1940); TxDOT Hydraulic Design Manual eq. 4-15";
-constexpr const char *rational_source_us = "Rational Method, Q = C i A; 1 acre-in/h = 1.008 ft3/s";
-constexpr const char *rational_source_si =
-    "Rational Method, Q = C i A; SI form with i in mm/h, A in ha (computed: 1/360)";
-constexpr const char *idf_source_suffix = "log-log interpolation between durations";
 
 bool is_us(const Project &p) { return p.info.units == units::System::us_customary; }
 
@@ -89,33 +88,9 @@ void not_yet_available(const Project &p, Problems &problems) {
 
 } // namespace
 
-double idf_intensity_mm_per_h(const IdfTable &idf, double return_period_yr, double duration_min) {
-    const auto it = idf.intensity_mm_per_h.find(return_period_yr);
-    if (it == idf.intensity_mm_per_h.end()) {
-        throw_input_error(idf.source,
-                          fmt::format("no column for the {}-year return period", return_period_yr),
-                          "a column '<T>yr_mm_per_h' for every return period of the project");
-    }
-    const auto &d = idf.durations_min;
-    const auto &i = it->second;
-    if (duration_min < d.front() || duration_min > d.back()) {
-        throw_input_error(
-            idf.source,
-            fmt::format("duration {} min is outside the table ({} to {} min); the table is not "
-                        "extrapolated",
-                        sig(duration_min), d.front(), d.back()),
-            "a table covering every tc of the project");
-    }
-    std::size_t k = 1;
-    while (k < d.size() - 1 && d[k] < duration_min) {
-        ++k;
-    }
-    const double exponent = std::log(i[k] / i[k - 1]) / std::log(d[k] / d[k - 1]);
-    return i[k - 1] * std::pow(duration_min / d[k - 1], exponent);
-}
-
 report::RunResults compute_from_table(const Project &p, const std::vector<TableCatchment> &rows,
-                                      const IdfTable *idf) {
+                                      const rain::Idf *idf,
+                                      const hydro::FrequencyFactorTable &frequency_factors) {
     report::RunResults r;
     r.project = p.info;
     const bool us = is_us(p);
@@ -199,25 +174,15 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
             tc = *c.tc_min;
             lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)),
                        table_src, tc, "min");
-        } else if (us) {
-            tc = 0.0078 * std::pow(length_ft, 0.77) * std::pow(c.slope, -0.385);
-            lines.calc(
-                "Time of concentration, Kirpich (US form)", "tc = 0.0078 L^0.77 S^-0.385",
-                fmt::format("tc = 0.0078 x {}^0.77 x {}^-0.385", sig(length_ft), sig(c.slope)), tc,
-                "min", kirpich_source);
         } else {
-            tc = 0.0195 * std::pow(c.longest_flow_path_m, 0.77) * std::pow(c.slope, -0.385);
-            lines.calc("Time of concentration, Kirpich (SI form)", "tc = 0.0195 L^0.77 S^-0.385",
-                       fmt::format("tc = 0.0195 x {}^0.77 x {}^-0.385", sig(c.longest_flow_path_m),
-                                   sig(c.slope)),
-                       tc, "min", kirpich_source);
+            auto k = hydro::kirpich_tc_min(c.longest_flow_path_m, c.slope, c.area_m2, p.info.units);
+            lines.append(k.lines);
+            tc = k.value;
         }
-        if (tc < p.settings.minimum_tc_min) {
-            lines.calc("Time of concentration, not below the minimum", "tc = max(tc, tc_min)",
-                       fmt::format("tc = max({}, {})", sig(tc), sig(p.settings.minimum_tc_min)),
-                       p.settings.minimum_tc_min, "min",
-                       "project setting minimum_tc_min (common practice, no source)");
-            tc = p.settings.minimum_tc_min;
+        {
+            auto m = hydro::apply_minimum_tc(tc, p.settings.minimum_tc_min);
+            lines.append(m.lines);
+            tc = m.value;
         }
         dp.tc_min = tc;
         dp.tc_method = tc_method;
@@ -225,58 +190,44 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
         const auto &peaks =
             (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
         const bool rational = std::find(peaks.begin(), peaks.end(), "rational") != peaks.end();
-        if (rational && area_ha > p.settings.rational_area_limit_ha) {
-            lines.warn("Rational Method area limit",
-                       fmt::format("catchment area {} ha exceeds the limit of {} ha set for the "
-                                   "Rational Method; use an SCS method or split the catchment",
-                                   sig(area_ha), sig(p.settings.rational_area_limit_ha)),
-                       "project setting rational_area_limit_ha (common practice, no source)");
-        }
+        std::vector<std::size_t> q_line_index; // per peak, filled with its line id below
+        hydro::RationalSettings rational_settings;
+        rational_settings.max_area_m2 = units::ha_to_m2(p.settings.rational_area_limit_ha);
         for (double rp : p.rainfall.return_periods_yr) {
             if (!rational || idf == nullptr || !c.c) {
                 continue;
             }
-            const double i_mm = idf_intensity_mm_per_h(*idf, rp, tc);
-            const double i_show = us ? units::mm_per_h_to_in_per_h(i_mm) : i_mm;
-            lines.calc(fmt::format("Rainfall intensity, {}-year, duration tc", rp),
-                       "i = IDF(T, tc)", fmt::format("i = IDF({} yr, {} min)", rp, sig(tc)), i_show,
-                       us ? "in/h" : "mm/h",
-                       fmt::format("project IDF table {} ({})",
-                                   p.rainfall.idf ? p.rainfall.idf->given : "", idf_source_suffix));
+            auto i = idf->intensity(tc, rp, p.info.units);
+            lines.append(i.lines);
+            auto cf = hydro::frequency_factor(frequency_factors, rp);
+            lines.append(cf.lines);
+            auto q = hydro::rational_peak_m3_s(*c.c, cf.value, i.value, c.area_m2, p.info.units,
+                                               rational_settings);
+            // The line that gives Q: the last calculation line of the Rational Method's lines.
+            std::size_t q_line = lines.size();
+            for (std::size_t k = 0; k < q.lines.size(); ++k) {
+                if (q.lines.lines()[k].kind == LineKind::calculation) {
+                    q_line = lines.size() + k;
+                }
+            }
+            q_line_index.push_back(q_line);
+            lines.append(q.lines);
             report::Peak pk;
             pk.return_period_yr = rp;
             pk.method = "rational";
-            double q_m3_s = 0.0;
-            if (us) {
-                const double q_cfs = 1.008 * *c.c * i_show * area_ac;
-                lines.calc(
-                    fmt::format("Peak flow, Rational Method, {}-year", rp), "Q = 1.008 C i A",
-                    fmt::format("Q = 1.008 x {} x {} x {}", sig(*c.c), sig(i_show), sig(area_ac)),
-                    q_cfs, "ft3/s", rational_source_us);
-                q_m3_s = units::cfs_to_m3s(q_cfs);
-            } else {
-                q_m3_s = *c.c * i_mm * area_ha / 360.0;
-                lines.calc(
-                    fmt::format("Peak flow, Rational Method, {}-year", rp), "Q = C i A / 360",
-                    fmt::format("Q = {} x {} x {} / 360", sig(*c.c), sig(i_mm), sig(area_ha)),
-                    q_m3_s, "m3/s", rational_source_si);
-            }
-            pk.q_m3_s = q_m3_s;
+            pk.q_m3_s = q.value;
             pk.intermediates = {{"c", *c.c},
-                                {"intensity_mm_per_h", i_mm},
-                                {"duration_min", tc},
-                                {"area_m2", c.area_m2}};
+                                {"cf", cf.value},
+                                {"intensity_mm_per_h", i.value},
+                                {"duration_min", tc}};
             dp.peaks.push_back(std::move(pk));
         }
-        if (rational && p.rainfall.return_periods_yr.size() > 0 &&
-            *std::max_element(p.rainfall.return_periods_yr.begin(),
-                              p.rainfall.return_periods_yr.end()) > 10.0) {
-            lines.warn("Rational Method frequency factor",
-                       "no frequency factor Cf is applied to C for return periods above 10 "
-                       "years; check what the local drainage code requires",
-                       "common practice, no source");
-        }
         number_lines(lines, dp.id);
+        for (std::size_t k = 0; k < dp.peaks.size(); ++k) {
+            if (q_line_index[k] < lines.size()) {
+                dp.peaks[k].line_id = lines.lines()[q_line_index[k]].id;
+            }
+        }
         r.points.push_back(std::move(dp));
     }
     return r;
@@ -292,15 +243,19 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         progress << "catchpeak: reading " << p.inputs.catchment_table->given << '\n';
     }
     const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
-    std::optional<IdfTable> idf;
+    std::optional<rain::Idf> idf;
     if (p.rainfall.idf) {
-        idf = read_idf_table(p.rainfall.idf->resolved);
+        idf = io::read_idf_csv(p.rainfall.idf->resolved);
+    }
+    hydro::FrequencyFactorTable cf_table;
+    if (p.uses_method("rational")) {
+        cf_table = io::read_frequency_factor_table(config_dir() / "rational_frequency_factors.csv");
     }
     if (!quiet) {
         progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
                                 rows.size(), p.rainfall.return_periods_yr.size());
     }
-    report::RunResults r = compute_from_table(p, rows, idf ? &*idf : nullptr);
+    report::RunResults r = compute_from_table(p, rows, idf ? &*idf : nullptr, cf_table);
 
     // The stamp: what was run, on what. Paths as written in the project file.
     r.stamp.tool_version = std::string(version());
@@ -321,46 +276,13 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     add("CN table", p.inputs.cn_table);
     add("IDF", p.rainfall.idf);
     add("annual maximum series", p.rainfall.annual_maximum_series);
+    if (p.uses_method("rational")) {
+        const auto cf = config_dir() / "rational_frequency_factors.csv";
+        r.stamp.inputs.push_back(
+            {"frequency factor table", "config/rational_frequency_factors.csv", sha256_file(cf)});
+    }
     return r;
 }
-
-namespace {
-
-/// Writes every output under a temporary name, then renames them all; on failure removes the
-/// temporary files and leaves any earlier outputs as they were.
-void write_outputs(const fs::path &dir,
-                   const std::vector<std::pair<std::string, std::string>> &files) {
-    std::error_code ec;
-    fs::create_directories(dir, ec);
-    if (ec) {
-        throw_input_error(dir.string(), "the output folder cannot be created: " + ec.message(),
-                          "a folder you may write to ('--out' or [output] folder)");
-    }
-    std::vector<fs::path> written;
-    try {
-        for (const auto &[name, text] : files) {
-            const fs::path tmp = dir / ("." + name + ".partial");
-            std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
-            written.push_back(tmp);
-            out << text;
-            out.close();
-            if (!out) {
-                throw_input_error(tmp.string(), "cannot be written",
-                                  "a folder you may write to, with free space");
-            }
-        }
-        for (std::size_t k = 0; k < files.size(); ++k) {
-            fs::rename(written[k], dir / files[k].first);
-        }
-    } catch (...) {
-        for (const auto &w : written) {
-            fs::remove(w, ec);
-        }
-        throw;
-    }
-}
-
-} // namespace
 
 fs::path run_project(const fs::path &project_file, const RunOptions &options, std::ostream &out,
                      std::ostream &err) {
@@ -368,9 +290,10 @@ fs::path run_project(const fs::path &project_file, const RunOptions &options, st
     report::RunResults r = compute_project(p, err, options.quiet);
     r.stamp.run_time_utc = options.run_time_utc.empty() ? utc_now() : options.run_time_utc;
     const fs::path dir = options.out_dir ? *options.out_dir : p.output_dir;
-    write_outputs(dir, {{"results.json", results_json(r)},
-                        {"summary.csv", summary_csv(r)},
-                        {"run-record.json", run_record_json(r)}});
+    if (!options.quiet) {
+        err << "catchpeak: writing results and the calculation sheet\n";
+    }
+    (void)report::write_outputs(r, dir);
     if (!options.quiet) {
         out << summary_table(r);
         out << fmt::format("outputs: {}\n", fs::absolute(dir).lexically_normal().string());

@@ -1,13 +1,11 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/inputs.hpp"
 
-#include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
 
-#include <cmath>
 #include <fstream>
 #include <string>
 
@@ -53,21 +51,18 @@ TEST(CatchmentTable, ConvertsUnitsFromColumnNames) {
     EXPECT_EQ(rows[1].line, 3u);
 }
 
-TEST(IdfTable, ReadsInchesAndInterpolatesLogLog) {
-    const auto dir = catchpeak::test::scratch_dir("idf_read");
-    const auto f = write(dir, "idf.csv",
-                         "# source: invented test table\n"
-                         "duration_min,10yr_in_per_h,100yr_in_per_h\n"
-                         "10,4.0,6.0\n"
-                         "40,2.0,3.0\n");
-    const IdfTable idf = read_idf_table(f);
-    ASSERT_EQ(idf.durations_min.size(), 2u);
-    // 4.0 in/h = 101.6 mm/h (1 in = 25.4 mm).
-    EXPECT_DOUBLE_EQ(idf.intensity_mm_per_h.at(10.0)[0], 101.6);
-    // Log-log: halving over a factor 4 in duration is i ~ t^-0.5, so at 20 min
-    // i = 4.0 / sqrt(2) in/h = 2.828427 in/h = 71.842 mm/h (computed by hand).
-    EXPECT_NEAR(idf_intensity_mm_per_h(idf, 10.0, 20.0), 4.0 / std::sqrt(2.0) * 25.4, 1e-9);
-    EXPECT_DOUBLE_EQ(idf_intensity_mm_per_h(idf, 100.0, 40.0), 76.2);
-    EXPECT_THROW((void)idf_intensity_mm_per_h(idf, 10.0, 5.0), catchpeak::InputError);
-    EXPECT_THROW((void)idf_intensity_mm_per_h(idf, 25.0, 20.0), catchpeak::InputError);
+TEST(CatchmentTable, RejectsAMissingAreaColumn) {
+    const auto dir = catchpeak::test::scratch_dir("catchment_no_area");
+    const auto f = write(dir, "c.csv", "id,length_m,relief_m\nA,100,2\n");
+    try {
+        (void)read_catchment_table(f);
+        FAIL() << "expected an InputError";
+    } catch (const catchpeak::InputError &e) {
+        EXPECT_NE(std::string(e.what()).find("no column for the area"), std::string::npos)
+            << e.what();
+    }
+}
+
+TEST(ConfigDir, HoldsTheFrequencyFactorTable) {
+    EXPECT_TRUE(fs::exists(config_dir() / "rational_frequency_factors.csv")) << config_dir();
 }

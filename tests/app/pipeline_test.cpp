@@ -57,7 +57,8 @@ folder = "out"
                                   "IN-1,0.72,80,1.6,0.5,10\n"
                                   "OUT-1,3.0,500,5,0.45,\n");
     write(dir / "idf.csv", "# invented IDF table for the test\n"
-                           "duration_min,2yr_mm_per_h,10yr_mm_per_h\n"
+                           "# unit: mm/h\n"
+                           "duration_min,2,10\n"
                            "5,110,150\n"
                            "10,90,120\n"
                            "15,75,100\n"
@@ -122,10 +123,21 @@ TEST(Pipeline, TableProjectSiComputedByHand) {
     // The run record holds the time and the SHA-256 of the inputs; results.json does not.
     const auto rec = nlohmann::json::parse(read(dir / "out" / "run-record.json"));
     EXPECT_EQ(rec.at("run_time_utc"), "2026-01-01T00:00:00Z");
-    EXPECT_EQ(rec.at("inputs").size(), 3u);
+    // project file, catchment table, IDF and the frequency factor table.
+    EXPECT_EQ(rec.at("inputs").size(), 4u);
     EXPECT_EQ(read(dir / "out" / "results.json").find("2026-01-01"), std::string::npos);
-    // Every calculation line of a design point is numbered "<id>-L<n>".
+    // Every calculation line of a design point is numbered "<id>-L<n>", and each peak names
+    // the line that gives it.
     EXPECT_EQ(in1.at("lines").at(0).at("id"), "IN-1-L1");
+    const std::string q_line = in1.at("peaks").at(0).at("line_id");
+    bool found = false;
+    for (const auto &l : in1.at("lines")) {
+        if (l.at("id") == q_line) {
+            found = true;
+            EXPECT_NEAR(l.at("value").get<double>(), 0.09, 1e-12); // the 2-year Q above
+        }
+    }
+    EXPECT_TRUE(found) << q_line;
 }
 
 TEST(Pipeline, UsCustomarySheetUsesThePublishedUsForm) {
@@ -142,7 +154,7 @@ return_periods_yr = [10]
 folder = "out"
 )");
     write(dir / "c.csv", "id,area_ac,length_ft,slope_percent,c,tc_min\nLOT-1,2.0,300,2,0.6,10\n");
-    write(dir / "idf.csv", "duration_min,10yr_in_per_h\n5,5.0\n10,4.0\n30,2.5\n");
+    write(dir / "idf.csv", "# unit: in/h\nduration_min,10\n5,5.0\n10,4.0\n30,2.5\n");
     std::ostringstream out;
     std::ostringstream err;
     RunOptions options;
@@ -150,15 +162,15 @@ folder = "out"
     run_project(dir / "project.toml", options, out, err);
     EXPECT_TRUE(out.str().empty());
     const auto j = nlohmann::json::parse(read(dir / "out" / "results.json"));
-    // Q = 1.008 C i A (1 acre-in/h = 1.008 ft3/s): 1.008 x 0.6 x 4.0 x 2.0 = 4.8384 ft3/s
-    // = 4.8384 x 0.028316846592 = 0.137008 m3/s (computed by hand).
+    // Q = 1.008 Cf C i A (1 acre-in/h = 1.008 ft3/s), Cf = 1.0 for 10 years (config table):
+    // 1.008 x 0.6 x 4.0 x 2.0 = 4.8384 ft3/s = 4.8384 x 0.028316846592 = 0.137008 m3/s
+    // (computed by hand).
     EXPECT_NEAR(q(point(j, "LOT-1"), 10.0), 0.137008, 1e-6); // hand rounding at 6 figures
-    // The sheet's line shows the US form.
+    // The sheet's line in ft3/s shows the US form.
     bool found = false;
     for (const auto &l : point(j, "LOT-1").at("lines")) {
-        if (l.at("symbols") == "Q = 1.008 C i A") {
+        if (l.at("unit") == "ft3/s") {
             found = true;
-            EXPECT_EQ(l.at("unit"), "ft3/s");
             EXPECT_NEAR(l.at("value").get<double>(), 4.8384, 1e-9); // exact arithmetic
         }
     }

@@ -47,7 +47,8 @@ const char *const base_catchments = "id,area_ha,length_m,relief_m,c,cn\n"
                                     "IN-1,0.8,120,3.6,0.65,85\n"
                                     "IN-2,1.1,150,3.0,0.55,80\n";
 
-const char *const base_idf = "duration_min,2yr_mm_per_h,10yr_mm_per_h\n"
+const char *const base_idf = "# unit: mm/h\n"
+                             "duration_min,2,10\n"
                              "5,100,150\n"
                              "10,80,120\n"
                              "60,30,45\n";
@@ -186,28 +187,29 @@ const std::vector<BadCase> &cases() {
          "run",
          {{"[2, 10]", "[2, 10, 25]"}},
          {},
-         {"the 25-year return period is not in the IDF table 'idf.csv'",
-          "return periods of the table: 2, 10"}},
+         {"the 25-year return period is not in the IDF 'idf.csv'",
+          "return periods of the IDF: 2, 10"}},
         {"idf_bad_column_name",
          "run",
          {},
-         {{"idf.csv", "duration_min,2yr,10yr\n5,100,150\n10,80,120\n"}},
-         {"idf.csv: column '2yr': not a return period column", "'10yr_mm_per_h'"}},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2yr,10yr\n5,100,150\n10,80,120\n"}},
+         {"idf.csv: header, column 2", "'2yr' is not a number"}},
         {"idf_value_not_a_number",
          "run",
          {},
-         {{"idf.csv", "duration_min,2yr_mm_per_h,10yr_mm_per_h\n5,100,150\n10,80,abc\n"}},
-         {"idf.csv:3: column '10yr_mm_per_h'", "'abc' is not a number"}},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2,10\n5,100,150\n10,80,abc\n"}},
+         {"idf.csv:4: column '10'", "'abc' is not a number"}},
         {"idf_durations_not_increasing",
          "run",
          {},
-         {{"idf.csv", "duration_min,2yr_mm_per_h,10yr_mm_per_h\n10,80,120\n5,100,150\n"}},
-         {"idf.csv:3: column 'duration_min'", "duration 5 does not increase"}},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2,10\n10,80,120\n5,100,150\n"}},
+         {"idf.csv:4: column 'duration_min'", "duration 5.000 min after 10.00 min"}},
         {"tc_outside_idf_durations",
          "run",
          {},
-         {{"idf.csv", "duration_min,2yr_mm_per_h,10yr_mm_per_h\n10,80,120\n60,30,45\n"}},
-         {"idf.csv", "duration 5.000 min is outside the table (10 to 60 min)", "not extrapolated"}},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2,10\n10,80,120\n60,30,45\n"}},
+         {"duration 5.000 min lies outside the table's durations (10.00 to 60.00 min)",
+          "not extrapolated"}},
         {"catchment_table_empty",
          "run",
          {},
@@ -298,6 +300,11 @@ const std::vector<BadCase> &cases() {
          {{"idf.csv", std::nullopt}},
          {"3 problems found", "unknown key 'unitz'", "minimum_tc_min: 500 is out of range",
           "file 'idf.csv' does not exist"}},
+        {"idf_without_unit",
+         "run",
+         {},
+         {{"idf.csv", "duration_min,2,10\n5,100,150\n10,80,120\n"}},
+         {"idf.csv", "no '# unit:' line"}},
         {"project_file_missing", "run", {}, {{"project.toml", std::nullopt}}, {"project.toml"}},
     };
     return c;

@@ -9,22 +9,8 @@
 #include <string>
 #include <vector>
 
-/// The table inputs of a project (IDF table, catchment table) and the check of a whole project.
+/// The catchment table of a project, the configuration folder, and the check of a whole project.
 namespace catchpeak::app {
-
-/// An IDF table read from CSV: intensities per duration and return period, SI.
-///
-/// File format: a column `duration_min`, and one column per return period named
-/// `<T>yr_mm_per_h` or `<T>yr_in_per_h` (e.g. `10yr_mm_per_h`), one row per duration,
-/// durations increasing.
-struct IdfTable {
-    std::string source;
-    std::vector<double> durations_min;
-    std::map<double, std::vector<double>> intensity_mm_per_h; ///< return period -> column
-};
-
-/// Reads an IDF table. Throws InputError naming the file, the line and the column.
-[[nodiscard]] IdfTable read_idf_table(const std::filesystem::path &path);
 
 /// One catchment of a catchment table (a catchment drawn by hand, e.g. an urban inlet).
 struct TableCatchment {
@@ -49,6 +35,10 @@ struct TableCatchment {
 /// - optional: `c`, `cn`, `tc_min`, `x`, `y`.
 /// Throws InputError naming the file, the line and the column.
 [[nodiscard]] std::vector<TableCatchment> read_catchment_table(const std::filesystem::path &path);
+
+/// The folder of the method tables (config/): $CATCHPEAK_CONFIG_DIR when set, else the
+/// config/ folder of the source tree the program was built from.
+[[nodiscard]] std::filesystem::path config_dir();
 
 /// Checks everything that can be checked without computing: every file exists and is read,
 /// the tables parse, every return period is in the IDF, every catchment has C for the Rational

@@ -3,6 +3,8 @@
 
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/project.hpp"
+#include "catchpeak/hydro/tables.hpp"
+#include "catchpeak/rain/idf.hpp"
 #include "catchpeak/report/results.hpp"
 
 #include <filesystem>
@@ -21,34 +23,26 @@ struct RunOptions {
     std::string run_time_utc;                     ///< empty: now
 };
 
-/// Log-log interpolation of an IDF table column at duration `duration_min`. Throws InputError
-/// outside the table's durations (no extrapolation) or for a return period it lacks.
-[[nodiscard]] double idf_intensity_mm_per_h(const IdfTable &idf, double return_period_yr,
-                                            double duration_min);
-
 /// Computes every design point and return period of a project whose catchments come from a
 /// catchment table. Progress goes to `progress` (nothing when quiet).
-[[nodiscard]] report::RunResults compute_from_table(const Project &project,
-                                                    const std::vector<TableCatchment> &catchments,
-                                                    const IdfTable *idf);
+/// `idf` may be null when no method needs it; `frequency_factors` is the Cf table of the
+/// Rational Method.
+[[nodiscard]] report::RunResults
+compute_from_table(const Project &project, const std::vector<TableCatchment> &catchments,
+                   const rain::Idf *idf, const hydro::FrequencyFactorTable &frequency_factors);
 
 /// Computes a whole project: checks it, reads its inputs, computes every design point.
 /// Throws InputError listing every problem found by the check.
 [[nodiscard]] report::RunResults compute_project(const Project &project, std::ostream &progress,
                                                  bool quiet);
 
-/// results.json: SI, the unit in every key, no time of day; byte-identical for identical inputs.
-[[nodiscard]] std::string results_json(const report::RunResults &results);
-/// summary.csv: one row per design point, return period and method, SI.
-[[nodiscard]] std::string summary_csv(const report::RunResults &results);
-/// The run record: the stamp (tool version, commit, time of the run, SHA-256 of every input).
-[[nodiscard]] std::string run_record_json(const report::RunResults &results);
 /// The table printed at the end of a run, in the sheet's units.
 [[nodiscard]] std::string summary_table(const report::RunResults &results);
 
-/// `catchpeak run`: loads, checks and computes a project, writes results.json, summary.csv and
-/// run-record.json into the output folder (under temporary names, renamed when all are
-/// complete) and prints the summary table on `out`. Returns the output folder.
+/// `catchpeak run`: loads, checks and computes a project, writes results.json, summary.csv,
+/// run-record.json and the calculation sheet into the output folder (report::write_outputs:
+/// each under a temporary name, renamed when complete) and prints the summary table on `out`.
+/// Returns the output folder.
 std::filesystem::path run_project(const std::filesystem::path &project_file,
                                   const RunOptions &options, std::ostream &out, std::ostream &err);
 
