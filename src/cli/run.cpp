@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/cli/run.hpp"
 
+#include "catchpeak/app/delineate.hpp"
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/version.hpp"
@@ -88,6 +89,55 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
             }
             options.quiet = run_quiet;
             app::run_project(run_file, options, out, err);
+            return to_int(ExitCode::success);
+        };
+    });
+
+    app::DelineateOptions delineate_options;
+    bool delineate_quiet = false;
+    auto *delineate = app.add_subcommand(
+        "delineate", "Delineate the catchment above every design point from a DEM: area, "
+                     "longest flow path, slopes; writes catchments.json and catchments.gpkg");
+    delineate
+        ->add_option("--dem", delineate_options.dem,
+                     "DEM raster in a projected CRS (metres or feet)")
+        ->required();
+    delineate
+        ->add_option("--points", delineate_options.points,
+                     "Design points (any vector file GDAL reads); reprojected to the DEM's "
+                     "CRS if theirs differs")
+        ->required();
+    delineate
+        ->add_option("--id-field", delineate_options.id_field, "Field holding the design point ids")
+        ->required();
+    delineate
+        ->add_option("--snap-radius", delineate_options.snap_radius_m,
+                     "Metres: each point moves to the cell of largest flow accumulation "
+                     "within this distance")
+        ->required();
+    delineate->add_option("--out", delineate_options.out_dir, "Folder to write the results to")
+        ->required();
+    delineate->add_option("--breach-lines", delineate_options.breach_lines,
+                          "Lines (culverts under embankments) along which the DEM is lowered");
+    delineate
+        ->add_option("--stream-threshold", delineate_options.stream_threshold_m2,
+                     "M2: cells draining at least this area are streams (0: none)")
+        ->capture_default_str();
+    delineate->add_flag("--quiet", delineate_quiet, "No progress on stderr");
+    delineate->callback([&] {
+        action = [&] {
+            const auto summary =
+                app::delineate(delineate_options, delineate_quiet ? nullptr : &err);
+            if (!delineate_quiet) {
+                for (const auto &note : summary.notes) {
+                    err << "note: " << note << '\n';
+                }
+            }
+            for (const auto &warning : summary.warnings) {
+                err << "warning: " << warning << '\n';
+            }
+            out << fmt::format("{} design points: wrote {} and {}\n", summary.design_points,
+                               summary.json.string(), summary.gpkg.string());
             return to_int(ExitCode::success);
         };
     });

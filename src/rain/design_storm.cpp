@@ -127,7 +127,7 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
     const std::size_t n = whole_steps(duration_min, step_min, where, "storm duration");
     WithLines<Hyetograph> out{{}, {}};
     auto &lines = out.lines;
-    const auto source = fmt::format("{} ({})", d.source, d.status);
+    const auto source = fmt::format("{}; status: {}", d.source, d.status);
     lines.note("Design storm distribution",
                fmt::format("{}, {} h, cumulative fractions interpolated linearly between the "
                            "table's {} points",
@@ -157,7 +157,8 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
         const double t1_h = units::min_to_h(static_cast<double>(k + 1) * step_min);
         const double f1 = k + 1 == n ? 1.0 : cumulative_fraction_at(d, t1_h);
         out.value.depth_mm[k] = depth_mm * (f1 - prev_f);
-        if (k == 0 || out.value.depth_mm[k] > out.value.depth_mm[peak]) {
+        // The first of equal steps (within round-off) is reported as the largest.
+        if (k == 0 || out.value.depth_mm[k] > out.value.depth_mm[peak] * (1.0 + 1e-9)) {
             peak = k;
             peak_f0 = prev_f;
             peak_f1 = f1;

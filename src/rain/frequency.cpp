@@ -72,6 +72,10 @@ std::vector<double> prepared_series(std::span<const double> mm, double t_yr, con
 
 std::string depth_unit(units::System s) { return s == units::System::us_customary ? "in" : "mm"; }
 
+/// A number for the numbers column, in parentheses when negative ("(-0.1640)"), so that a
+/// substituted value never reads as "+ -0.1640" or "2^--0.1000".
+std::string num(double v) { return v < 0.0 ? fmt::format("({})", sig(v)) : sig(v); }
+
 double sheet_to_mm(double v, units::System s) {
     return s == units::System::us_customary ? units::in_to_mm(v) : v;
 }
@@ -102,21 +106,21 @@ WithLines<double> gumbel_depth(std::span<const double> annual_max_mm, double ret
     }
     const double sd = std::sqrt(ss / (n - 1.0));
     out.lines.calc("Mean of the annual maxima", "xbar = sum(x) / n",
-                   fmt::format("xbar = {} / {}", sig(sum), v.size()), mean, unit,
+                   fmt::format("xbar = {} / {}", num(sum), v.size()), mean, unit,
                    "project input: annual maximum series");
     out.lines.calc("Standard deviation of the annual maxima",
                    "s = sqrt(sum((x - xbar)^2) / (n - 1))",
-                   fmt::format("s = sqrt({} / ({} - 1))", sig(ss), v.size()), sd, unit,
+                   fmt::format("s = sqrt({} / ({} - 1))", num(ss), v.size()), sd, unit,
                    "project input: annual maximum series");
     const double t = return_period_yr;
     const double k = gumbel_frequency_factor(t);
     out.lines.calc(
         "Gumbel frequency factor", "K_T = -(sqrt(6)/pi) (0.5772 + ln(ln(T/(T - 1))))",
-        fmt::format("K_T = -(sqrt(6)/pi) x (0.5772 + ln(ln({}/({} - 1))))", sig(t), sig(t)), k, "",
+        fmt::format("K_T = -(sqrt(6)/pi) x (0.5772 + ln(ln({}/({} - 1))))", num(t), num(t)), k, "",
         fmt::format("{}, eq. 12.3.8", chow));
     const double x = mean + k * sd;
-    out.lines.calc(fmt::format("Design depth, Gumbel, {} yr", sig(t)), "x_T = xbar + K_T s",
-                   fmt::format("x_T = {} + {} x {}", sig(mean), sig(k), sig(sd)), x, unit,
+    out.lines.calc(fmt::format("Design depth, Gumbel, {} yr", num(t)), "x_T = xbar + K_T s",
+                   fmt::format("x_T = {} + {} x {}", num(mean), num(k), num(sd)), x, unit,
                    fmt::format("{}, sec. 12.3", chow));
     out.value = sheet_to_mm(x, sheet_units);
     return out;
@@ -235,21 +239,21 @@ WithLines<double> gev_depth(std::span<const double> annual_max_mm, double return
     m.l2 = 2.0 * b1 - b0;
     const double l3 = 6.0 * b2 - 6.0 * b1 + b0;
     m.tau3 = l3 / m.l2;
-    out.lines.calc("L-moment l1", "l1 = b0", fmt::format("l1 = {}", sig(b0)), m.l1, unit, hosking);
+    out.lines.calc("L-moment l1", "l1 = b0", fmt::format("l1 = {}", num(b0)), m.l1, unit, hosking);
     out.lines.calc("L-moment l2", "l2 = 2 b1 - b0",
-                   fmt::format("l2 = 2 x {} - {}", sig(b1), sig(b0)), m.l2, unit, hosking);
+                   fmt::format("l2 = 2 x {} - {}", num(b1), num(b0)), m.l2, unit, hosking);
     out.lines.calc("L-moment l3", "l3 = 6 b2 - 6 b1 + b0",
-                   fmt::format("l3 = 6 x {} - 6 x {} + {}", sig(b2), sig(b1), sig(b0)), l3, unit,
+                   fmt::format("l3 = 6 x {} - 6 x {} + {}", num(b2), num(b1), num(b0)), l3, unit,
                    hosking);
     out.lines.calc("L-skewness", "tau3 = l3 / l2",
-                   fmt::format("tau3 = {} / {}", sig(l3), sig(m.l2)), m.tau3, "", hosking);
+                   fmt::format("tau3 = {} / {}", num(l3), num(m.l2)), m.tau3, "", hosking);
     const auto s = gev_steps(m);
     const auto k_source = "Hosking, Wallis & Wood (1985); Hosking & Wallis (1997)";
     out.lines.calc("GEV shape, auxiliary c", "c = 2/(3 + tau3) - ln 2 / ln 3",
-                   fmt::format("c = 2/(3 + {}) - ln 2 / ln 3", sig(m.tau3)), s.c, "", k_source);
+                   fmt::format("c = 2/(3 + {}) - ln 2 / ln 3", num(m.tau3)), s.c, "", k_source);
     const double k_raw = 7.8590 * s.c + 2.9554 * s.c * s.c;
     out.lines.calc("GEV shape parameter", "k = 7.8590 c + 2.9554 c^2",
-                   fmt::format("k = 7.8590 x {} + 2.9554 x {}^2", sig(s.c), sig(s.c)), k_raw, "",
+                   fmt::format("k = 7.8590 x {} + 2.9554 x {}^2", num(s.c), num(s.c)), k_raw, "",
                    k_source);
     if (m.tau3 < -0.5 || m.tau3 > 0.5) {
         out.lines.warn(
@@ -268,35 +272,35 @@ WithLines<double> gev_depth(std::span<const double> annual_max_mm, double return
                        "is used",
                        hosking);
         out.lines.calc("GEV scale parameter", "alpha = l2 / ln 2",
-                       fmt::format("alpha = {} / ln 2", sig(m.l2)), p.scale_mm, unit, hosking);
+                       fmt::format("alpha = {} / ln 2", num(m.l2)), p.scale_mm, unit, hosking);
         out.lines.calc("GEV location parameter", "xi = l1 - 0.5772 alpha",
-                       fmt::format("xi = {} - 0.5772 x {}", sig(m.l1), sig(p.scale_mm)),
+                       fmt::format("xi = {} - 0.5772 x {}", num(m.l1), num(p.scale_mm)),
                        p.location_mm, unit, hosking);
     } else {
         out.lines.calc("Gamma function", "G = Gamma(1 + k)",
-                       fmt::format("G = Gamma(1 + {})", sig(p.shape)), s.gamma, "", hosking);
+                       fmt::format("G = Gamma(1 + {})", num(p.shape)), s.gamma, "", hosking);
         out.lines.calc("GEV scale parameter", "alpha = l2 k / ((1 - 2^-k) G)",
-                       fmt::format("alpha = {} x {} / ((1 - 2^-{}) x {})", sig(m.l2), sig(p.shape),
-                                   sig(p.shape), sig(s.gamma)),
+                       fmt::format("alpha = {} x {} / ((1 - 2^-{}) x {})", num(m.l2), num(p.shape),
+                                   num(p.shape), num(s.gamma)),
                        p.scale_mm, unit, hosking);
         out.lines.calc("GEV location parameter", "xi = l1 - alpha (1 - G) / k",
-                       fmt::format("xi = {} - {} x (1 - {}) / {}", sig(m.l1), sig(p.scale_mm),
-                                   sig(s.gamma), sig(p.shape)),
+                       fmt::format("xi = {} - {} x (1 - {}) / {}", num(m.l1), num(p.scale_mm),
+                                   num(s.gamma), num(p.shape)),
                        p.location_mm, unit, hosking);
     }
-    out.lines.calc("Non-exceedance probability", "F = 1 - 1/T", fmt::format("F = 1 - 1/{}", sig(t)),
+    out.lines.calc("Non-exceedance probability", "F = 1 - 1/T", fmt::format("F = 1 - 1/{}", num(t)),
                    f, "", "definition of the return period");
     const double x = gev_quantile(p, f);
     if (p.shape == 0.0) {
         out.lines.calc(
-            fmt::format("Design depth, GEV, {} yr", sig(t)), "x_T = xi - alpha ln(-ln F)",
-            fmt::format("x_T = {} - {} x ln(-ln {})", sig(p.location_mm), sig(p.scale_mm), sig(f)),
+            fmt::format("Design depth, GEV, {} yr", num(t)), "x_T = xi - alpha ln(-ln F)",
+            fmt::format("x_T = {} - {} x ln(-ln {})", num(p.location_mm), num(p.scale_mm), num(f)),
             x, unit, hosking);
     } else {
-        out.lines.calc(fmt::format("Design depth, GEV, {} yr", sig(t)),
+        out.lines.calc(fmt::format("Design depth, GEV, {} yr", num(t)),
                        "x_T = xi + alpha (1 - (-ln F)^k) / k",
-                       fmt::format("x_T = {} + {} x (1 - (-ln {})^{}) / {}", sig(p.location_mm),
-                                   sig(p.scale_mm), sig(f), sig(p.shape), sig(p.shape)),
+                       fmt::format("x_T = {} + {} x (1 - (-ln {})^{}) / {}", num(p.location_mm),
+                                   num(p.scale_mm), num(f), num(p.shape), num(p.shape)),
                        x, unit, hosking);
     }
     out.value = sheet_to_mm(x, sheet_units);

@@ -532,11 +532,11 @@ class SheetWriter {
                   Style::small, dark_grey);
         y_ += 6.0;
         const auto cols = fit({{"Design point", 62.0},
-                               {esc("Area (" + area_unit() + ")"), 52.0, PANGO_ALIGN_RIGHT},
-                               {"tc (min)", 42.0, PANGO_ALIGN_RIGHT},
-                               {"Return period", 44.0, PANGO_ALIGN_RIGHT},
+                               {esc("Area\n(" + area_unit() + ")"), 52.0, PANGO_ALIGN_RIGHT},
+                               {"tc\n(min)", 42.0, PANGO_ALIGN_RIGHT},
+                               {"Return\nperiod", 44.0, PANGO_ALIGN_RIGHT},
                                {"Method", 90.0},
-                               {esc("Peak flow (" + flow_unit() + ")"), 58.0, PANGO_ALIGN_RIGHT},
+                               {esc("Peak flow\n(" + flow_unit() + ")"), 58.0, PANGO_ALIGN_RIGHT},
                                {"Line", 54.0},
                                {"Warnings", 110.0}});
         std::vector<Row> rows;
@@ -559,7 +559,8 @@ class SheetWriter {
                 const auto &pk = p.peaks[k];
                 const bool first = k == 0;
                 rows.push_back(
-                    {{{first ? bold(p.id) : ""},
+                    {{{first ? bold(p.id) : "<span foreground=\"#888888\">" + esc(p.id) + "</span>",
+                       first ? Style::body : Style::small},
                       {first ? esc(sig(sheet_area(p.catchment.area_m2, system_).value)) : ""},
                       {first ? esc(sig(p.tc_min)) : ""},
                       {esc(return_period_title(pk.return_period_yr))},

@@ -2,9 +2,11 @@
 #include "catchpeak/terrain/accumulation.hpp"
 
 #include "catchpeak/terrain/flow_direction.hpp"
+#include "internal.hpp"
 
 #include <algorithm>
 #include <array>
+#include <type_traits>
 
 namespace catchpeak::terrain {
 
@@ -62,10 +64,23 @@ Grid<std::uint32_t> flow_accumulation(const Grid<std::uint8_t> &dirs) {
 
 AccumulationAndLength accumulation_and_length(const Grid<std::uint8_t> &dirs) {
     AccumulationAndLength out;
-    out.accumulation = Grid<std::uint32_t>(dirs.width(), dirs.height(), 0);
-    out.accumulation.copy_georef_from(dirs);
-    out.upstream_length_m = Grid<float>(dirs.width(), dirs.height(), 0.0F);
-    out.upstream_length_m.copy_georef_from(dirs);
+    detail::accumulation_and_length_into(dirs, out);
+    return out;
+}
+
+void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
+                                          AccumulationAndLength &out) {
+    const auto reset = [&](auto &g, auto zero) {
+        if (g.width() != dirs.width() || g.height() != dirs.height()) {
+            g = std::remove_reference_t<decltype(g)>(dirs.width(), dirs.height(), zero);
+        } else {
+            std::fill(g.cells().begin(), g.cells().end(), zero);
+        }
+        g.copy_georef_from(dirs);
+        g.nodata.reset();
+    };
+    reset(out.accumulation, std::uint32_t{0});
+    reset(out.upstream_length_m, 0.0F);
     auto &acc = out.accumulation;
     auto &len = out.upstream_length_m;
     const double dx = dirs.transform.cell_dx();
@@ -74,18 +89,55 @@ AccumulationAndLength accumulation_and_length(const Grid<std::uint8_t> &dirs) {
     for (std::uint8_t k = 1; k <= 8; ++k) {
         step[k] = static_cast<float>(step_length_m(k, dx, dy));
     }
-    topological_walk(dirs, [&](std::size_t i, std::size_t d) {
-        const std::uint8_t k = dirs[i];
-        if (k == d8::none) {
-            return;
+    // One byte a cell: the low nibble counts the inflows still to come (0..8, 15 once the
+    // cell is visited); the high nibble holds the code of the upstream neighbour on the
+    // longest path (ties: the lowest code). It becomes out.longest_upstream.
+    const std::size_t n = dirs.size();
+    out.longest_upstream = Grid<std::uint8_t>(dirs.width(), dirs.height(), 0);
+    out.longest_upstream.copy_georef_from(dirs);
+    auto &state = out.longest_upstream.cells();
+    constexpr std::uint8_t count_mask = 0x0F;
+    constexpr std::uint8_t visited = 0x0F;
+    for (std::size_t i = 0; i < n; ++i) {
+        const std::size_t d = downstream_cell(dirs, i);
+        if (d != no_cell) {
+            ++state[d];
         }
-        acc[i] += 1;
-        if (d != no_cell && dirs[d] != d8::none) {
-            acc[d] += acc[i];
-            len[d] = std::max(len[d], len[i] + step[k]);
+    }
+    for (std::size_t start = 0; start < n; ++start) {
+        if ((state[start] & count_mask) != 0) {
+            continue;
         }
-    });
-    return out;
+        std::size_t i = start;
+        while (true) {
+            state[i] = static_cast<std::uint8_t>(state[i] | visited);
+            const std::size_t d = downstream_cell(dirs, i);
+            const std::uint8_t k = dirs[i];
+            if (k != d8::none) {
+                acc[i] += 1;
+                if (d != no_cell && dirs[d] != d8::none) {
+                    acc[d] += acc[i];
+                    const float cand = len[i] + step[k];
+                    const std::uint8_t up = d8::opposite[k]; // from d toward i
+                    const auto current = static_cast<std::uint8_t>(state[d] >> 4);
+                    if (cand > len[d] || current == d8::none || (cand == len[d] && up < current)) {
+                        len[d] = std::max(len[d], cand);
+                        state[d] = static_cast<std::uint8_t>((up << 4) | (state[d] & count_mask));
+                    }
+                }
+            }
+            if (d == no_cell || (state[d] & count_mask) == visited) {
+                break;
+            }
+            if ((--state[d] & count_mask) != 0) {
+                break;
+            }
+            i = d;
+        }
+    }
+    for (auto &b : state) {
+        b = static_cast<std::uint8_t>(b >> 4);
+    }
 }
 
 } // namespace catchpeak::terrain

@@ -3,6 +3,9 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/terrain/flow_direction.hpp"
+#include "internal.hpp"
+
+#include <algorithm>
 
 #include <limits>
 
@@ -10,14 +13,25 @@ namespace catchpeak::terrain {
 
 Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
                                 const std::vector<std::size_t> &outlets) {
+    Catchments out;
+    detail::delineate_catchments_into(dirs, outlets, out);
+    return out;
+}
+
+void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
+                                       const std::vector<std::size_t> &outlets, Catchments &out) {
     constexpr std::uint32_t unresolved = std::numeric_limits<std::uint32_t>::max();
     if (outlets.size() >= unresolved) {
         throw InternalError("delineate_catchments: too many outlets");
     }
     const std::size_t n = dirs.size();
-    Catchments out;
-    out.labels = Grid<std::uint32_t>(dirs.width(), dirs.height(), unresolved);
+    if (out.labels.width() != dirs.width() || out.labels.height() != dirs.height()) {
+        out.labels = Grid<std::uint32_t>(dirs.width(), dirs.height(), unresolved);
+    } else {
+        std::fill(out.labels.cells().begin(), out.labels.cells().end(), unresolved);
+    }
     out.labels.copy_georef_from(dirs);
+    out.labels.nodata.reset();
     auto &labels = out.labels;
     for (std::size_t i = 0; i < n; ++i) {
         if (dirs[i] == d8::none) {
@@ -103,7 +117,6 @@ Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
             j = down - 1;
         }
     }
-    return out;
 }
 
 std::vector<std::uint32_t> total_catchment_labels(const Catchments &c, std::uint32_t label) {

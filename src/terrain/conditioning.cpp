@@ -6,7 +6,10 @@
 #include "internal.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
+#include <cstddef>
+#include <deque>
 #include <functional>
 #include <limits>
 #include <queue>
@@ -29,15 +32,118 @@ inline std::size_t neighbour(std::size_t w, std::size_t h, std::size_t c, std::s
     return static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
 }
 
-struct QueueItem {
+template <typename Index> struct QueueItem {
     float z;
-    std::size_t i;
+    Index i;
 };
-struct HigherFirst {
-    bool operator()(const QueueItem &a, const QueueItem &b) const noexcept {
+template <typename Index> struct HigherFirst {
+    bool operator()(const QueueItem<Index> &a, const QueueItem<Index> &b) const noexcept {
         return a.z > b.z || (a.z == b.z && a.i > b.i);
     }
 };
+
+/// Priority-Flood with two plain FIFO queues beside the priority queue:
+/// - `pit`: cells raised to the level of the cell that found them (inside a depression), as in
+///   the improved variant of Barnes et al. (2014);
+/// - `trace`: cells higher than the cell that found them. They drain through it, so their
+///   final elevation is their own; their higher neighbours are closed the same way without the
+///   priority queue (the slope tracing of Zhou, Sun and Fu 2016). A traced cell goes to the
+///   priority queue only when it has an unprocessed neighbour not higher than itself, which
+///   must wait for its turn in elevation order.
+/// The priority queue is popped only when both plain queues are empty, so every closed cell
+/// with unprocessed neighbours is then in the priority queue, as Priority-Flood requires.
+template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &marks) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    const detail::ValidTest valid(dem);
+    std::priority_queue<QueueItem<Index>, std::vector<QueueItem<Index>>, HigherFirst<Index>> open;
+    // FIFOs as deques: they free their consumed blocks, so a long traversal does not keep a
+    // queue as large as the grid.
+    std::deque<Index> pit;
+    std::deque<Index> trace;
+    const auto pop_fifo = [](std::deque<Index> &q) {
+        const Index i = q.front();
+        q.pop_front();
+        return static_cast<std::size_t>(i);
+    };
+
+    // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the raster's
+    // outer ring, whose neighbours need bounds checks; the others use index offsets.
+    constexpr std::uint8_t edge_flag = 2;
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        marks[i] = valid(dem[i]) ? 0 : closed_flag;
+    }
+    for (std::size_t c = 0; c < w; ++c) {
+        marks[c] |= edge_flag;
+        marks[(h - 1) * w + c] |= edge_flag;
+    }
+    for (std::size_t r = 0; r < h; ++r) {
+        marks[r * w] |= edge_flag;
+        marks[r * w + w - 1] |= edge_flag;
+    }
+    std::array<std::ptrdiff_t, 9> offset{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        offset[k] =
+            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
+    }
+    const auto neighbour_of = [&](std::size_t i, std::uint8_t k) {
+        if ((marks[i] & edge_flag) == 0) {
+            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset[k]);
+        }
+        return neighbour(w, h, i % w, i / w, k);
+    };
+
+    // Seeds: valid cells on the raster edge or next to a nodata cell.
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        if ((marks[i] & closed_flag) != 0) {
+            continue;
+        }
+        bool edge = (marks[i] & edge_flag) != 0;
+        for (std::uint8_t k = 1; k <= 8 && !edge; ++k) {
+            edge = !valid(dem[neighbour_of(i, k)]);
+        }
+        if (edge) {
+            marks[i] |= closed_flag;
+            open.push({dem[i], static_cast<Index>(i)});
+        }
+    }
+    while (true) {
+        std::size_t i = 0;
+        bool traced = false;
+        if (!pit.empty()) {
+            i = pop_fifo(pit);
+        } else if (!trace.empty()) {
+            i = pop_fifo(trace);
+            traced = true;
+        } else if (!open.empty()) {
+            i = static_cast<std::size_t>(open.top().i);
+            open.pop();
+        } else {
+            break;
+        }
+        const float z = dem[i];
+        bool waits = false;
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const std::size_t n = neighbour_of(i, k);
+            if (n == no_cell || (marks[n] & closed_flag) != 0) {
+                continue;
+            }
+            if (dem[n] > z) {
+                marks[n] |= closed_flag;
+                trace.push_back(static_cast<Index>(n));
+            } else if (traced) {
+                waits = true; // leave it for the priority queue
+            } else {
+                marks[n] |= closed_flag;
+                dem[n] = z;
+                pit.push_back(static_cast<Index>(n));
+            }
+        }
+        if (waits) {
+            open.push({z, static_cast<Index>(i)});
+        }
+    }
+}
 
 } // namespace
 
@@ -107,72 +213,39 @@ void fill_depressions(Grid<float> &dem) {
 }
 
 void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks) {
-    const std::size_t w = dem.width();
-    const std::size_t h = dem.height();
-    if (marks.width() != w || marks.height() != h) {
+    if (marks.width() != dem.width() || marks.height() != dem.height()) {
         throw InternalError("fill_depressions: scratch grid size differs from the DEM");
     }
     std::fill(marks.cells().begin(), marks.cells().end(), std::uint8_t{0});
-    const detail::ValidTest valid(dem);
-    std::priority_queue<QueueItem, std::vector<QueueItem>, HigherFirst> open;
-    std::vector<std::size_t> pit; // plain FIFO for cells inside depressions
-    std::size_t pit_head = 0;
-
-    // Seeds: valid cells on the raster edge or next to a nodata cell.
-    for (std::size_t r = 0; r < h; ++r) {
-        for (std::size_t c = 0; c < w; ++c) {
-            const std::size_t i = r * w + c;
-            if (!valid(dem[i])) {
-                continue;
-            }
-            bool edge = (r == 0 || c == 0 || r + 1 == h || c + 1 == w);
-            for (std::uint8_t k = 1; k <= 8 && !edge; ++k) {
-                const std::size_t n = neighbour(w, h, c, r, k);
-                edge = (n == no_cell || !valid(dem[n]));
-            }
-            if (edge) {
-                marks[i] = closed_flag;
-                open.push({dem[i], i});
-            }
-        }
-    }
-    while (true) {
-        std::size_t i = 0;
-        if (pit_head < pit.size()) {
-            i = pit[pit_head++];
-            if (pit_head == pit.size()) {
-                pit.clear();
-                pit_head = 0;
-            }
-        } else if (!open.empty()) {
-            i = open.top().i;
-            open.pop();
-        } else {
-            break;
-        }
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
-        const float z = dem[i];
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
-            if (n == no_cell || marks[n] != 0 || !valid(dem[n])) {
-                continue;
-            }
-            marks[n] = closed_flag;
-            if (dem[n] <= z) {
-                dem[n] = z;
-                pit.push_back(n);
-            } else {
-                open.push({dem[n], n});
-            }
-        }
+    if (dem.size() < (std::size_t{1} << 32)) {
+        fill_with<std::uint32_t>(dem, marks);
+    } else {
+        fill_with<std::size_t>(dem, marks);
     }
 }
 
 void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
+    Grid<std::uint32_t> scratch;
+    detail::resolve_flats_with(dem, dirs, scratch);
+}
+
+void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs,
+                                Grid<std::uint32_t> &mask) {
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
+    std::array<std::ptrdiff_t, 9> offset{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        offset[k] =
+            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
+    }
+    // Neighbour k of (c, r): index offsets inside the raster, bounds checks on its outer ring.
+    const auto near = [&](std::size_t c, std::size_t r, std::uint8_t k) {
+        if (c > 0 && r > 0 && c + 1 < w && r + 1 < h) {
+            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(r * w + c) + offset[k]);
+        }
+        return neighbour(w, h, c, r, k);
+    };
     constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
     constexpr std::uint8_t code_mask = 0x0F;
 
@@ -188,22 +261,35 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
     if (!any_flat) {
         return;
     }
-    Grid<std::int32_t> mask(w, h, 0);
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if (dirs[i] != flat_flag) {
-            continue;
+    // Flat cells are found again by scanning for flat_flag (a byte test), rather than kept in
+    // a list that could hold most of the grid.
+    const auto for_each_flat = [&](auto body) {
+        for (std::size_t i = 0; i < dem.size(); ++i) {
+            if ((dirs[i] & flat_flag) != 0) {
+                body(i);
+            }
         }
+    };
+    // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
+    // with a bias of 2^31 so that unsigned comparisons order it like the signed value.
+    constexpr std::int64_t bias = std::int64_t{1} << 31;
+    if (mask.width() != w || mask.height() != h) {
+        mask = Grid<std::uint32_t>(w, h, 0);
+    } else {
+        std::fill(mask.cells().begin(), mask.cells().end(), 0U);
+    }
+    for_each_flat([&](std::size_t i) {
         const std::size_t c = i % w;
         const std::size_t r = i / w;
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
+            const std::size_t n = near(c, r, k);
             if (n != no_cell && valid(dem[n]) && dem[n] > dem[i]) {
                 frontier.push_back(i);
                 mask[i] = 1;
                 break;
             }
         }
-    }
+    });
     // Gradient away from higher terrain: BFS distance from the high edges (1 at the edge),
     // within each flat (equal elevation, flat cells). 0 where a flat has no higher edge.
     std::vector<std::size_t> next;
@@ -213,7 +299,7 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
             const std::size_t c = i % w;
             const std::size_t r = i / w;
             for (std::uint8_t k = 1; k <= 8; ++k) {
-                const std::size_t n = neighbour(w, h, c, r, k);
+                const std::size_t n = near(c, r, k);
                 if (n != no_cell && dirs[n] == flat_flag && mask[n] == 0 && dem[n] == dem[i]) {
                     mask[n] = mask[i] + 1;
                     next.push_back(n);
@@ -227,22 +313,24 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
     // "highest away value of the flat" of Barnes et al. cancels when cells of one flat are
     // compared, so it is left out.
     constexpr std::uint8_t visited_flag = 0x20;
+    // Low edges are found from the flat cells (far fewer than all cells, usually), marked with
+    // low_edge_flag so that each is listed once.
+    constexpr std::uint8_t low_edge_flag = 0x80;
     frontier.clear();
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if (dirs[i] == d8::none || (dirs[i] & flat_flag) != 0) {
-            continue;
-        }
+    for_each_flat([&](std::size_t i) {
         const std::size_t c = i % w;
         const std::size_t r = i / w;
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
-            if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
-                frontier.push_back(i);
-                break;
+            const std::size_t n = near(c, r, k);
+            if (n != no_cell && dirs[n] != d8::none &&
+                (dirs[n] & (flat_flag | low_edge_flag)) == 0 && dem[n] == dem[i]) {
+                dirs[n] |= low_edge_flag;
+                frontier.push_back(n);
             }
         }
-    }
-    std::int32_t t = 0;
+    });
+    std::sort(frontier.begin(), frontier.end()); // the same order whatever the scan found first
+    std::int64_t t = 0;
     while (!frontier.empty()) {
         ++t;
         next.clear();
@@ -250,10 +338,10 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
             const std::size_t c = i % w;
             const std::size_t r = i / w;
             for (std::uint8_t k = 1; k <= 8; ++k) {
-                const std::size_t n = neighbour(w, h, c, r, k);
+                const std::size_t n = near(c, r, k);
                 if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
                     dirs[n] = flat_flag | visited_flag;
-                    mask[n] = 2 * t - mask[n];
+                    mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
                     next.push_back(n);
                 }
             }
@@ -262,11 +350,7 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
     }
     // Directions of flat cells: to a low edge when one is adjacent, otherwise to the flat
     // neighbour of smallest combined value below the cell's own.
-    std::vector<std::uint8_t> chosen_codes;
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if ((dirs[i] & flat_flag) == 0) {
-            continue;
-        }
+    for_each_flat([&](std::size_t i) {
         if ((dirs[i] & visited_flag) == 0) {
             throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
         }
@@ -274,9 +358,9 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
         const std::size_t r = i / w;
         std::uint8_t low_edge = d8::none;
         std::uint8_t best = d8::none;
-        std::int32_t best_mask = mask[i];
+        std::uint32_t best_mask = mask[i];
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w, h, c, r, k);
+            const std::size_t n = near(c, r, k);
             if (n == no_cell || dem[n] != dem[i]) {
                 continue;
             }
@@ -294,7 +378,7 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
             throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
         }
         dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
-    }
+    });
     for (auto &d : dirs.cells()) {
         d = static_cast<std::uint8_t>(d & code_mask);
     }
@@ -302,7 +386,17 @@ void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
 
 Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
                                           const std::vector<BreachLine> &lines, unsigned threads) {
-    Grid<float> work(dem.width(), dem.height());
+    Grid<float> work;
+    Grid<std::uint8_t> dirs;
+    Grid<std::uint32_t> scratch;
+    detail::condition(dem, lines, threads, work, dirs, scratch);
+    return dirs;
+}
+
+void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &lines,
+                       unsigned threads, Grid<float> &work, Grid<std::uint8_t> &dirs,
+                       Grid<std::uint32_t> &scratch) {
+    work = Grid<float>(dem.width(), dem.height());
     work.copy_georef_from(dem);
     const detail::ValidTest valid(dem);
     constexpr float nan = std::numeric_limits<float>::quiet_NaN();
@@ -310,12 +404,11 @@ Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
         work[i] = valid(dem[i]) ? dem[i] : nan;
     }
     apply_breach_lines(work, lines);
-    Grid<std::uint8_t> dirs(dem.width(), dem.height(), 0);
+    dirs = Grid<std::uint8_t>(dem.width(), dem.height(), 0);
     dirs.copy_georef_from(dem);
     fill_depressions(work, dirs);
     detail::d8_directions_into(work, dirs, threads);
-    resolve_flats(work, dirs);
-    return dirs;
+    detail::resolve_flats_with(work, dirs, scratch);
 }
 
 } // namespace catchpeak::terrain

@@ -15,9 +15,10 @@
 #include <unordered_map>
 
 // Memory plan (bytes per cell, besides the caller's DEM of 4): conditioning holds a float copy
-// (4), the directions (1) and a flat scratch grid (4) = 9; then the copy and scratch are freed
-// and accumulation (4), upstream flow length (4) and an in-degree byte (1) join the directions
-// = 10; after snapping, streams and flow paths those are freed and the labels (4) join = 5.
+// (4), the directions (1) and a flat scratch grid (4) = 9; the copy then serves as the upstream
+// flow length (4) and the scratch as the accumulation (4), with an in-degree byte (1) during
+// the accumulation pass = 10; after snapping, streams and flow paths the flow length is freed
+// and the accumulation buffer becomes the labels (4) = 5.
 
 namespace catchpeak::terrain {
 
@@ -104,10 +105,14 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     TerrainResult result;
 
     report("conditioning", 0.0);
-    Grid<std::uint8_t> dirs = conditioned_directions(dem, breach_lines, threads);
+    // Buffers are handed on from step to step (see the memory plan above): the filled DEM
+    // becomes the flow length grid, the flat scratch grid the accumulation, then the labels.
+    Grid<std::uint8_t> dirs;
+    AccumulationAndLength al;
+    detail::condition(dem, breach_lines, threads, al.upstream_length_m, dirs, al.accumulation);
 
     report("flow accumulation", 0.35);
-    AccumulationAndLength al = accumulation_and_length(dirs);
+    detail::accumulation_and_length_into(dirs, al);
 
     report("snapping design points", 0.55);
     result.points.resize(points.size());
@@ -152,20 +157,24 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
         report("streams", 0.6);
         result.streams = extract_streams(dirs, al.accumulation, settings.stream_threshold_m2);
     }
+    Catchments c;
     if (settings.keep_accumulation) {
         result.accumulation = std::move(al.accumulation);
+    } else {
+        c.labels = std::move(al.accumulation);
     }
     al.accumulation = Grid<std::uint32_t>();
 
     report("longest flow paths", 0.65);
     std::vector<FlowPath> paths(outlets.size());
     for (std::size_t k = 0; k < outlets.size(); ++k) {
-        paths[k] = longest_flow_path(dirs, al.upstream_length_m, dem, outlets[k]);
+        paths[k] = longest_flow_path(dirs, al.longest_upstream, dem, outlets[k]);
     }
     al.upstream_length_m = Grid<float>();
+    al.longest_upstream = Grid<std::uint8_t>();
 
     report("catchments", 0.75);
-    Catchments c = delineate_catchments(dirs, outlets);
+    detail::delineate_catchments_into(dirs, outlets, c);
 
     // Local catchments touching the raster edge or nodata.
     const std::size_t w = dem.width();
@@ -233,9 +242,11 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
 
     report("results", 0.95);
     std::vector<std::size_t> first_point_of_label(max_label + 1, points.size());
+    std::vector<std::vector<std::size_t>> points_of_label(max_label + 1);
     for (std::size_t p = 0; p < points.size(); ++p) {
         auto &f = first_point_of_label[result.points[p].label];
         f = std::min(f, p);
+        points_of_label[result.points[p].label].push_back(p);
     }
     for (std::size_t p = 0; p < points.size(); ++p) {
         DesignPointTerrain &r = result.points[p];
@@ -248,14 +259,16 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
             r.downstream_point = first_point_of_label[c.downstream_label[k - 1]];
         }
         for (const std::uint32_t up : c.upstream_labels[k - 1]) {
-            for (std::size_t q = first_point_of_label[up]; q < points.size(); ++q) {
-                if (result.points[q].label == up) {
-                    r.upstream_points.push_back(q);
-                }
-            }
+            r.upstream_points.insert(r.upstream_points.end(), points_of_label[up].begin(),
+                                     points_of_label[up].end());
         }
         std::sort(r.upstream_points.begin(), r.upstream_points.end());
-        r.longest_flow_path = paths[k - 1];
+        // The last point of a label takes the path; earlier ones sharing the cell get a copy.
+        if (points_of_label[k].back() == p) {
+            r.longest_flow_path = std::move(paths[k - 1]);
+        } else {
+            r.longest_flow_path = paths[k - 1];
+        }
         r.mean_slope_m_per_m =
             count_total[k] > 0 ? slope_total[k] / static_cast<double>(count_total[k]) : 0.0;
         r.touches_dem_edge = edge_total[k] != 0;

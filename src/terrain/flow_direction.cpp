@@ -55,6 +55,7 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                     const std::size_t i = r * w + c;
                     const float z = dem[i];
                     if (!valid(z)) {
+                        dirs[i] = d8::none;
                         continue;
                     }
                     double best = 0.0;

@@ -46,6 +46,54 @@ Slope1085 slope_10_85(const std::vector<double> &distance_from_outlet_m,
     return out;
 }
 
+namespace {
+
+/// Builds the FlowPath from its cells, listed from the outlet up to the top.
+FlowPath finish_path(const Grid<std::uint8_t> &dirs, const Grid<float> &dem,
+                     std::vector<std::size_t> cells) {
+    const std::size_t w = dirs.width();
+    const double dx = dirs.transform.cell_dx();
+    const double dy = dirs.transform.cell_dy();
+    FlowPath path;
+    // cells runs outlet -> top here.
+    std::vector<double> dist(cells.size(), 0.0);
+    std::vector<double> z(cells.size(), 0.0);
+    for (std::size_t k = 0; k < cells.size(); ++k) {
+        if (k > 0) {
+            dist[k] = dist[k - 1] + step_length_m(dirs[cells[k]], dx, dy);
+        }
+        z[k] = static_cast<double>(dem[cells[k]]);
+    }
+    path.length_m = dist.back();
+    path.elevation_outlet_m = z.front();
+    path.elevation_top_m = z.back();
+    if (path.length_m > 0.0) {
+        path.slope_m_per_m = (path.elevation_top_m - path.elevation_outlet_m) / path.length_m;
+    }
+    const Slope1085 s = slope_10_85(dist, z);
+    path.slope_10_85_m_per_m = s.slope_m_per_m;
+    path.elevation_10_m = s.elevation_10_m;
+    path.elevation_85_m = s.elevation_85_m;
+    std::reverse(cells.begin(), cells.end());
+    // Keep the first and last cell and those where the D8 direction changes: the cells left
+    // out lie on straight runs between kept ones, so the polyline is the same.
+    std::vector<std::size_t> kept;
+    for (std::size_t k = 0; k < cells.size(); ++k) {
+        if (k == 0 || k + 1 == cells.size() || dirs[cells[k]] != dirs[cells[k - 1]]) {
+            kept.push_back(cells[k]);
+        }
+    }
+    path.cell_count = cells.size();
+    path.vertices_xy.reserve(kept.size());
+    for (const std::size_t i : kept) {
+        path.vertices_xy.push_back(dirs.transform.cell_centre(i % w, i / w));
+    }
+    path.cells = std::move(kept);
+    return path;
+}
+
+} // namespace
+
 FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &len,
                            const Grid<float> &dem, std::size_t outlet) {
     const std::size_t w = dirs.width();
@@ -58,7 +106,6 @@ FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &le
     if (outlet >= dirs.size() || dirs[outlet] == d8::none) {
         throw InternalError("longest_flow_path: outlet is not a valid cell");
     }
-    FlowPath path;
     std::vector<std::size_t> cells{outlet};
     std::size_t cur = outlet;
     while (true) {
@@ -91,32 +138,29 @@ FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs, const Grid<float> &le
             throw InternalError("longest_flow_path: the directions contain a cycle");
         }
     }
-    // cells runs outlet -> top here.
-    std::vector<double> dist(cells.size(), 0.0);
-    std::vector<double> z(cells.size(), 0.0);
-    for (std::size_t k = 0; k < cells.size(); ++k) {
-        if (k > 0) {
-            dist[k] = dist[k - 1] + step_length_m(dirs[cells[k]], dx, dy);
+    return finish_path(dirs, dem, std::move(cells));
+}
+
+FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
+                           const Grid<std::uint8_t> &longest_upstream, const Grid<float> &dem,
+                           std::size_t outlet) {
+    if (outlet >= dirs.size() || dirs[outlet] == d8::none) {
+        throw InternalError("longest_flow_path: outlet is not a valid cell");
+    }
+    const std::size_t w = dirs.width();
+    std::vector<std::size_t> cells{outlet};
+    std::size_t cur = outlet;
+    while (longest_upstream[cur] != d8::none) {
+        const std::uint8_t k = longest_upstream[cur];
+        const long long col = static_cast<long long>(cur % w) + d8::dcol[k];
+        const long long row = static_cast<long long>(cur / w) + d8::drow[k];
+        cur = static_cast<std::size_t>(row) * w + static_cast<std::size_t>(col);
+        cells.push_back(cur);
+        if (cells.size() > dirs.size()) {
+            throw InternalError("longest_flow_path: the directions contain a cycle");
         }
-        z[k] = static_cast<double>(dem[cells[k]]);
     }
-    path.length_m = dist.back();
-    path.elevation_outlet_m = z.front();
-    path.elevation_top_m = z.back();
-    if (path.length_m > 0.0) {
-        path.slope_m_per_m = (path.elevation_top_m - path.elevation_outlet_m) / path.length_m;
-    }
-    const Slope1085 s = slope_10_85(dist, z);
-    path.slope_10_85_m_per_m = s.slope_m_per_m;
-    path.elevation_10_m = s.elevation_10_m;
-    path.elevation_85_m = s.elevation_85_m;
-    std::reverse(cells.begin(), cells.end());
-    path.vertices_xy.reserve(cells.size());
-    for (const std::size_t i : cells) {
-        path.vertices_xy.push_back(dirs.transform.cell_centre(i % w, i / w));
-    }
-    path.cells = std::move(cells);
-    return path;
+    return finish_path(dirs, dem, std::move(cells));
 }
 
 } // namespace catchpeak::terrain

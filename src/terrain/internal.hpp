@@ -3,6 +3,9 @@
 #pragma once
 
 #include "catchpeak/core/grid.hpp"
+#include "catchpeak/terrain/accumulation.hpp"
+#include "catchpeak/terrain/catchments.hpp"
+#include "catchpeak/terrain/conditioning.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -60,5 +63,23 @@ void for_row_blocks(std::size_t height, unsigned threads, std::size_t block_rows
 
 /// d8_directions writing into an existing grid of the DEM's size (every cell is overwritten).
 void d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs, unsigned threads);
+
+/// resolve_flats with a caller's scratch grid (resized when its size differs), so that the
+/// pipeline can hand the same buffer on as the accumulation grid.
+void resolve_flats_with(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs,
+                        Grid<std::uint32_t> &scratch);
+
+/// The conditioning chain with the caller's buffers: `work` ends as the filled DEM (NaN on
+/// nodata), `dirs` as the directions, `scratch` as used by resolve_flats.
+void condition(const Grid<float> &dem, const std::vector<BreachLine> &lines, unsigned threads,
+               Grid<float> &work, Grid<std::uint8_t> &dirs, Grid<std::uint32_t> &scratch);
+
+/// accumulation_and_length into the caller's grids (reused when of the right size).
+void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAndLength &out);
+
+/// delineate_catchments with the caller's grid as the label buffer (reused when of the right
+/// size).
+void delineate_catchments_into(const Grid<std::uint8_t> &dirs,
+                               const std::vector<std::size_t> &outlets, Catchments &out);
 
 } // namespace catchpeak::terrain::detail

@@ -64,6 +64,9 @@ SnappedPoint snap_point(const Grid<std::uint32_t> &acc, const DesignPoint &point
             if (a == 0) {
                 continue;
             }
+            if (found && a < best.accumulation) {
+                continue; // cannot win; skip the distance
+            }
             const auto [x, y] = t.cell_centre(uc, ur);
             const double d = std::hypot(x - point.x, y - point.y);
             const bool own = (uc == c0 && ur == r0);

@@ -157,3 +157,25 @@ TEST(Gev, DepthLinesEndWithTheQuantile) {
     EXPECT_NEAR(us.value, r.value, r.value * 1e-10);
     EXPECT_NEAR(us.lines.lines().back().value, r.value / 25.4, r.value / 25.4 * 1e-10);
 }
+
+TEST(Frequency, NegativeNumbersAreShownInParentheses) {
+    // K_2 is negative (Chow et al. 1988, eq. 12.3.8: K_T < 0 for T = 2 yr).
+    const auto g = rain::gumbel_depth(series25, 2.0, System::si);
+    EXPECT_NE(g.lines.lines().back().numbers.find("+ (-0.164"), std::string::npos)
+        << g.lines.lines().back().numbers;
+    // A series with a long upper tail gives k < 0; no line may read "--", "+ -" or "x -".
+    std::vector<double> tail_values = series25;
+    tail_values[0] = 250.0;
+    tail_values[1] = 190.0;
+    const std::vector<double> &tail = tail_values;
+    for (const auto *series : {&series25, &tail}) {
+        const auto r = rain::gev_depth(*series, 10.0, System::si);
+        for (const auto &line : r.lines.lines()) {
+            EXPECT_EQ(line.numbers.find("--"), std::string::npos) << line.numbers;
+            EXPECT_EQ(line.numbers.find("+ -"), std::string::npos) << line.numbers;
+            EXPECT_EQ(line.numbers.find("x -"), std::string::npos) << line.numbers;
+        }
+    }
+    const auto p = rain::gev_from_l_moments(rain::sample_l_moments(tail));
+    EXPECT_LT(p.shape, 0.0); // the heavy tail the check relies on
+}

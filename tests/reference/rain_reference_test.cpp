@@ -108,6 +108,12 @@ TEST(RainReference, Tp149TypeIIHyetographReachesThePrintedFractions) {
     // get equal depths, and a warning says the peak is that interval's average.
     ASSERT_EQ(r.lines.warning_count(), 1U);
     EXPECT_EQ(r.lines.lines().back().label, "Peak averaged over a table interval");
+    // Largest 6-min step: a fifth of P (0.663 - 0.283), computed from the printed fractions;
+    // reported at the first of the five equal steps, 11.5 h.
+    const auto &largest = r.lines.lines()[r.lines.size() - 3];
+    EXPECT_EQ(largest.label, "Largest step depth");
+    EXPECT_NEAR(largest.value, p_mm * (0.663 - 0.283) / 5.0, p_mm * 1e-12);
+    EXPECT_NE(largest.numbers.find("t1 = 11.50 h"), std::string::npos) << largest.numbers;
     EXPECT_NE(r.lines.lines().back().numbers.find("11.50 h and 12.00 h"), std::string::npos);
 }
 

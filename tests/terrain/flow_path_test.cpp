@@ -58,7 +58,11 @@ TEST(FlowPath, VValleyLengthWithinTheD8FactorAndExactHOverL) {
     ASSERT_EQ(p.cells.front() / w, 0U); // the remotest cell is on the top row ...
     EXPECT_TRUE(p.cells.front() % w == 0 || p.cells.front() % w == w - 1); // ... in a corner
     EXPECT_EQ(p.cells.back(), outlet);
-    EXPECT_EQ(p.vertices_xy.size(), 80U);
+    // 80 cells; as a polyline only the corner, the turn onto the channel and the outlet.
+    EXPECT_EQ(p.cell_count, 80U);
+    ASSERT_EQ(p.vertices_xy.size(), 3U);
+    EXPECT_DOUBLE_EQ(p.vertices_xy[1].first, 1205.0);
+    EXPECT_DOUBLE_EQ(p.vertices_xy[1].second, 4995.0);
     EXPECT_DOUBLE_EQ(p.vertices_xy.back().first, 1205.0);
     EXPECT_DOUBLE_EQ(p.vertices_xy.back().second, 5000.0 - 595.0);
 
@@ -89,11 +93,11 @@ TEST(FlowPath, LongestPathUsesTheUnconditionedElevations) {
     const std::size_t outlet = dem.index(20, 10);
     const FlowPath p = longest_flow_path(dirs, al.upstream_length_m, dem, outlet);
     EXPECT_DOUBLE_EQ(p.elevation_outlet_m, static_cast<double>(dem[outlet]));
-    bool passes_pit = false;
-    for (const std::size_t i : p.cells) {
-        passes_pit = passes_pit || i == dem.index(20, 5);
-    }
-    EXPECT_TRUE(passes_pit);
+    // The path runs down the channel through the filled pit: its polyline turns onto the
+    // channel at the top row and goes straight to the outlet, 10 rows down.
+    ASSERT_EQ(p.vertices_xy.size(), 3U);
+    EXPECT_DOUBLE_EQ(p.vertices_xy[1].first, 1205.0);
+    EXPECT_EQ(p.cell_count, 31U);
     EXPECT_DOUBLE_EQ(p.elevation_top_m, a * 20.0 + b * 59.0);
 }
 
@@ -109,4 +113,24 @@ TEST(FlowPath, Slope1085OnAStraightProfile) {
     EXPECT_NEAR(s.slope_m_per_m, 0.05, 1e-12);
     EXPECT_NEAR(s.elevation_10_m, 2.0 + 0.05 * 14.0, 1e-12);
     EXPECT_NEAR(s.elevation_85_m, 2.0 + 0.05 * 119.0, 1e-12);
+}
+
+TEST(FlowPath, TracingByStoredCodesEqualsTracingBySearchOnRandomDems) {
+    for (const unsigned seed : {101U, 102U}) {
+        const auto dem = test::random_dem(90, 80, seed);
+        const auto dirs = conditioned_directions(dem, {}, 1);
+        const auto al = accumulation_and_length(dirs);
+        for (std::size_t i = 0; i < dirs.size(); i += 13) {
+            if (dirs[i] == d8::none) {
+                continue;
+            }
+            const FlowPath a = longest_flow_path(dirs, al.upstream_length_m, dem, i);
+            const FlowPath b = longest_flow_path(dirs, al.longest_upstream, dem, i);
+            ASSERT_EQ(a.cells, b.cells) << "seed " << seed << " outlet " << i;
+            EXPECT_EQ(a.length_m, b.length_m);
+            // The path length equals the stored upstream length (float storage: 1e-6 relative).
+            EXPECT_NEAR(a.length_m, static_cast<double>(al.upstream_length_m[i]),
+                        1e-5 * (1.0 + a.length_m));
+        }
+    }
 }

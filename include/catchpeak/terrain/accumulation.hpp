@@ -19,6 +19,10 @@ struct AccumulationAndLength {
     /// Longest D8 flow length from any upstream cell centre to this cell's centre, metres (0 on
     /// a cell nothing drains into).
     Grid<float> upstream_length_m;
+    /// Direction code from each cell to its upstream neighbour on the longest path (the one
+    /// maximising its upstream length + step; ties: the lowest code), d8::none where nothing
+    /// drains in. Tracing these codes from an outlet gives its longest flow path.
+    Grid<std::uint8_t> longest_upstream;
 };
 
 /// Both in one pass.

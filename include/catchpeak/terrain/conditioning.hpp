@@ -36,13 +36,15 @@ rasterize_polyline(const GeoTransform &transform, std::size_t width, std::size_t
 /// (the walk continues past them). The flats this can make are resolved later like any flat.
 void apply_breach_lines(Grid<float> &dem, const std::vector<BreachLine> &lines);
 
-/// Priority-Flood depression filling (Barnes, Lehman and Mulla 2014, C&G 62:117-127), in the
-/// variant that floods the inside of depressions with a plain queue (Zhou, Sun and Fu 2016, C&G
-/// 90:87-96). Water leaves at the raster edge and at nodata cells. After the fill every valid
-/// cell has a path to an edge or nodata cell that never rises. Depressions become exact flats
-/// (no epsilon gradient). Invalid cells are left as they are.
-/// `marks` is scratch space of the grid's size (used as "closed" flags; contents on return are
-/// unspecified); passing the directions grid that will be computed next saves memory.
+/// Priority-Flood depression filling (Barnes, Lehman and Mulla 2014, C&G 62:117-127), in a
+/// fast variant: the inside of depressions is flooded with a plain queue (Barnes et al.'s
+/// improved variant) and cells rising away from a closed cell are traced with a second plain
+/// queue, entering the priority queue only when they border unprocessed lower cells (after Zhou,
+/// Sun and Fu 2016, C&G 90:87-96). Water leaves at the raster edge and at nodata cells. After the
+/// fill every valid cell has a path to an edge or nodata cell that never rises. Depressions become
+/// exact flats (no epsilon gradient). Invalid cells are left as they are. `marks` is scratch space
+/// of the grid's size (used as "closed" flags; contents on return are unspecified); passing the
+/// directions grid that will be computed next saves memory.
 void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks);
 /// Same, with its own scratch space.
 void fill_depressions(Grid<float> &dem);

@@ -12,9 +12,12 @@ namespace catchpeak::terrain {
 
 /// The longest flow path of a (total) catchment and its slopes.
 struct FlowPath {
-    /// Cell centres (CRS metres) from the remotest cell to the outlet.
+    /// Cell centres (CRS metres) from the remotest cell to the outlet. Only the first and last
+    /// cell and the cells where the D8 direction turns are listed: the cells between lie on the
+    /// straight runs, so the line is the same and large grids need less memory.
     std::vector<std::pair<double, double>> vertices_xy;
-    std::vector<std::size_t> cells;  ///< the same, as cell indices
+    std::vector<std::size_t> cells;  ///< the same vertices, as cell indices
+    std::size_t cell_count = 0;      ///< number of cells on the path (all of them)
     double length_m = 0.0;           ///< sum of the D8 step lengths
     double elevation_top_m = 0.0;    ///< unconditioned DEM at the remotest cell
     double elevation_outlet_m = 0.0; ///< unconditioned DEM at the outlet
@@ -34,6 +37,11 @@ struct FlowPath {
 /// Elevations come from `dem` (the unconditioned DEM; every cell with a direction holds data).
 [[nodiscard]] FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
                                          const Grid<float> &upstream_length_m,
+                                         const Grid<float> &dem, std::size_t outlet);
+/// The same path traced on AccumulationAndLength::longest_upstream (one step per cell, no
+/// search; the result is identical).
+[[nodiscard]] FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
+                                         const Grid<std::uint8_t> &longest_upstream,
                                          const Grid<float> &dem, std::size_t outlet);
 
 /// Slope between the points at 10 % and 85 % of a path's length from its outlet, from the

@@ -1,0 +1,43 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include <cstddef>
+#include <filesystem>
+#include <optional>
+#include <ostream>
+#include <string>
+#include <vector>
+
+namespace catchpeak::app {
+
+/// What `catchpeak delineate` is asked to do.
+struct DelineateOptions {
+    std::filesystem::path dem;    ///< DEM raster (projected CRS in m or ft)
+    std::filesystem::path points; ///< design points (vector layer)
+    std::string id_field;         ///< field of the design point ids
+    double snap_radius_m = 0.0;   ///< search radius for snapping to the largest accumulation
+    std::filesystem::path out_dir;
+    std::optional<std::filesystem::path> breach_lines; ///< lines lowered into the DEM
+    double stream_threshold_m2 = 1.0e5; ///< streams drain at least this area; 0 = no streams
+    unsigned threads = 0;               ///< 0 = all cores (results do not depend on it)
+};
+
+/// What was written.
+struct DelineateSummary {
+    std::filesystem::path json; ///< out_dir/catchments.json
+    std::filesystem::path gpkg; ///< out_dir/catchments.gpkg
+    std::size_t design_points = 0;
+    std::vector<std::string> notes;    ///< conversions and assumptions (units, CRS)
+    std::vector<std::string> warnings; ///< "<id>: <warning>" for every design point warning
+};
+
+/// Delineates the catchment above every design point and writes out_dir/catchments.json and
+/// out_dir/catchments.gpkg (layers catchments, local_catchments, flow_paths, design_points,
+/// streams). Both are written under temporary names and renamed when both are complete.
+/// The design points (and breach lines) are reprojected to the DEM's CRS when theirs differs.
+/// Progress of each step goes to `progress` in the style of GDAL's command-line tools
+/// ("step: 0...10...20...30...40...50...60...70...80...90...100 - done."); null = silent.
+/// Throws InputError (bad input: exit 2) naming the file and what is wrong.
+DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress);
+
+} // namespace catchpeak::app

@@ -1,0 +1,362 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/delineate.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/io/atomic_file.hpp"
+#include "catchpeak/io/gpkg.hpp"
+#include "catchpeak/io/polygonize.hpp"
+#include "catchpeak/io/raster.hpp"
+#include "catchpeak/io/vector.hpp"
+#include "catchpeak/terrain/delineation.hpp"
+#include "progress_bar.hpp"
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include <algorithm>
+#include <cmath>
+#include <cstring>
+#include <map>
+
+namespace catchpeak::app {
+
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+/// A point or a line as ISO WKB (little-endian), written by hand: no GDAL needed for these.
+void put_u32(std::vector<unsigned char> &b, std::uint32_t v) {
+    for (int i = 0; i < 4; ++i) {
+        b.push_back(static_cast<unsigned char>((v >> (8 * i)) & 0xffu));
+    }
+}
+void put_f64(std::vector<unsigned char> &b, double v) {
+    std::uint64_t u = 0;
+    std::memcpy(&u, &v, sizeof u);
+    for (int i = 0; i < 8; ++i) {
+        b.push_back(static_cast<unsigned char>((u >> (8 * i)) & 0xffu));
+    }
+}
+std::vector<unsigned char> point_wkb(double x, double y) {
+    std::vector<unsigned char> b{1};
+    put_u32(b, 1); // Point
+    put_f64(b, x);
+    put_f64(b, y);
+    return b;
+}
+std::vector<unsigned char> line_wkb(const std::vector<std::pair<double, double>> &xy) {
+    std::vector<unsigned char> b{1};
+    put_u32(b, 2); // LineString
+    put_u32(b, static_cast<std::uint32_t>(xy.size()));
+    for (const auto &[x, y] : xy) {
+        put_f64(b, x);
+        put_f64(b, y);
+    }
+    return b;
+}
+
+void check_options(const DelineateOptions &o) {
+    if (!std::isfinite(o.snap_radius_m) || o.snap_radius_m < 0.0) {
+        throw_input_error("--snap-radius", fmt::format("{} m", o.snap_radius_m),
+                          "a distance in metres >= 0");
+    }
+    if (!std::isfinite(o.stream_threshold_m2) || o.stream_threshold_m2 < 0.0) {
+        throw_input_error("--stream-threshold", fmt::format("{} m2", o.stream_threshold_m2),
+                          "an area in m2 >= 0 (0: no streams)");
+    }
+    if (o.id_field.empty()) {
+        throw_input_error("--id-field", "is empty", "the name of the design point id field");
+    }
+    if (o.out_dir.empty()) {
+        throw_input_error("--out", "is empty", "a folder to write to");
+    }
+}
+
+void prepare_out_dir(const std::filesystem::path &dir) {
+    std::error_code ec;
+    if (std::filesystem::exists(dir, ec) && !std::filesystem::is_directory(dir, ec)) {
+        throw_input_error(dir.string(), "exists and is not a folder", "a folder to write to");
+    }
+    std::filesystem::create_directories(dir, ec);
+    if (ec) {
+        throw_input_error(dir.string(), "cannot be created: " + ec.message(),
+                          "a folder that can be written");
+    }
+}
+
+std::string crs_name_of(const std::string &wkt) {
+    // The WKT's first quoted string is the CRS name.
+    const auto a = wkt.find('"');
+    if (a == std::string::npos) {
+        return {};
+    }
+    const auto b = wkt.find('"', a + 1);
+    return b == std::string::npos ? std::string{} : wkt.substr(a + 1, b - a - 1);
+}
+
+} // namespace
+
+DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {
+    check_options(options);
+    detail::ProgressBar bar(progress);
+    DelineateSummary summary;
+
+    bar.start("reading DEM");
+    const io::Dem dem = io::read_dem(options.dem);
+    summary.notes.insert(summary.notes.end(), dem.notes.begin(), dem.notes.end());
+    const auto &grid = dem.elevation_m;
+    const double extent_x_m = static_cast<double>(grid.width()) * grid.transform.cell_dx();
+    const double extent_y_m = static_cast<double>(grid.height()) * grid.transform.cell_dy();
+    const double max_radius_m = 0.5 * std::min(extent_x_m, extent_y_m);
+    if (options.snap_radius_m > max_radius_m) {
+        throw_input_error("--snap-radius",
+                          fmt::format("{} m is more than half the DEM's extent ({:.1f} m x "
+                                      "{:.1f} m in {})",
+                                      options.snap_radius_m, extent_x_m, extent_y_m,
+                                      options.dem.string()),
+                          fmt::format("0 to {:.1f} m; a few cells is usual", max_radius_m));
+    }
+
+    bar.start("reading design points");
+    const io::DesignPointLayer points =
+        io::read_design_points(options.points, options.id_field, grid.crs_wkt);
+    summary.notes.insert(summary.notes.end(), points.notes.begin(), points.notes.end());
+    std::vector<terrain::DesignPoint> tpoints;
+    tpoints.reserve(points.points.size());
+    for (const auto &p : points.points) {
+        tpoints.push_back(terrain::DesignPoint{p.id, p.x, p.y});
+    }
+
+    std::vector<terrain::BreachLine> breach;
+    if (options.breach_lines) {
+        bar.start("reading breach lines");
+        const io::LineLayer lines = io::read_lines(*options.breach_lines, grid.crs_wkt);
+        summary.notes.insert(summary.notes.end(), lines.notes.begin(), lines.notes.end());
+        for (const auto &l : lines.lines) {
+            breach.push_back(terrain::BreachLine{fmt::format("{}: feature {}", lines.source, l.fid),
+                                                 l.vertices});
+        }
+    }
+
+    terrain::TerrainSettings settings;
+    settings.snap_radius_m = options.snap_radius_m;
+    settings.stream_threshold_m2 = options.stream_threshold_m2;
+    settings.threads = options.threads;
+    std::string current_step;
+    const terrain::TerrainResult result = terrain::run_terrain(
+        grid, tpoints, breach, settings,
+        [&](std::string_view step, double) {
+            if (step != "done" && step != current_step) {
+                current_step = std::string(step);
+                bar.start(step);
+            }
+        },
+        points.source);
+
+    bar.start("polygonizing catchments");
+    const auto local_polygons = io::polygonize_labels(result.labels);
+    std::map<std::uint32_t, const io::LabelPolygon *> polygon_of_label;
+    for (const auto &p : local_polygons) {
+        polygon_of_label[p.label] = &p;
+    }
+    const std::size_t n = result.points.size();
+    std::vector<std::vector<unsigned char>> total_wkb(n);
+    std::vector<std::vector<std::size_t>> all_up(n);
+    for (std::size_t i = 0; i < n; ++i) {
+        all_up[i] = terrain::all_upstream_points(result, i);
+        std::vector<std::uint32_t> labels{result.points[i].label};
+        for (auto j : all_up[i]) {
+            labels.push_back(result.points[j].label);
+        }
+        std::sort(labels.begin(), labels.end());
+        labels.erase(std::unique(labels.begin(), labels.end()), labels.end());
+        std::vector<const std::vector<unsigned char> *> parts;
+        for (auto l : labels) {
+            if (auto it = polygon_of_label.find(l); it != polygon_of_label.end()) {
+                parts.push_back(&it->second->wkb);
+            }
+        }
+        total_wkb[i] = parts.size() == 1 ? *parts.front() : io::union_polygons(parts);
+        bar.update(static_cast<double>(i + 1) / static_cast<double>(n));
+    }
+
+    // catchments.json
+    Json doc;
+    doc["dem_file"] = options.dem.string();
+    doc["dem_crs"] = crs_name_of(grid.crs_wkt);
+    doc["dem_horizontal_unit"] = dem.horizontal_unit;
+    doc["dem_vertical_unit"] = dem.vertical_unit;
+    doc["cell_size_x_m"] = grid.transform.cell_dx();
+    doc["cell_size_y_m"] = grid.transform.cell_dy();
+    doc["dem_width_cells"] = grid.width();
+    doc["dem_height_cells"] = grid.height();
+    doc["design_points_file"] = options.points.string();
+    doc["id_field"] = options.id_field;
+    doc["breach_lines_file"] =
+        options.breach_lines ? Json(options.breach_lines->string()) : Json(nullptr);
+    doc["snap_radius_m"] = options.snap_radius_m;
+    doc["stream_threshold_m2"] = options.stream_threshold_m2;
+    doc["notes"] = summary.notes;
+    Json list = Json::array();
+    for (std::size_t i = 0; i < n; ++i) {
+        const auto &p = result.points[i];
+        const auto &fp = p.longest_flow_path;
+        Json j;
+        j["id"] = p.id;
+        j["given_x_m"] = p.given_x;
+        j["given_y_m"] = p.given_y;
+        j["snapped_x_m"] = p.snapped_x;
+        j["snapped_y_m"] = p.snapped_y;
+        j["snap_distance_m"] = p.snap_distance_m;
+        j["accumulation_cells"] = p.accumulation;
+        j["accumulation_m2"] = p.accumulation_m2;
+        j["total_cells"] = p.total_cells;
+        j["area_m2"] = p.area_m2;
+        j["local_cells"] = p.local_cells;
+        j["local_area_m2"] = p.local_area_m2;
+        j["longest_flow_path_m"] = fp.length_m;
+        j["elevation_top_m"] = fp.elevation_top_m;
+        j["elevation_outlet_m"] = fp.elevation_outlet_m;
+        j["slope_flow_path_m_per_m"] = fp.slope_m_per_m;
+        j["elevation_10_m"] = fp.elevation_10_m;
+        j["elevation_85_m"] = fp.elevation_85_m;
+        j["slope_10_85_m_per_m"] = fp.slope_10_85_m_per_m;
+        j["mean_slope_m_per_m"] = p.mean_slope_m_per_m;
+        j["touches_dem_edge"] = p.touches_dem_edge;
+        j["downstream_design_point"] =
+            p.downstream_point ? Json(result.points[*p.downstream_point].id) : Json(nullptr);
+        Json up = Json::array();
+        for (auto k : p.upstream_points) {
+            up.push_back(result.points[k].id);
+        }
+        j["upstream_design_points"] = up;
+        Json all = Json::array();
+        for (auto k : all_up[i]) {
+            all.push_back(result.points[k].id);
+        }
+        j["all_upstream_design_points"] = all;
+        j["warnings"] = p.warnings;
+        for (const auto &w : p.warnings) {
+            summary.warnings.push_back(fmt::format("design point '{}': {}", p.id, w));
+        }
+        list.push_back(std::move(j));
+    }
+    doc["design_points"] = std::move(list);
+    const std::string json_text = doc.dump(2) + "\n";
+
+    // catchments.gpkg
+    using io::FieldType;
+    using io::FieldValue;
+    const std::string &crs = grid.crs_wkt;
+    io::OutLayer catchments{"catchments",
+                            io::GeometryType::multi_polygon,
+                            crs,
+                            {{"id", FieldType::text},
+                             {"area_m2", FieldType::real},
+                             {"local_area_m2", FieldType::real},
+                             {"accumulation_cells", FieldType::integer},
+                             {"longest_flow_path_m", FieldType::real},
+                             {"slope_10_85_m_per_m", FieldType::real},
+                             {"mean_slope_m_per_m", FieldType::real},
+                             {"upstream_design_points", FieldType::text},
+                             {"touches_dem_edge", FieldType::integer}},
+                            {}};
+    io::OutLayer locals{"local_catchments",
+                        io::GeometryType::multi_polygon,
+                        crs,
+                        {{"id", FieldType::text},
+                         {"local_area_m2", FieldType::real},
+                         {"local_cells", FieldType::integer},
+                         {"downstream_design_point", FieldType::text}},
+                        {}};
+    io::OutLayer paths{"flow_paths",
+                       io::GeometryType::line_string,
+                       crs,
+                       {{"id", FieldType::text},
+                        {"length_m", FieldType::real},
+                        {"elevation_top_m", FieldType::real},
+                        {"elevation_outlet_m", FieldType::real},
+                        {"slope_m_per_m", FieldType::real},
+                        {"slope_10_85_m_per_m", FieldType::real}},
+                       {}};
+    io::OutLayer dps{"design_points",
+                     io::GeometryType::point,
+                     crs,
+                     {{"id", FieldType::text},
+                      {"given_x_m", FieldType::real},
+                      {"given_y_m", FieldType::real},
+                      {"snapped_x_m", FieldType::real},
+                      {"snapped_y_m", FieldType::real},
+                      {"snap_distance_m", FieldType::real},
+                      {"accumulation_cells", FieldType::integer},
+                      {"warnings", FieldType::text}},
+                     {}};
+    io::OutLayer streams{"streams",
+                         io::GeometryType::line_string,
+                         crs,
+                         {{"strahler_order", FieldType::integer},
+                          {"length_m", FieldType::real},
+                          {"accumulation_end_cells", FieldType::integer},
+                          {"accumulation_end_m2", FieldType::real}},
+                         {}};
+    const auto join_ids = [&](const std::vector<std::size_t> &idx) {
+        std::string s;
+        for (auto k : idx) {
+            s += (s.empty() ? "" : ", ") + result.points[k].id;
+        }
+        return s;
+    };
+    for (std::size_t i = 0; i < n; ++i) {
+        const auto &p = result.points[i];
+        const auto &fp = p.longest_flow_path;
+        catchments.features.push_back(
+            {total_wkb[i],
+             {p.id, p.area_m2, p.local_area_m2, static_cast<std::int64_t>(p.accumulation),
+              fp.length_m, fp.slope_10_85_m_per_m, p.mean_slope_m_per_m, join_ids(all_up[i]),
+              std::int64_t{p.touches_dem_edge ? 1 : 0}}});
+        const auto it = polygon_of_label.find(p.label);
+        locals.features.push_back(
+            {it != polygon_of_label.end() ? it->second->wkb : std::vector<unsigned char>{},
+             {p.id, p.local_area_m2, static_cast<std::int64_t>(p.local_cells),
+              p.downstream_point ? FieldValue(result.points[*p.downstream_point].id)
+                                 : FieldValue(std::monostate{})}});
+        paths.features.push_back(
+            {fp.vertices_xy.size() >= 2 ? line_wkb(fp.vertices_xy) : std::vector<unsigned char>{},
+             {p.id, fp.length_m, fp.elevation_top_m, fp.elevation_outlet_m, fp.slope_m_per_m,
+              fp.slope_10_85_m_per_m}});
+        std::string warnings;
+        for (const auto &w : p.warnings) {
+            warnings += (warnings.empty() ? "" : "; ") + w;
+        }
+        dps.features.push_back(
+            {point_wkb(p.snapped_x, p.snapped_y),
+             {p.id, p.given_x, p.given_y, p.snapped_x, p.snapped_y, p.snap_distance_m,
+              static_cast<std::int64_t>(p.accumulation), warnings}});
+    }
+    for (const auto &s : result.streams) {
+        if (s.vertices_xy.size() < 2) {
+            continue;
+        }
+        streams.features.push_back(
+            {line_wkb(s.vertices_xy),
+             {std::int64_t{s.strahler_order}, s.length_m,
+              static_cast<std::int64_t>(s.accumulation_end), s.accumulation_end_m2}});
+    }
+
+    bar.start("writing results");
+    prepare_out_dir(options.out_dir);
+    summary.json = options.out_dir / "catchments.json";
+    summary.gpkg = options.out_dir / "catchments.gpkg";
+    io::PendingFile gpkg_file(summary.gpkg);
+    io::PendingFile json_file(summary.json);
+    io::write_gpkg(gpkg_file.temp_path(), {catchments, locals, paths, dps, streams});
+    bar.update(0.9);
+    io::write_text_file_atomic(json_file.temp_path(), json_text);
+    gpkg_file.commit();
+    json_file.commit();
+    bar.finish();
+    summary.design_points = n;
+    return summary;
+}
+
+} // namespace catchpeak::app

@@ -1,0 +1,187 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/io/polygonize.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "gdal_handles.hpp"
+
+#include <gdal_alg.h>
+
+#include <fmt/format.h>
+
+#include <limits>
+#include <map>
+#include <memory>
+
+namespace catchpeak::io {
+
+namespace {
+
+using detail::GdalErrorScope;
+
+double area_of(const OGRGeometry &g) {
+    const auto type = wkbFlatten(g.getGeometryType());
+    if (type == wkbPolygon) {
+        return g.toPolygon()->get_Area();
+    }
+    if (type == wkbMultiPolygon) {
+        return g.toMultiPolygon()->get_Area();
+    }
+    if (type == wkbGeometryCollection) {
+        return g.toGeometryCollection()->get_Area();
+    }
+    return 0.0;
+}
+
+/// Polygon, or MultiPolygon when there are several parts; valid.
+detail::GeometryPtr finish(std::unique_ptr<OGRMultiPolygon> multi) {
+    detail::GeometryPtr g;
+    if (multi->getNumGeometries() == 1) {
+        g.reset(multi->getGeometryRef(0)->clone());
+    } else {
+        g.reset(multi.release());
+    }
+    if (!g->IsValid()) {
+        GdalErrorScope errors;
+        detail::GeometryPtr fixed(g->MakeValid());
+        if (!fixed) {
+            throw InternalError(errors.describe("cannot make a polygon valid"));
+        }
+        g = std::move(fixed);
+    }
+    return g;
+}
+
+} // namespace
+
+std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels) {
+    detail::ensure_gdal();
+    if (labels.empty()) {
+        return {};
+    }
+    std::map<std::uint32_t, std::uint64_t> counts;
+    for (std::size_t i = 0; i < labels.size(); ++i) {
+        if (labels[i] != 0) {
+            if (labels[i] > static_cast<std::uint32_t>(std::numeric_limits<std::int32_t>::max())) {
+                throw InternalError(fmt::format("label {} too large to polygonize", labels[i]));
+            }
+            ++counts[labels[i]];
+        }
+    }
+    if (counts.empty()) {
+        return {};
+    }
+    GdalErrorScope errors;
+    GDALDriver *mem = GetGDALDriverManager()->GetDriverByName("MEM");
+    const int w = static_cast<int>(labels.width());
+    const int h = static_cast<int>(labels.height());
+    detail::DatasetPtr raster(mem->Create("", w, h, 2, GDT_UInt32, nullptr));
+    if (!raster) {
+        throw InternalError(errors.describe("cannot create an in-memory raster"));
+    }
+    const auto &t = labels.transform;
+    double gt[6] = {t.origin_x, t.pixel_width,  t.row_rotation,
+                    t.origin_y, t.col_rotation, t.pixel_height};
+    raster->SetGeoTransform(gt);
+    GDALRasterBand *band = raster->GetRasterBand(1);
+    GDALRasterBand *mask = raster->GetRasterBand(2);
+    if (band->RasterIO(GF_Write, 0, 0, w, h, const_cast<std::uint32_t *>(labels.cells().data()), w,
+                       h, GDT_UInt32, 0, 0, nullptr) != CE_None) {
+        throw InternalError(errors.describe("cannot fill an in-memory raster"));
+    }
+    {
+        std::vector<std::uint32_t> m(labels.size());
+        for (std::size_t i = 0; i < labels.size(); ++i) {
+            m[i] = labels[i] != 0 ? 1u : 0u;
+        }
+        if (mask->RasterIO(GF_Write, 0, 0, w, h, m.data(), w, h, GDT_UInt32, 0, 0, nullptr) !=
+            CE_None) {
+            throw InternalError(errors.describe("cannot fill an in-memory mask"));
+        }
+    }
+
+    GDALDriver *memv = GetGDALDriverManager()->GetDriverByName("Memory");
+    detail::DatasetPtr vec(memv->Create("", 0, 0, 0, GDT_Unknown, nullptr));
+    OGRLayer *layer = vec->CreateLayer("labels", nullptr, wkbPolygon, nullptr);
+    OGRFieldDefn field("label", OFTInteger);
+    if (layer == nullptr || layer->CreateField(&field) != OGRERR_NONE) {
+        throw InternalError(errors.describe("cannot create an in-memory layer"));
+    }
+    // No "8CONNECTED" option: 4-connectedness (see the header).
+    if (GDALPolygonize(GDALRasterBand::ToHandle(band), GDALRasterBand::ToHandle(mask),
+                       OGRLayer::ToHandle(layer), 0, nullptr, nullptr, nullptr) != CE_None) {
+        throw InternalError(errors.describe("GDALPolygonize failed"));
+    }
+
+    std::map<std::uint32_t, std::unique_ptr<OGRMultiPolygon>> parts;
+    layer->ResetReading();
+    for (auto &f : *layer) {
+        const auto label = static_cast<std::uint32_t>(f->GetFieldAsInteger(0));
+        auto &multi = parts[label];
+        if (!multi) {
+            multi = std::make_unique<OGRMultiPolygon>();
+        }
+        OGRGeometry *g = f->GetGeometryRef();
+        if (g != nullptr && wkbFlatten(g->getGeometryType()) == wkbPolygon) {
+            multi->addGeometry(g);
+        }
+    }
+
+    std::vector<LabelPolygon> out;
+    out.reserve(counts.size());
+    for (auto &[label, multi] : parts) {
+        if (counts.count(label) == 0) {
+            throw InternalError(fmt::format("polygonize returned unknown label {}", label));
+        }
+        auto g = finish(std::move(multi));
+        LabelPolygon lp;
+        lp.label = label;
+        lp.cell_count = counts[label];
+        lp.area_m2 = area_of(*g);
+        lp.wkb = detail::to_iso_wkb(*g);
+        out.push_back(std::move(lp));
+    }
+    if (out.size() != counts.size()) {
+        throw InternalError("polygonize lost a label");
+    }
+    return out;
+}
+
+std::vector<unsigned char>
+union_polygons(const std::vector<const std::vector<unsigned char> *> &parts) {
+    detail::ensure_gdal();
+    auto multi = std::make_unique<OGRMultiPolygon>();
+    for (const auto *wkb : parts) {
+        auto g = detail::from_wkb(*wkb);
+        const auto type = wkbFlatten(g->getGeometryType());
+        if (type == wkbPolygon) {
+            multi->addGeometry(g.get());
+        } else if (type == wkbMultiPolygon) {
+            for (const auto *p : *g->toMultiPolygon()) {
+                multi->addGeometry(p);
+            }
+        }
+    }
+    if (multi->IsEmpty()) {
+        return detail::to_iso_wkb(*multi);
+    }
+    GdalErrorScope errors;
+    detail::GeometryPtr u(multi->UnionCascaded());
+    if (!u) {
+        throw InternalError(errors.describe("cannot form the union of polygons"));
+    }
+    if (!u->IsValid()) {
+        detail::GeometryPtr fixed(u->MakeValid());
+        if (!fixed) {
+            throw InternalError(errors.describe("cannot make a union of polygons valid"));
+        }
+        u = std::move(fixed);
+    }
+    return detail::to_iso_wkb(*u);
+}
+
+double polygon_area(const std::vector<unsigned char> &wkb) {
+    detail::ensure_gdal();
+    return area_of(*detail::from_wkb(wkb));
+}
+
+} // namespace catchpeak::io

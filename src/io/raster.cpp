@@ -1,0 +1,281 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/io/raster.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/io/atomic_file.hpp"
+#include "gdal_handles.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <limits>
+#include <optional>
+
+namespace catchpeak::io {
+
+namespace {
+
+using detail::GdalErrorScope;
+
+constexpr double international_foot_m = 0.3048;      // exact by definition (1959)
+constexpr double us_survey_foot_m = 1200.0 / 3937.0; // exact by definition (1893)
+
+bool same_factor(double a, double b) { return std::abs(a - b) <= 1e-9 * b; }
+
+std::string lower(std::string s) {
+    std::transform(s.begin(), s.end(), s.begin(),
+                   [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+    return s;
+}
+
+/// Metres per unit of an elevation unit name as GDAL files state them; nullopt if unknown.
+std::optional<std::pair<std::string, double>> vertical_unit_of(const std::string &name) {
+    const std::string n = lower(name);
+    if (n == "m" || n == "metre" || n == "meter" || n == "metres" || n == "meters") {
+        return std::pair<std::string, double>{"metre", 1.0};
+    }
+    if (n == "ft" || n == "foot" || n == "feet" || n == "international foot" ||
+        n == "foot (international)") {
+        return std::pair<std::string, double>{"international foot", international_foot_m};
+    }
+    if (n == "us survey foot" || n == "ftus" || n == "us_survey_foot" || n == "us-ft" ||
+        n == "foot_us" || n == "us survey feet") {
+        return std::pair<std::string, double>{"US survey foot", us_survey_foot_m};
+    }
+    return std::nullopt;
+}
+
+constexpr const char *accepted_crs =
+    "a projected CRS in metres, international feet or US survey feet";
+
+} // namespace
+
+Dem read_dem(const std::filesystem::path &path) {
+    auto ds = detail::open_raster(path);
+    const std::string file = path.string();
+    Dem dem;
+    dem.source = file;
+
+    const int bands = ds->GetRasterCount();
+    if (bands == 0) {
+        throw_input_error(file, "has no raster band", "a single-band elevation raster");
+    }
+    if (bands > 1) {
+        throw_input_error(file,
+                          fmt::format("has {} bands; catchpeak does not guess which one holds the "
+                                      "elevations",
+                                      bands),
+                          "a single-band raster; extract the elevation band with "
+                          "'gdal_translate -b <band> in.tif dem.tif'");
+    }
+
+    // Georeferencing.
+    double gt[6] = {0, 1, 0, 0, 0, 1};
+    if (ds->GetGeoTransform(gt) != CE_None) {
+        throw_input_error(file, "has no georeferencing (no geotransform)",
+                          "a georeferenced raster");
+    }
+    GeoTransform transform{gt[0], gt[1], gt[2], gt[3], gt[4], gt[5]};
+    if (!transform.is_north_up()) {
+        throw_input_error(
+            file, fmt::format("has a rotated geotransform (rotation terms {}, {})", gt[2], gt[4]),
+            "a north-up raster; resample it with 'gdalwarp in.tif out.tif'");
+    }
+    if (gt[1] == 0.0 || gt[5] == 0.0) {
+        throw_input_error(file, "has a zero cell size", "a georeferenced raster");
+    }
+
+    const OGRSpatialReference *srs = ds->GetSpatialRef();
+    if (srs == nullptr || srs->IsEmpty()) {
+        throw_input_error(file, "has no coordinate reference system (CRS)",
+                          std::string(accepted_crs) +
+                              "; assign the right one with 'gdal_edit.py -a_srs EPSG:<code> " +
+                              file + "'");
+    }
+    if (srs->IsGeographic() || srs->IsGeocentric()) {
+        const char *name = srs->GetName();
+        throw_input_error(
+            file,
+            fmt::format("has a geographic CRS ({}), whose cells are degrees, not lengths",
+                        name != nullptr ? name : "unnamed"),
+            std::string(accepted_crs) +
+                "; reproject it first, e.g. 'gdalwarp -t_srs EPSG:<utm zone> -r bilinear "
+                "in.tif out.tif' (EPSG:326NN for UTM zone NN north, 327NN south)");
+    }
+    const char *unit_name_c = nullptr;
+    const double unit_m = srs->GetLinearUnits(&unit_name_c);
+    const std::string unit_name = unit_name_c != nullptr ? unit_name_c : "";
+    if (same_factor(unit_m, 1.0)) {
+        dem.horizontal_unit = "metre";
+        dem.horizontal_unit_m = 1.0;
+    } else if (same_factor(unit_m, international_foot_m)) {
+        dem.horizontal_unit = "international foot";
+        dem.horizontal_unit_m = international_foot_m;
+    } else if (same_factor(unit_m, us_survey_foot_m)) {
+        dem.horizontal_unit = "US survey foot";
+        dem.horizontal_unit_m = us_survey_foot_m;
+    } else {
+        throw_input_error(file,
+                          fmt::format("the CRS's linear unit is '{}' ({} m)", unit_name, unit_m),
+                          accepted_crs);
+    }
+
+    std::string crs_wkt;
+    if (dem.horizontal_unit_m == 1.0) {
+        crs_wkt = detail::to_wkt(srs);
+    } else {
+        detail::SpatialRefPtr metric(srs->Clone());
+        GdalErrorScope errors;
+        if (metric->IsCompound()) {
+            metric->StripVertical();
+        }
+        if (metric->SetLinearUnitsAndUpdateParameters(SRS_UL_METER, 1.0) != OGRERR_NONE) {
+            throw_input_error(
+                file,
+                errors.describe("cannot convert the CRS's " + dem.horizontal_unit + " to metres"),
+                accepted_crs);
+        }
+        crs_wkt = detail::to_wkt(metric.get());
+        const double f = dem.horizontal_unit_m;
+        transform = GeoTransform{gt[0] * f, gt[1] * f, 0.0, gt[3] * f, 0.0, gt[5] * f};
+        dem.notes.push_back(fmt::format(
+            "{}: coordinates and cell size converted from {} to metres (1 {} = {} m); outputs "
+            "use the same CRS with metre units",
+            file, dem.horizontal_unit, dem.horizontal_unit, fmt::format("{:.12g}", f)));
+    }
+
+    GDALRasterBand *band = ds->GetRasterBand(1);
+    const std::string band_unit = band->GetUnitType() != nullptr ? band->GetUnitType() : "";
+    if (band_unit.empty()) {
+        dem.vertical_unit = dem.horizontal_unit;
+        dem.vertical_unit_m = dem.horizontal_unit_m;
+        dem.notes.push_back(fmt::format("{}: the band states no elevation unit; taken to be the "
+                                        "CRS's unit ({})",
+                                        file, dem.vertical_unit));
+    } else if (auto v = vertical_unit_of(band_unit)) {
+        dem.vertical_unit = v->first;
+        dem.vertical_unit_m = v->second;
+    } else {
+        throw_input_error(file, fmt::format("the elevation unit is '{}'", band_unit),
+                          "elevations in m, ft or US survey ft (band unit type)");
+    }
+    if (dem.vertical_unit_m != 1.0) {
+        dem.notes.push_back(
+            fmt::format("{}: elevations converted from {} to metres", file, dem.vertical_unit));
+    }
+
+    int has_nodata = 0;
+    const double nodata = band->GetNoDataValue(&has_nodata);
+    int has_scale = 0;
+    int has_offset = 0;
+    const double scale = band->GetScale(&has_scale);
+    const double offset = band->GetOffset(&has_offset);
+
+    const auto width = static_cast<std::size_t>(ds->GetRasterXSize());
+    const auto height = static_cast<std::size_t>(ds->GetRasterYSize());
+    Grid<float> grid(width, height, 0.0f);
+    grid.transform = transform;
+    grid.crs_wkt = crs_wkt;
+    grid.nodata = std::numeric_limits<float>::quiet_NaN();
+
+    std::vector<double> row(width);
+    std::size_t valid = 0;
+    const double to_m = dem.vertical_unit_m;
+    GdalErrorScope errors;
+    for (std::size_t r = 0; r < height; ++r) {
+        if (band->RasterIO(GF_Read, 0, static_cast<int>(r), static_cast<int>(width), 1, row.data(),
+                           static_cast<int>(width), 1, GDT_Float64, 0, 0, nullptr) != CE_None) {
+            throw_input_error(file, errors.describe(fmt::format("cannot read row {}", r)),
+                              "a readable raster");
+        }
+        for (std::size_t c = 0; c < width; ++c) {
+            const double v = row[c];
+            if (std::isnan(v) || (has_nodata != 0 && v == nodata)) {
+                grid(c, r) = std::numeric_limits<float>::quiet_NaN();
+                continue;
+            }
+            const double z = (has_scale != 0 ? v * scale : v) + (has_offset != 0 ? offset : 0.0);
+            grid(c, r) = static_cast<float>(z * to_m);
+            ++valid;
+        }
+    }
+    if (valid == 0) {
+        throw_input_error(
+            file,
+            fmt::format("every cell is nodata ({} x {} cells{})", width, height,
+                        has_nodata != 0 ? fmt::format(", nodata value {}", nodata) : std::string()),
+            "a DEM with elevations");
+    }
+    dem.valid_cells = valid;
+    dem.elevation_m = std::move(grid);
+    return dem;
+}
+
+namespace {
+
+template <typename T> GDALDataType gdal_type();
+template <> GDALDataType gdal_type<float>() { return GDT_Float32; }
+template <> GDALDataType gdal_type<std::uint8_t>() { return GDT_Byte; }
+template <> GDALDataType gdal_type<std::uint32_t>() { return GDT_UInt32; }
+
+template <typename T> void write_tiff(const Grid<T> &grid, const std::filesystem::path &path) {
+    detail::ensure_gdal();
+    const std::string file = path.string();
+    if (grid.empty()) {
+        throw InternalError(file + ": cannot write an empty grid");
+    }
+    GDALDriver *driver = GetGDALDriverManager()->GetDriverByName("GTiff");
+    if (driver == nullptr) {
+        throw InternalError("GDAL has no GTiff driver");
+    }
+    PendingFile pending(path);
+    GdalErrorScope errors;
+    {
+        const char *const options[] = {"COMPRESS=DEFLATE", "TILED=YES", nullptr};
+        detail::DatasetPtr ds(driver->Create(
+            pending.temp_path().string().c_str(), static_cast<int>(grid.width()),
+            static_cast<int>(grid.height()), 1, gdal_type<T>(), const_cast<char **>(options)));
+        if (!ds) {
+            throw_input_error(file, errors.describe("cannot be created"), "a writable folder");
+        }
+        const auto &t = grid.transform;
+        double gt[6] = {t.origin_x, t.pixel_width,  t.row_rotation,
+                        t.origin_y, t.col_rotation, t.pixel_height};
+        ds->SetGeoTransform(gt);
+        if (!grid.crs_wkt.empty()) {
+            auto srs = detail::spatial_ref_from_wkt(grid.crs_wkt);
+            ds->SetSpatialRef(srs.get());
+        }
+        GDALRasterBand *band = ds->GetRasterBand(1);
+        if (grid.nodata) {
+            band->SetNoDataValue(static_cast<double>(*grid.nodata));
+        }
+        if (band->RasterIO(GF_Write, 0, 0, static_cast<int>(grid.width()),
+                           static_cast<int>(grid.height()), const_cast<T *>(grid.cells().data()),
+                           static_cast<int>(grid.width()), static_cast<int>(grid.height()),
+                           gdal_type<T>(), 0, 0, nullptr) != CE_None) {
+            throw_input_error(file, errors.describe("cannot be written"), "a writable folder");
+        }
+        ds.reset(); // closes the file, flushing it
+        if (!errors.first_failure().empty()) {
+            throw_input_error(file, errors.describe("cannot be written"), "a writable folder");
+        }
+    }
+    pending.commit();
+}
+
+} // namespace
+
+void write_geotiff(const Grid<float> &grid, const std::filesystem::path &path) {
+    write_tiff(grid, path);
+}
+void write_geotiff(const Grid<std::uint8_t> &grid, const std::filesystem::path &path) {
+    write_tiff(grid, path);
+}
+void write_geotiff(const Grid<std::uint32_t> &grid, const std::filesystem::path &path) {
+    write_tiff(grid, path);
+}
+
+} // namespace catchpeak::io

@@ -1,0 +1,734 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/land/overlay.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "geos_handles.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <map>
+#include <set>
+#include <tuple>
+#include <utility>
+
+namespace catchpeak::land {
+
+namespace {
+
+constexpr std::size_t no_feature = std::numeric_limits<std::size_t>::max();
+constexpr double nan = std::numeric_limits<double>::quiet_NaN();
+
+/// One polygon of a layer, read once.
+struct LayerFeature {
+    std::int64_t fid = -1;
+    geos::Geometry geom;
+    std::string value; ///< class name, or the soil group as written
+    SoilGroupReading soil;
+    double area_m2 = 0.0;
+    double xmin = 0.0, ymin = 0.0, xmax = 0.0, ymax = 0.0; ///< envelope (all 0 when empty)
+    bool repaired = false;
+    std::string repair_reason;
+};
+
+struct Layer {
+    std::string source;
+    std::string kind; ///< "land-cover layer" or "soils layer"
+    std::vector<LayerFeature> features;
+    std::unique_ptr<geos::StrTree> tree;
+};
+
+/// A piece of a catchment cut by one layer's polygon.
+struct Piece {
+    std::size_t feature = no_feature; ///< index in the layer, no_feature for the default
+    geos::Geometry owned;             ///< the cut geometry, unless the whole feature lies inside
+    const GEOSGeometry *geom = nullptr;
+    double area_m2 = 0.0;
+    double xmin = 0.0, ymin = 0.0, xmax = 0.0, ymax = 0.0;
+};
+
+std::string geometry_type(const geos::Context &ctx, const GEOSGeometry *g) {
+    char *t = GEOSGeomType_r(ctx.get(), g);
+    std::string out = t != nullptr ? t : "unknown";
+    GEOSFree_r(ctx.get(), t);
+    return out;
+}
+
+double area_of(const geos::Context &ctx, const GEOSGeometry *g) {
+    double a = 0.0;
+    if (GEOSArea_r(ctx.get(), g, &a) == 0) {
+        ctx.fail("cannot compute an area");
+    }
+    return a;
+}
+
+bool is_polygonal(int type) { return type == GEOS_POLYGON || type == GEOS_MULTIPOLYGON; }
+
+/// The polygonal components of a geometry (an overlay result may hold lines and points where
+/// polygons touch), as one polygon or multipolygon. Null when it has none.
+geos::Geometry polygonal_part(const geos::Context &ctx, geos::Geometry g) {
+    const int type = GEOSGeomTypeId_r(ctx.get(), g.get());
+    if (is_polygonal(type)) {
+        return g;
+    }
+    if (type != GEOS_GEOMETRYCOLLECTION) {
+        return {};
+    }
+    std::vector<GEOSGeometry *> polys;
+    const int n = GEOSGetNumGeometries_r(ctx.get(), g.get());
+    for (int i = 0; i < n; ++i) {
+        const GEOSGeometry *part = GEOSGetGeometryN_r(ctx.get(), g.get(), i);
+        const int pt = GEOSGeomTypeId_r(ctx.get(), part);
+        if (pt == GEOS_POLYGON) {
+            polys.push_back(GEOSGeom_clone_r(ctx.get(), part));
+        } else if (pt == GEOS_MULTIPOLYGON) {
+            const int m = GEOSGetNumGeometries_r(ctx.get(), part);
+            for (int j = 0; j < m; ++j) {
+                polys.push_back(
+                    GEOSGeom_clone_r(ctx.get(), GEOSGetGeometryN_r(ctx.get(), part, j)));
+            }
+        }
+    }
+    if (polys.empty()) {
+        return {};
+    }
+    return geos::own(ctx,
+                     GEOSGeom_createCollection_r(ctx.get(), GEOS_MULTIPOLYGON, polys.data(),
+                                                 static_cast<unsigned>(polys.size())),
+                     "cannot build a multipolygon");
+}
+
+/// Reads a polygon or multipolygon; makes an invalid one valid (GEOS's "structure" method,
+/// which keeps the polygonal area) and says why it was invalid.
+struct ReadPolygon {
+    geos::Geometry geom;
+    bool repaired = false;
+    std::string reason;
+};
+
+ReadPolygon read_polygonal(geos::Context &ctx, const geos::WkbReader &reader,
+                           const std::vector<unsigned char> &wkb, const std::string &where) {
+    ctx.clear_error();
+    ReadPolygon out;
+    out.geom = reader.read(wkb);
+    if (!out.geom) {
+        throw_input_error(where, fmt::format("the geometry cannot be read ({})", ctx.last_error()),
+                          "a polygon or multipolygon as ISO WKB");
+    }
+    const int type = GEOSGeomTypeId_r(ctx.get(), out.geom.get());
+    if (!is_polygonal(type)) {
+        throw_input_error(where,
+                          fmt::format("the geometry is a {}", geometry_type(ctx, out.geom.get())),
+                          "a polygon or multipolygon");
+    }
+    const char valid = GEOSisValid_r(ctx.get(), out.geom.get());
+    if (valid == 2) {
+        ctx.fail("cannot check a geometry's validity at " + where);
+    }
+    if (valid == 0) {
+        char *reason = GEOSisValidReason_r(ctx.get(), out.geom.get());
+        out.reason = reason != nullptr ? reason : "invalid";
+        GEOSFree_r(ctx.get(), reason);
+        GEOSMakeValidParams *params = GEOSMakeValidParams_create_r(ctx.get());
+        GEOSMakeValidParams_setMethod_r(ctx.get(), params, GEOS_MAKE_VALID_STRUCTURE);
+        GEOSMakeValidParams_setKeepCollapsed_r(ctx.get(), params, 0);
+        GEOSGeometry *fixed = GEOSMakeValidWithParams_r(ctx.get(), out.geom.get(), params);
+        GEOSMakeValidParams_destroy_r(ctx.get(), params);
+        auto made = polygonal_part(ctx, geos::own(ctx, fixed, "cannot make a geometry valid"));
+        if (!made) {
+            made = geos::own(ctx, GEOSGeom_createEmptyPolygon_r(ctx.get()),
+                             "cannot create an empty polygon");
+        }
+        out.geom = std::move(made);
+        out.repaired = true;
+    }
+    return out;
+}
+
+std::string area_unit(units::System s) { return s == units::System::si ? "ha" : "ac"; }
+
+double area_in_sheet_units(double area_m2, units::System s) {
+    return s == units::System::si ? units::m2_to_ha(area_m2) : units::m2_to_acre(area_m2);
+}
+
+} // namespace
+
+struct LandOverlay::Impl {
+    geos::Context ctx; // first member: destroyed last, after every geometry
+    LandTables tables;
+    OverlaySettings settings;
+    Layer land;
+    Layer soils;
+    CalcLines layer_warnings;
+    SoilGroupReading default_soil;
+
+    void load(Layer &layer, const io::VectorLayer &in, const std::string &field, bool is_soil) {
+        layer.source = in.source;
+        layer.kind = is_soil ? "soils layer" : "land-cover layer";
+        const geos::WkbReader reader(ctx);
+        layer.features.reserve(in.features.size());
+        for (const auto &f : in.features) {
+            const std::string where = fmt::format("{}: feature {}", in.source, f.fid);
+            LayerFeature lf;
+            lf.fid = f.fid;
+            const auto attr = f.attributes.find(field);
+            if (attr == f.attributes.end()) {
+                std::vector<std::string> names;
+                for (const auto &[name, value] : f.attributes) {
+                    names.push_back(name);
+                }
+                throw_input_error(where, fmt::format("no field '{}'", field),
+                                  fmt::format("a {} field (fields found: {})",
+                                              is_soil ? "hydrologic soil group" : "class",
+                                              fmt::join(names, ", ")));
+            }
+            lf.value = attr->second;
+            if (is_soil) {
+                lf.soil = read_soil_group(lf.value, settings.drained,
+                                          fmt::format("{}, field '{}'", where, field));
+            } else if (lf.value.empty()) {
+                throw_input_error(fmt::format("{}, field '{}'", where, field), "the class is empty",
+                                  "a land-cover class name");
+            }
+            auto read = read_polygonal(ctx, reader, f.wkb, where);
+            lf.geom = std::move(read.geom);
+            lf.repaired = read.repaired;
+            lf.repair_reason = read.reason;
+            lf.area_m2 = area_of(ctx, lf.geom.get());
+            if (GEOSisEmpty_r(ctx.get(), lf.geom.get()) == 0) {
+                GEOSGeom_getXMin_r(ctx.get(), lf.geom.get(), &lf.xmin);
+                GEOSGeom_getYMin_r(ctx.get(), lf.geom.get(), &lf.ymin);
+                GEOSGeom_getXMax_r(ctx.get(), lf.geom.get(), &lf.xmax);
+                GEOSGeom_getYMax_r(ctx.get(), lf.geom.get(), &lf.ymax);
+            }
+            if (lf.repaired) {
+                layer_warnings.warn("Invalid geometry made valid",
+                                    fmt::format("{}: {} ({}); made valid", where,
+                                                "the polygon was invalid", read.reason),
+                                    "GEOS MakeValid, structure method");
+            }
+            layer.features.push_back(std::move(lf));
+        }
+        layer.tree = std::make_unique<geos::StrTree>(ctx, 10);
+        for (std::size_t i = 0; i < layer.features.size(); ++i) {
+            layer.tree->insert(layer.features[i].geom.get(), i);
+        }
+    }
+
+    void set_envelope(Piece &p) const {
+        if (GEOSisEmpty_r(ctx.get(), p.geom) != 0) {
+            return;
+        }
+        GEOSGeom_getXMin_r(ctx.get(), p.geom, &p.xmin);
+        GEOSGeom_getYMin_r(ctx.get(), p.geom, &p.ymin);
+        GEOSGeom_getXMax_r(ctx.get(), p.geom, &p.xmax);
+        GEOSGeom_getYMax_r(ctx.get(), p.geom, &p.ymax);
+    }
+
+    /// The pieces of the catchment cut by every polygon of `layer`.
+    std::vector<Piece> cut(const Layer &layer, const GEOSGeometry *catchment,
+                           const GEOSPreparedGeometry *prepared) const {
+        std::vector<Piece> pieces;
+        for (const std::size_t i : layer.tree->query(catchment)) {
+            const GEOSGeometry *fg = layer.features[i].geom.get();
+            if (GEOSPreparedIntersects_r(ctx.get(), prepared, fg) != 1) {
+                continue;
+            }
+            Piece p;
+            p.feature = i;
+            if (GEOSPreparedContainsProperly_r(ctx.get(), prepared, fg) == 1) {
+                p.geom = fg;
+            } else {
+                p.owned = polygonal_part(
+                    ctx, geos::own(ctx, GEOSIntersection_r(ctx.get(), catchment, fg),
+                                   "cannot intersect a catchment with a layer polygon"));
+                if (!p.owned) {
+                    continue;
+                }
+                p.geom = p.owned.get();
+            }
+            p.area_m2 = area_of(ctx, p.geom);
+            if (p.area_m2 <= 0.0) {
+                continue;
+            }
+            set_envelope(p);
+            pieces.push_back(std::move(p));
+        }
+        return pieces;
+    }
+
+    /// Union of the pieces (cloned: the pieces keep their geometries).
+    geos::Geometry union_of(const std::vector<Piece> &pieces) const {
+        std::vector<GEOSGeometry *> clones;
+        clones.reserve(pieces.size());
+        for (const auto &p : pieces) {
+            clones.push_back(GEOSGeom_clone_r(ctx.get(), p.geom));
+        }
+        auto collection =
+            geos::own(ctx,
+                      GEOSGeom_createCollection_r(ctx.get(), GEOS_GEOMETRYCOLLECTION, clones.data(),
+                                                  static_cast<unsigned>(clones.size())),
+                      "cannot build a collection");
+        return geos::own(ctx, GEOSUnaryUnion_r(ctx.get(), collection.get()),
+                         "cannot union the pieces of a layer");
+    }
+
+    /// Pairs of pieces whose interiors overlap, for the message (every pair with a positive
+    /// overlap, so that many small overlaps that add up above the tolerance are all named).
+    std::vector<std::string> overlapping_pairs(const Layer &layer,
+                                               const std::vector<Piece> &pieces) const {
+        std::vector<std::string> pairs;
+        for (std::size_t i = 0; i < pieces.size(); ++i) {
+            for (std::size_t j = i + 1; j < pieces.size(); ++j) {
+                const Piece &a = pieces[i];
+                const Piece &b = pieces[j];
+                if (a.xmax <= b.xmin || b.xmax <= a.xmin || a.ymax <= b.ymin || b.ymax <= a.ymin) {
+                    continue;
+                }
+                auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), a.geom, b.geom),
+                                       "cannot intersect two layer polygons");
+                const double area = area_of(ctx, inter.get());
+                if (area > 0.0) {
+                    pairs.push_back(fmt::format("features {} and {} ({} m2)",
+                                                layer.features[a.feature].fid,
+                                                layer.features[b.feature].fid, sig(area)));
+                }
+            }
+        }
+        return pairs;
+    }
+
+    /// Checks that a layer covers the catchment once: overlaps are refused with their feature
+    /// ids; an uncovered part is refused or given to the default. Returns the uncovered area.
+    double settle_coverage(const Layer &layer, std::vector<Piece> &pieces,
+                           const GEOSGeometry *catchment, double area_m2, double tol_m2,
+                           std::string_view label, CalcLines &lines) const {
+        double sum_m2 = 0.0;
+        for (const auto &p : pieces) {
+            sum_m2 += p.area_m2;
+        }
+        // The union tells overlaps (sum above the union) from gaps (union below the catchment).
+        const auto covered = union_of(pieces);
+        const double covered_m2 = pieces.empty() ? 0.0 : area_of(ctx, covered.get());
+        if (sum_m2 - covered_m2 > tol_m2) {
+            const auto pairs = overlapping_pairs(layer, pieces);
+            throw_input_error(
+                layer.source,
+                fmt::format("polygons of the {} overlap inside catchment '{}' ({} m2 counted "
+                            "twice): {}",
+                            layer.kind, label, sig(sum_m2 - covered_m2), fmt::join(pairs, "; ")),
+                "polygons of one layer that do not overlap");
+        }
+        const double uncovered_m2 = std::max(0.0, area_m2 - covered_m2);
+        if (uncovered_m2 <= tol_m2) {
+            return uncovered_m2;
+        }
+        const bool soil = &layer == &soils;
+        const std::string what =
+            fmt::format("{} m2 ({} % of catchment '{}') is not covered by the {}",
+                        sig(uncovered_m2), sig(100.0 * uncovered_m2 / area_m2), label, layer.kind);
+        if (settings.uncovered == Uncovered::refuse) {
+            throw_input_error(layer.source, what,
+                              "a layer that covers every catchment, or the setting that gives the "
+                              "uncovered part a default class and soil group");
+        }
+        Piece p;
+        p.owned = polygonal_part(
+            ctx, geos::own(ctx,
+                           pieces.empty() ? GEOSGeom_clone_r(ctx.get(), catchment)
+                                          : GEOSDifference_r(ctx.get(), catchment, covered.get()),
+                           "cannot cut the uncovered part of a catchment"));
+        if (!p.owned) {
+            return uncovered_m2;
+        }
+        p.geom = p.owned.get();
+        p.area_m2 = area_of(ctx, p.geom);
+        set_envelope(p);
+        pieces.push_back(std::move(p));
+        lines.warn(soil ? "Soils layer does not cover the catchment"
+                        : "Land-cover layer does not cover the catchment",
+                   fmt::format("{}; that part is taken as {} '{}' (project setting)", what,
+                               soil ? "soil group" : "class",
+                               soil ? settings.default_soil_group : settings.default_class),
+                   layer.source);
+        return uncovered_m2;
+    }
+};
+
+LandOverlay::LandOverlay(const io::VectorLayer &land_cover, const io::VectorLayer &soils,
+                         LandTables tables, OverlaySettings settings)
+    : impl_(std::make_unique<Impl>()) {
+    impl_->tables = std::move(tables);
+    impl_->settings = std::move(settings);
+    const auto &s = impl_->settings;
+    if (s.uncovered == Uncovered::use_default) {
+        if (s.default_class.empty()) {
+            throw_input_error("land overlay settings", "no default class is given",
+                              "a land-cover class name for parts the land-cover layer does not "
+                              "cover");
+        }
+        impl_->default_soil = read_soil_group(s.default_soil_group, s.drained,
+                                              "land overlay settings, default soil group");
+    }
+    if (!(s.area_tolerance_share >= 0.0 && s.area_tolerance_share < 1e-3)) {
+        throw_input_error("land overlay settings",
+                          fmt::format("area tolerance {} is out of range", s.area_tolerance_share),
+                          "a share of the catchment area from 0 to 0.001");
+    }
+    impl_->load(impl_->land, land_cover, s.class_field, false);
+    impl_->load(impl_->soils, soils, s.soil_group_field, true);
+}
+
+LandOverlay::~LandOverlay() = default;
+LandOverlay::LandOverlay(LandOverlay &&) noexcept = default;
+LandOverlay &LandOverlay::operator=(LandOverlay &&) noexcept = default;
+
+const CalcLines &LandOverlay::layer_warnings() const noexcept { return impl_->layer_warnings; }
+
+CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wkb,
+                                  std::string_view label, std::optional<double> mean_slope) const {
+    Impl &im = *impl_;
+    const auto &ctx = im.ctx;
+    const auto &s = im.settings;
+    CatchmentLand out;
+    CalcLines warnings;
+
+    const geos::WkbReader reader(im.ctx);
+    auto read = read_polygonal(im.ctx, reader, catchment_wkb, fmt::format("catchment '{}'", label));
+    if (read.repaired) {
+        warnings.warn("Invalid catchment polygon made valid",
+                      fmt::format("catchment '{}': the polygon was invalid ({}); made valid", label,
+                                  read.reason),
+                      "GEOS MakeValid, structure method");
+    }
+    const GEOSGeometry *catchment = read.geom.get();
+    out.area_m2 = area_of(ctx, catchment);
+    if (!(out.area_m2 > 0.0)) {
+        throw_input_error(fmt::format("catchment '{}'", label), "the polygon has no area",
+                          "a polygon with a positive area");
+    }
+    const double tol_m2 = s.area_tolerance_share * out.area_m2;
+    const auto prepared = geos::prepare(ctx, catchment);
+
+    // Soils first: few pieces, so their union (exact coverage and overlap check) is cheap.
+    auto soil = im.cut(im.soils, catchment, prepared.get());
+    out.uncovered_soils_m2 =
+        im.settle_coverage(im.soils, soil, catchment, out.area_m2, tol_m2, label, warnings);
+    std::vector<geos::Prepared> soil_prepared;
+    soil_prepared.reserve(soil.size());
+    for (const auto &sp : soil) {
+        soil_prepared.push_back(geos::prepare(ctx, sp.geom));
+    }
+
+    struct PartSum {
+        double area_m2 = 0.0;
+        std::int64_t first_fid = -1; ///< a land-cover feature of the class, for messages
+    };
+    std::map<std::pair<std::string, SoilGroup>, PartSum> sums;
+    std::set<std::size_t> land_used; ///< land-cover features found in the catchment
+    const auto add_part = [&](std::size_t land_feature, SoilGroup g, double a) {
+        const bool is_default = land_feature == no_feature;
+        const std::string &cls =
+            is_default ? s.default_class : im.land.features[land_feature].value;
+        auto &sum = sums[{cls, g}];
+        sum.area_m2 += a;
+        if (sum.first_fid < 0 && !is_default) {
+            sum.first_fid = im.land.features[land_feature].fid;
+        }
+        if (!is_default) {
+            land_used.insert(land_feature);
+        }
+    };
+    const auto group_of = [&](const Piece &sp) {
+        return sp.feature == no_feature ? im.default_soil.group
+                                        : im.soils.features[sp.feature].soil.group;
+    };
+    /// Area of a land-cover piece inside soil piece k.
+    const auto area_in_soil = [&](std::size_t k, const GEOSGeometry *g, double g_area_m2) {
+        const bool inside = GEOSPreparedContains_r(ctx.get(), soil_prepared[k].get(), g) == 1;
+        if (inside) {
+            return g_area_m2;
+        }
+        if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), g) != 1) {
+            return 0.0;
+        }
+        auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), soil[k].geom, g),
+                               "cannot intersect land cover with soils");
+        return area_of(ctx, inter.get());
+    };
+
+    // Fast path: every land-cover polygon against every soil piece (already cut to the
+    // catchment). If the land-cover layer covers the catchment once, the parts add up to the
+    // catchment's area; any difference (a gap or an overlap) sends us to the exact path.
+    bool exact = s.exact_coverage_check;
+    if (!exact) {
+        double sum_m2 = 0.0;
+        std::vector<std::size_t> crossing; // soil pieces a land-cover polygon reaches into
+        for (const std::size_t i : im.land.tree->query(catchment)) {
+            const auto &f = im.land.features[i];
+            const GEOSGeometry *fg = f.geom.get();
+            if (f.area_m2 <= 0.0 || GEOSPreparedIntersects_r(ctx.get(), prepared.get(), fg) != 1) {
+                continue;
+            }
+            const bool inside = GEOSPreparedContainsProperly_r(ctx.get(), prepared.get(), fg) == 1;
+            crossing.clear();
+            bool whole = false;
+            for (std::size_t k = 0; k < soil.size() && !whole; ++k) {
+                const Piece &sp = soil[k];
+                if (f.xmax < sp.xmin || sp.xmax < f.xmin || f.ymax < sp.ymin || sp.ymax < f.ymin) {
+                    continue;
+                }
+                if (GEOSPreparedContainsProperly_r(ctx.get(), soil_prepared[k].get(), fg) == 1) {
+                    add_part(i, group_of(sp), f.area_m2);
+                    sum_m2 += f.area_m2;
+                    whole = true;
+                } else if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), fg) == 1) {
+                    crossing.push_back(k);
+                }
+            }
+            if (whole) {
+                continue;
+            }
+            double done_m2 = 0.0;
+            for (std::size_t j = 0; j < crossing.size(); ++j) {
+                const std::size_t k = crossing[j];
+                double a = 0.0;
+                if (inside && j + 1 == crossing.size()) {
+                    // A polygon inside the catchment is covered once by the soil pieces (their
+                    // coverage was settled above): the last piece holds the rest of its area.
+                    // A rest within the rounding of the subtraction (1e-12 of the polygon's
+                    // area) is a piece that only touches the polygon.
+                    a = f.area_m2 - done_m2;
+                    if (a <= std::max(tol_m2, 1e-12 * f.area_m2)) {
+                        a = 0.0;
+                    }
+                } else {
+                    auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), soil[k].geom, fg),
+                                           "cannot intersect land cover with soils");
+                    a = area_of(ctx, inter.get());
+                }
+                if (a > 0.0) {
+                    add_part(i, group_of(soil[k]), a);
+                    sum_m2 += a;
+                    done_m2 += a;
+                }
+            }
+        }
+        exact = std::abs(sum_m2 - out.area_m2) > tol_m2;
+        if (exact) {
+            sums.clear();
+            land_used.clear();
+        }
+    }
+    // Exact path: cut the catchment by the land-cover layer, check coverage and overlaps with
+    // the union of the pieces (refusing, or giving the uncovered part the default class), then
+    // intersect the land pieces with the soil pieces.
+    if (exact) {
+        auto land = im.cut(im.land, catchment, prepared.get());
+        out.uncovered_land_cover_m2 =
+            im.settle_coverage(im.land, land, catchment, out.area_m2, tol_m2, label, warnings);
+        for (const auto &lp : land) {
+            for (std::size_t k = 0; k < soil.size(); ++k) {
+                const Piece &sp = soil[k];
+                if (lp.xmax < sp.xmin || sp.xmax < lp.xmin || lp.ymax < sp.ymin ||
+                    sp.ymax < lp.ymin) {
+                    continue;
+                }
+                const double a = area_in_soil(k, lp.geom, lp.area_m2);
+                if (a > 0.0) {
+                    add_part(lp.feature, group_of(sp), a);
+                }
+            }
+        }
+    }
+
+    // Dual soil groups and repaired polygons that reach into this catchment.
+    std::set<std::string> duals;
+    for (const auto &sp : soil) {
+        if (sp.feature == no_feature) {
+            continue;
+        }
+        const auto &sf = im.soils.features[sp.feature];
+        if (sf.soil.dual) {
+            duals.insert(fmt::format("{} -> {}", sf.value, to_string(sf.soil.group)));
+        }
+        if (sf.repaired) {
+            warnings.warn("Invalid layer polygon made valid",
+                          fmt::format("{}: feature {} was invalid ({}); made valid before the "
+                                      "overlay",
+                                      im.soils.source, sf.fid, sf.repair_reason),
+                          "GEOS MakeValid, structure method");
+        }
+    }
+    for (const std::size_t i : land_used) {
+        const auto &f = im.land.features[i];
+        if (f.repaired) {
+            warnings.warn("Invalid layer polygon made valid",
+                          fmt::format("{}: feature {} was invalid ({}); made valid before the "
+                                      "overlay",
+                                      im.land.source, f.fid, f.repair_reason),
+                          "GEOS MakeValid, structure method");
+        }
+    }
+
+    // Look up C, CN and impervious share per part.
+    const std::optional<double> slope_percent =
+        mean_slope ? std::optional<double>(*mean_slope * 100.0) : std::nullopt;
+    bool slope_used = false;
+    auto &w = out.weighting;
+    double total_m2 = 0.0;
+    for (const auto &[key, sum] : sums) {
+        const std::string &cls = key.first;
+        const SoilGroup g = key.second;
+        const auto missing = [&](const TableInfo &info, std::string_view kind) {
+            const std::string from =
+                sum.first_fid < 0 ? "the default class of the project settings"
+                                  : fmt::format("{}, feature {}", im.land.source, sum.first_fid);
+            throw_input_error(info.name,
+                              fmt::format("land-cover class '{}' ({}, in catchment '{}') is not "
+                                          "in this {} table",
+                                          cls, from, label, kind),
+                              "a table that lists every class of the land-cover layer (a project "
+                              "may point to its own table)");
+        };
+        report::LandPart part;
+        part.land_class = cls;
+        part.soil_group = std::string(to_string(g));
+        part.area_m2 = sum.area_m2;
+        part.c = nan;
+        part.cn = nan;
+        part.impervious_share = nan;
+        if (im.tables.c) {
+            if (!im.tables.c->has_class(cls)) {
+                missing(im.tables.c->info(), "runoff coefficient");
+            }
+            const auto &row = im.tables.c->lookup(cls, g, slope_percent);
+            slope_used = slope_used || row.has_band();
+            part.c = row.c;
+        }
+        if (im.tables.cn) {
+            if (!im.tables.cn->has_class(cls)) {
+                missing(im.tables.cn->info(), "curve number");
+            }
+            part.cn = im.tables.cn->cn(cls, g);
+        }
+        if (im.tables.impervious) {
+            if (!im.tables.impervious->has_class(cls)) {
+                missing(im.tables.impervious->info(), "impervious share");
+            }
+            const auto &row = im.tables.impervious->lookup(cls);
+            part.impervious_share = row.share;
+        }
+        total_m2 += part.area_m2;
+        w.parts.push_back(std::move(part));
+    }
+
+    // Weighted sums.
+    const auto weighted = [&](auto member) {
+        double acc = 0.0;
+        for (const auto &p : w.parts) {
+            acc += p.area_m2 * (p.*member);
+        }
+        return acc / total_m2;
+    };
+    w.c_weighted = im.tables.c ? weighted(&report::LandPart::c) : nan;
+    w.cn_weighted = im.tables.cn ? weighted(&report::LandPart::cn) : nan;
+    w.impervious_share = im.tables.impervious ? weighted(&report::LandPart::impervious_share) : nan;
+    w.c_table = im.tables.c ? im.tables.c->info().name : "";
+    w.cn_table = im.tables.cn ? im.tables.cn->info().name : "";
+
+    // ---- calculation lines ----------------------------------------------------------------
+    const std::string au = area_unit(s.units);
+    const auto sheet_area = [&](double m2) { return area_in_sheet_units(m2, s.units); };
+    auto &lines = out.lines;
+    lines.note(fmt::format("Catchment '{}': area of the polygon", label), "A = area of the polygon",
+               "GEOS polygon area", sheet_area(out.area_m2), au);
+    lines.note("Layers overlaid",
+               fmt::format("land cover: {} (field '{}'); soils: {} (field '{}')", im.land.source,
+                           s.class_field, im.soils.source, s.soil_group_field),
+               "project input");
+    if (im.tables.c) {
+        lines.note("Runoff coefficient table", im.tables.c->info().name,
+                   im.tables.c->info().source);
+    }
+    if (im.tables.cn) {
+        lines.note("Curve number table", im.tables.cn->info().name, im.tables.cn->info().source);
+    }
+    if (im.tables.impervious) {
+        lines.note("Impervious share table", im.tables.impervious->info().name,
+                   im.tables.impervious->info().source);
+    }
+    if (!duals.empty()) {
+        lines.note("Dual hydrologic soil groups",
+                   fmt::format("{} (setting drained = {}: {})",
+                               fmt::format("{}", fmt::join(duals, ", ")), s.drained,
+                               s.drained ? "the drained group, the first letter" : "group D"),
+                   "project setting");
+    }
+    if (slope_used) {
+        lines.note("Slope for the C slope bands", "mean slope of the catchment", "terrain",
+                   *slope_percent, "%");
+    }
+    lines.append(warnings);
+    if (std::abs(total_m2 - out.area_m2) > 1e-6 * out.area_m2) {
+        lines.warn("Parts do not add up to the catchment",
+                   fmt::format("the parts add up to {} {}, the catchment is {} {}",
+                               sig(sheet_area(total_m2)), au, sig(sheet_area(out.area_m2)), au),
+                   "GEOS overlay");
+    }
+    const std::string overlay_source =
+        fmt::format("overlay of the catchment with {} and {}", im.land.source, im.soils.source);
+    for (std::size_t i = 0; i < w.parts.size(); ++i) {
+        const auto &p = w.parts[i];
+        std::vector<std::string> values;
+        if (im.tables.c) {
+            values.push_back(fmt::format("C = {}", sig(p.c)));
+        }
+        if (im.tables.cn) {
+            values.push_back(fmt::format("CN = {}", sig(p.cn)));
+        }
+        if (im.tables.impervious) {
+            values.push_back(fmt::format("impervious {} %", sig(100.0 * p.impervious_share)));
+        }
+        values.push_back(fmt::format("{} % of the catchment", sig(100.0 * p.area_m2 / total_m2)));
+        lines.calc(fmt::format("Part {}: {}, soil group {}", i + 1, p.land_class, p.soil_group),
+                   fmt::format("A{} = area of catchment, class {} and soil group {}", i + 1,
+                               p.land_class, p.soil_group),
+                   fmt::format("{}", fmt::join(values, ", ")), sheet_area(p.area_m2), au,
+                   overlay_source);
+    }
+    const auto weighted_line = [&](std::string label_text, std::string symbol, auto member,
+                                   double value, std::string unit, double scale,
+                                   std::string source) {
+        std::vector<std::string> terms;
+        for (const auto &p : w.parts) {
+            terms.push_back(
+                fmt::format("{} x {}", sig(sheet_area(p.area_m2)), sig(scale * (p.*member))));
+        }
+        lines.calc(std::move(label_text), fmt::format("{0} = sum(Ai {0}i) / sum(Ai)", symbol),
+                   fmt::format("{} = ({}) / {}", symbol, fmt::join(terms, " + "),
+                               sig(sheet_area(total_m2))),
+                   scale * value, std::move(unit), std::move(source));
+    };
+    if (im.tables.c) {
+        weighted_line("Runoff coefficient, area-weighted", "C", &report::LandPart::c, w.c_weighted,
+                      "", 1.0, fmt::format("area-weighted; C from {}", im.tables.c->info().name));
+    }
+    if (im.tables.cn) {
+        weighted_line(
+            "Curve number, composite (area-weighted)", "CN", &report::LandPart::cn, w.cn_weighted,
+            "", 1.0,
+            fmt::format("TR-55 (1986) ch. 2, composite CN; CN from {}", im.tables.cn->info().name));
+    }
+    if (im.tables.impervious) {
+        weighted_line(
+            "Impervious share, area-weighted", "I", &report::LandPart::impervious_share,
+            w.impervious_share, "%", 100.0,
+            fmt::format("area-weighted; shares from {}", im.tables.impervious->info().name));
+    }
+    return out;
+}
+
+} // namespace catchpeak::land
