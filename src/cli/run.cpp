@@ -2,6 +2,7 @@
 #include "catchpeak/cli/run.hpp"
 
 #include "catchpeak/app/delineate.hpp"
+#include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/version.hpp"
 
@@ -9,7 +10,9 @@
 #include <fmt/format.h>
 
 #include <exception>
+#include <filesystem>
 #include <functional>
+#include <optional>
 
 namespace catchpeak::cli {
 
@@ -43,8 +46,52 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
     app.add_flag("--version", show_version, "Print the version and the git commit, and exit");
     app.require_subcommand(0, 1);
 
-    // Subcommands are registered here as they are implemented; each one sets `action`.
+    // Subcommands; each one sets `action`. The logic lives in catchpeak::app.
     std::function<int()> action;
+
+    std::string init_dir;
+    auto *init = app.add_subcommand("init", "Write a commented project template as "
+                                            "DIR/project.toml (never overwrites)");
+    init->add_option("DIR", init_dir, "Folder of the new project")->required();
+    init->callback([&] {
+        action = [&] {
+            const auto file = app::init_project(init_dir);
+            out << fmt::format("wrote {}; edit it, then run 'catchpeak check {}'\n", file.string(),
+                               file.string());
+            return to_int(ExitCode::success);
+        };
+    });
+
+    std::string check_file;
+    auto *check = app.add_subcommand(
+        "check", "Validate a project file and its inputs without computing; lists every problem");
+    check->add_option("PROJECT", check_file, "The project file (.toml)")->required();
+    check->callback([&] {
+        action = [&] {
+            app::check_project_file(check_file, out);
+            return to_int(ExitCode::success);
+        };
+    });
+
+    std::string run_file;
+    std::string run_out;
+    bool run_quiet = false;
+    auto *runc = app.add_subcommand(
+        "run", "Compute every design point and return period of a project and write the results");
+    runc->add_option("PROJECT", run_file, "The project file (.toml)")->required();
+    runc->add_option("--out", run_out, "Output folder (default: [output] folder of the project)");
+    runc->add_flag("--quiet", run_quiet, "No progress and no summary table");
+    runc->callback([&] {
+        action = [&] {
+            app::RunOptions options;
+            if (!run_out.empty()) {
+                options.out_dir = std::filesystem::path(run_out);
+            }
+            options.quiet = run_quiet;
+            app::run_project(run_file, options, out, err);
+            return to_int(ExitCode::success);
+        };
+    });
 
     app::DelineateOptions delineate_options;
     bool delineate_quiet = false;

@@ -1,0 +1,49 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/app/project.hpp"
+
+#include <filesystem>
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+/// The catchment table of a project, the configuration folder, and the check of a whole project.
+namespace catchpeak::app {
+
+/// One catchment of a catchment table (a catchment drawn by hand, e.g. an urban inlet).
+struct TableCatchment {
+    std::string id;
+    std::size_t line = 0; ///< line in the table, for messages
+    double area_m2 = 0.0;
+    double longest_flow_path_m = 0.0;
+    double relief_m = 0.0; ///< elevation difference along the flow path
+    double slope = 0.0;    ///< m/m along the flow path
+    std::optional<double> c;
+    std::optional<double> cn;
+    std::optional<double> tc_min;
+    std::optional<double> x;
+    std::optional<double> y;
+};
+
+/// Reads a catchment table (CSV). Columns, with the unit in the name:
+/// - `id`;
+/// - the area: one of `area_m2`, `area_ha`, `area_km2`, `area_ac`, `area_ft2`, `area_mi2`;
+/// - the longest flow path: `length_m` or `length_ft`;
+/// - its relief (`relief_m`, `relief_ft`) or its slope (`slope_m_per_m`, `slope_percent`);
+/// - optional: `c`, `cn`, `tc_min`, `x`, `y`.
+/// Throws InputError naming the file, the line and the column.
+[[nodiscard]] std::vector<TableCatchment> read_catchment_table(const std::filesystem::path &path);
+
+/// The folder of the method tables (config/): $CATCHPEAK_CONFIG_DIR when set, else the
+/// config/ folder of the source tree the program was built from.
+[[nodiscard]] std::filesystem::path config_dir();
+
+/// Checks everything that can be checked without computing: every file exists and is read,
+/// the tables parse, every return period is in the IDF, every catchment has C for the Rational
+/// Method and CN for the SCS methods, overrides name existing design points. Adds every
+/// problem found to `problems`.
+void check_project(const Project &project, Problems &problems);
+
+} // namespace catchpeak::app

@@ -1,0 +1,127 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/report/results.hpp"
+
+#include <filesystem>
+#include <map>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+/// The project file (TOML): what a run computes, from which inputs, with which methods and
+/// settings. config/project-template.toml documents every key.
+namespace catchpeak::app {
+
+/// One input file: the path as written in the project file, and resolved against the project
+/// file's folder.
+struct InputPath {
+    std::string given;              ///< as written, for messages and the run record
+    std::filesystem::path resolved; ///< relative paths are relative to the project file
+    std::size_t line = 0;           ///< line of the key in the project file, for messages
+};
+
+/// [inputs]: either a DEM with design points, or a catchment table.
+struct Inputs {
+    std::optional<InputPath> dem;
+    std::optional<InputPath> design_points;
+    std::string design_points_layer; ///< empty: the first layer
+    std::string id_field = "id";
+    std::optional<InputPath> catchment_table;
+    std::optional<InputPath> land_cover;
+    std::string class_field = "class";
+    std::optional<InputPath> soils;
+    std::string soil_group_field = "hsg";
+    std::optional<InputPath> breach_lines;
+    std::optional<InputPath> c_table;  ///< empty: the table shipped in config/
+    std::optional<InputPath> cn_table; ///< empty: the table shipped in config/
+};
+
+/// [rainfall]
+struct Rainfall {
+    std::optional<InputPath> idf;
+    std::vector<double> return_periods_yr;
+    std::string storm_type; ///< "I", "IA", "II", "III"; empty when no SCS method is used
+    /// 24-hour design depth per return period, mm (given in mm or in inches in the file).
+    std::map<double, double> depth_24h_mm;
+    std::optional<InputPath> annual_maximum_series;
+};
+
+/// Per design point choices in [[methods.point]].
+struct PointOverride {
+    std::string id;
+    std::size_t line = 0;
+    std::optional<std::string> tc_method;
+    std::optional<std::vector<std::string>> peak_methods;
+    std::optional<double> tc_min; ///< a tc given by the engineer instead of computed
+};
+
+/// [methods]
+struct Methods {
+    std::string tc_method = "kirpich";
+    std::vector<std::string> peak_methods{"rational"};
+    std::vector<PointOverride> points;
+};
+
+/// [settings]. SI, unit in every name.
+struct Settings {
+    double snap_radius_m = 10.0;
+    double minimum_tc_min = 5.0;
+    double rational_area_limit_ha = 80.0;   ///< common practice, no source (REFERENCES.md 4)
+    double sheet_flow_max_length_m = 30.48; ///< 100 ft, NEH 630 ch. 15 (REFERENCES.md 9)
+    double initial_abstraction_ratio = 0.2; ///< Ia/S: 0.2 (TR-55) or 0.05 (Hawkins 2002)
+    std::string dual_soil_group = "undrained";
+    std::string uncovered_land = "refuse"; ///< "refuse" or the name of a land-cover class
+};
+
+struct Project {
+    std::filesystem::path file; ///< the project file
+    std::filesystem::path dir;  ///< its folder; relative paths are relative to it
+    report::ProjectInfo info;
+    Inputs inputs;
+    Rainfall rainfall;
+    Methods methods;
+    Settings settings;
+    std::filesystem::path output_dir; ///< resolved against the project file's folder
+
+    [[nodiscard]] bool uses_table() const noexcept { return inputs.catchment_table.has_value(); }
+    [[nodiscard]] bool uses_method(std::string_view method) const;
+};
+
+/// The tc and peak methods a project may name.
+[[nodiscard]] const std::vector<std::string> &known_tc_methods();
+[[nodiscard]] const std::vector<std::string> &known_peak_methods();
+
+/// A list of problems found in the inputs, each "<file>:<line>: <what>; accepted: <...>".
+/// Commands collect every problem first and report them all at once.
+class Problems {
+  public:
+    void add(std::string message) { list_.push_back(std::move(message)); }
+    [[nodiscard]] bool empty() const noexcept { return list_.empty(); }
+    [[nodiscard]] std::size_t size() const noexcept { return list_.size(); }
+    [[nodiscard]] const std::vector<std::string> &list() const noexcept { return list_; }
+    /// Throws InputError listing every problem (one per line) when there is any.
+    void throw_if_any() const;
+
+  private:
+    std::vector<std::string> list_;
+};
+
+/// Parses project file text. `file` names it in messages and gives the folder relative paths
+/// are resolved against. Problems (syntax, unknown keys, wrong types, missing or out-of-range
+/// values) are added to `problems`; the returned project holds what could be read.
+[[nodiscard]] Project parse_project(std::string_view text, const std::filesystem::path &file,
+                                    Problems &problems);
+
+/// Reads and parses a project file; throws InputError listing every problem.
+[[nodiscard]] Project load_project(const std::filesystem::path &file);
+
+/// The Levenshtein distance between two strings (for "did you mean" suggestions).
+[[nodiscard]] std::size_t edit_distance(std::string_view a, std::string_view b);
+
+/// The closest of `candidates` to `word` when it is close enough to be a likely typo, else "".
+[[nodiscard]] std::string closest_match(std::string_view word,
+                                        const std::vector<std::string> &candidates);
+
+} // namespace catchpeak::app

@@ -1,0 +1,280 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/inputs.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/core/units.hpp"
+#include "catchpeak/io/csv.hpp"
+#include "catchpeak/io/idf_csv.hpp"
+#include "catchpeak/rain/idf.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <cstdlib>
+#include <fstream>
+#include <set>
+#include <utility>
+
+namespace catchpeak::app {
+
+namespace fs = std::filesystem;
+
+namespace {
+
+/// The one column of `t` among `names` (with its index), or nullopt; two present is an error.
+std::optional<std::pair<std::string, std::size_t>>
+one_of(const io::CsvTable &t, const std::vector<std::string> &names, const std::string &what) {
+    std::optional<std::pair<std::string, std::size_t>> found;
+    for (const auto &n : names) {
+        if (auto c = t.find_column(n)) {
+            if (found) {
+                throw_input_error(t.source,
+                                  fmt::format("{} is given twice, in columns '{}' and '{}'", what,
+                                              found->first, n),
+                                  "one of the columns " +
+                                      fmt::format("{}", fmt::join(names, ", ")));
+            }
+            found = std::make_pair(n, *c);
+        }
+    }
+    return found;
+}
+
+std::pair<std::string, std::size_t> required_one_of(const io::CsvTable &t,
+                                                    const std::vector<std::string> &names,
+                                                    const std::string &what) {
+    auto c = one_of(t, names, what);
+    if (!c) {
+        throw_input_error(
+            t.source,
+            fmt::format("no column for {}; columns present: {}", what, fmt::join(t.header, ", ")),
+            "one of the columns " + fmt::format("{}", fmt::join(names, ", ")));
+    }
+    return *c;
+}
+
+double positive(const io::CsvTable &t, const io::CsvTable::Row &row, std::size_t col) {
+    const double v = t.number(row, col);
+    if (!(v > 0.0) || !std::isfinite(v)) {
+        throw_input_error(t.where(row, col), fmt::format("{} is not positive", v), "a number > 0");
+    }
+    return v;
+}
+
+} // namespace
+
+std::filesystem::path config_dir() {
+    const char *env = std::getenv("CATCHPEAK_CONFIG_DIR");
+    if (env != nullptr && *env != '\0') {
+        return env;
+    }
+    return CATCHPEAK_BUILT_CONFIG_DIR;
+}
+
+std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
+    const io::CsvTable t = io::read_csv(path);
+    const std::size_t id_col = t.column("id");
+    const auto area = required_one_of(
+        t, {"area_m2", "area_ha", "area_km2", "area_ac", "area_ft2", "area_mi2"}, "the area");
+    const auto length = required_one_of(t, {"length_m", "length_ft"}, "the longest flow path");
+    const auto fall = required_one_of(
+        t, {"relief_m", "relief_ft", "slope_m_per_m", "slope_percent"}, "the relief or slope");
+    const auto c_col = t.find_column("c");
+    const auto cn_col = t.find_column("cn");
+    const auto tc_col = t.find_column("tc_min");
+    const auto x_col = t.find_column("x");
+    const auto y_col = t.find_column("y");
+    if (t.rows.empty()) {
+        throw_input_error(t.source, "the table has no catchments", "one row per catchment");
+    }
+    std::vector<TableCatchment> out;
+    std::set<std::string> ids;
+    for (const auto &row : t.rows) {
+        TableCatchment c;
+        c.line = row.line;
+        c.id = t.text(row, id_col);
+        if (c.id.empty()) {
+            throw_input_error(t.where(row, id_col), "the id is empty", "a design point id");
+        }
+        if (!ids.insert(c.id).second) {
+            throw_input_error(t.where(row, id_col), fmt::format("id '{}' is used twice", c.id),
+                              "a different id on every row");
+        }
+        const double a = positive(t, row, area.second);
+        const std::string &an = area.first;
+        c.area_m2 = an == "area_m2"    ? a
+                    : an == "area_ha"  ? units::ha_to_m2(a)
+                    : an == "area_km2" ? units::km2_to_m2(a)
+                    : an == "area_ac"  ? units::acre_to_m2(a)
+                    : an == "area_ft2" ? units::ft2_to_m2(a)
+                                       : units::mi2_to_m2(a);
+        const double l = positive(t, row, length.second);
+        c.longest_flow_path_m = length.first == "length_m" ? l : units::ft_to_m(l);
+        const double f = positive(t, row, fall.second);
+        if (fall.first == "relief_m" || fall.first == "relief_ft") {
+            c.relief_m = fall.first == "relief_m" ? f : units::ft_to_m(f);
+            c.slope = c.relief_m / c.longest_flow_path_m;
+        } else {
+            c.slope = fall.first == "slope_m_per_m" ? f : f / 100.0;
+            c.relief_m = c.slope * c.longest_flow_path_m;
+        }
+        if (c.slope > 1.0) {
+            throw_input_error(t.where(row, fall.second),
+                              fmt::format("slope {} m/m is steeper than 1:1", c.slope),
+                              "a slope between 0 and 1 m/m");
+        }
+        if (c_col && !t.text(row, *c_col).empty()) {
+            c.c = t.number(row, *c_col);
+            if (!(*c.c > 0.0 && *c.c <= 1.0)) {
+                throw_input_error(t.where(row, *c_col), fmt::format("C = {} is out of range", *c.c),
+                                  "a runoff coefficient in (0, 1]");
+            }
+        }
+        if (cn_col && !t.text(row, *cn_col).empty()) {
+            c.cn = t.number(row, *cn_col);
+            if (!(*c.cn > 30.0 && *c.cn <= 100.0)) {
+                throw_input_error(t.where(row, *cn_col),
+                                  fmt::format("CN = {} is out of range", *c.cn),
+                                  "a curve number in (30, 100]");
+            }
+        }
+        if (tc_col && !t.text(row, *tc_col).empty()) {
+            c.tc_min = positive(t, row, *tc_col);
+        }
+        if (x_col && y_col && !t.text(row, *x_col).empty()) {
+            c.x = t.number(row, *x_col);
+            c.y = t.number(row, *y_col);
+        }
+        out.push_back(std::move(c));
+    }
+    return out;
+}
+
+namespace {
+
+void check_file(const std::optional<InputPath> &p, const std::string &project_file,
+                const std::string &key, Problems &problems) {
+    if (!p) {
+        return;
+    }
+    const std::string where = fmt::format("{}:{}: {}", project_file, p->line, key);
+    std::error_code ec;
+    if (!fs::exists(p->resolved, ec)) {
+        problems.add(input_message(
+            where,
+            fmt::format("file '{}' does not exist (looked for {})", p->given, p->resolved.string()),
+            "a path relative to the project file's folder"));
+        return;
+    }
+    if (fs::is_directory(p->resolved, ec) && p->resolved.extension() != ".gdb") {
+        problems.add(
+            input_message(where, fmt::format("'{}' is a folder, not a file", p->given), "a file"));
+        return;
+    }
+    std::ifstream in(p->resolved, std::ios::binary);
+    if (!in) {
+        problems.add(
+            input_message(where, fmt::format("file '{}' cannot be opened for reading", p->given)));
+    }
+}
+
+template <typename F> void collect(Problems &problems, F &&f) {
+    try {
+        f();
+    } catch (const InputError &e) {
+        problems.add(e.what());
+    }
+}
+
+} // namespace
+
+void check_project(const Project &p, Problems &problems) {
+    const std::string pf = p.file.string();
+    const std::size_t before = problems.size();
+    check_file(p.inputs.dem, pf, "[inputs] dem", problems);
+    check_file(p.inputs.design_points, pf, "[inputs] design_points", problems);
+    check_file(p.inputs.catchment_table, pf, "[inputs] catchment_table", problems);
+    check_file(p.inputs.land_cover, pf, "[inputs] land_cover", problems);
+    check_file(p.inputs.soils, pf, "[inputs] soils", problems);
+    check_file(p.inputs.breach_lines, pf, "[inputs] breach_lines", problems);
+    check_file(p.inputs.c_table, pf, "[inputs] c_table", problems);
+    check_file(p.inputs.cn_table, pf, "[inputs] cn_table", problems);
+    check_file(p.rainfall.idf, pf, "[rainfall] idf", problems);
+    check_file(p.rainfall.annual_maximum_series, pf, "[rainfall] annual_maximum_series", problems);
+    if (problems.size() != before) {
+        return; // the tables below cannot be read
+    }
+
+    if (p.rainfall.idf) {
+        collect(problems, [&] {
+            const rain::Idf idf = io::read_idf_csv(p.rainfall.idf->resolved);
+            const auto have = idf.return_periods_yr();
+            for (double rp : p.rainfall.return_periods_yr) {
+                if (std::find(have.begin(), have.end(), rp) == have.end()) {
+                    problems.add(input_message(
+                        fmt::format("{}: [rainfall] return_periods_yr", pf),
+                        fmt::format("the {}-year return period is not in the IDF '{}'", rp,
+                                    p.rainfall.idf->given),
+                        fmt::format("return periods of the IDF: {}", fmt::join(have, ", "))));
+                }
+            }
+        });
+    }
+    if (p.uses_method("rational")) {
+        const auto cf = config_dir() / "rational_frequency_factors.csv";
+        if (!fs::exists(cf)) {
+            problems.add(input_message(cf.string(), "the frequency factor table is missing",
+                                       "config/rational_frequency_factors.csv, or "
+                                       "CATCHPEAK_CONFIG_DIR naming a folder that has it"));
+        }
+    }
+
+    std::set<std::string> ids;
+    if (p.inputs.catchment_table) {
+        collect(problems, [&] {
+            const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
+            const bool land_layers = p.inputs.land_cover.has_value();
+            for (const auto &c : rows) {
+                ids.insert(c.id);
+                const std::string where =
+                    fmt::format("{}:{}", p.inputs.catchment_table->resolved.string(), c.line);
+                const PointOverride *o = nullptr;
+                for (const auto &po : p.methods.points) {
+                    if (po.id == c.id) {
+                        o = &po;
+                    }
+                }
+                const auto &peaks =
+                    (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
+                const bool rational =
+                    std::find(peaks.begin(), peaks.end(), "rational") != peaks.end();
+                const bool scs = std::any_of(peaks.begin(), peaks.end(),
+                                             [](const auto &m) { return m != "rational"; });
+                if (rational && !c.c && !land_layers) {
+                    problems.add(input_message(
+                        where, fmt::format("catchment '{}' has no runoff coefficient", c.id),
+                        "a value in column 'c', or a land-cover layer in [inputs]"));
+                }
+                if (scs && !c.cn && !land_layers) {
+                    problems.add(input_message(
+                        where, fmt::format("catchment '{}' has no curve number", c.id),
+                        "a value in column 'cn', or land-cover and soils layers in [inputs]"));
+                }
+            }
+        });
+        for (const auto &po : p.methods.points) {
+            if (!ids.empty() && ids.count(po.id) == 0 && !po.id.empty()) {
+                std::vector<std::string> all(ids.begin(), ids.end());
+                const std::string hint = closest_match(po.id, all);
+                problems.add(input_message(
+                    fmt::format("{}:{}: [[methods.point]] id", pf, po.line),
+                    fmt::format("design point '{}' is not in the catchment table{}", po.id,
+                                hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                    "an id of the catchment table"));
+            }
+        }
+    }
+}
+
+} // namespace catchpeak::app

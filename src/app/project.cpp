@@ -1,0 +1,635 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/project.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/io/csv.hpp"
+
+#include <fmt/format.h>
+#include <toml++/toml.h>
+
+#include <algorithm>
+#include <cmath>
+#include <set>
+#include <utility>
+
+namespace catchpeak::app {
+
+namespace fs = std::filesystem;
+
+const std::vector<std::string> &known_tc_methods() {
+    static const std::vector<std::string> m = {"kirpich", "nrcs_lag", "tr55_segmental",
+                                               "kerby_kirpich", "given"};
+    return m;
+}
+
+const std::vector<std::string> &known_peak_methods() {
+    static const std::vector<std::string> m = {"rational", "tr55_graphical", "scs_unit_hydrograph"};
+    return m;
+}
+
+bool Project::uses_method(std::string_view method) const {
+    if (std::find(methods.peak_methods.begin(), methods.peak_methods.end(), method) !=
+        methods.peak_methods.end()) {
+        return true;
+    }
+    return std::any_of(methods.points.begin(), methods.points.end(), [&](const auto &p) {
+        return p.peak_methods && std::find(p.peak_methods->begin(), p.peak_methods->end(),
+                                           method) != p.peak_methods->end();
+    });
+}
+
+void Problems::throw_if_any() const {
+    if (list_.empty()) {
+        return;
+    }
+    std::string text =
+        list_.size() == 1 ? std::string{} : fmt::format("{} problems found:\n", list_.size());
+    for (std::size_t i = 0; i < list_.size(); ++i) {
+        text += (i == 0 ? "" : "\n") + list_[i];
+    }
+    throw InputError(text);
+}
+
+std::size_t edit_distance(std::string_view a, std::string_view b) {
+    std::vector<std::size_t> prev(b.size() + 1);
+    std::vector<std::size_t> cur(b.size() + 1);
+    for (std::size_t j = 0; j <= b.size(); ++j) {
+        prev[j] = j;
+    }
+    for (std::size_t i = 1; i <= a.size(); ++i) {
+        cur[0] = i;
+        for (std::size_t j = 1; j <= b.size(); ++j) {
+            const std::size_t subst = prev[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1);
+            cur[j] = std::min({prev[j] + 1, cur[j - 1] + 1, subst});
+        }
+        std::swap(prev, cur);
+    }
+    return prev[b.size()];
+}
+
+std::string closest_match(std::string_view word, const std::vector<std::string> &candidates) {
+    std::string best;
+    std::size_t best_d = static_cast<std::size_t>(-1);
+    for (const auto &c : candidates) {
+        const std::size_t d = edit_distance(word, c);
+        if (d < best_d) {
+            best_d = d;
+            best = c;
+        }
+    }
+    // Close enough to be a typo: at most a third of the word's letters, and at least one.
+    const std::size_t limit = std::max<std::size_t>(1, std::max(word.size(), best.size()) / 3);
+    if (best_d <= limit) {
+        return best;
+    }
+    // Or one starts with the other ("tc_minutes" for "tc_min").
+    for (const auto &c : candidates) {
+        const std::size_t n = std::min(word.size(), c.size());
+        if (n >= 4 && word.substr(0, n) == std::string_view(c).substr(0, n)) {
+            return c;
+        }
+    }
+    return {};
+}
+
+namespace {
+
+std::string join(const std::vector<std::string> &items, std::string_view sep = ", ") {
+    std::string s;
+    for (const auto &i : items) {
+        s += (s.empty() ? "" : std::string(sep)) + i;
+    }
+    return s;
+}
+
+std::string quoted_list(const std::vector<std::string> &items) {
+    std::vector<std::string> q;
+    q.reserve(items.size());
+    for (const auto &i : items) {
+        q.push_back("\"" + i + "\"");
+    }
+    return join(q);
+}
+
+/// Reads one TOML table, remembers which keys were read, and reports the rest as unknown.
+class TableReader {
+  public:
+    TableReader(const toml::table &table, std::string name, std::string file, Problems &problems)
+        : table_(table), name_(std::move(name)), file_(std::move(file)), problems_(problems) {}
+
+    [[nodiscard]] std::string where(const toml::node &node) const {
+        return fmt::format("{}:{}", file_, node.source().begin.line);
+    }
+    [[nodiscard]] std::string where_table() const {
+        return fmt::format("{}:{}", file_, table_.source().begin.line);
+    }
+    [[nodiscard]] std::string key_name(std::string_view key) const {
+        return fmt::format("[{}] {}", name_, key);
+    }
+    void problem(const toml::node &node, std::string_view key, const std::string &what,
+                 const std::string &accepted = {}) {
+        problems_.add(input_message(where(node) + ": " + key_name(key), what, accepted));
+    }
+    void missing(std::string_view key, const std::string &accepted) {
+        problems_.add(input_message(where_table() + ": [" + name_ + "]",
+                                    fmt::format("required key '{}' is missing", key), accepted));
+    }
+
+    const toml::node *get(std::string_view key) {
+        known_.emplace_back(key);
+        return table_.get(key);
+    }
+    [[nodiscard]] std::size_t line_of(std::string_view key) const {
+        const toml::node *n = table_.get(key);
+        return n == nullptr ? 0 : static_cast<std::size_t>(n->source().begin.line);
+    }
+
+    std::optional<std::string> text(std::string_view key, bool required = false,
+                                    const std::string &accepted = "a text in quotes") {
+        const toml::node *n = get(key);
+        if (n == nullptr) {
+            if (required) {
+                missing(key, accepted);
+            }
+            return std::nullopt;
+        }
+        if (!n->is_string()) {
+            problem(*n, key, fmt::format("expected a text, found a {}", type_name(*n)), accepted);
+            return std::nullopt;
+        }
+        return n->value<std::string>();
+    }
+
+    std::optional<std::string> choice(std::string_view key, const std::vector<std::string> &allowed,
+                                      bool required = false) {
+        auto v = text(key, required, "one of " + quoted_list(allowed));
+        if (!v) {
+            return v;
+        }
+        if (std::find(allowed.begin(), allowed.end(), *v) == allowed.end()) {
+            const std::string hint = closest_match(*v, allowed);
+            problem(*get(key), key,
+                    fmt::format("'{}' is not known{}", *v,
+                                hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                    "one of " + quoted_list(allowed));
+            return std::nullopt;
+        }
+        return v;
+    }
+
+    std::optional<double> number(std::string_view key, double min, double max,
+                                 bool min_inclusive = true) {
+        const toml::node *n = get(key);
+        if (n == nullptr) {
+            return std::nullopt;
+        }
+        return number_of(*n, key, min, max, min_inclusive);
+    }
+
+    std::optional<double> number_of(const toml::node &n, std::string_view key, double min,
+                                    double max, bool min_inclusive = true) {
+        const std::string accepted =
+            fmt::format("a number {} {} and <= {}", min_inclusive ? ">=" : ">", min, max);
+        if (!n.is_number()) {
+            problem(n, key, fmt::format("expected a number, found a {}", type_name(n)), accepted);
+            return std::nullopt;
+        }
+        const double v = *n.value<double>();
+        if (!std::isfinite(v) || v < min || (!min_inclusive && v == min) || v > max) {
+            problem(n, key, fmt::format("{} is out of range", v), accepted);
+            return std::nullopt;
+        }
+        return v;
+    }
+
+    std::optional<InputPath> path(std::string_view key, const fs::path &dir,
+                                  bool required = false) {
+        auto v = text(key, required, "a file name in quotes, relative to the project file");
+        if (!v) {
+            return std::nullopt;
+        }
+        if (v->empty()) {
+            problem(*get(key), key, "the file name is empty",
+                    "a file name in quotes, relative to the project file");
+            return std::nullopt;
+        }
+        InputPath p;
+        p.given = *v;
+        p.resolved = fs::path(*v).is_absolute() ? fs::path(*v) : dir / *v;
+        p.line = line_of(key);
+        return p;
+    }
+
+    /// Reports every key that was not asked for, with a suggestion.
+    void finish() {
+        for (auto &&[k, v] : table_) {
+            const std::string key(k.str());
+            if (std::find(known_.begin(), known_.end(), key) != known_.end()) {
+                continue;
+            }
+            const std::string hint = closest_match(key, known_);
+            problems_.add(input_message(
+                fmt::format("{}:{}: [{}]", file_, k.source().begin.line, name_),
+                fmt::format("unknown key '{}'{}", key,
+                            hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                "keys " + join(known_)));
+        }
+    }
+
+    static std::string type_name(const toml::node &n) {
+        switch (n.type()) {
+        case toml::node_type::table:
+            return "table";
+        case toml::node_type::array:
+            return "list";
+        case toml::node_type::string:
+            return "text";
+        case toml::node_type::integer:
+            return "whole number";
+        case toml::node_type::floating_point:
+            return "number";
+        case toml::node_type::boolean:
+            return "true/false value";
+        default:
+            return "date or time";
+        }
+    }
+
+    [[nodiscard]] const std::string &file() const noexcept { return file_; }
+    [[nodiscard]] Problems &problems() noexcept { return problems_; }
+
+  private:
+    const toml::table &table_;
+    std::string name_;
+    std::string file_;
+    Problems &problems_;
+    std::vector<std::string> known_;
+};
+
+/// The sub-table `key` of `root`, or nullptr (with a problem when it is not a table).
+const toml::table *sub_table(TableReader &root, std::string_view key) {
+    const toml::node *n = root.get(key);
+    if (n == nullptr) {
+        return nullptr;
+    }
+    if (!n->is_table()) {
+        root.problem(
+            *n, key,
+            fmt::format("expected a table [{}], found a {}", key, TableReader::type_name(*n)),
+            fmt::format("a table written [{}]", key));
+        return nullptr;
+    }
+    return n->as_table();
+}
+
+std::vector<std::string> method_list(TableReader &t, std::string_view key,
+                                     const std::vector<std::string> &allowed, bool &found) {
+    std::vector<std::string> out;
+    found = false;
+    const toml::node *n = t.get(key);
+    if (n == nullptr) {
+        return out;
+    }
+    found = true;
+    const std::string accepted = "a list of " + quoted_list(allowed);
+    const toml::array *arr = n->as_array();
+    if (arr == nullptr) {
+        t.problem(*n, key, fmt::format("expected a list, found a {}", TableReader::type_name(*n)),
+                  accepted);
+        return out;
+    }
+    if (arr->empty()) {
+        t.problem(*n, key, "the list is empty", accepted);
+    }
+    for (const auto &e : *arr) {
+        if (!e.is_string()) {
+            t.problem(e, key, fmt::format("expected a text, found a {}", TableReader::type_name(e)),
+                      accepted);
+            continue;
+        }
+        const std::string v = *e.value<std::string>();
+        if (std::find(allowed.begin(), allowed.end(), v) == allowed.end()) {
+            const std::string hint = closest_match(v, allowed);
+            t.problem(e, key,
+                      fmt::format("'{}' is not known{}", v,
+                                  hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                      accepted);
+            continue;
+        }
+        out.push_back(v);
+    }
+    return out;
+}
+
+void read_project_info(TableReader &t, report::ProjectInfo &info) {
+    if (auto v = t.text("name", true)) {
+        info.name = *v;
+        if (v->empty()) {
+            t.problem(*t.get("name"), "name", "the project name is empty", "a name in quotes");
+        }
+    }
+    info.number = t.text("number").value_or("");
+    info.client = t.text("client").value_or("");
+    info.location = t.text("location").value_or("");
+    info.prepared_by = t.text("prepared_by").value_or("");
+    info.checked_by = t.text("checked_by").value_or("");
+    info.revision = t.text("revision").value_or("0");
+    if (auto u = t.choice("units", {"SI", "US"})) {
+        info.units = units::parse_system(*u, t.file());
+    }
+    info.page_size = t.choice("page_size", {"letter", "a4"})
+                         .value_or(info.units == units::System::si ? "a4" : "letter");
+    t.finish();
+}
+
+void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
+    in.dem = t.path("dem", dir);
+    in.design_points = t.path("design_points", dir);
+    in.design_points_layer = t.text("design_points_layer").value_or("");
+    in.id_field = t.text("id_field").value_or("id");
+    in.catchment_table = t.path("catchment_table", dir);
+    in.land_cover = t.path("land_cover", dir);
+    in.class_field = t.text("class_field").value_or("class");
+    in.soils = t.path("soils", dir);
+    in.soil_group_field = t.text("soil_group_field").value_or("hsg");
+    in.breach_lines = t.path("breach_lines", dir);
+    in.c_table = t.path("c_table", dir);
+    in.cn_table = t.path("cn_table", dir);
+    t.finish();
+
+    // A key that is present but wrong has been reported already: count it as present here.
+    const bool has_dem = t.line_of("dem") != 0;
+    const bool has_points = t.line_of("design_points") != 0;
+    const bool has_table = t.line_of("catchment_table") != 0;
+    const bool terrain = has_dem || has_points;
+    if (terrain && has_table) {
+        t.problems().add(
+            input_message(t.where_table() + ": [inputs]",
+                          "both a DEM with design points and a catchment table are given",
+                          "either 'dem' and 'design_points', or 'catchment_table'"));
+    } else if (!terrain && !has_table) {
+        t.missing("dem", "either 'dem' and 'design_points', or 'catchment_table'");
+    } else if (terrain && !has_dem) {
+        t.missing("dem", "a DEM file (GeoTIFF or any raster GDAL reads) with 'design_points'");
+    } else if (terrain && !has_points) {
+        t.missing("design_points", "a point layer (GeoPackage, shapefile, ...) with 'dem'");
+    }
+    if (t.line_of("soils") != 0 && t.line_of("land_cover") == 0) {
+        t.missing("land_cover", "a land-cover layer when 'soils' is given");
+    }
+}
+
+void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
+    r.idf = t.path("idf", dir);
+    r.annual_maximum_series = t.path("annual_maximum_series", dir);
+    if (const toml::node *n = t.get("return_periods_yr")) {
+        const std::string accepted = "a list of return periods in years, each > 1, e.g. [2, 10]";
+        if (const toml::array *arr = n->as_array(); arr != nullptr && !arr->empty()) {
+            for (const auto &e : *arr) {
+                if (auto v = t.number_of(e, "return_periods_yr", 1.0, 10000.0, false)) {
+                    if (std::find(r.return_periods_yr.begin(), r.return_periods_yr.end(), *v) !=
+                        r.return_periods_yr.end()) {
+                        t.problem(e, "return_periods_yr", fmt::format("{} is listed twice", *v),
+                                  accepted);
+                    } else {
+                        r.return_periods_yr.push_back(*v);
+                    }
+                }
+            }
+        } else {
+            t.problem(*n, "return_periods_yr",
+                      arr == nullptr
+                          ? fmt::format("expected a list, found a {}", TableReader::type_name(*n))
+                          : std::string("the list is empty"),
+                      accepted);
+        }
+    } else {
+        t.missing("return_periods_yr", "a list of return periods in years, e.g. [2, 10, 100]");
+    }
+    if (auto s = t.choice("storm_type", {"I", "IA", "II", "III"})) {
+        r.storm_type = *s;
+    }
+    for (const auto &[key, factor] :
+         {std::pair<std::string, double>{"depths_24h_mm", 1.0}, {"depths_24h_in", 25.4}}) {
+        const toml::node *n = t.get(key);
+        if (n == nullptr) {
+            continue;
+        }
+        const std::string accepted =
+            "a table of return period (years, in quotes) = depth, e.g. { \"10\" = 95.0 }";
+        if (!r.depth_24h_mm.empty()) {
+            t.problem(*n, key, "24-hour depths are given twice",
+                      "either 'depths_24h_mm' or 'depths_24h_in'");
+            continue;
+        }
+        const toml::table *tab = n->as_table();
+        if (tab == nullptr) {
+            t.problem(*n, key,
+                      fmt::format("expected a table, found a {}", TableReader::type_name(*n)),
+                      accepted);
+            continue;
+        }
+        for (auto &&[k, v] : *tab) {
+            double rp = 0.0;
+            try {
+                rp = io::parse_number(k.str(), "return period");
+            } catch (const InputError &) {
+                t.problem(v, key, fmt::format("'{}' is not a return period", k.str()), accepted);
+                continue;
+            }
+            if (auto d = t.number_of(v, key, 0.0, factor == 1.0 ? 2000.0 : 80.0, false)) {
+                r.depth_24h_mm[rp] = *d * factor;
+            }
+        }
+    }
+    t.finish();
+    if (!r.idf && r.depth_24h_mm.empty() && !r.annual_maximum_series) {
+        t.missing("idf", "an IDF table ('idf'), 24-hour depths ('depths_24h_mm' or "
+                         "'depths_24h_in') or an annual maximum series");
+    }
+}
+
+void read_methods(TableReader &t, const Project &p, Methods &m, Problems &problems) {
+    if (auto v = t.choice("tc", known_tc_methods())) {
+        m.tc_method = *v;
+    }
+    bool found = false;
+    auto peaks = method_list(t, "peak", known_peak_methods(), found);
+    if (found) {
+        m.peak_methods = peaks;
+    }
+    if (const toml::node *n = t.get("point")) {
+        const toml::array *arr = n->as_array();
+        if (arr == nullptr || !arr->is_array_of_tables()) {
+            t.problem(*n, "point", "expected one or more [[methods.point]] tables",
+                      "[[methods.point]] tables with 'id' and the choices for that point");
+        } else {
+            std::set<std::string> seen;
+            for (const auto &e : *arr) {
+                TableReader pt(*e.as_table(), "methods.point", t.file(), problems);
+                PointOverride o;
+                o.line = static_cast<std::size_t>(e.source().begin.line);
+                o.id = pt.text("id", true, "the id of a design point").value_or("");
+                if (!o.id.empty() && !seen.insert(o.id).second) {
+                    pt.problem(
+                        *pt.get("id"), "id",
+                        fmt::format("design point '{}' has two [[methods.point]] tables", o.id),
+                        "one table per design point");
+                }
+                o.tc_method = pt.choice("tc", known_tc_methods());
+                bool f = false;
+                auto pk = method_list(pt, "peak", known_peak_methods(), f);
+                if (f) {
+                    o.peak_methods = pk;
+                }
+                o.tc_min = pt.number("tc_min", 0.0, 10000.0, false);
+                if (o.tc_method == std::string("given") && !o.tc_min) {
+                    pt.missing("tc_min", "a time of concentration in minutes with tc = \"given\"");
+                }
+                pt.finish();
+                m.points.push_back(std::move(o));
+            }
+        }
+    }
+    t.finish();
+    if (m.tc_method == "given") {
+        t.problems().add(
+            input_message(t.where_table() + ": [methods] tc",
+                          "\"given\" needs a tc per design point and cannot be the project default",
+                          "use it in [[methods.point]] with 'tc_min'"));
+    }
+    (void)p;
+}
+
+void read_settings(TableReader &t, Settings &s) {
+    s.snap_radius_m = t.number("snap_radius_m", 0.0, 10000.0).value_or(s.snap_radius_m);
+    s.minimum_tc_min = t.number("minimum_tc_min", 0.0, 60.0).value_or(s.minimum_tc_min);
+    s.rational_area_limit_ha =
+        t.number("rational_area_limit_ha", 0.0, 1.0e6, false).value_or(s.rational_area_limit_ha);
+    s.sheet_flow_max_length_m =
+        t.number("sheet_flow_max_length_m", 0.0, 1000.0, false).value_or(s.sheet_flow_max_length_m);
+    if (auto r = t.number("initial_abstraction_ratio", 0.0, 1.0, false)) {
+        if (*r != 0.2 && *r != 0.05) {
+            t.problem(*t.get("initial_abstraction_ratio"), "initial_abstraction_ratio",
+                      fmt::format("{} is not supported", *r),
+                      "0.2 (TR-55) or 0.05 (Hawkins et al. 2002)");
+        } else {
+            s.initial_abstraction_ratio = *r;
+        }
+    }
+    s.dual_soil_group =
+        t.choice("dual_soil_group", {"drained", "undrained"}).value_or(s.dual_soil_group);
+    s.uncovered_land = t.text("uncovered_land").value_or(s.uncovered_land);
+    t.finish();
+}
+
+} // namespace
+
+Project parse_project(std::string_view text, const fs::path &file, Problems &problems) {
+    Project p;
+    p.file = file;
+    p.dir = file.parent_path();
+    const std::string name = file.string();
+    toml::table root;
+    try {
+        root = toml::parse(text, name);
+    } catch (const toml::parse_error &e) {
+        problems.add(input_message(
+            fmt::format("{}:{}:{}", name, e.source().begin.line, e.source().begin.column),
+            fmt::format("not valid TOML: {}", e.description()),
+            "TOML (https://toml.io); see config/project-template.toml"));
+        return p;
+    }
+
+    TableReader top(root, "", name, problems);
+    const std::string section_hint = "the tables [project], [inputs], [rainfall], [methods], "
+                                     "[settings], [output]";
+    if (const auto *t = sub_table(top, "project")) {
+        TableReader r(*t, "project", name, problems);
+        read_project_info(r, p.info);
+    } else if (root.get("project") == nullptr) {
+        problems.add(input_message(name + ":1", "the table [project] is missing", section_hint));
+    }
+    if (const auto *t = sub_table(top, "inputs")) {
+        TableReader r(*t, "inputs", name, problems);
+        read_inputs(r, p.dir, p.inputs);
+    } else if (root.get("inputs") == nullptr) {
+        problems.add(input_message(name + ":1", "the table [inputs] is missing", section_hint));
+    }
+    if (const auto *t = sub_table(top, "rainfall")) {
+        TableReader r(*t, "rainfall", name, problems);
+        read_rainfall(r, p.dir, p.rainfall);
+    } else if (root.get("rainfall") == nullptr) {
+        problems.add(input_message(name + ":1", "the table [rainfall] is missing", section_hint));
+    }
+    if (const auto *t = sub_table(top, "methods")) {
+        TableReader r(*t, "methods", name, problems);
+        read_methods(r, p, p.methods, problems);
+    }
+    if (const auto *t = sub_table(top, "settings")) {
+        TableReader r(*t, "settings", name, problems);
+        read_settings(r, p.settings);
+    }
+    p.output_dir = p.dir / "reports" / "latest";
+    if (const auto *t = sub_table(top, "output")) {
+        TableReader r(*t, "output", name, problems);
+        if (auto f = r.path("folder", p.dir)) {
+            p.output_dir = f->resolved;
+        }
+        r.finish();
+    }
+    // Unknown top-level tables or keys.
+    for (auto &&[k, v] : root) {
+        const std::string key(k.str());
+        static const std::vector<std::string> sections = {"project", "inputs",   "rainfall",
+                                                          "methods", "settings", "output"};
+        if (std::find(sections.begin(), sections.end(), key) != sections.end()) {
+            continue;
+        }
+        const std::string hint = closest_match(key, sections);
+        problems.add(input_message(
+            fmt::format("{}:{}", name, k.source().begin.line),
+            fmt::format("unknown {} '{}'{}", v.is_table() ? "table" : "key", key,
+                        hint.empty() ? "" : fmt::format(" (did you mean '[{}]'?)", hint)),
+            section_hint));
+    }
+    // Methods that need what the project does not give.
+    const bool scs = p.uses_method("tr55_graphical") || p.uses_method("scs_unit_hydrograph");
+    if (p.uses_method("rational") && !p.rainfall.idf) {
+        problems.add(input_message(name + ": [rainfall] idf",
+                                   "the Rational Method needs an IDF table, none is given",
+                                   "idf = \"<file>.csv\""));
+    }
+    if (scs && p.rainfall.depth_24h_mm.empty() && !p.rainfall.annual_maximum_series) {
+        problems.add(input_message(
+            name + ": [rainfall]",
+            "the SCS Curve Number methods need 24-hour depths, none are given",
+            "depths_24h_mm or depths_24h_in, one per return period, or annual_maximum_series"));
+    }
+    if (scs && p.rainfall.storm_type.empty()) {
+        problems.add(input_message(name + ": [rainfall] storm_type",
+                                   "the SCS Curve Number methods need a storm type",
+                                   "\"I\", \"IA\", \"II\" or \"III\""));
+    }
+    if (scs && !p.rainfall.depth_24h_mm.empty()) {
+        for (double rp : p.rainfall.return_periods_yr) {
+            if (p.rainfall.depth_24h_mm.count(rp) == 0) {
+                problems.add(
+                    input_message(name + ": [rainfall] depths_24h",
+                                  fmt::format("no 24-hour depth for the {}-year return period", rp),
+                                  "one depth for every return period in return_periods_yr"));
+            }
+        }
+    }
+    return p;
+}
+
+Project load_project(const fs::path &file) {
+    const std::string text = io::read_text_file(file);
+    Problems problems;
+    Project p = parse_project(text, file, problems);
+    problems.throw_if_any();
+    return p;
+}
+
+} // namespace catchpeak::app

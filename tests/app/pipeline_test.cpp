@@ -1,0 +1,210 @@
+// SPDX-License-Identifier: MIT
+// End to end on small table-input projects. Every expected figure below was computed by hand
+// (calculator, steps written out beside it) from the published equations, never copied from
+// catchpeak's output.
+#include "catchpeak/app/pipeline.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
+
+#include <fstream>
+#include <sstream>
+#include <string>
+
+using namespace catchpeak::app;
+namespace fs = std::filesystem;
+
+// Under LeakSanitizer (asan preset): the run renders the calculation sheet, and fontconfig keeps
+// its font configuration in memory for the life of the process. Only leaks from libfontconfig
+// itself are suppressed.
+extern "C" const char *__lsan_default_suppressions() { return "leak:libfontconfig.so\n"; }
+
+namespace {
+
+void write(const fs::path &path, const std::string &text) {
+    std::ofstream(path, std::ios::binary) << text;
+}
+
+std::string read(const fs::path &path) {
+    std::ifstream in(path, std::ios::binary);
+    std::ostringstream s;
+    s << in.rdbuf();
+    return s.str();
+}
+
+/// An SI project: IN-1 with a given tc read straight off the IDF table, OUT-1 with Kirpich.
+fs::path si_project(const fs::path &dir) {
+    write(dir / "project.toml", R"([project]
+name = "Birchwood Lane inlets"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [2, 10]
+
+[methods]
+tc = "kirpich"
+peak = ["rational"]
+
+[settings]
+minimum_tc_min = 5
+
+[output]
+folder = "out"
+)");
+    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\n"
+                                  "IN-1,0.72,80,1.6,0.5,10\n"
+                                  "OUT-1,3.0,500,5,0.45,\n");
+    write(dir / "idf.csv", "# invented IDF table for the test\n"
+                           "# unit: mm/h\n"
+                           "duration_min,2,10\n"
+                           "5,110,150\n"
+                           "10,90,120\n"
+                           "15,75,100\n"
+                           "60,30,40\n");
+    return dir / "project.toml";
+}
+
+const nlohmann::json &point(const nlohmann::json &j, const std::string &id) {
+    for (const auto &p : j.at("design_points")) {
+        if (p.at("id") == id) {
+            return p;
+        }
+    }
+    throw std::runtime_error("no design point " + id);
+}
+
+double q(const nlohmann::json &p, double rp) {
+    for (const auto &pk : p.at("peaks")) {
+        if (pk.at("return_period_yr").get<double>() == rp && pk.at("method") == "rational") {
+            return pk.at("q_m3_s").get<double>();
+        }
+    }
+    throw std::runtime_error("no peak");
+}
+
+} // namespace
+
+TEST(Pipeline, TableProjectSiComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("pipeline_si");
+    const auto file = si_project(dir);
+    std::ostringstream out;
+    std::ostringstream err;
+    RunOptions options;
+    options.run_time_utc = "2026-01-01T00:00:00Z";
+    run_project(file, options, out, err);
+    const auto j = nlohmann::json::parse(read(dir / "out" / "results.json"));
+
+    // IN-1: tc given as 10 min, i read from the table at 10 min (no interpolation).
+    // Q = C i A / 360 (Rational Method, SI form: i mm/h, A ha, Q m3/s):
+    // 2-year: 0.5 x 90 x 0.72 / 360 = 0.09 m3/s; 10-year: 0.5 x 120 x 0.72 / 360 = 0.12 m3/s.
+    const auto &in1 = point(j, "IN-1");
+    EXPECT_DOUBLE_EQ(in1.at("tc_min").get<double>(), 10.0);
+    EXPECT_NEAR(q(in1, 2.0), 0.09, 1e-12);  // exact arithmetic; tolerance: floating point
+    EXPECT_NEAR(q(in1, 10.0), 0.12, 1e-12); // exact arithmetic; tolerance: floating point
+    EXPECT_DOUBLE_EQ(in1.at("catchment").at("area_m2").get<double>(), 7200.0);
+
+    // OUT-1: Kirpich SI form tc = 0.0195 L^0.77 S^-0.385 (TxDOT HDM eq. 4-15), L = 500 m,
+    // S = 5 / 500 = 0.01. By hand: ln 500 = 6.21461, x 0.77 = 4.78525, e^ = 119.74;
+    // 0.01^-0.385 = 10^0.77 = 5.88844; tc = 0.0195 x 119.74 x 5.88844 = 13.749 min.
+    // 10-year i, log-log between 10 min (120) and 15 min (100):
+    // n = ln(100/120) / ln(15/10) = -0.182322 / 0.405465 = -0.449662;
+    // i = 120 x (13.749 / 10)^n = 120 x e^(-0.449662 x 0.318377) = 120 x 0.866614 = 103.99 mm/h.
+    // Q = 0.45 x 103.99 x 3.0 / 360 = 0.38997 m3/s.
+    // Tolerance 0.02 %: the hand calculation carries 5 to 6 significant figures.
+    const auto &out1 = point(j, "OUT-1");
+    EXPECT_NEAR(out1.at("tc_min").get<double>(), 13.749, 13.749 * 2e-4);
+    EXPECT_NEAR(q(out1, 10.0), 0.38997, 0.38997 * 2e-4);
+    EXPECT_EQ(out1.at("tc_method"), "kirpich");
+
+    // The summary table prints the same figures at 4 significant figures.
+    EXPECT_NE(out.str().find("0.1200"), std::string::npos) << out.str();
+    // The run record holds the time and the SHA-256 of the inputs; results.json does not.
+    const auto rec = nlohmann::json::parse(read(dir / "out" / "run-record.json"));
+    EXPECT_EQ(rec.at("run_time_utc"), "2026-01-01T00:00:00Z");
+    // project file, catchment table, IDF and the frequency factor table.
+    EXPECT_EQ(rec.at("inputs").size(), 4u);
+    EXPECT_EQ(read(dir / "out" / "results.json").find("2026-01-01"), std::string::npos);
+    // Every calculation line of a design point is numbered "<id>-L<n>", and each peak names
+    // the line that gives it.
+    EXPECT_EQ(in1.at("lines").at(0).at("id"), "IN-1-L1");
+    const std::string q_line = in1.at("peaks").at(0).at("line_id");
+    bool found = false;
+    for (const auto &l : in1.at("lines")) {
+        if (l.at("id") == q_line) {
+            found = true;
+            EXPECT_NEAR(l.at("value").get<double>(), 0.09, 1e-12); // the 2-year Q above
+        }
+    }
+    EXPECT_TRUE(found) << q_line;
+}
+
+TEST(Pipeline, UsCustomarySheetUsesThePublishedUsForm) {
+    const auto dir = catchpeak::test::scratch_dir("pipeline_us");
+    write(dir / "project.toml", R"([project]
+name = "Cedar Hollow lot"
+units = "US"
+[inputs]
+catchment_table = "c.csv"
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [10]
+[output]
+folder = "out"
+)");
+    write(dir / "c.csv", "id,area_ac,length_ft,slope_percent,c,tc_min\nLOT-1,2.0,300,2,0.6,10\n");
+    write(dir / "idf.csv", "# unit: in/h\nduration_min,10\n5,5.0\n10,4.0\n30,2.5\n");
+    std::ostringstream out;
+    std::ostringstream err;
+    RunOptions options;
+    options.quiet = true;
+    run_project(dir / "project.toml", options, out, err);
+    EXPECT_TRUE(out.str().empty());
+    const auto j = nlohmann::json::parse(read(dir / "out" / "results.json"));
+    // Q = 1.008 Cf C i A (1 acre-in/h = 1.008 ft3/s), Cf = 1.0 for 10 years (config table):
+    // 1.008 x 0.6 x 4.0 x 2.0 = 4.8384 ft3/s = 4.8384 x 0.028316846592 = 0.137008 m3/s
+    // (computed by hand).
+    EXPECT_NEAR(q(point(j, "LOT-1"), 10.0), 0.137008, 1e-6); // hand rounding at 6 figures
+    // The sheet's line in ft3/s shows the US form.
+    bool found = false;
+    for (const auto &l : point(j, "LOT-1").at("lines")) {
+        if (l.at("unit") == "ft3/s") {
+            found = true;
+            EXPECT_NEAR(l.at("value").get<double>(), 4.8384, 1e-9); // exact arithmetic
+        }
+    }
+    EXPECT_TRUE(found);
+}
+
+TEST(Pipeline, TwoRunsGiveByteIdenticalResults) {
+    const auto dir = catchpeak::test::scratch_dir("pipeline_twice");
+    const auto file = si_project(dir);
+    std::ostringstream out;
+    std::ostringstream err;
+    RunOptions a;
+    a.out_dir = dir / "a";
+    a.quiet = true;
+    RunOptions b = a;
+    b.out_dir = dir / "b";
+    run_project(file, a, out, err);
+    run_project(file, b, out, err);
+    const std::string ra = read(dir / "a" / "results.json");
+    EXPECT_FALSE(ra.empty());
+    EXPECT_EQ(ra, read(dir / "b" / "results.json"));
+    EXPECT_EQ(read(dir / "a" / "summary.csv"), read(dir / "b" / "summary.csv"));
+}
+
+TEST(Pipeline, InitWritesTheTemplateAndRefusesToOverwrite) {
+    const auto dir = catchpeak::test::scratch_dir("init");
+    const auto file = init_project(dir / "new");
+    EXPECT_EQ(read(file), std::string(project_template()));
+    write(file, "edited");
+    EXPECT_THROW(init_project(dir / "new"), catchpeak::InputError);
+    EXPECT_EQ(read(file), "edited");
+}

@@ -1,0 +1,141 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/project.hpp"
+
+#include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/core/error.hpp"
+
+#include <gtest/gtest.h>
+
+#include <string>
+
+using namespace catchpeak::app;
+
+namespace {
+
+Project parse(const std::string &text, Problems &problems) {
+    return parse_project(text, "dir/p.toml", problems);
+}
+
+std::string all(const Problems &p) {
+    std::string s;
+    for (const auto &m : p.list()) {
+        s += m + "\n";
+    }
+    return s;
+}
+
+} // namespace
+
+TEST(EditDistance, ClassicCases) {
+    // Levenshtein distances worked by hand.
+    EXPECT_EQ(edit_distance("kitten", "sitting"), 3u);
+    EXPECT_EQ(edit_distance("", "abc"), 3u);
+    EXPECT_EQ(edit_distance("units", "units"), 0u);
+    EXPECT_EQ(edit_distance("unitz", "units"), 1u);
+}
+
+TEST(ClosestMatch, SuggestsOnlyLikelyTypos) {
+    const std::vector<std::string> keys = {"snap_radius_m", "minimum_tc_min", "units"};
+    EXPECT_EQ(closest_match("snap_radius", keys), "snap_radius_m");
+    EXPECT_EQ(closest_match("unit", keys), "units");
+    EXPECT_EQ(closest_match("colour", keys), "");
+}
+
+TEST(Project, TemplateParsesWithoutProblems) {
+    Problems problems;
+    const Project p = parse(std::string(project_template()), problems);
+    EXPECT_TRUE(problems.empty()) << all(problems);
+    EXPECT_EQ(p.info.name, "New project");
+    ASSERT_TRUE(p.inputs.catchment_table.has_value());
+    EXPECT_EQ(p.inputs.catchment_table->resolved, std::filesystem::path("dir/catchments.csv"));
+}
+
+TEST(Project, ReadsEveryTable) {
+    const std::string text = R"([project]
+name = "Alder Brook crossing"
+number = "24-117"
+units = "US"
+revision = "B"
+
+[inputs]
+dem = "dem.tif"
+design_points = "points.gpkg"
+id_field = "name"
+land_cover = "land.gpkg"
+soils = "soils.gpkg"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [2, 25, 100]
+storm_type = "II"
+depths_24h_in = { "2" = 3.0, "25" = 5.0, "100" = 6.5 }
+
+[methods]
+tc = "nrcs_lag"
+peak = ["rational", "tr55_graphical"]
+[[methods.point]]
+id = "CV-1"
+tc = "given"
+tc_min = 22.5
+
+[settings]
+snap_radius_m = 15
+minimum_tc_min = 10
+
+[output]
+folder = "../out"
+)";
+    Problems problems;
+    const Project p = parse(text, problems);
+    EXPECT_TRUE(problems.empty()) << all(problems);
+    EXPECT_EQ(p.info.number, "24-117");
+    EXPECT_EQ(p.info.units, catchpeak::units::System::us_customary);
+    EXPECT_EQ(p.info.page_size, "letter");
+    EXPECT_EQ(p.inputs.id_field, "name");
+    EXPECT_EQ(p.inputs.dem->line, 8u);
+    EXPECT_EQ(p.rainfall.return_periods_yr, (std::vector<double>{2, 25, 100}));
+    // 1 in = 25.4 mm exactly (NIST SP 811): 3.0 in = 76.2 mm.
+    EXPECT_DOUBLE_EQ(p.rainfall.depth_24h_mm.at(2.0), 76.2);
+    EXPECT_EQ(p.methods.tc_method, "nrcs_lag");
+    ASSERT_EQ(p.methods.points.size(), 1u);
+    EXPECT_EQ(p.methods.points[0].tc_min, 22.5);
+    EXPECT_EQ(p.settings.snap_radius_m, 15.0);
+    EXPECT_EQ(p.output_dir, std::filesystem::path("dir/../out"));
+    EXPECT_TRUE(p.uses_method("tr55_graphical"));
+    EXPECT_FALSE(p.uses_method("scs_unit_hydrograph"));
+}
+
+TEST(Project, CollectsEveryProblemWithItsLine) {
+    const std::string text = R"([project]
+name = "x"
+unitz = "SI"
+
+[inputs]
+catchment_table = 5
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [2, -1]
+)";
+    Problems problems;
+    (void)parse(text, problems);
+    const std::string s = all(problems);
+    EXPECT_EQ(problems.size(), 3u) << s;
+    EXPECT_NE(s.find("dir/p.toml:3: [project]: unknown key 'unitz' (did you mean 'units'?)"),
+              std::string::npos)
+        << s;
+    EXPECT_NE(s.find("dir/p.toml:6: [inputs] catchment_table: expected a text"), std::string::npos)
+        << s;
+    EXPECT_NE(s.find("dir/p.toml:10: [rainfall] return_periods_yr: -1 is out of range"),
+              std::string::npos)
+        << s;
+    EXPECT_THROW(problems.throw_if_any(), catchpeak::InputError);
+}
+
+TEST(Project, SyntaxErrorNamesLineAndColumn) {
+    Problems problems;
+    (void)parse("[project]\nname = \"x\"\nunits = SI\n", problems);
+    ASSERT_EQ(problems.size(), 1u);
+    EXPECT_EQ(problems.list()[0].rfind("dir/p.toml:3:", 0), 0u) << problems.list()[0];
+    EXPECT_NE(problems.list()[0].find("not valid TOML"), std::string::npos);
+}

@@ -1,0 +1,396 @@
+// SPDX-License-Identifier: MIT
+// `catchpeak run` and `catchpeak check` on bad input: data-driven records (STYLE.md 7). Each
+// record changes one thing in a valid table project and states the exit code, the text the
+// message must hold, and that nothing was written.
+#include "catchpeak/cli/run.hpp"
+#include "catchpeak/core/error.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+
+#include <fstream>
+#include <map>
+#include <optional>
+#include <sstream>
+#include <string>
+#include <vector>
+
+using catchpeak::ExitCode;
+namespace fs = std::filesystem;
+
+// Under LeakSanitizer (asan preset): the run renders the calculation sheet, and fontconfig keeps
+// its font configuration in memory for the life of the process. Only leaks from libfontconfig
+// itself are suppressed.
+extern "C" const char *__lsan_default_suppressions() { return "leak:libfontconfig.so\n"; }
+
+namespace {
+
+// Line numbers matter: messages are checked against them.
+const char *const base_project = R"([project]
+name = "Larkspur Rise subdivision"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [2, 10]
+
+[methods]
+tc = "kirpich"
+peak = ["rational"]
+
+[settings]
+minimum_tc_min = 5
+
+[output]
+folder = "out"
+)";
+
+const char *const base_catchments = "id,area_ha,length_m,relief_m,c,cn\n"
+                                    "IN-1,0.8,120,3.6,0.65,85\n"
+                                    "IN-2,1.1,150,3.0,0.55,80\n";
+
+const char *const base_idf = "# unit: mm/h\n"
+                             "duration_min,2,10\n"
+                             "5,100,150\n"
+                             "10,80,120\n"
+                             "60,30,45\n";
+
+struct Replace {
+    std::string from;
+    std::string to;
+};
+
+struct BadCase {
+    std::string name;
+    std::string command;                                     // "run" or "check"
+    std::vector<Replace> project_changes;                    // applied in order to base_project
+    std::map<std::string, std::optional<std::string>> files; // replaced (nullopt: removed)
+    std::vector<std::string> expect_err;                     // each must appear on stderr
+};
+
+std::string replaced(std::string s, const std::vector<Replace> &changes) {
+    for (const auto &c : changes) {
+        const auto pos = s.find(c.from);
+        if (pos == std::string::npos) {
+            throw std::runtime_error("test record: text not found: " + c.from);
+        }
+        s.replace(pos, c.from.size(), c.to);
+    }
+    return s;
+}
+
+const std::vector<BadCase> &cases() {
+    static const std::vector<BadCase> c = {
+        {"syntax_unterminated_text",
+         "run",
+         {{"name = \"Larkspur Rise subdivision\"", "name = \"Larkspur Rise"}},
+         {},
+         {"project.toml:2:", "not valid TOML"}},
+        {"syntax_missing_equals",
+         "run",
+         {{"tc = \"kirpich\"", "tc \"kirpich\""}},
+         {},
+         {"project.toml:13:", "not valid TOML"}},
+        {"unknown_key_with_suggestion",
+         "run",
+         {{"units = \"SI\"", "unitz = \"SI\""}},
+         {},
+         {"project.toml:3: [project]: unknown key 'unitz' (did you mean 'units'?)"}},
+        {"unknown_table_with_suggestion",
+         "check",
+         {{"[settings]", "[setings]"}},
+         {},
+         {"project.toml:16", "unknown table 'setings' (did you mean '[settings]'?)"}},
+        {"unknown_setting_with_suggestion",
+         "run",
+         {{"minimum_tc_min = 5", "minimum_tc = 5"}},
+         {},
+         {"project.toml:17: [settings]: unknown key 'minimum_tc'",
+          "did you mean 'minimum_tc_min'?"}},
+        {"wrong_type_units",
+         "run",
+         {{"units = \"SI\"", "units = 5"}},
+         {},
+         {"project.toml:3: [project] units: expected a text, found a whole number"}},
+        {"wrong_type_return_periods",
+         "run",
+         {{"return_periods_yr = [2, 10]", "return_periods_yr = \"2, 10\""}},
+         {},
+         {"project.toml:10: [rainfall] return_periods_yr: expected a list, found a text"}},
+        {"return_period_not_a_number",
+         "run",
+         {{"[2, 10]", "[2, \"ten\"]"}},
+         {},
+         {"project.toml:10: [rainfall] return_periods_yr: expected a number, found a text"}},
+        {"return_period_out_of_range",
+         "run",
+         {{"[2, 10]", "[0.5, 10]"}},
+         {},
+         {"project.toml:10: [rainfall] return_periods_yr: 0.5 is out of range",
+          "accepted: a number > 1"}},
+        {"return_period_twice", "run", {{"[2, 10]", "[2, 2]"}}, {}, {"2 is listed twice"}},
+        {"unknown_unit_system",
+         "run",
+         {{"units = \"SI\"", "units = \"imperial\""}},
+         {},
+         {"project.toml:3: [project] units: 'imperial' is not known", "\"SI\", \"US\""}},
+        {"unknown_peak_method_with_suggestion",
+         "run",
+         {{"[\"rational\"]", "[\"rationnal\"]"}},
+         {},
+         {"project.toml:14: [methods] peak: 'rationnal' is not known (did you mean 'rational'?)"}},
+        {"unknown_tc_method_with_suggestion",
+         "run",
+         {{"tc = \"kirpich\"", "tc = \"kirpch\""}},
+         {},
+         {"project.toml:13: [methods] tc: 'kirpch' is not known (did you mean 'kirpich'?)"}},
+        {"missing_project_name",
+         "run",
+         {{"name = \"Larkspur Rise subdivision\"\n", ""}},
+         {},
+         {"project.toml:1: [project]: required key 'name' is missing"}},
+        {"missing_project_table",
+         "run",
+         {{"[project]\nname = \"Larkspur Rise subdivision\"\nunits = \"SI\"\n", ""}},
+         {},
+         {"the table [project] is missing"}},
+        {"missing_return_periods",
+         "run",
+         {{"return_periods_yr = [2, 10]\n", ""}},
+         {},
+         {"[rainfall]: required key 'return_periods_yr' is missing"}},
+        {"no_catchment_source",
+         "run",
+         {{"catchment_table = \"catchments.csv\"\n", ""}},
+         {},
+         {"project.toml:5: [inputs]: required key 'dem' is missing",
+          "either 'dem' and 'design_points', or 'catchment_table'"}},
+        {"dem_and_table_both",
+         "run",
+         {{"[inputs]\n", "[inputs]\ndem = \"dem.tif\"\ndesign_points = \"p.gpkg\"\n"}},
+         {},
+         {"both a DEM with design points and a catchment table are given"}},
+        {"dem_without_design_points",
+         "run",
+         {{"catchment_table = \"catchments.csv\"", "dem = \"dem.tif\""}},
+         {},
+         {"required key 'design_points' is missing"}},
+        {"catchment_table_missing",
+         "run",
+         {},
+         {{"catchments.csv", std::nullopt}},
+         {"project.toml:6: [inputs] catchment_table: file 'catchments.csv' does not exist"}},
+        {"idf_missing",
+         "check",
+         {},
+         {{"idf.csv", std::nullopt}},
+         {"project.toml:9: [rainfall] idf: file 'idf.csv' does not exist"}},
+        {"return_period_missing_from_idf",
+         "run",
+         {{"[2, 10]", "[2, 10, 25]"}},
+         {},
+         {"the 25-year return period is not in the IDF 'idf.csv'",
+          "return periods of the IDF: 2, 10"}},
+        {"idf_bad_column_name",
+         "run",
+         {},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2yr,10yr\n5,100,150\n10,80,120\n"}},
+         {"idf.csv: header, column 2", "'2yr' is not a number"}},
+        {"idf_value_not_a_number",
+         "run",
+         {},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2,10\n5,100,150\n10,80,abc\n"}},
+         {"idf.csv:4: column '10'", "'abc' is not a number"}},
+        {"idf_durations_not_increasing",
+         "run",
+         {},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2,10\n10,80,120\n5,100,150\n"}},
+         {"idf.csv:4: column 'duration_min'", "duration 5.000 min after 10.00 min"}},
+        {"tc_outside_idf_durations",
+         "run",
+         {},
+         {{"idf.csv", "# unit: mm/h\nduration_min,2,10\n10,80,120\n60,30,45\n"}},
+         {"duration 5.000 min lies outside the table's durations (10.00 to 60.00 min)",
+          "not extrapolated"}},
+        {"catchment_table_empty",
+         "run",
+         {},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c\n"}},
+         {"catchments.csv: the table has no catchments"}},
+        {"catchment_table_no_area_column",
+         "run",
+         {},
+         {{"catchments.csv", "id,size,length_m,relief_m,c\nIN-1,0.8,120,3.6,0.65\n"}},
+         {"catchments.csv: no column for the area", "area_ha"}},
+        {"catchment_table_two_area_columns",
+         "run",
+         {},
+         {{"catchments.csv", "id,area_ha,area_ac,length_m,relief_m,c\nIN-1,0.8,2,120,3.6,0.65\n"}},
+         {"the area is given twice, in columns 'area_ha' and 'area_ac'"}},
+        {"catchment_negative_area",
+         "run",
+         {},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c\nIN-1,-0.8,120,3.6,0.65\n"}},
+         {"catchments.csv:2: column 'area_ha'", "-0.8 is not positive"}},
+        {"catchment_c_out_of_range",
+         "run",
+         {},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c\nIN-1,0.8,120,3.6,1.5\n"}},
+         {"catchments.csv:2: column 'c'", "C = 1.5 is out of range", "(0, 1]"}},
+        {"catchment_cn_out_of_range",
+         "run",
+         {},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c,cn\nIN-1,0.8,120,3.6,0.5,20\n"}},
+         {"catchments.csv:2: column 'cn'", "CN = 20 is out of range"}},
+        {"catchment_duplicate_id",
+         "run",
+         {},
+         {{"catchments.csv",
+           "id,area_ha,length_m,relief_m,c\nIN-1,0.8,120,3.6,0.5\nIN-1,0.5,90,2,0.5\n"}},
+         {"catchments.csv:3: column 'id'", "id 'IN-1' is used twice"}},
+        {"catchment_without_c_for_rational",
+         "run",
+         {},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c\nIN-1,0.8,120,3.6,\n"}},
+         {"catchments.csv:2", "catchment 'IN-1' has no runoff coefficient"}},
+        {"scs_method_without_depths_or_storm",
+         "check",
+         {{"[\"rational\"]", "[\"rational\", \"tr55_graphical\"]"}},
+         {},
+         {"the SCS Curve Number methods need 24-hour depths",
+          "the SCS Curve Number methods need a storm type"}},
+        {"depth_for_a_return_period_missing",
+         "check",
+         {{"return_periods_yr = [2, 10]",
+           "return_periods_yr = [2, 10]\nstorm_type = \"II\"\ndepths_24h_mm = { \"2\" = 70.0 }"},
+          {"[\"rational\"]", "[\"rational\", \"tr55_graphical\"]"}},
+         {},
+         {"no 24-hour depth for the 10-year return period"}},
+        {"depth_key_not_a_return_period",
+         "run",
+         {{"return_periods_yr = [2, 10]",
+           "return_periods_yr = [2, 10]\ndepths_24h_mm = { \"ten\" = 70.0 }"}},
+         {},
+         {"project.toml:11: [rainfall] depths_24h_mm: 'ten' is not a return period"}},
+        {"override_for_unknown_point_with_suggestion",
+         "run",
+         {{"peak = [\"rational\"]\n", "peak = [\"rational\"]\n[[methods.point]]\nid = \"IN-3\"\n"
+                                      "tc = \"given\"\ntc_min = 12\n"}},
+         {},
+         {"project.toml:15: [[methods.point]] id: design point 'IN-3' is not in the catchment "
+          "table (did you mean 'IN-1'?)"}},
+        {"given_tc_without_value",
+         "run",
+         {{"peak = [\"rational\"]\n",
+           "peak = [\"rational\"]\n[[methods.point]]\nid = \"IN-1\"\ntc = \"given\"\n"}},
+         {},
+         {"[methods.point]: required key 'tc_min' is missing"}},
+        {"unknown_key_in_point_override",
+         "run",
+         {{"peak = [\"rational\"]\n",
+           "peak = [\"rational\"]\n[[methods.point]]\nid = \"IN-1\"\ntc_minutes = 12\n"}},
+         {},
+         {"project.toml:17: [methods.point]: unknown key 'tc_minutes' (did you mean 'tc_min'?)"}},
+        {"setting_out_of_range",
+         "run",
+         {{"minimum_tc_min = 5", "minimum_tc_min = -1"}},
+         {},
+         {"project.toml:17: [settings] minimum_tc_min: -1 is out of range"}},
+        {"every_problem_at_once",
+         "check",
+         {{"units = \"SI\"", "unitz = \"SI\""}, {"minimum_tc_min = 5", "minimum_tc_min = 500"}},
+         {{"idf.csv", std::nullopt}},
+         {"3 problems found", "unknown key 'unitz'", "minimum_tc_min: 500 is out of range",
+          "file 'idf.csv' does not exist"}},
+        {"idf_without_unit",
+         "run",
+         {},
+         {{"idf.csv", "duration_min,2,10\n5,100,150\n10,80,120\n"}},
+         {"idf.csv", "no '# unit:' line"}},
+        {"project_file_missing", "run", {}, {{"project.toml", std::nullopt}}, {"project.toml"}},
+    };
+    return c;
+}
+
+[[maybe_unused]] void PrintTo(const BadCase &c, std::ostream *os) { *os << c.name; }
+
+class BadInput : public ::testing::TestWithParam<BadCase> {};
+
+void write(const fs::path &path, const std::string &text) {
+    std::ofstream(path, std::ios::binary) << text;
+}
+
+} // namespace
+
+TEST(BadInputCases, AtLeastTwentyFive) { EXPECT_GE(cases().size(), 25u); }
+
+TEST_P(BadInput, ExitTwoWithMessageAndNothingWritten) {
+    const auto &c = GetParam();
+    const auto dir = catchpeak::test::scratch_dir("bad_" + c.name);
+    write(dir / "project.toml", replaced(base_project, c.project_changes));
+    write(dir / "catchments.csv", base_catchments);
+    write(dir / "idf.csv", base_idf);
+    for (const auto &[name, text] : c.files) {
+        if (text) {
+            write(dir / name, *text);
+        } else {
+            fs::remove(dir / name);
+        }
+    }
+    std::ostringstream out;
+    std::ostringstream err;
+    const int code = catchpeak::cli::run({c.command, (dir / "project.toml").string()}, out, err);
+    EXPECT_EQ(code, static_cast<int>(ExitCode::bad_input)) << err.str();
+    for (const auto &e : c.expect_err) {
+        EXPECT_NE(err.str().find(e), std::string::npos) << "expected: " << e << "\nstderr:\n"
+                                                        << err.str();
+    }
+    EXPECT_FALSE(fs::exists(dir / "out" / "results.json"));
+    EXPECT_FALSE(fs::exists(dir / "out" / ".results.json.partial"));
+    // Input files are never modified: the project file is as written.
+    if (c.files.count("project.toml") == 0) {
+        std::ifstream in(dir / "project.toml");
+        std::ostringstream s;
+        s << in.rdbuf();
+        EXPECT_EQ(s.str(), replaced(base_project, c.project_changes));
+    }
+}
+
+INSTANTIATE_TEST_SUITE_P(Records, BadInput, ::testing::ValuesIn(cases()),
+                         [](const auto &param_info) { return param_info.param.name; });
+
+TEST(ProjectCommands, CheckAndRunAValidProject) {
+    const auto dir = catchpeak::test::scratch_dir("good_project");
+    write(dir / "project.toml", base_project);
+    write(dir / "catchments.csv", base_catchments);
+    write(dir / "idf.csv", base_idf);
+    std::ostringstream out;
+    std::ostringstream err;
+    EXPECT_EQ(catchpeak::cli::run({"check", (dir / "project.toml").string()}, out, err), 0)
+        << err.str();
+    EXPECT_NE(out.str().find("no problems found"), std::string::npos);
+    EXPECT_EQ(catchpeak::cli::run(
+                  {"run", (dir / "project.toml").string(), "--out", (dir / "elsewhere").string()},
+                  out, err),
+              0)
+        << err.str();
+    EXPECT_TRUE(fs::exists(dir / "elsewhere" / "results.json"));
+    EXPECT_TRUE(fs::exists(dir / "elsewhere" / "summary.csv"));
+    EXPECT_TRUE(fs::exists(dir / "elsewhere" / "run-record.json"));
+    EXPECT_FALSE(fs::exists(dir / "elsewhere" / ".results.json.partial"));
+    EXPECT_NE(out.str().find("IN-2"), std::string::npos) << out.str();
+}
+
+TEST(ProjectCommands, InitRefusesToOverwrite) {
+    const auto dir = catchpeak::test::scratch_dir("init_cli");
+    std::ostringstream out;
+    std::ostringstream err;
+    EXPECT_EQ(catchpeak::cli::run({"init", (dir / "p").string()}, out, err), 0) << err.str();
+    EXPECT_TRUE(fs::exists(dir / "p" / "project.toml"));
+    EXPECT_EQ(catchpeak::cli::run({"init", (dir / "p").string()}, out, err),
+              static_cast<int>(ExitCode::bad_input));
+    EXPECT_NE(err.str().find("exists already and is not overwritten"), std::string::npos);
+}
