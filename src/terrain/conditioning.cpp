@@ -93,18 +93,30 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         return neighbour(w, h, i % w, i / w, k);
     };
 
-    // Seeds: valid cells on the raster edge or next to a nodata cell.
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if ((marks[i] & closed_flag) != 0) {
-            continue;
-        }
-        bool edge = (marks[i] & edge_flag) != 0;
-        for (std::uint8_t k = 1; k <= 8 && !edge; ++k) {
-            edge = !valid(dem[neighbour_of(i, k)]);
-        }
-        if (edge) {
+    // Seeds: valid cells on the raster edge or next to a nodata cell, found from the edge ring
+    // and from the nodata cells (a byte test for every other cell). The priority queue orders
+    // by (elevation, index), so the order of the pushes does not matter.
+    const auto seed = [&](std::size_t i) {
+        if ((marks[i] & closed_flag) == 0) {
             marks[i] |= closed_flag;
             open.push({dem[i], static_cast<Index>(i)});
+        }
+    };
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        if ((marks[i] & closed_flag) == 0) {
+            if ((marks[i] & edge_flag) != 0) {
+                seed(i);
+            }
+            continue;
+        }
+        if (valid(dem[i])) {
+            continue; // a seed already
+        }
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const std::size_t n = neighbour_of(i, k);
+            if (n != no_cell) {
+                seed(n);
+            }
         }
     }
     while (true) {
@@ -249,13 +261,54 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
     constexpr std::uint8_t code_mask = 0x0F;
 
-    // Flat cells: valid, no direction. High edges: flat cells next to higher terrain.
-    std::vector<std::size_t> frontier;
+    // Flat cells: valid, no direction. One sweep marks them and lists, from each flat cell,
+    // the high edges (flat cells next to higher terrain) and the low edges (cells with a
+    // direction next to a flat cell of the same elevation). A neighbour later in the sweep that
+    // is flat still has d8::none, one earlier has flat_flag: neither is taken as a low edge.
+    // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
+    // with a bias of 2^31 so that unsigned comparisons order it like the signed value.
+    constexpr std::int64_t bias = std::int64_t{1} << 31;
+    // away_flag: a flat cell reached by the search away from higher terrain (so that the
+    // search tests a byte it has just read rather than the scratch grid).
+    constexpr std::uint8_t away_flag = 0x10;
+    // Low edges are marked with low_edge_flag so that each is listed once.
+    constexpr std::uint8_t low_edge_flag = 0x80;
+    // Only flat cells' scratch values are read; the sweep sets each of them.
+    if (mask.width() != w || mask.height() != h) {
+        mask = Grid<std::uint32_t>(w, h, 0);
+    }
     bool any_flat = false;
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if (dirs[i] == d8::none && valid(dem[i])) {
+    std::vector<std::size_t> frontier;
+    std::vector<std::size_t> low_edges;
+    for (std::size_t r = 0; r < h; ++r) {
+        for (std::size_t c = 0; c < w; ++c) {
+            const std::size_t i = r * w + c;
+            if (dirs[i] != d8::none || !valid(dem[i])) {
+                continue;
+            }
             dirs[i] = flat_flag;
             any_flat = true;
+            const float z = dem[i];
+            bool high_edge = false;
+            for (std::uint8_t k = 1; k <= 8; ++k) {
+                const std::size_t n = near(c, r, k);
+                if (n == no_cell) {
+                    continue;
+                }
+                const float zn = dem[n];
+                if (!high_edge && zn > z && valid(zn)) {
+                    high_edge = true;
+                } else if (zn == z && dirs[n] != d8::none &&
+                           (dirs[n] & (flat_flag | low_edge_flag)) == 0) {
+                    dirs[n] |= low_edge_flag;
+                    low_edges.push_back(n);
+                }
+            }
+            mask[i] = high_edge ? 1U : 0U;
+            if (high_edge) {
+                frontier.push_back(i);
+                dirs[i] = flat_flag | away_flag;
+            }
         }
     }
     if (!any_flat) {
@@ -270,26 +323,6 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             }
         }
     };
-    // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
-    // with a bias of 2^31 so that unsigned comparisons order it like the signed value.
-    constexpr std::int64_t bias = std::int64_t{1} << 31;
-    if (mask.width() != w || mask.height() != h) {
-        mask = Grid<std::uint32_t>(w, h, 0);
-    } else {
-        std::fill(mask.cells().begin(), mask.cells().end(), 0U);
-    }
-    for_each_flat([&](std::size_t i) {
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = near(c, r, k);
-            if (n != no_cell && valid(dem[n]) && dem[n] > dem[i]) {
-                frontier.push_back(i);
-                mask[i] = 1;
-                break;
-            }
-        }
-    });
     // Gradient away from higher terrain: BFS distance from the high edges (1 at the edge),
     // within each flat (equal elevation, flat cells). 0 where a flat has no higher edge.
     std::vector<std::size_t> next;
@@ -300,7 +333,8 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             const std::size_t r = i / w;
             for (std::uint8_t k = 1; k <= 8; ++k) {
                 const std::size_t n = near(c, r, k);
-                if (n != no_cell && dirs[n] == flat_flag && mask[n] == 0 && dem[n] == dem[i]) {
+                if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
+                    dirs[n] = flat_flag | away_flag;
                     mask[n] = mask[i] + 1;
                     next.push_back(n);
                 }
@@ -313,22 +347,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     // "highest away value of the flat" of Barnes et al. cancels when cells of one flat are
     // compared, so it is left out.
     constexpr std::uint8_t visited_flag = 0x20;
-    // Low edges are found from the flat cells (far fewer than all cells, usually), marked with
-    // low_edge_flag so that each is listed once.
-    constexpr std::uint8_t low_edge_flag = 0x80;
-    frontier.clear();
-    for_each_flat([&](std::size_t i) {
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = near(c, r, k);
-            if (n != no_cell && dirs[n] != d8::none &&
-                (dirs[n] & (flat_flag | low_edge_flag)) == 0 && dem[n] == dem[i]) {
-                dirs[n] |= low_edge_flag;
-                frontier.push_back(n);
-            }
-        }
-    });
+    frontier.swap(low_edges);
     std::sort(frontier.begin(), frontier.end()); // the same order whatever the scan found first
     std::int64_t t = 0;
     while (!frontier.empty()) {
@@ -339,7 +358,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             const std::size_t r = i / w;
             for (std::uint8_t k = 1; k <= 8; ++k) {
                 const std::size_t n = near(c, r, k);
-                if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
+                if (n != no_cell && (dirs[n] & ~away_flag) == flat_flag && dem[n] == dem[i]) {
                     dirs[n] = flat_flag | visited_flag;
                     mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
                     next.push_back(n);
