@@ -228,7 +228,7 @@ void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks) {
     if (marks.width() != dem.width() || marks.height() != dem.height()) {
         throw InternalError("fill_depressions: scratch grid size differs from the DEM");
     }
-    std::fill(marks.cells().begin(), marks.cells().end(), std::uint8_t{0});
+    // fill_with sets every cell of marks before reading any.
     if (dem.size() < (std::size_t{1} << 32)) {
         fill_with<std::uint32_t>(dem, marks);
     } else {
@@ -438,12 +438,15 @@ Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
 void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &lines,
                        unsigned threads, Grid<float> &work, Grid<std::uint8_t> &dirs,
                        Grid<std::uint32_t> &scratch) {
-    work = Grid<float>(dem.width(), dem.height());
-    work.copy_georef_from(dem);
+    // A copy (one pass, no zero fill first), then NaN on nodata cells.
+    work = dem;
+    work.nodata.reset(); // nodata is NaN in the copy
     const detail::ValidTest valid(dem);
     constexpr float nan = std::numeric_limits<float>::quiet_NaN();
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        work[i] = valid(dem[i]) ? dem[i] : nan;
+    for (float &v : work.cells()) {
+        if (!valid(v)) {
+            v = nan;
+        }
     }
     apply_breach_lines(work, lines);
     dirs = Grid<std::uint8_t>(dem.width(), dem.height(), 0);
