@@ -6,6 +6,7 @@
 
 #include <algorithm>
 #include <array>
+#include <cstddef>
 #include <type_traits>
 
 namespace catchpeak::terrain {
@@ -98,10 +99,30 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
     auto &state = out.longest_upstream.cells();
     constexpr std::uint8_t count_mask = 0x0F;
     constexpr std::uint8_t visited = 0x0F;
-    for (std::size_t i = 0; i < n; ++i) {
-        const std::size_t d = downstream_cell(dirs, i);
-        if (d != no_cell) {
-            ++state[d];
+    // Downstream cell of (c, r) from its code, tracking the column and row so that no
+    // division is needed; no_cell when the cell has no direction or drains off the raster.
+    const std::size_t w = dirs.width();
+    const std::size_t h = dirs.height();
+    const auto downstream = [&](std::size_t c, std::size_t r, std::size_t &dc, std::size_t &dr) {
+        const std::uint8_t k = dirs[r * w + c];
+        if (k == d8::none || k > 8) {
+            return no_cell;
+        }
+        dc = c + static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::dcol[k]));
+        dr = r + static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::drow[k]));
+        if (dc >= w || dr >= h) { // a step off column 0 or row 0 wraps to a huge value
+            return no_cell;
+        }
+        return dr * w + dc;
+    };
+    for (std::size_t r = 0; r < h; ++r) {
+        for (std::size_t c = 0; c < w; ++c) {
+            std::size_t dc = 0;
+            std::size_t dr = 0;
+            const std::size_t d = downstream(c, r, dc, dr);
+            if (d != no_cell) {
+                ++state[d];
+            }
         }
     }
     for (std::size_t start = 0; start < n; ++start) {
@@ -109,9 +130,13 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
             continue;
         }
         std::size_t i = start;
+        std::size_t r = start / w;
+        std::size_t c = start - r * w;
         while (true) {
             state[i] = static_cast<std::uint8_t>(state[i] | visited);
-            const std::size_t d = downstream_cell(dirs, i);
+            std::size_t dc = 0;
+            std::size_t dr = 0;
+            const std::size_t d = downstream(c, r, dc, dr);
             const std::uint8_t k = dirs[i];
             if (k != d8::none) {
                 acc[i] += 1;
@@ -133,6 +158,8 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
                 break;
             }
             i = d;
+            c = dc;
+            r = dr;
         }
     }
     for (auto &b : state) {

@@ -93,18 +93,30 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         return neighbour(w, h, i % w, i / w, k);
     };
 
-    // Seeds: valid cells on the raster edge or next to a nodata cell.
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if ((marks[i] & closed_flag) != 0) {
-            continue;
-        }
-        bool edge = (marks[i] & edge_flag) != 0;
-        for (std::uint8_t k = 1; k <= 8 && !edge; ++k) {
-            edge = !valid(dem[neighbour_of(i, k)]);
-        }
-        if (edge) {
+    // Seeds: valid cells on the raster edge or next to a nodata cell, found from the edge ring
+    // and from the nodata cells (a byte test for every other cell). The priority queue orders
+    // by (elevation, index), so the order of the pushes does not matter.
+    const auto seed = [&](std::size_t i) {
+        if ((marks[i] & closed_flag) == 0) {
             marks[i] |= closed_flag;
             open.push({dem[i], static_cast<Index>(i)});
+        }
+    };
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        if ((marks[i] & closed_flag) == 0) {
+            if ((marks[i] & edge_flag) != 0) {
+                seed(i);
+            }
+            continue;
+        }
+        if (valid(dem[i])) {
+            continue; // a seed already
+        }
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const std::size_t n = neighbour_of(i, k);
+            if (n != no_cell) {
+                seed(n);
+            }
         }
     }
     while (true) {
@@ -216,7 +228,7 @@ void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks) {
     if (marks.width() != dem.width() || marks.height() != dem.height()) {
         throw InternalError("fill_depressions: scratch grid size differs from the DEM");
     }
-    std::fill(marks.cells().begin(), marks.cells().end(), std::uint8_t{0});
+    // fill_with sets every cell of marks before reading any.
     if (dem.size() < (std::size_t{1} << 32)) {
         fill_with<std::uint32_t>(dem, marks);
     } else {
@@ -249,20 +261,128 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
     constexpr std::uint8_t code_mask = 0x0F;
 
-    // Flat cells: valid, no direction. High edges: flat cells next to higher terrain.
-    std::vector<std::size_t> frontier;
+    // Flats are handled one at a time (a flat: flat cells of one elevation, 8-connected), so
+    // that each search stays within the flat's part of the grids. Distances within a flat do
+    // not depend on the order in which flats or cells are taken, so neither do the results.
+    //
+    // Bits of dirs on flat cells while resolving: flat_flag, seen_flag (found by the sweep
+    // through the flat), away_flag (reached by the search away from higher terrain),
+    // visited_flag (reached by the search toward lower terrain); the low nibble takes the code
+    // at the end. On cells with a direction, low_edge_flag marks a low edge already listed for
+    // the current flat.
+    constexpr std::uint8_t seen_flag = 0x80;
+    constexpr std::uint8_t away_flag = 0x10;
+    constexpr std::uint8_t visited_flag = 0x20;
+    constexpr std::uint8_t low_edge_flag = 0x80;
+    // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
+    // with a bias of 2^31 so that unsigned comparisons order it like the signed value. Only flat
+    // cells' values are read, and the sweep through each flat sets them all.
+    constexpr std::int64_t bias = std::int64_t{1} << 31;
+    if (mask.width() != w || mask.height() != h) {
+        mask = Grid<std::uint32_t>(w, h, 0);
+    }
     bool any_flat = false;
+    std::vector<std::size_t> frontier;
+    std::vector<std::size_t> next;
+    std::vector<std::size_t> high_edges;
+    std::vector<std::size_t> low_edges;
+    const auto resolve_flat = [&](std::size_t start) {
+        // Sweep through the flat: its cells, its high edges (flat cells next to higher valid
+        // terrain) and its low edges (cells with a direction next to a flat cell of the same
+        // elevation). A flat cell not yet found still has d8::none.
+        const float z = dem[start];
+        high_edges.clear();
+        low_edges.clear();
+        frontier.assign(1, start);
+        dirs[start] = flat_flag | seen_flag;
+        while (!frontier.empty()) {
+            next.clear();
+            for (const std::size_t i : frontier) {
+                const std::size_t c = i % w;
+                const std::size_t r = i / w;
+                bool high_edge = false;
+                for (std::uint8_t k = 1; k <= 8; ++k) {
+                    const std::size_t n = near(c, r, k);
+                    if (n == no_cell) {
+                        continue;
+                    }
+                    const float zn = dem[n];
+                    if (zn == z) {
+                        const std::uint8_t dn = dirs[n];
+                        if (dn == d8::none) {
+                            dirs[n] = flat_flag | seen_flag;
+                            next.push_back(n);
+                        } else if ((dn & (flat_flag | low_edge_flag)) == 0) {
+                            dirs[n] = static_cast<std::uint8_t>(dn | low_edge_flag);
+                            low_edges.push_back(n);
+                        }
+                    } else if (zn > z && valid(zn)) {
+                        high_edge = true;
+                    }
+                }
+                mask[i] = high_edge ? 1U : 0U;
+                if (high_edge) {
+                    dirs[i] |= away_flag;
+                    high_edges.push_back(i);
+                }
+            }
+            frontier.swap(next);
+        }
+        // Gradient away from higher terrain: BFS distance from the high edges (1 at the edge).
+        // 0 where a flat has no higher edge.
+        frontier.swap(high_edges);
+        while (!frontier.empty()) {
+            next.clear();
+            for (const std::size_t i : frontier) {
+                const std::size_t c = i % w;
+                const std::size_t r = i / w;
+                for (std::uint8_t k = 1; k <= 8; ++k) {
+                    const std::size_t n = near(c, r, k);
+                    if (n != no_cell && dirs[n] == (flat_flag | seen_flag) && dem[n] == z) {
+                        dirs[n] |= away_flag;
+                        mask[n] = mask[i] + 1;
+                        next.push_back(n);
+                    }
+                }
+            }
+            frontier.swap(next);
+        }
+        // Gradient toward lower terrain: BFS distance t from the low edges. Combined value
+        // 2 t - away; the constant "highest away value of the flat" of Barnes et al. cancels
+        // when cells of one flat are compared, so it is left out.
+        for (const std::size_t i : low_edges) {
+            dirs[i] = static_cast<std::uint8_t>(dirs[i] & ~low_edge_flag);
+        }
+        frontier.swap(low_edges);
+        std::int64_t t = 0;
+        while (!frontier.empty()) {
+            ++t;
+            next.clear();
+            for (const std::size_t i : frontier) {
+                const std::size_t c = i % w;
+                const std::size_t r = i / w;
+                for (std::uint8_t k = 1; k <= 8; ++k) {
+                    const std::size_t n = near(c, r, k);
+                    if (n != no_cell && (dirs[n] & (flat_flag | visited_flag)) == flat_flag &&
+                        dem[n] == z) {
+                        dirs[n] |= visited_flag;
+                        mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
+                        next.push_back(n);
+                    }
+                }
+            }
+            frontier.swap(next);
+        }
+    };
     for (std::size_t i = 0; i < dem.size(); ++i) {
         if (dirs[i] == d8::none && valid(dem[i])) {
-            dirs[i] = flat_flag;
             any_flat = true;
+            resolve_flat(i);
         }
     }
     if (!any_flat) {
         return;
     }
-    // Flat cells are found again by scanning for flat_flag (a byte test), rather than kept in
-    // a list that could hold most of the grid.
     const auto for_each_flat = [&](auto body) {
         for (std::size_t i = 0; i < dem.size(); ++i) {
             if ((dirs[i] & flat_flag) != 0) {
@@ -270,84 +390,6 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             }
         }
     };
-    // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
-    // with a bias of 2^31 so that unsigned comparisons order it like the signed value.
-    constexpr std::int64_t bias = std::int64_t{1} << 31;
-    if (mask.width() != w || mask.height() != h) {
-        mask = Grid<std::uint32_t>(w, h, 0);
-    } else {
-        std::fill(mask.cells().begin(), mask.cells().end(), 0U);
-    }
-    for_each_flat([&](std::size_t i) {
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = near(c, r, k);
-            if (n != no_cell && valid(dem[n]) && dem[n] > dem[i]) {
-                frontier.push_back(i);
-                mask[i] = 1;
-                break;
-            }
-        }
-    });
-    // Gradient away from higher terrain: BFS distance from the high edges (1 at the edge),
-    // within each flat (equal elevation, flat cells). 0 where a flat has no higher edge.
-    std::vector<std::size_t> next;
-    while (!frontier.empty()) {
-        next.clear();
-        for (const std::size_t i : frontier) {
-            const std::size_t c = i % w;
-            const std::size_t r = i / w;
-            for (std::uint8_t k = 1; k <= 8; ++k) {
-                const std::size_t n = near(c, r, k);
-                if (n != no_cell && dirs[n] == flat_flag && mask[n] == 0 && dem[n] == dem[i]) {
-                    mask[n] = mask[i] + 1;
-                    next.push_back(n);
-                }
-            }
-        }
-        frontier.swap(next);
-    }
-    // Gradient toward lower terrain: BFS distance t from the low edges (cells with a direction
-    // next to a flat cell of the same elevation). Combined value 2 t - away; the constant
-    // "highest away value of the flat" of Barnes et al. cancels when cells of one flat are
-    // compared, so it is left out.
-    constexpr std::uint8_t visited_flag = 0x20;
-    // Low edges are found from the flat cells (far fewer than all cells, usually), marked with
-    // low_edge_flag so that each is listed once.
-    constexpr std::uint8_t low_edge_flag = 0x80;
-    frontier.clear();
-    for_each_flat([&](std::size_t i) {
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = near(c, r, k);
-            if (n != no_cell && dirs[n] != d8::none &&
-                (dirs[n] & (flat_flag | low_edge_flag)) == 0 && dem[n] == dem[i]) {
-                dirs[n] |= low_edge_flag;
-                frontier.push_back(n);
-            }
-        }
-    });
-    std::sort(frontier.begin(), frontier.end()); // the same order whatever the scan found first
-    std::int64_t t = 0;
-    while (!frontier.empty()) {
-        ++t;
-        next.clear();
-        for (const std::size_t i : frontier) {
-            const std::size_t c = i % w;
-            const std::size_t r = i / w;
-            for (std::uint8_t k = 1; k <= 8; ++k) {
-                const std::size_t n = near(c, r, k);
-                if (n != no_cell && dirs[n] == flat_flag && dem[n] == dem[i]) {
-                    dirs[n] = flat_flag | visited_flag;
-                    mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
-                    next.push_back(n);
-                }
-            }
-        }
-        frontier.swap(next);
-    }
     // Directions of flat cells: to a low edge when one is adjacent, otherwise to the flat
     // neighbour of smallest combined value below the cell's own.
     for_each_flat([&](std::size_t i) {
@@ -396,12 +438,15 @@ Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
 void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &lines,
                        unsigned threads, Grid<float> &work, Grid<std::uint8_t> &dirs,
                        Grid<std::uint32_t> &scratch) {
-    work = Grid<float>(dem.width(), dem.height());
-    work.copy_georef_from(dem);
+    // A copy (one pass, no zero fill first), then NaN on nodata cells.
+    work = dem;
+    work.nodata.reset(); // nodata is NaN in the copy
     const detail::ValidTest valid(dem);
     constexpr float nan = std::numeric_limits<float>::quiet_NaN();
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        work[i] = valid(dem[i]) ? dem[i] : nan;
+    for (float &v : work.cells()) {
+        if (!valid(v)) {
+            v = nan;
+        }
     }
     apply_breach_lines(work, lines);
     dirs = Grid<std::uint8_t>(dem.width(), dem.height(), 0);

@@ -3,6 +3,8 @@
 
 #include "internal.hpp"
 
+#include <array>
+#include <cstddef>
 #include <limits>
 #include <thread>
 
@@ -47,16 +49,51 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     for (std::uint8_t k = 1; k <= 8; ++k) {
         inv_dist[k] = 1.0 / step_length_m(k, dx, dy);
     }
+    std::array<std::ptrdiff_t, 9> offset{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        offset[k] =
+            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
+    }
     const detail::ValidTest valid(dem);
     detail::for_row_blocks(
         h, thread_count(threads), 64, [&](std::size_t, std::size_t r0, std::size_t r1) {
             for (std::size_t r = r0; r < r1; ++r) {
+                const bool inner_row = r > 0 && r + 1 < h;
                 for (std::size_t c = 0; c < w; ++c) {
                     const std::size_t i = r * w + c;
                     const float z = dem[i];
                     if (!valid(z)) {
                         dirs[i] = d8::none;
                         continue;
+                    }
+                    if (inner_row && c > 0 && c + 1 < w) {
+                        // Inside the raster's outer ring: every neighbour is on the grid. When
+                        // all are valid there is no way out to consider, and the steepest
+                        // descent below gives the same code as the general loop.
+                        double best_in = 0.0;
+                        std::uint8_t best_in_k = d8::none;
+                        bool all_valid = true;
+                        for (std::uint8_t k = 1; k <= 8; ++k) {
+                            const float zn = dem[static_cast<std::size_t>(
+                                static_cast<std::ptrdiff_t>(i) + offset[k])];
+                            if (!valid(zn)) {
+                                all_valid = false;
+                                break;
+                            }
+                            if (zn < z) {
+                                const double s =
+                                    (static_cast<double>(z) - static_cast<double>(zn)) *
+                                    inv_dist[k];
+                                if (s > best_in) {
+                                    best_in = s;
+                                    best_in_k = k;
+                                }
+                            }
+                        }
+                        if (all_valid) {
+                            dirs[i] = best_in_k;
+                            continue;
+                        }
                     }
                     double best = 0.0;
                     std::uint8_t best_k = d8::none;

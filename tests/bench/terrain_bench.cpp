@@ -2,7 +2,10 @@
 // Benchmark of the terrain chain (not a test: it prints figures, it asserts nothing).
 //
 //   terrain_bench generate <file.tif> <cells>   synthetic DEM (valleys, pits, flats), GeoTIFF
-//   terrain_bench run <file.tif> <points>       read + whole terrain chain with N design points
+//   terrain_bench run <file.tif> <points> [threads [check]]
+//                                               read + whole terrain chain with N design points;
+//                                               "check" also prints hashes of the directions
+//                                               and labels (to compare builds and thread counts)
 //   terrain_bench gdal-slope <file.tif> <out.tif>  GDAL's slope (GDALDEMProcessing) for scale
 //
 // Each command is meant to run in a fresh process (run_terrain_bench.sh does that), so the peak
@@ -138,7 +141,17 @@ catchpeak::Grid<float> read_dem(const std::string &path) {
     return dem;
 }
 
-int run(const std::string &path, std::size_t n_points, unsigned threads) {
+/// FNV-1a hash of a grid's bytes, to compare results between builds or thread counts.
+template <typename T> std::uint64_t fnv1a(const catchpeak::Grid<T> &g) {
+    std::uint64_t hash = 14695981039346656037ULL;
+    const auto *p = reinterpret_cast<const unsigned char *>(g.cells().data());
+    for (std::size_t b = 0; b < g.size() * sizeof(T); ++b) {
+        hash = (hash ^ p[b]) * 1099511628211ULL;
+    }
+    return hash;
+}
+
+int run(const std::string &path, std::size_t n_points, unsigned threads, bool check) {
     GDALAllRegister(); // libraries and drivers loaded before the baseline is taken
     const double rss0 = peak_rss_bytes();
     const double cpu0 = cpu_seconds();
@@ -160,6 +173,7 @@ int run(const std::string &path, std::size_t n_points, unsigned threads) {
     s.snap_radius_m = 50.0;
     s.stream_threshold_m2 = 1.0e6;
     s.threads = threads;
+    s.keep_directions = check; // costs a byte a cell: only when hashes are asked for
     std::vector<std::pair<std::string, double>> steps;
     auto last = Clock::now();
     std::string last_step;
@@ -192,6 +206,14 @@ int run(const std::string &path, std::size_t n_points, unsigned threads) {
         breakdown += fmt::format(" [{}]={:.3f}", name, secs);
     }
     fmt::print("{}\n", breakdown);
+    if (check) {
+        double slope_sum = 0.0;
+        for (const auto &p : result.points) {
+            slope_sum += p.mean_slope_m_per_m + p.longest_flow_path.length_m + p.area_m2;
+        }
+        fmt::print("CHECK directions_fnv={:016x} labels_fnv={:016x} point_sum={:.17g}\n",
+                   fnv1a(result.directions), fnv1a(result.labels), slope_sum);
+    }
     return 0;
 }
 
@@ -232,14 +254,16 @@ int main(int argc, char **argv) {
         }
         if (a.size() >= 3 && a[0] == "run") {
             const unsigned threads = a.size() >= 4 ? static_cast<unsigned>(std::stoul(a[3])) : 0U;
-            return run(a[1], std::stoull(a[2]), threads);
+            const bool check = a.size() >= 5 && a[4] == "check";
+            return run(a[1], std::stoull(a[2]), threads, check);
         }
         if (a.size() >= 3 && a[0] == "gdal-slope") {
             return gdal_slope(a[1], a[2]);
         }
-        std::fputs("usage: terrain_bench generate <tif> <cells> | run <tif> <points> [threads] | "
-                   "gdal-slope <tif> <out.tif>\n",
-                   stderr);
+        std::fputs(
+            "usage: terrain_bench generate <tif> <cells> | run <tif> <points> [threads [check]] | "
+            "gdal-slope <tif> <out.tif>\n",
+            stderr);
         return 2;
     } catch (const std::exception &e) {
         std::fprintf(stderr, "terrain_bench: %s\n", e.what());

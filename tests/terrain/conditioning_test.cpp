@@ -167,6 +167,31 @@ TEST(Conditioning, FlatsDrainTowardLowerTerrainAwayFromHigher) {
     }
 }
 
+TEST(Conditioning, TwoFlatsSharingOneOutletCellBothDrainThroughIt) {
+    // Two flats of 10 m (columns 1-3 and 5-7, rows 1-4) inside 20 m walls, not connected to
+    // each other through flat cells. Their only way out is one 10 m cell below the dividing
+    // wall, touching a corner of each flat, which drains to a 5 m cell on the raster edge (no
+    // flat cell touches that one). Both flats use the same outlet cell, so each must get it
+    // when flats are resolved one at a time.
+    auto dem = test::blank_dem(9, 7);
+    for (std::size_t r = 0; r < dem.height(); ++r) {
+        for (std::size_t c = 0; c < dem.width(); ++c) {
+            const bool wall = c == 0 || c == 4 || c == 8 || r == 0 || r >= 5;
+            dem(c, r) = wall ? 20.0F : 10.0F;
+        }
+    }
+    dem(4, 5) = 10.0F; // the shared outlet cell
+    dem(4, 6) = 5.0F;  // on the raster edge
+    const auto dirs = conditioned_directions(dem, {}, 1);
+    for (std::size_t r = 1; r <= 4; ++r) {
+        for (const std::size_t c : {1U, 2U, 3U, 5U, 6U, 7U}) {
+            ASSERT_NE(dirs(c, r), d8::none) << "col " << c << " row " << r;
+            EXPECT_EQ(test::path_end(dirs, dirs.index(c, r)), dirs.index(4, 6))
+                << "col " << c << " row " << r;
+        }
+    }
+}
+
 TEST(Conditioning, RasterizedPolylineIsAnEightConnectedChain) {
     const auto dem = test::blank_dem(40, 30);
     // A polyline with a shallow and a steep leg, in CRS metres (cells 10 m, origin 1000, 5000).
