@@ -13,6 +13,7 @@
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/report/outputs.hpp"
+#include "catchpeak/report/sheet.hpp"
 
 #include <fmt/format.h>
 
@@ -47,26 +48,20 @@ void not_yet_available(const Project &p, Problems &problems) {
             "catchments from a DEM cannot be delineated by this build yet",
             "a catchment table ('catchment_table')"));
     }
-    for (const std::string m : {"tr55_graphical", "scs_unit_hydrograph"}) {
-        if (p.uses_method(m)) {
-            problems.add(input_message(pf + ": [methods] peak",
-                                       fmt::format("peak method '{}' is not in this build yet", m),
-                                       "\"rational\""));
-        }
-    }
-    auto tc_ok = [](const std::string &m) { return m == "kirpich" || m == "given"; };
+    auto tc_ok = [](const std::string &m) {
+        return m == "kirpich" || m == "given" || m == "nrcs_lag";
+    };
+    const std::string accepted = "\"kirpich\", \"nrcs_lag\", or \"given\" per design point";
     if (!tc_ok(p.methods.tc_method)) {
         problems.add(input_message(
             pf + ": [methods] tc",
-            fmt::format("tc method '{}' is not in this build yet", p.methods.tc_method),
-            "\"kirpich\", or \"given\" per design point"));
+            fmt::format("tc method '{}' is not in this build yet", p.methods.tc_method), accepted));
     }
     for (const auto &o : p.methods.points) {
         if (o.tc_method && !tc_ok(*o.tc_method)) {
-            problems.add(
-                input_message(fmt::format("{}:{}: [[methods.point]] tc", pf, o.line),
-                              fmt::format("tc method '{}' is not in this build yet", *o.tc_method),
-                              "\"kirpich\" or \"given\""));
+            problems.add(input_message(
+                fmt::format("{}:{}: [[methods.point]] tc", pf, o.line),
+                fmt::format("tc method '{}' is not in this build yet", *o.tc_method), accepted));
         }
     }
     if (p.uses_table() && p.inputs.land_cover) {
@@ -80,23 +75,11 @@ void not_yet_available(const Project &p, Problems &problems) {
 } // namespace
 
 report::RunResults compute_from_table(const Project &p, const std::vector<TableCatchment> &rows,
-                                      const rain::Idf *idf,
-                                      const hydro::FrequencyFactorTable &frequency_factors) {
+                                      const HydrologyTables &tables) {
     report::RunResults r;
     r.project = p.info;
-    r.references = {
-        {"Kirpich (1940)",
-         "Kirpich, Z.P. (1940). Time of concentration of small agricultural watersheds. Civil "
-         "Engineering 10(6), 362."},
-        {"TxDOT Hydraulic Design Manual", "Texas Department of Transportation, Hydraulic Design "
-                                          "Manual, chapter 4 Hydrology."},
-    };
-    r.caution_notes = {"Every result must be reviewed by a licensed professional engineer before "
-                       "it is used for design; the local drainage code governs."};
+    r.caution_notes = report::default_caution_notes();
 
-    HydrologyTables tables;
-    tables.idf = idf;
-    tables.frequency_factors = &frequency_factors;
     for (const auto &c : rows) {
         report::DesignPointResult dp;
         dp.id = c.id;
@@ -133,6 +116,7 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
             fmt::format("project input ({}, line {})",
                         p.inputs.catchment_table ? p.inputs.catchment_table->given : "", c.line);
         compute_point_hydrology(p, in, tables, dp);
+        add_method_references(p, dp, r.references);
         r.points.push_back(std::move(dp));
     }
     return r;
@@ -148,19 +132,12 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         progress << "catchpeak: reading " << p.inputs.catchment_table->given << '\n';
     }
     const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
-    std::optional<rain::Idf> idf;
-    if (p.rainfall.idf) {
-        idf = io::read_idf_csv(p.rainfall.idf->resolved);
-    }
-    hydro::FrequencyFactorTable cf_table;
-    if (p.uses_method("rational")) {
-        cf_table = io::read_frequency_factor_table(config_dir() / "rational_frequency_factors.csv");
-    }
+    const LoadedTables tables = load_hydrology_tables(p, config_dir());
     if (!quiet) {
         progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
                                 rows.size(), p.rainfall.return_periods_yr.size());
     }
-    report::RunResults r = compute_from_table(p, rows, idf ? &*idf : nullptr, cf_table);
+    report::RunResults r = compute_from_table(p, rows, tables.view());
 
     // The stamp: what was run, on what. Paths as written in the project file.
     r.stamp.tool_version = std::string(version());
@@ -181,10 +158,9 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     add("CN table", p.inputs.cn_table);
     add("IDF", p.rainfall.idf);
     add("annual maximum series", p.rainfall.annual_maximum_series);
-    if (p.uses_method("rational")) {
-        const auto cf = config_dir() / "rational_frequency_factors.csv";
+    for (const auto &[role, rel] : tables.config_files) {
         r.stamp.inputs.push_back(
-            {"frequency factor table", "config/rational_frequency_factors.csv", sha256_file(cf)});
+            {role, (fs::path("config") / rel).generic_string(), sha256_file(config_dir() / rel)});
     }
     return r;
 }

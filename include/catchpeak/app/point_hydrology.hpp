@@ -3,11 +3,14 @@
 
 #include "catchpeak/app/project.hpp"
 #include "catchpeak/hydro/tables.hpp"
+#include "catchpeak/rain/design_storm.hpp"
 #include "catchpeak/rain/idf.hpp"
 #include "catchpeak/report/results.hpp"
 
+#include <filesystem>
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 /// The hydrology of one design point: time of concentration and design peaks for every return
@@ -36,9 +39,34 @@ struct PointInputs {
 
 /// The method tables a run has loaded. Pointers may be null when no chosen method needs them.
 struct HydrologyTables {
-    const rain::Idf *idf = nullptr;
-    const hydro::FrequencyFactorTable *frequency_factors = nullptr;
+    const rain::Idf *idf = nullptr;                                      ///< Rational Method
+    const hydro::FrequencyFactorTable *frequency_factors = nullptr;      ///< Rational Method
+    const hydro::PeakCoefficientTable *peak_coefficients = nullptr;      ///< TR-55 graphical
+    const hydro::PondFactorTable *pond_factors = nullptr;                ///< TR-55 graphical
+    const hydro::DimensionlessUnitHydrograph *unit_hydrograph = nullptr; ///< SCS UH
+    const rain::StormDistribution *storm = nullptr; ///< the project's NRCS 24-hour storm
 };
+
+/// Loads the tables the project's methods need from the configuration folder `config`
+/// (config_dir()) and the project's IDF. Tables no chosen method needs stay empty.
+struct LoadedTables {
+    std::optional<rain::Idf> idf;
+    hydro::FrequencyFactorTable frequency_factors;
+    hydro::PeakCoefficientTable peak_coefficients;
+    hydro::PondFactorTable pond_factors;
+    hydro::DimensionlessUnitHydrograph unit_hydrograph;
+    std::optional<rain::StormDistribution> storm;
+    /// Each file read, (role, path relative to the config folder or as given), for the stamp.
+    std::vector<std::pair<std::string, std::filesystem::path>> config_files;
+    /// Pointers into this object; valid while it lives and is not moved.
+    [[nodiscard]] HydrologyTables view() const;
+};
+[[nodiscard]] LoadedTables load_hydrology_tables(const Project &project,
+                                                 const std::filesystem::path &config);
+
+/// Adds the published sources the design point's methods used to `refs`, each once (by key).
+void add_method_references(const Project &project, const report::DesignPointResult &dp,
+                           std::vector<report::Reference> &refs);
 
 /// Computes tc and the design peaks of one design point with the project's methods (and the
 /// point's overrides in [[methods.point]]). Appends the calculation lines to dp.lines, numbers
