@@ -230,7 +230,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         const double p_mm = depth->second;
         const double cn = *in.cn;
         lines.note(
-            fmt::format("24-hour rainfall depth, {}-year", sig(rp)),
+            fmt::format("24-hour rainfall depth, {}-year", rp),
             fmt::format("P = {}", depth_text(p_mm, us)),
             fmt::format("project input ({}, [rainfall] depths_24h)", p.file.filename().string()),
             us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
