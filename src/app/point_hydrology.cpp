@@ -191,6 +191,13 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
                           "a CN for the SCS Curve Number methods (column 'cn')");
     }
+    if (uses("tr55_graphical") && ratio == hydro::IaRatio::r005) {
+        lines.warn("Ia = 0.05 S with the TR-55 graphical method",
+                   "the unit peak discharge coefficients were derived with Ia = 0.2 S; with "
+                   "Ia = 0.05 S the ratio Ia/P is outside the basis of the table and the peak "
+                   "is an extrapolation of the method",
+                   "TR-55 (1986) ch. 4");
+    }
     if (uses("tr55_graphical")) {
         lines.note("Ponds and swamps",
                    "no share of ponds and swamps is given in the project: 0 %, Fp = 1",

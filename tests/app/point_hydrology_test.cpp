@@ -274,3 +274,19 @@ TEST(PointHydrology, RunWritesTheSheetWithTheHydrograph) {
     EXPECT_NE(s.str().find("\"scs_unit_hydrograph\""), std::string::npos);
     EXPECT_NE(s.str().find("\"excess_mm\""), std::string::npos);
 }
+
+TEST(PointHydrology, IaFivePercentWithTr55IsAWarning) {
+    const auto dir = catchpeak::test::scratch_dir("point_ia005");
+    Project p = load_project(scs_project(dir));
+    p.settings.initial_abstraction_ratio = 0.05;
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    bool warned = false;
+    for (const auto &l : point(r, "SP-1").lines.lines()) {
+        if (l.kind == catchpeak::LineKind::warning &&
+            l.label.find("Ia = 0.05 S with the TR-55") != std::string::npos) {
+            warned = true;
+        }
+    }
+    EXPECT_TRUE(warned);
+}
