@@ -3,6 +3,7 @@
 
 #include "catchpeak/app/delineate.hpp"
 #include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/app/recheck.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/version.hpp"
 
@@ -90,6 +91,27 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
             options.quiet = run_quiet;
             app::run_project(run_file, options, out, err);
             return to_int(ExitCode::success);
+        };
+    });
+
+    std::string recheck_dir;
+    std::string recheck_project;
+    auto *recheckc = app.add_subcommand(
+        "recheck", "Verify the inputs of a run, recompute it in memory and compare every "
+                   "calculation line; exit 0 only when everything is reproduced");
+    recheckc->add_option("OUTPUT_DIR", recheck_dir, "Output folder of a 'catchpeak run'")
+        ->required();
+    recheckc->add_option("--project", recheck_project,
+                         "The project file (default: the recorded one, beside the output folder)");
+    recheckc->callback([&] {
+        action = [&] {
+            app::RecheckOptions options;
+            if (!recheck_project.empty()) {
+                options.project_file = std::filesystem::path(recheck_project);
+            }
+            const auto report = app::recheck(recheck_dir, options);
+            out << app::format_recheck(report);
+            return to_int(report.all_reproduced() ? ExitCode::success : ExitCode::bad_input);
         };
     });
 

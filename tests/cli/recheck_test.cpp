@@ -1,0 +1,98 @@
+// SPDX-License-Identifier: MIT
+// `catchpeak recheck` on the command line: exit codes and what it prints.
+#include "catchpeak/cli/run.hpp"
+#include "catchpeak/core/error.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+
+#include <fstream>
+#include <sstream>
+#include <string>
+#include <vector>
+
+using catchpeak::ExitCode;
+namespace fs = std::filesystem;
+
+namespace {
+
+void write(const fs::path &path, const std::string &text) {
+    std::ofstream(path, std::ios::binary) << text;
+}
+
+struct Result {
+    int code;
+    std::string out;
+    std::string err;
+};
+
+Result cli(const std::vector<std::string> &args) {
+    std::ostringstream out;
+    std::ostringstream err;
+    const int code = catchpeak::cli::run(args, out, err);
+    return {code, out.str(), err.str()};
+}
+
+/// A small SI table-input project, run once; returns its output folder.
+fs::path project_run(const fs::path &dir) {
+    write(dir / "project.toml", "[project]\nname = \"Fern Court\"\nunits = \"SI\"\n"
+                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
+                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
+                                "[output]\nfolder = \"out\"\n");
+    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\n"
+                                  "A-1,1.0,100,2,0.6,10\n");
+    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n");
+    const auto r = cli({"run", (dir / "project.toml").string(), "--quiet"});
+    EXPECT_EQ(r.code, 0) << r.err;
+    return dir / "out";
+}
+
+} // namespace
+
+TEST(CliRecheck, UnchangedRunExitsZero) {
+    const auto out = project_run(catchpeak::test::scratch_dir("cli_recheck_ok"));
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
+    EXPECT_NE(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find("4 of 4 inputs unchanged"), std::string::npos) << r.out;
+}
+
+TEST(CliRecheck, ChangedInputExitsTwoAndNamesTheFile) {
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_changed");
+    const auto out = project_run(dir);
+    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\nA-1,1.2,100,2,0.6,10\n");
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
+    EXPECT_NE(r.out.find("catchment table 'catchments.csv'"), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find("line A-1-L1 differs"), std::string::npos) << r.out;
+    EXPECT_EQ(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+}
+
+TEST(CliRecheck, MissingFolderExitsTwoWithAMessage) {
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_missing");
+    const auto r = cli({"recheck", (dir / "nowhere").string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input));
+    EXPECT_NE(r.err.find("the output folder does not exist"), std::string::npos) << r.err;
+}
+
+TEST(CliRecheck, MissingResultsExitsTwoWithAMessage) {
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_no_results");
+    const auto out = project_run(dir);
+    fs::remove(out / "results.json");
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input));
+    EXPECT_NE(r.err.find("results.json"), std::string::npos) << r.err;
+}
+
+TEST(CliRecheck, ProjectOptionForAnOutputFolderElsewhere) {
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_project");
+    (void)project_run(dir);
+    const auto elsewhere = dir / "runs" / "one";
+    ASSERT_EQ(
+        cli({"run", (dir / "project.toml").string(), "--quiet", "--out", elsewhere.string()}).code,
+        0);
+    EXPECT_EQ(cli({"recheck", elsewhere.string()}).code, static_cast<int>(ExitCode::bad_input));
+    const auto r =
+        cli({"recheck", elsewhere.string(), "--project", (dir / "project.toml").string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
+}
