@@ -19,6 +19,7 @@
 //   = 0.55 x 270 / 360 = 148.5 / 360 = 0.4125 m3/s (exact arithmetic).
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/project.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "support/test_env.hpp"
@@ -111,7 +112,10 @@ TEST(CalcLinesGolden, TinyTableProjectMatchesTheHandComposedLines) {
     cf.rows = {{10.0, 1.0}, {25.0, 1.1}};
     cf.origin = {"cf.csv", "hand-made test table", "invented"};
 
-    const auto results = app::compute_from_table(project, rows, &idf, cf);
+    app::HydrologyTables tables;
+    tables.idf = &idf;
+    tables.frequency_factors = &cf;
+    const auto results = app::compute_from_table(project, rows, tables);
     ASSERT_EQ(results.points.size(), 1u);
     const auto &lines = results.points[0].lines.lines();
     ASSERT_EQ(lines.size(), expected().size());
