@@ -58,11 +58,12 @@ double natural_ground(double x, double y) {
     const double undulation = 1.5 * std::sin(x / 170.0) * std::cos(y / 230.0);
     const double channel = -1.2 * std::exp(-(d / 4.0) * (d / 4.0));
     // The valley is closed inside the DEM: near the west, north and south edges the ground
-    // falls towards the edge, so the divides (the valley head in the west, the ridges in the
-    // north and south) lie some 100 m inside and the catchment of the culvert is whole.
-    auto edge_drop = [](double dist_m) {
-        return 20.0 * std::exp(-(dist_m / 60.0) * (dist_m / 60.0));
-    };
+    // falls towards the edge, so the divides (the valley head some 150 m inside the west edge,
+    // the ridges some 100 m inside the north and south edges) close the catchment of the
+    // culvert inside the DEM.
+    // The drop falls off exponentially inwards, so that it is steep at the edge itself (a
+    // drop flat at the edge would let the valley's own fall carry water in from the edge).
+    auto edge_drop = [](double dist_m) { return 20.0 * std::exp(-dist_m / 40.0); };
     const double rim = -edge_drop(x) - edge_drop(y) - edge_drop(static_cast<double>(height) - y);
     return 130.0 - 0.012 * x + side + undulation + channel + rim;
 }
@@ -83,6 +84,9 @@ double ground(double x, double y) {
         }
         if (y > 1195.0) {
             z += 1.0; // back-lot berm: the hillside above is led around the subdivision
+        }
+        if (y < 705.0 && !on_kestrel_way(x, y)) {
+            z += 1.0; // berm along the lower edge: the lots drain to Kestrel Way, not downhill
         }
     } else if (on_kestrel_way(x, y)) {
         z -= 0.15; // the street and its outfall channel down to the creek bank

@@ -41,9 +41,14 @@ std::vector<report::Polygon> rings_of(const std::vector<unsigned char> &wkb) {
     return out;
 }
 
+/// Vertical exaggeration of the hillshade: catchments of drainage design are often gentle (1 to
+/// 5 %), and a true-scale hillshade of them is a flat grey.
+constexpr double hillshade_z_factor = 4.0;
+
 /// A standard hillshade (light from the north-west, 45 degrees above the horizon; Horn's
-/// gradient) of the DEM window [min_x, max_x] x [min_y, max_y], at most hillshade_max_px a side.
-/// Only a backdrop for the map: no number on the sheet depends on it.
+/// gradient, heights exaggerated hillshade_z_factor times) of the DEM window [min_x, max_x] x
+/// [min_y, max_y], at most hillshade_max_px a side. Only a backdrop for the map: no number on the
+/// sheet depends on it.
 void fill_hillshade(const Grid<float> &dem, double min_x, double min_y, double max_x, double max_y,
                     report::MapData &map) {
     const auto &t = dem.transform;
@@ -82,7 +87,7 @@ void fill_hillshade(const Grid<float> &dem, double min_x, double min_y, double m
         c = std::clamp(c, 0LL, w - 1);
         r = std::clamp(r, 0LL, h - 1);
         const float v = dem(static_cast<std::size_t>(c), static_cast<std::size_t>(r));
-        return std::isnan(v) ? fallback : static_cast<double>(v);
+        return std::isnan(v) ? fallback : hillshade_z_factor * static_cast<double>(v);
     };
     const double sdx = dx * static_cast<double>(step);
     const double sdy = dy * static_cast<double>(step);
@@ -374,6 +379,10 @@ DemPoints compute_dem_points(const Project &p, const rain::Idf *idf,
         if (!pt.upstream_points.empty() && !d.local_wkb[i].empty()) {
             const land::CatchmentLand local =
                 overlay.weight(d.local_wkb[i], pt.id + " local", pt.mean_slope_m_per_m);
+            dp.lines.note("Local catchment (own part, without the catchments of the design "
+                          "points upstream): land weighting for information",
+                          "the peaks of this design point use the total catchment above",
+                          d8_source);
             dp.lines.append(local.lines);
         }
         dp.map = make_map(d, i);

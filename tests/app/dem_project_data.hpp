@@ -98,10 +98,12 @@ inline std::filesystem::path make_dem_project(const std::filesystem::path &dir,
     auto rect = [](double ax, double ay, double bx, double by) {
         return fmt::format("POLYGON(({0} {1},{2} {1},{2} {3},{0} {3},{0} {1}))", ax, ay, bx, by);
     };
-    make_layer(dir / "land.gpkg", "land", {"class"},
+    // Without a CRS: a shapefile without its .prj (a GeoPackage always records one).
+    const std::string land_file = o.land_crs.empty() ? "land.shp" : "land.gpkg";
+    make_layer(dir / land_file, "land", {"class"},
                {{rect(S::x0, y_split, x1, S::y0), {"commercial"}},
                 {rect(S::x0, y1, x1, y_split), {o.residential_class}}},
-               o.land_crs);
+               o.land_crs, o.land_crs.empty() ? "ESRI Shapefile" : "GPKG");
     make_layer(dir / "soils.gpkg", "soils", {"hsg"}, {{rect(S::x0, y1, x1, S::y0), {"B"}}},
                "EPSG:32633");
     {
@@ -118,7 +120,8 @@ units = "SI"
 dem = "dem.tif"
 design_points = "points.gpkg"
 id_field = "id"
-land_cover = "land.gpkg"
+land_cover = ")"
+         << land_file << R"("
 class_field = "class"
 soils = "soils.gpkg"
 soil_group_field = "hsg"
