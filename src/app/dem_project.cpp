@@ -276,44 +276,9 @@ CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
     return lines;
 }
 
-/// Hydrology of one DEM catchment: the steps of a table catchment (tc, intensity, peaks) on the
-/// figures delineated and weighted. The table's echo lines of the inputs are left out: the
-/// terrain and land lines above give them with their sources.
-void add_hydrology(const Project &p, const TableCatchment &row, const rain::Idf *idf,
-                   const hydro::FrequencyFactorTable &cf, report::DesignPointResult &dp) {
-    static const std::set<std::string> echoed = {"Catchment area", "Longest flow path length",
-                                                 "Slope of the longest flow path",
-                                                 "Runoff coefficient", "Curve number"};
-    report::RunResults one = compute_from_table(p, {row}, idf, cf);
-    auto &h = one.points.front();
-    std::map<std::string, std::size_t> index_of_old_id;
-    for (std::size_t k = 0; k < h.lines.size(); ++k) {
-        index_of_old_id[h.lines.lines()[k].id] = k;
-    }
-    std::vector<std::size_t> new_index(h.lines.size(), 0);
-    for (std::size_t k = 0; k < h.lines.size(); ++k) {
-        const auto &l = h.lines.lines()[k];
-        if (l.kind == LineKind::note && echoed.count(l.label) != 0) {
-            continue;
-        }
-        new_index[k] = dp.lines.size();
-        dp.lines.add(l);
-    }
-    number_lines(dp.lines, dp.id);
-    for (auto &pk : h.peaks) {
-        if (auto it = index_of_old_id.find(pk.line_id); it != index_of_old_id.end()) {
-            pk.line_id = dp.lines.lines()[new_index[it->second]].id;
-        }
-    }
-    dp.tc_min = h.tc_min;
-    dp.tc_method = h.tc_method;
-    dp.peaks = std::move(h.peaks);
-}
-
 } // namespace
 
-DemPoints compute_dem_points(const Project &p, const rain::Idf *idf,
-                             const hydro::FrequencyFactorTable &frequency_factors,
+DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
                              std::ostream *progress) {
     require_layers(p);
     DelineateOptions o;
@@ -387,19 +352,24 @@ DemPoints compute_dem_points(const Project &p, const rain::Idf *idf,
         }
         dp.map = make_map(d, i);
 
-        TableCatchment row;
-        row.id = pt.id;
-        row.area_m2 = pt.area_m2;
-        row.longest_flow_path_m = fp.length_m;
-        row.relief_m = fp.elevation_top_m - fp.elevation_outlet_m;
-        row.slope = fp.slope_m_per_m;
+        PointInputs in;
+        in.area_m2 = pt.area_m2;
+        in.longest_flow_path_m = fp.length_m;
+        in.slope = fp.slope_m_per_m;
+        in.mean_slope = pt.mean_slope_m_per_m;
         if (std::isfinite(dp.land.c_weighted)) {
-            row.c = dp.land.c_weighted;
+            in.c = dp.land.c_weighted;
         }
         if (std::isfinite(dp.land.cn_weighted)) {
-            row.cn = dp.land.cn_weighted;
+            in.cn = dp.land.cn_weighted;
         }
-        add_hydrology(p, row, idf, frequency_factors, dp);
+        for (const auto &part : dp.land.parts) {
+            in.land_parts.push_back(
+                {fmt::format("{}, soil group {}", part.land_class, part.soil_group), part.area_m2,
+                 part.cn});
+        }
+        in.source = "from the lines above: delineation (DEM) and land weighting";
+        compute_point_hydrology(p, in, tables, dp);
         out.points.push_back(std::move(dp));
     }
     return out;

@@ -249,8 +249,13 @@ void check_project(const Project &p, Problems &problems) {
                     (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
                 const bool rational =
                     std::find(peaks.begin(), peaks.end(), "rational") != peaks.end();
+                const std::string &tc_method =
+                    (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
+                const bool given_tc = (o != nullptr && o->tc_min && !o->tc_method) ||
+                                      (c.tc_min && (o == nullptr || !o->tc_method));
                 const bool scs = std::any_of(peaks.begin(), peaks.end(),
-                                             [](const auto &m) { return m != "rational"; });
+                                             [](const auto &m) { return m != "rational"; }) ||
+                                 (tc_method == "nrcs_lag" && !given_tc);
                 if (rational && !c.c && !land_layers) {
                     problems.add(input_message(
                         where, fmt::format("catchment '{}' has no runoff coefficient", c.id),

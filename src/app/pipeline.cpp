@@ -2,6 +2,7 @@
 #include "catchpeak/app/pipeline.hpp"
 
 #include "catchpeak/app/dem_project.hpp"
+#include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
@@ -13,6 +14,7 @@
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/report/outputs.hpp"
+#include "catchpeak/report/sheet.hpp"
 
 #include <fmt/format.h>
 
@@ -30,17 +32,6 @@ namespace fs = std::filesystem;
 
 namespace {
 
-bool is_us(const Project &p) { return p.info.units == units::System::us_customary; }
-
-const PointOverride *override_for(const Project &p, const std::string &id) {
-    for (const auto &o : p.methods.points) {
-        if (o.id == id) {
-            return &o;
-        }
-    }
-    return nullptr;
-}
-
 std::string utc_now() {
     const std::time_t t = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
     std::tm tm{};
@@ -52,26 +43,20 @@ std::string utc_now() {
 /// Methods and inputs this build cannot compute yet, each a problem naming the key.
 void not_yet_available(const Project &p, Problems &problems) {
     const std::string pf = p.file.string();
-    for (const std::string m : {"tr55_graphical", "scs_unit_hydrograph"}) {
-        if (p.uses_method(m)) {
-            problems.add(input_message(pf + ": [methods] peak",
-                                       fmt::format("peak method '{}' is not in this build yet", m),
-                                       "\"rational\""));
-        }
-    }
-    auto tc_ok = [](const std::string &m) { return m == "kirpich" || m == "given"; };
+    auto tc_ok = [](const std::string &m) {
+        return m == "kirpich" || m == "given" || m == "nrcs_lag";
+    };
+    const std::string accepted = "\"kirpich\", \"nrcs_lag\", or \"given\" per design point";
     if (!tc_ok(p.methods.tc_method)) {
         problems.add(input_message(
             pf + ": [methods] tc",
-            fmt::format("tc method '{}' is not in this build yet", p.methods.tc_method),
-            "\"kirpich\", or \"given\" per design point"));
+            fmt::format("tc method '{}' is not in this build yet", p.methods.tc_method), accepted));
     }
     for (const auto &o : p.methods.points) {
         if (o.tc_method && !tc_ok(*o.tc_method)) {
-            problems.add(
-                input_message(fmt::format("{}:{}: [[methods.point]] tc", pf, o.line),
-                              fmt::format("tc method '{}' is not in this build yet", *o.tc_method),
-                              "\"kirpich\" or \"given\""));
+            problems.add(input_message(
+                fmt::format("{}:{}: [[methods.point]] tc", pf, o.line),
+                fmt::format("tc method '{}' is not in this build yet", *o.tc_method), accepted));
         }
     }
     if (p.uses_table() && p.inputs.land_cover) {
@@ -85,20 +70,10 @@ void not_yet_available(const Project &p, Problems &problems) {
 } // namespace
 
 report::RunResults compute_from_table(const Project &p, const std::vector<TableCatchment> &rows,
-                                      const rain::Idf *idf,
-                                      const hydro::FrequencyFactorTable &frequency_factors) {
+                                      const HydrologyTables &tables) {
     report::RunResults r;
     r.project = p.info;
-    const bool us = is_us(p);
-    r.references = {
-        {"Kirpich (1940)",
-         "Kirpich, Z.P. (1940). Time of concentration of small agricultural watersheds. Civil "
-         "Engineering 10(6), 362."},
-        {"TxDOT Hydraulic Design Manual", "Texas Department of Transportation, Hydraulic Design "
-                                          "Manual, chapter 4 Hydrology."},
-    };
-    r.caution_notes = {"Every result must be reviewed by a licensed professional engineer before "
-                       "it is used for design; the local drainage code governs."};
+    r.caution_notes = report::default_caution_notes();
 
     for (const auto &c : rows) {
         report::DesignPointResult dp;
@@ -125,105 +100,18 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
         dp.land.c_table = c.c ? "catchment table" : "";
         dp.land.cn_table = c.cn ? "catchment table" : "";
 
-        const std::string table_src =
+        PointInputs in;
+        in.area_m2 = c.area_m2;
+        in.longest_flow_path_m = c.longest_flow_path_m;
+        in.slope = c.slope;
+        in.c = c.c;
+        in.cn = c.cn;
+        in.tc_min = c.tc_min;
+        in.source =
             fmt::format("project input ({}, line {})",
                         p.inputs.catchment_table ? p.inputs.catchment_table->given : "", c.line);
-        auto &lines = dp.lines;
-        const double area_ha = units::m2_to_ha(c.area_m2);
-        const double area_ac = units::m2_to_acre(c.area_m2);
-        const double length_ft = units::m_to_ft(c.longest_flow_path_m);
-        if (us) {
-            lines.note("Catchment area", fmt::format("A = {} ac", sig(area_ac)), table_src, area_ac,
-                       "ac");
-            lines.note("Longest flow path length", fmt::format("L = {} ft", sig(length_ft)),
-                       table_src, length_ft, "ft");
-        } else {
-            lines.note("Catchment area", fmt::format("A = {} ha", sig(area_ha)), table_src, area_ha,
-                       "ha");
-            lines.note("Longest flow path length",
-                       fmt::format("L = {} m", sig(c.longest_flow_path_m)), table_src,
-                       c.longest_flow_path_m, "m");
-        }
-        lines.note("Slope of the longest flow path", fmt::format("S = {} m/m", sig(c.slope)),
-                   table_src, c.slope, us ? "ft/ft" : "m/m");
-        if (c.c) {
-            lines.note("Runoff coefficient", fmt::format("C = {}", sig(*c.c)), table_src, *c.c);
-        }
-        if (c.cn) {
-            lines.note("Curve number", fmt::format("CN = {}", sig(*c.cn)), table_src, *c.cn);
-        }
-
-        // Time of concentration.
-        const PointOverride *o = override_for(p, c.id);
-        std::string tc_method =
-            (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
-        double tc = 0.0;
-        if (o != nullptr && o->tc_min && (!o->tc_method || *o->tc_method == "given")) {
-            tc_method = "given";
-            tc = *o->tc_min;
-            lines.note(
-                "Time of concentration, given", fmt::format("tc = {} min", sig(tc)),
-                fmt::format("project input ({}, line {})", p.file.filename().string(), o->line), tc,
-                "min");
-        } else if (c.tc_min && (o == nullptr || !o->tc_method)) {
-            tc_method = "given";
-            tc = *c.tc_min;
-            lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)),
-                       table_src, tc, "min");
-        } else {
-            auto k = hydro::kirpich_tc_min(c.longest_flow_path_m, c.slope, c.area_m2, p.info.units);
-            lines.append(k.lines);
-            tc = k.value;
-        }
-        {
-            auto m = hydro::apply_minimum_tc(tc, p.settings.minimum_tc_min);
-            lines.append(m.lines);
-            tc = m.value;
-        }
-        dp.tc_min = tc;
-        dp.tc_method = tc_method;
-
-        const auto &peaks =
-            (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
-        const bool rational = std::find(peaks.begin(), peaks.end(), "rational") != peaks.end();
-        std::vector<std::size_t> q_line_index; // per peak, filled with its line id below
-        hydro::RationalSettings rational_settings;
-        rational_settings.max_area_m2 = units::ha_to_m2(p.settings.rational_area_limit_ha);
-        for (double rp : p.rainfall.return_periods_yr) {
-            if (!rational || idf == nullptr || !c.c) {
-                continue;
-            }
-            auto i = idf->intensity(tc, rp, p.info.units);
-            lines.append(i.lines);
-            auto cf = hydro::frequency_factor(frequency_factors, rp);
-            lines.append(cf.lines);
-            auto q = hydro::rational_peak_m3_s(*c.c, cf.value, i.value, c.area_m2, p.info.units,
-                                               rational_settings);
-            // The line that gives Q: the last calculation line of the Rational Method's lines.
-            std::size_t q_line = lines.size();
-            for (std::size_t k = 0; k < q.lines.size(); ++k) {
-                if (q.lines.lines()[k].kind == LineKind::calculation) {
-                    q_line = lines.size() + k;
-                }
-            }
-            q_line_index.push_back(q_line);
-            lines.append(q.lines);
-            report::Peak pk;
-            pk.return_period_yr = rp;
-            pk.method = "rational";
-            pk.q_m3_s = q.value;
-            pk.intermediates = {{"c", *c.c},
-                                {"cf", cf.value},
-                                {"intensity_mm_per_h", i.value},
-                                {"duration_min", tc}};
-            dp.peaks.push_back(std::move(pk));
-        }
-        number_lines(lines, dp.id);
-        for (std::size_t k = 0; k < dp.peaks.size(); ++k) {
-            if (q_line_index[k] < lines.size()) {
-                dp.peaks[k].line_id = lines.lines()[q_line_index[k]].id;
-            }
-        }
+        compute_point_hydrology(p, in, tables, dp);
+        add_method_references(p, dp, r.references);
         r.points.push_back(std::move(dp));
     }
     return r;
@@ -243,26 +131,21 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
         rows = read_catchment_table(p.inputs.catchment_table->resolved);
     }
-    std::optional<rain::Idf> idf;
-    if (p.rainfall.idf) {
-        idf = io::read_idf_csv(p.rainfall.idf->resolved);
-    }
-    hydro::FrequencyFactorTable cf_table;
-    if (p.uses_method("rational")) {
-        cf_table = io::read_frequency_factor_table(config_dir() / "rational_frequency_factors.csv");
-    }
+    const LoadedTables tables = load_hydrology_tables(p, config_dir());
     report::RunResults r;
     if (p.uses_table()) {
         if (!quiet) {
             progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
                                     rows.size(), p.rainfall.return_periods_yr.size());
         }
-        r = compute_from_table(p, rows, idf ? &*idf : nullptr, cf_table);
+        r = compute_from_table(p, rows, tables.view());
     } else {
-        r = compute_from_table(p, {}, nullptr, cf_table); // project info, references, notes
-        DemPoints dem =
-            compute_dem_points(p, idf ? &*idf : nullptr, cf_table, quiet ? nullptr : &progress);
+        r = compute_from_table(p, {}, tables.view()); // project info, references, notes
+        DemPoints dem = compute_dem_points(p, tables.view(), quiet ? nullptr : &progress);
         r.points = std::move(dem.points);
+        for (const auto &dp : r.points) {
+            add_method_references(p, dp, r.references);
+        }
         r.references.insert(r.references.end(), dem.references.begin(), dem.references.end());
         if (gpkg_layers != nullptr) {
             *gpkg_layers = std::move(dem.layers);
@@ -288,10 +171,9 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     add("CN table", p.inputs.cn_table);
     add("IDF", p.rainfall.idf);
     add("annual maximum series", p.rainfall.annual_maximum_series);
-    if (p.uses_method("rational")) {
-        const auto cf = config_dir() / "rational_frequency_factors.csv";
+    for (const auto &[role, rel] : tables.config_files) {
         r.stamp.inputs.push_back(
-            {"frequency factor table", "config/rational_frequency_factors.csv", sha256_file(cf)});
+            {role, (fs::path("config") / rel).generic_string(), sha256_file(config_dir() / rel)});
     }
     return r;
 }

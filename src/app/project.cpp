@@ -429,6 +429,8 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
                       accepted);
             continue;
         }
+        r.depth_24h_key = key;
+        r.depth_24h_line = static_cast<std::size_t>(n->source().begin.line);
         for (auto &&[k, v] : *tab) {
             double rp = 0.0;
             try {
@@ -614,10 +616,13 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
     if (scs && !p.rainfall.depth_24h_mm.empty()) {
         for (double rp : p.rainfall.return_periods_yr) {
             if (p.rainfall.depth_24h_mm.count(rp) == 0) {
-                problems.add(
-                    input_message(name + ": [rainfall] depths_24h",
-                                  fmt::format("no 24-hour depth for the {}-year return period", rp),
-                                  "one depth for every return period in return_periods_yr"));
+                problems.add(input_message(
+                    fmt::format("{}:{}: [rainfall] {}", name, p.rainfall.depth_24h_line,
+                                p.rainfall.depth_24h_key),
+                    fmt::format("no 24-hour depth for the {}-year return period", rp),
+                    fmt::format("one depth for every return period in return_periods_yr, e.g. "
+                                "\"{}\" = <depth>",
+                                rp)));
             }
         }
     }

@@ -268,7 +268,16 @@ const std::vector<BadCase> &cases() {
            "return_periods_yr = [2, 10]\nstorm_type = \"II\"\ndepths_24h_mm = { \"2\" = 70.0 }"},
           {"[\"rational\"]", "[\"rational\", \"tr55_graphical\"]"}},
          {},
-         {"no 24-hour depth for the 10-year return period"}},
+         {"project.toml:12: [rainfall] depths_24h_mm",
+          "no 24-hour depth for the 10-year return period"}},
+        {"depth_for_a_return_period_missing_run",
+         "run",
+         {{"return_periods_yr = [2, 10]",
+           "return_periods_yr = [2, 10]\nstorm_type = \"II\"\ndepths_24h_in = { \"2\" = 3.0 }"},
+          {"[\"rational\"]", "[\"scs_unit_hydrograph\"]"}},
+         {},
+         {"project.toml:12: [rainfall] depths_24h_in",
+          "no 24-hour depth for the 10-year return period"}},
         {"depth_key_not_a_return_period",
          "run",
          {{"return_periods_yr = [2, 10]",
@@ -382,6 +391,33 @@ TEST(ProjectCommands, CheckAndRunAValidProject) {
     EXPECT_TRUE(fs::exists(dir / "elsewhere" / "run-record.json"));
     EXPECT_FALSE(fs::exists(dir / "elsewhere" / ".results.json.partial"));
     EXPECT_NE(out.str().find("IN-2"), std::string::npos) << out.str();
+}
+
+TEST(ProjectCommands, CheckAndRunAcceptTheScsMethods) {
+    const auto dir = catchpeak::test::scratch_dir("good_scs_project");
+    std::string project = base_project;
+    const std::string rp = "return_periods_yr = [2, 10]";
+    project.replace(project.find(rp), rp.size(),
+                    rp + "\nstorm_type = \"II\"\ndepths_24h_mm = { \"2\" = 70.0, \"10\" = 110.0 }");
+    const std::string peak = "peak = [\"rational\"]";
+    project.replace(project.find(peak), peak.size(),
+                    "peak = [\"rational\", \"tr55_graphical\", \"scs_unit_hydrograph\"]");
+    const std::string tc = "tc = \"kirpich\"";
+    project.replace(project.find(tc), tc.size(), "tc = \"nrcs_lag\"");
+    write(dir / "project.toml", project);
+    write(dir / "catchments.csv", base_catchments);
+    write(dir / "idf.csv", base_idf);
+    std::ostringstream out;
+    std::ostringstream err;
+    EXPECT_EQ(catchpeak::cli::run({"check", (dir / "project.toml").string()}, out, err), 0)
+        << err.str();
+    EXPECT_EQ(catchpeak::cli::run({"run", (dir / "project.toml").string()}, out, err), 0)
+        << err.str();
+    std::ifstream in(dir / "out" / "summary.csv");
+    std::ostringstream s;
+    s << in.rdbuf();
+    EXPECT_NE(s.str().find("tr55_graphical"), std::string::npos) << s.str();
+    EXPECT_NE(s.str().find("scs_unit_hydrograph"), std::string::npos) << s.str();
 }
 
 TEST(ProjectCommands, InitRefusesToOverwrite) {

@@ -1,10 +1,9 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/project.hpp"
-#include "catchpeak/hydro/rational.hpp"
 #include "catchpeak/io/gpkg.hpp"
-#include "catchpeak/rain/idf.hpp"
 #include "catchpeak/report/results.hpp"
 
 #include <ostream>
@@ -25,8 +24,7 @@ struct DemPoints {
 /// land cover and soils over each total catchment (and each local part of a nested point),
 /// computes the hydrology, and fills the map of every point. `progress` may be null.
 /// Throws InputError for bad input (a point outside the DEM, a class missing from a table, ...).
-[[nodiscard]] DemPoints compute_dem_points(const Project &project, const rain::Idf *idf,
-                                           const hydro::FrequencyFactorTable &frequency_factors,
+[[nodiscard]] DemPoints compute_dem_points(const Project &project, const HydrologyTables &tables,
                                            std::ostream *progress);
 
 /// The checks of a DEM project that need the files but no computation: the DEM opens and has

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/app/inputs.hpp"
+#include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/project.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/io/gpkg.hpp"
@@ -25,12 +26,11 @@ struct RunOptions {
 };
 
 /// Computes every design point and return period of a project whose catchments come from a
-/// catchment table. Progress goes to `progress` (nothing when quiet).
-/// `idf` may be null when no method needs it; `frequency_factors` is the Cf table of the
-/// Rational Method.
-[[nodiscard]] report::RunResults
-compute_from_table(const Project &project, const std::vector<TableCatchment> &catchments,
-                   const rain::Idf *idf, const hydro::FrequencyFactorTable &frequency_factors);
+/// catchment table. `tables` holds the method tables the chosen methods need
+/// (load_hydrology_tables).
+[[nodiscard]] report::RunResults compute_from_table(const Project &project,
+                                                    const std::vector<TableCatchment> &catchments,
+                                                    const HydrologyTables &tables);
 
 /// Computes a whole project: checks it, reads its inputs, computes every design point.
 /// Throws InputError listing every problem found by the check.

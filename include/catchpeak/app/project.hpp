@@ -45,6 +45,8 @@ struct Rainfall {
     std::string storm_type; ///< "I", "IA", "II", "III"; empty when no SCS method is used
     /// 24-hour design depth per return period, mm (given in mm or in inches in the file).
     std::map<double, double> depth_24h_mm;
+    std::string depth_24h_key;      ///< "depths_24h_mm" or "depths_24h_in" as written; "" if none
+    std::size_t depth_24h_line = 0; ///< line of that key in the project file, for messages
     std::optional<InputPath> annual_maximum_series;
 };
 

@@ -1,0 +1,78 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/app/project.hpp"
+#include "catchpeak/hydro/tables.hpp"
+#include "catchpeak/rain/design_storm.hpp"
+#include "catchpeak/rain/idf.hpp"
+#include "catchpeak/report/results.hpp"
+
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+/// The hydrology of one design point: time of concentration and design peaks for every return
+/// period, from plain SI figures of its catchment.
+namespace catchpeak::app {
+
+/// One land part of a catchment, for the area-weighted runoff alternative of the SCS methods.
+struct LandPart {
+    std::string name; ///< e.g. the land-cover class and soil group, for the sheet
+    double area_m2 = 0.0;
+    double cn = 0.0;
+};
+
+/// The figures of one catchment, SI.
+struct PointInputs {
+    double area_m2 = 0.0;
+    double longest_flow_path_m = 0.0;
+    double slope = 0.0;               ///< m/m along the longest flow path
+    std::optional<double> mean_slope; ///< m/m, mean land slope of the catchment, if known
+    std::optional<double> c;          ///< runoff coefficient
+    std::optional<double> cn;         ///< curve number (composite)
+    std::vector<LandPart> land_parts; ///< empty: no area-weighted runoff alternative
+    std::optional<double> tc_min;     ///< a tc given in the catchment input
+    std::string source;               ///< source text for the input notes
+};
+
+/// The method tables a run has loaded. Pointers may be null when no chosen method needs them.
+struct HydrologyTables {
+    const rain::Idf *idf = nullptr;                                      ///< Rational Method
+    const hydro::FrequencyFactorTable *frequency_factors = nullptr;      ///< Rational Method
+    const hydro::PeakCoefficientTable *peak_coefficients = nullptr;      ///< TR-55 graphical
+    const hydro::PondFactorTable *pond_factors = nullptr;                ///< TR-55 graphical
+    const hydro::DimensionlessUnitHydrograph *unit_hydrograph = nullptr; ///< SCS UH
+    const rain::StormDistribution *storm = nullptr; ///< the project's NRCS 24-hour storm
+};
+
+/// Loads the tables the project's methods need from the configuration folder `config`
+/// (config_dir()) and the project's IDF. Tables no chosen method needs stay empty.
+struct LoadedTables {
+    std::optional<rain::Idf> idf;
+    hydro::FrequencyFactorTable frequency_factors;
+    hydro::PeakCoefficientTable peak_coefficients;
+    hydro::PondFactorTable pond_factors;
+    hydro::DimensionlessUnitHydrograph unit_hydrograph;
+    std::optional<rain::StormDistribution> storm;
+    /// Each file read, (role, path relative to the config folder or as given), for the stamp.
+    std::vector<std::pair<std::string, std::filesystem::path>> config_files;
+    /// Pointers into this object; valid while it lives and is not moved.
+    [[nodiscard]] HydrologyTables view() const;
+};
+[[nodiscard]] LoadedTables load_hydrology_tables(const Project &project,
+                                                 const std::filesystem::path &config);
+
+/// Adds the published sources the design point's methods used to `refs`, each once (by key).
+void add_method_references(const Project &project, const report::DesignPointResult &dp,
+                           std::vector<report::Reference> &refs);
+
+/// Computes tc and the design peaks of one design point with the project's methods (and the
+/// point's overrides in [[methods.point]]). Appends the calculation lines to dp.lines, numbers
+/// them with dp.id, and sets dp.tc_min, dp.tc_method and dp.peaks (each with the id of the line
+/// that gives its Q). Throws InputError when an input a chosen method needs is missing.
+void compute_point_hydrology(const Project &project, const PointInputs &in,
+                             const HydrologyTables &tables, report::DesignPointResult &dp);
+
+} // namespace catchpeak::app

@@ -1,0 +1,393 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/point_hydrology.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/core/units.hpp"
+#include "catchpeak/hydro/curve_number.hpp"
+#include "catchpeak/hydro/rational.hpp"
+#include "catchpeak/hydro/tc.hpp"
+#include "catchpeak/hydro/tr55_peak.hpp"
+#include "catchpeak/hydro/unit_hydrograph.hpp"
+#include "catchpeak/io/hydro_tables.hpp"
+#include "catchpeak/io/idf_csv.hpp"
+#include "catchpeak/io/storm_table.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <string_view>
+#include <utility>
+
+namespace catchpeak::app {
+
+namespace {
+
+const PointOverride *override_for(const Project &p, const std::string &id) {
+    for (const auto &o : p.methods.points) {
+        if (o.id == id) {
+            return &o;
+        }
+    }
+    return nullptr;
+}
+
+/// Index of the last calculation line of `part` once appended to `lines`.
+std::size_t last_calculation_index(const CalcLines &lines, const CalcLines &part) {
+    std::size_t at = lines.size();
+    for (std::size_t k = 0; k < part.size(); ++k) {
+        if (part.lines()[k].kind == LineKind::calculation) {
+            at = lines.size() + k;
+        }
+    }
+    return at;
+}
+
+/// Index of the last calculation line of `part` whose label starts with `label_start`, once
+/// appended to `lines`; lines.size() + part.size() when there is none.
+std::size_t calculation_index(const CalcLines &lines, const CalcLines &part,
+                              std::string_view label_start) {
+    std::size_t at = lines.size() + part.size();
+    for (std::size_t k = 0; k < part.size(); ++k) {
+        const auto &l = part.lines()[k];
+        if (l.kind == LineKind::calculation && l.label.rfind(label_start, 0) == 0) {
+            at = lines.size() + k;
+        }
+    }
+    return at;
+}
+
+hydro::IaRatio ia_ratio(const Project &p) {
+    return p.settings.initial_abstraction_ratio < 0.1 ? hydro::IaRatio::r005 : hydro::IaRatio::r020;
+}
+
+/// The depths of `h` re-binned to steps of `step_s` (linear within each step of `h`), `n` steps,
+/// zero after the end of `h`.
+std::vector<double> rebin(const rain::Hyetograph &h, double step_s, std::size_t n) {
+    std::vector<double> cum(h.depth_mm.size() + 1, 0.0);
+    for (std::size_t k = 0; k < h.depth_mm.size(); ++k) {
+        cum[k + 1] = cum[k] + h.depth_mm[k];
+    }
+    auto at = [&](double t_s) {
+        if (h.step_s <= 0.0 || h.depth_mm.empty()) {
+            return 0.0;
+        }
+        const double x = t_s / h.step_s;
+        if (x >= static_cast<double>(h.depth_mm.size())) {
+            return cum.back();
+        }
+        const auto k = static_cast<std::size_t>(std::floor(x));
+        return cum[k] + (x - static_cast<double>(k)) * h.depth_mm[k];
+    };
+    std::vector<double> out(n, 0.0);
+    for (std::size_t k = 0; k < n; ++k) {
+        out[k] = at(static_cast<double>(k + 1) * step_s) - at(static_cast<double>(k) * step_s);
+    }
+    return out;
+}
+
+/// Step of the design storm hyetograph handed to the unit hydrograph, min (it is re-binned to
+/// the unit hydrograph's duration D there). 6 min divides 24 h and follows the tables' detail.
+constexpr double storm_step_min = 6.0;
+
+std::string depth_text(double mm, bool us) {
+    return us ? fmt::format("{} in", sig(units::mm_to_in(mm))) : fmt::format("{} mm", sig(mm));
+}
+
+} // namespace
+
+void compute_point_hydrology(const Project &p, const PointInputs &in, const HydrologyTables &tables,
+                             report::DesignPointResult &dp) {
+    const bool us = p.info.units == units::System::us_customary;
+    const std::string &src = in.source;
+    auto &lines = dp.lines;
+    const double area_ha = units::m2_to_ha(in.area_m2);
+    const double area_ac = units::m2_to_acre(in.area_m2);
+    const double length_ft = units::m_to_ft(in.longest_flow_path_m);
+    if (us) {
+        lines.note("Catchment area", fmt::format("A = {} ac", sig(area_ac)), src, area_ac, "ac");
+        lines.note("Longest flow path length", fmt::format("L = {} ft", sig(length_ft)), src,
+                   length_ft, "ft");
+    } else {
+        lines.note("Catchment area", fmt::format("A = {} ha", sig(area_ha)), src, area_ha, "ha");
+        lines.note("Longest flow path length", fmt::format("L = {} m", sig(in.longest_flow_path_m)),
+                   src, in.longest_flow_path_m, "m");
+    }
+    lines.note("Slope of the longest flow path", fmt::format("S = {} m/m", sig(in.slope)), src,
+               in.slope, us ? "ft/ft" : "m/m");
+    if (in.c) {
+        lines.note("Runoff coefficient", fmt::format("C = {}", sig(*in.c)), src, *in.c);
+    }
+    if (in.cn) {
+        lines.note("Curve number", fmt::format("CN = {}", sig(*in.cn)), src, *in.cn);
+    }
+
+    // Time of concentration.
+    const PointOverride *o = override_for(p, dp.id);
+    std::string tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
+    double tc = 0.0;
+    if (o != nullptr && o->tc_min && (!o->tc_method || *o->tc_method == "given")) {
+        tc_method = "given";
+        tc = *o->tc_min;
+        lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)),
+                   fmt::format("project input ({}, line {})", p.file.filename().string(), o->line),
+                   tc, "min");
+    } else if (in.tc_min && (o == nullptr || !o->tc_method)) {
+        tc_method = "given";
+        tc = *in.tc_min;
+        lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)), src, tc,
+                   "min");
+    } else if (tc_method == "nrcs_lag") {
+        if (!in.cn) {
+            throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
+                              "a CN for the NRCS lag method (column 'cn')");
+        }
+        double slope = in.slope;
+        if (in.mean_slope) {
+            slope = *in.mean_slope;
+            lines.note("Watershed slope for the lag method",
+                       fmt::format("Y = mean catchment slope = {} %", sig(100.0 * slope)), src,
+                       100.0 * slope, "%");
+        } else {
+            lines.note("Watershed slope for the lag method",
+                       fmt::format("Y = slope of the longest flow path = {} % (no mean "
+                                   "catchment slope given; the method asks for the average "
+                                   "land slope)",
+                                   sig(100.0 * slope)),
+                       src, 100.0 * slope, "%");
+        }
+        auto k = hydro::nrcs_lag_tc_min(in.longest_flow_path_m, *in.cn, 100.0 * slope, in.area_m2,
+                                        p.info.units);
+        lines.append(k.lines);
+        tc = k.value;
+    } else {
+        auto k = hydro::kirpich_tc_min(in.longest_flow_path_m, in.slope, in.area_m2, p.info.units);
+        lines.append(k.lines);
+        tc = k.value;
+    }
+    {
+        auto m = hydro::apply_minimum_tc(tc, p.settings.minimum_tc_min);
+        lines.append(m.lines);
+        tc = m.value;
+    }
+    dp.tc_min = tc;
+    dp.tc_method = tc_method;
+
+    const auto &peaks =
+        (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
+    auto uses = [&](std::string_view m) {
+        return std::find(peaks.begin(), peaks.end(), m) != peaks.end();
+    };
+    std::vector<std::size_t> q_line_index; // per peak, filled with its line id below
+    hydro::RationalSettings rational_settings;
+    rational_settings.max_area_m2 = units::ha_to_m2(p.settings.rational_area_limit_ha);
+    const hydro::IaRatio ratio = ia_ratio(p);
+    std::vector<hydro::CnPart> parts;
+    for (const auto &lp : in.land_parts) {
+        parts.push_back({lp.area_m2, lp.cn});
+    }
+    const bool scs = uses("tr55_graphical") || uses("scs_unit_hydrograph");
+    if (scs && !in.cn) {
+        throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
+                          "a CN for the SCS Curve Number methods (column 'cn')");
+    }
+    if (uses("tr55_graphical")) {
+        lines.note("Ponds and swamps",
+                   "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
+                   "project input");
+    }
+    for (double rp : p.rainfall.return_periods_yr) {
+        if (uses("rational") && tables.idf != nullptr && tables.frequency_factors != nullptr &&
+            in.c) {
+            auto i = tables.idf->intensity(tc, rp, p.info.units);
+            lines.append(i.lines);
+            auto cf = hydro::frequency_factor(*tables.frequency_factors, rp);
+            lines.append(cf.lines);
+            auto q = hydro::rational_peak_m3_s(*in.c, cf.value, i.value, in.area_m2, p.info.units,
+                                               rational_settings);
+            // The line that gives Q: the last calculation line of the Rational Method's lines.
+            q_line_index.push_back(last_calculation_index(lines, q.lines));
+            lines.append(q.lines);
+            report::Peak pk;
+            pk.return_period_yr = rp;
+            pk.method = "rational";
+            pk.q_m3_s = q.value;
+            pk.intermediates = {{"c", *in.c},
+                                {"cf", cf.value},
+                                {"intensity_mm_per_h", i.value},
+                                {"duration_min", tc}};
+            dp.peaks.push_back(std::move(pk));
+        }
+        if (!scs) {
+            continue;
+        }
+        const auto depth = p.rainfall.depth_24h_mm.find(rp);
+        if (depth == p.rainfall.depth_24h_mm.end()) {
+            throw_input_error(fmt::format("{}: [rainfall] depths_24h", p.file.string()),
+                              fmt::format("no 24-hour depth for the {}-year return period", rp),
+                              "one depth for every return period in return_periods_yr");
+        }
+        const double p_mm = depth->second;
+        const double cn = *in.cn;
+        lines.note(
+            fmt::format("24-hour rainfall depth, {}-year", sig(rp)),
+            fmt::format("P = {}", depth_text(p_mm, us)),
+            fmt::format("project input ({}, [rainfall] depths_24h)", p.file.filename().string()),
+            us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+        auto runoff = hydro::cn_runoff(p_mm, cn, p.info.units, ratio);
+        lines.append(runoff.lines);
+        if (!parts.empty()) {
+            auto comp = hydro::composite_runoff(parts, p_mm, p.info.units, ratio);
+            lines.append(comp.lines);
+        }
+        if (uses("tr55_graphical")) {
+            if (tables.peak_coefficients == nullptr || tables.pond_factors == nullptr) {
+                throw InternalError("TR-55 tables not loaded");
+            }
+            auto q = hydro::tr55_peak(
+                *tables.peak_coefficients, *tables.pond_factors,
+                hydro::parse_storm_type(p.rainfall.storm_type,
+                                        p.file.string() + ": [rainfall] storm_type"),
+                in.area_m2, tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm, 0.0,
+                p.info.units);
+            // The line that gives Q: the last calculation line of the TR-55 peak's lines.
+            q_line_index.push_back(last_calculation_index(lines, q.lines));
+            lines.append(q.lines);
+            report::Peak pk;
+            pk.return_period_yr = rp;
+            pk.method = "tr55_graphical";
+            pk.q_m3_s = q.value.peak_m3_s;
+            pk.intermediates = {{"rainfall_depth_mm", p_mm},
+                                {"runoff_depth_mm", runoff.value.runoff_mm},
+                                {"initial_abstraction_mm", runoff.value.ia_mm},
+                                {"cn", cn},
+                                {"ia_over_p", q.value.ia_over_p},
+                                {"unit_peak_csm_per_in", q.value.unit_peak_csm_per_in},
+                                {"fp", q.value.fp},
+                                {"tc_min", tc}};
+            dp.peaks.push_back(std::move(pk));
+        }
+        if (uses("scs_unit_hydrograph")) {
+            if (tables.unit_hydrograph == nullptr || tables.storm == nullptr) {
+                throw InternalError("unit hydrograph or storm table not loaded");
+            }
+            auto rain = rain::storm_hyetograph(*tables.storm, p_mm, storm_step_min, p.info.units);
+            lines.append(rain.lines);
+            auto h = hydro::unit_hydrograph_from_rainfall(*tables.unit_hydrograph, rain.value, cn,
+                                                          in.area_m2, tc, p.info.units, {}, ratio);
+            q_line_index.push_back(calculation_index(lines, h.lines, "Peak flow"));
+            lines.append(h.lines);
+            const auto &hg = h.value;
+            report::Peak pk;
+            pk.return_period_yr = rp;
+            pk.method = "scs_unit_hydrograph";
+            pk.q_m3_s = hg.peak_m3_s;
+            pk.intermediates = {{"rainfall_depth_mm", p_mm},
+                                {"runoff_depth_mm", hg.runoff_mm},
+                                {"cn", cn},
+                                {"time_to_peak_min", hg.time_to_peak_s / 60.0},
+                                {"unit_hydrograph_tp_min", hg.tp_h * 60.0},
+                                {"step_min", hg.step_s / 60.0},
+                                {"volume_m3", hg.volume_m3},
+                                {"tc_min", tc}};
+            report::Hydrograph plot;
+            plot.step_s = hg.step_s;
+            plot.q_m3_s = hg.flow_m3_s;
+            const std::size_t n = hg.flow_m3_s.size();
+            plot.rain_mm = rebin(rain.value, hg.step_s, n);
+            plot.excess_mm = rebin(hydro::excess_hyetograph(rain.value, cn, ratio), hg.step_s, n);
+            pk.hydrograph = std::move(plot);
+            dp.peaks.push_back(std::move(pk));
+        }
+    }
+    number_lines(lines, dp.id);
+    for (std::size_t k = 0; k < dp.peaks.size(); ++k) {
+        if (q_line_index[k] < lines.size()) {
+            dp.peaks[k].line_id = lines.lines()[q_line_index[k]].id;
+        }
+    }
+}
+
+HydrologyTables LoadedTables::view() const {
+    HydrologyTables t;
+    t.idf = idf ? &*idf : nullptr;
+    t.frequency_factors = &frequency_factors;
+    t.peak_coefficients = &peak_coefficients;
+    t.pond_factors = &pond_factors;
+    t.unit_hydrograph = &unit_hydrograph;
+    t.storm = storm ? &*storm : nullptr;
+    return t;
+}
+
+LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path &config) {
+    LoadedTables t;
+    if (p.rainfall.idf) {
+        t.idf = io::read_idf_csv(p.rainfall.idf->resolved);
+    }
+    auto read = [&](const std::string &role, const std::string &name, auto reader, auto &into) {
+        into = reader(config / name);
+        t.config_files.emplace_back(role, std::filesystem::path(name));
+    };
+    if (p.uses_method("rational")) {
+        read("frequency factor table", "rational_frequency_factors.csv",
+             io::read_frequency_factor_table, t.frequency_factors);
+    }
+    if (p.uses_method("tr55_graphical")) {
+        read("TR-55 peak coefficients", "tr55_peak_coefficients.csv",
+             io::read_peak_coefficient_table, t.peak_coefficients);
+        read("TR-55 pond factors", "tr55_pond_factors.csv", io::read_pond_factor_table,
+             t.pond_factors);
+    }
+    if (p.uses_method("scs_unit_hydrograph")) {
+        read("dimensionless unit hydrograph", "scs_dimensionless_unit_hydrograph.csv",
+             io::read_dimensionless_unit_hydrograph, t.unit_hydrograph);
+        const auto file = io::nrcs_storm_file(config, p.rainfall.storm_type);
+        t.storm = io::read_storm_table(file);
+        t.config_files.emplace_back("design storm",
+                                    std::filesystem::path("storms") / file.filename());
+    }
+    return t;
+}
+
+void add_method_references(const Project &p, const report::DesignPointResult &dp,
+                           std::vector<report::Reference> &refs) {
+    (void)p;
+    auto add = [&](const std::string &key, const std::string &citation) {
+        for (const auto &r : refs) {
+            if (r.key == key) {
+                return;
+            }
+        }
+        refs.push_back({key, citation});
+    };
+    const std::string neh630 =
+        "USDA Natural Resources Conservation Service. National Engineering Handbook Part 630 "
+        "Hydrology, ";
+    const std::string tr55 = "USDA Soil Conservation Service (1986). Urban Hydrology for Small "
+                             "Watersheds, Technical Release 55 (TR-55), 2nd ed., June 1986.";
+    if (dp.tc_method == "kirpich") {
+        add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
+                              "watersheds. Civil Engineering 10(6), 362.");
+        add("TxDOT Hydraulic Design Manual",
+            "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
+    }
+    if (dp.tc_method == "nrcs_lag") {
+        add("NEH 630 ch. 15 (2010)", neh630 + "chapter 15 Time of Concentration (2010).");
+    }
+    for (const auto &pk : dp.peaks) {
+        if (pk.method == "rational") {
+            add("TxDOT Hydraulic Design Manual", "Texas Department of Transportation, Hydraulic "
+                                                 "Design Manual, chapter 4 Hydrology.");
+        } else if (pk.method == "tr55_graphical") {
+            add("TR-55 (1986)", tr55);
+        } else if (pk.method == "scs_unit_hydrograph") {
+            add("TR-55 (1986)", tr55);
+            add("NEH 630 ch. 16 (2007)", neh630 + "chapter 16 Hydrographs (2007).");
+            add("TP-149 (1973)", "USDA Soil Conservation Service (1973). A Method for Estimating "
+                                 "Volume and Rate of Runoff in Small Watersheds, Technical Paper "
+                                 "149 (TP-149), rev. April 1973.");
+        }
+    }
+}
+
+} // namespace catchpeak::app

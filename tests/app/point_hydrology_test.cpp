@@ -1,0 +1,276 @@
+// SPDX-License-Identifier: MIT
+// The SCS Curve Number methods wired into `catchpeak run` on a small table-input project. Every
+// expected figure is computed by hand in this file from the published equations (the steps are
+// written out below), never copied from catchpeak's output.
+#include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/app/point_hydrology.hpp"
+
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/core/units.hpp"
+#include "catchpeak/report/sheet.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+
+#include <algorithm>
+#include <cmath>
+#include <fstream>
+#include <numeric>
+#include <sstream>
+#include <string>
+
+using namespace catchpeak::app;
+namespace fs = std::filesystem;
+
+// (The LeakSanitizer suppression of fontconfig for this test program is in pipeline_test.cpp.)
+
+namespace {
+
+void write(const fs::path &path, const std::string &text) {
+    std::ofstream(path, std::ios::binary) << text;
+}
+
+/// Invented project: SP-1 (640 ac = 1 mi2, CN 80, tc given 30 min) and SP-2 (NRCS lag tc:
+/// L = 304.8 m = 1000 ft, slope 4 %, CN 80). One return period, P24 = 127 mm = 5.0 in, Type II.
+fs::path scs_project(const fs::path &dir) {
+    write(dir / "project.toml", R"([project]
+name = "Meadowbrook Farm drainage"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+return_periods_yr = [25]
+storm_type = "II"
+depths_24h_mm = { "25" = 127.0 }
+
+[methods]
+tc = "nrcs_lag"
+peak = ["tr55_graphical", "scs_unit_hydrograph"]
+
+[settings]
+minimum_tc_min = 5
+
+[output]
+folder = "out"
+)");
+    write(dir / "catchments.csv", "id,area_ac,length_m,slope_percent,cn,tc_min\n"
+                                  "SP-1,640,3000,2,80,30\n"
+                                  "SP-2,40,304.8,4,80,\n");
+    return dir / "project.toml";
+}
+
+const catchpeak::report::DesignPointResult &point(const catchpeak::report::RunResults &r,
+                                                  const std::string &id) {
+    for (const auto &p : r.points) {
+        if (p.id == id) {
+            return p;
+        }
+    }
+    throw std::runtime_error("no design point " + id);
+}
+
+const catchpeak::report::Peak &peak(const catchpeak::report::DesignPointResult &dp,
+                                    const std::string &method) {
+    for (const auto &p : dp.peaks) {
+        if (p.method == method) {
+            return p;
+        }
+    }
+    throw std::runtime_error("no peak " + method);
+}
+
+// Hand computation, TR-55 ch. 2, inches (eq. 2-4, 2-2, 2-3):
+//   S = 1000/80 - 10 = 2.5 in; Ia = 0.2 x 2.5 = 0.5 in; P = 127 / 25.4 = 5.0 in;
+//   Q = (5.0 - 0.5)^2 / (5.0 - 0.5 + 2.5) = 20.25 / 7 = 2.892857 in = 73.4786 mm.
+// (TR-55 Table 2-1 prints 2.89 in for P = 5.0 in, CN 80.)
+constexpr double s_in = 1000.0 / 80.0 - 10.0;
+constexpr double ia_in = 0.2 * s_in;
+constexpr double p_in = 5.0;
+constexpr double q_in = (p_in - ia_in) * (p_in - ia_in) / (p_in - ia_in + s_in);
+constexpr double q_mm = q_in * 25.4;
+
+} // namespace
+
+TEST(PointHydrology, Tr55GraphicalComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("point_tr55");
+    const Project p = load_project(scs_project(dir));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "SP-1");
+    EXPECT_EQ(dp.tc_method, "given");
+    EXPECT_DOUBLE_EQ(dp.tc_min, 30.0);
+    const auto &pk = peak(dp, "tr55_graphical");
+    EXPECT_DOUBLE_EQ(pk.return_period_yr, 25.0);
+    EXPECT_NEAR(pk.intermediates.at("rainfall_depth_mm"), 127.0, 1e-9);
+    // Tolerance 1e-6 mm: floating point only.
+    EXPECT_NEAR(pk.intermediates.at("runoff_depth_mm"), q_mm, 1e-6);
+    EXPECT_NEAR(q_in, 2.89, 0.005); // TR-55 Table 2-1, printed to 0.01 in
+    EXPECT_NEAR(pk.intermediates.at("initial_abstraction_mm"), ia_in * 25.4, 1e-6);
+    // Ia/P = 0.5 / 5.0 = 0.10: exactly the first Type II row of the shipped coefficient table
+    // (config/tr55_peak_coefficients.csv: II, 0.10, C0 = 2.55323, C1 = -0.61512,
+    // C2 = -0.16403), so no interpolation between rows.
+    EXPECT_NEAR(pk.intermediates.at("ia_over_p"), 0.10, 1e-12);
+    // TR-55 ch. 4: log10(qu) = C0 + C1 log10(tc) + C2 (log10 tc)^2, tc = 0.5 h.
+    const double lt = std::log10(0.5);
+    const double qu = std::pow(10.0, 2.55323 - 0.61512 * lt - 0.16403 * lt * lt);
+    // Tolerance 1e-6 relative: floating point only (same coefficients, same equation).
+    EXPECT_NEAR(pk.intermediates.at("unit_peak_csm_per_in"), qu, qu * 1e-6);
+    // qp = qu Am Q Fp (TR-55 eq. 4-1), Am = 640 ac = 1 mi2, Fp = 1 (no ponds given), in ft3/s;
+    // 1 ft3/s = 0.028316846592 m3/s (exact).
+    EXPECT_DOUBLE_EQ(pk.intermediates.at("fp"), 1.0);
+    const double qp_m3_s = qu * 1.0 * q_in * 1.0 * 0.028316846592;
+    EXPECT_NEAR(pk.q_m3_s, qp_m3_s, qp_m3_s * 1e-6);
+    // The Q line of the peak is the line in m3/s that the sheet and summary.csv point to.
+    ASSERT_FALSE(pk.line_id.empty());
+    bool found = false;
+    for (const auto &l : dp.lines.lines()) {
+        if (l.id == pk.line_id) {
+            found = true;
+            EXPECT_EQ(l.unit, "m3/s");
+            EXPECT_NEAR(l.value, pk.q_m3_s, 1e-12);
+        }
+    }
+    EXPECT_TRUE(found) << pk.line_id;
+}
+
+TEST(PointHydrology, UnitHydrographAgreesWithTheEquations) {
+    const auto dir = catchpeak::test::scratch_dir("point_uh");
+    const Project p = load_project(scs_project(dir));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "SP-1");
+    const auto &pk = peak(dp, "scs_unit_hydrograph");
+    ASSERT_TRUE(pk.hydrograph.has_value());
+    const auto &h = *pk.hydrograph;
+    ASSERT_GT(h.step_s, 0.0);
+    ASSERT_EQ(h.rain_mm.size(), h.q_m3_s.size());
+    ASSERT_EQ(h.excess_mm.size(), h.q_m3_s.size());
+    // The whole storm falls: the rain plotted adds up to P (1e-6 mm: floating point sums).
+    EXPECT_NEAR(std::accumulate(h.rain_mm.begin(), h.rain_mm.end(), 0.0), 127.0, 1e-6);
+    // The excess of the mass curve adds up to the runoff of the whole depth, eq. 2-3 above.
+    EXPECT_NEAR(std::accumulate(h.excess_mm.begin(), h.excess_mm.end(), 0.0), q_mm, 1e-6);
+    EXPECT_NEAR(pk.intermediates.at("runoff_depth_mm"), q_mm, 1e-6);
+    // Volume = Q A = 0.0734786 m x 640 ac (2589988.110336 m2). Tolerance 2 %: the
+    // dimensionless unit hydrograph is a table of ordinates at 0.1 t/tp printed to three
+    // decimals, so its area is 1 only within that precision, and it is sampled at step D.
+    const double volume_m3 = q_mm / 1000.0 * 2589988.110336;
+    EXPECT_NEAR(pk.intermediates.at("volume_m3"), volume_m3, 0.02 * volume_m3);
+    // Unit hydrograph time to peak, NEH 630 ch. 16: tp = D/2 + 0.6 tc (tc = 30 min).
+    const double d_min = pk.intermediates.at("step_min");
+    EXPECT_NEAR(pk.intermediates.at("unit_hydrograph_tp_min"), d_min / 2.0 + 0.6 * 30.0, 1e-9);
+    // The convolved peak cannot exceed the unit hydrograph's peak (NEH 630 ch. 16, SI form
+    // qp = 0.208 A Q / tp, A km2, Q mm, tp h) times the whole runoff depth, since every ordinate
+    // is a sum of excess depths times ordinates no higher than that peak. 1 % margin for the
+    // rounded 0.208 (computed: 484 x 0.0283168 / (2.589988 x 25.4) = 0.20834).
+    const double tp_h = pk.intermediates.at("unit_hydrograph_tp_min") / 60.0;
+    const double bound = 0.208 * 2.589988110336 * q_mm / tp_h;
+    EXPECT_GT(pk.q_m3_s, 0.0);
+    EXPECT_LT(pk.q_m3_s, 1.01 * bound);
+    // The peak is the largest ordinate, at its time. The Type II storm's intense part is
+    // at about 12 h (TP-149 Table 1: about half the depth has fallen by 12 h), so the peak comes
+    // after 11.5 h and before 12 h + 5 tp (the unit hydrograph's base).
+    const double qmax = *std::max_element(h.q_m3_s.begin(), h.q_m3_s.end());
+    EXPECT_DOUBLE_EQ(pk.q_m3_s, qmax);
+    const double t_peak_h = pk.intermediates.at("time_to_peak_min") / 60.0;
+    EXPECT_GT(t_peak_h, 11.5);
+    EXPECT_LT(t_peak_h, 12.0 + 5.0 * tp_h);
+    ASSERT_FALSE(pk.line_id.empty());
+}
+
+TEST(PointHydrology, NrcsLagComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("point_lag");
+    const Project p = load_project(scs_project(dir));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "SP-2");
+    EXPECT_EQ(dp.tc_method, "nrcs_lag");
+    // NEH 630 ch. 15: lag = l^0.8 (S + 1)^0.7 / (1900 Y^0.5) h, l = 1000 ft, S = 2.5 in,
+    // Y = 4 % (no mean slope in the table: the flow-path slope, stated in a note);
+    // tc = lag / 0.6.
+    const double lag_h = std::pow(1000.0, 0.8) * std::pow(2.5 + 1.0, 0.7) / (1900.0 * 2.0);
+    // Tolerance 1e-6 min: floating point only.
+    EXPECT_NEAR(dp.tc_min, lag_h / 0.6 * 60.0, 1e-6);
+    bool note = false;
+    for (const auto &l : dp.lines.lines()) {
+        if (l.numbers.find("slope of the longest flow path") != std::string::npos) {
+            note = true;
+        }
+    }
+    EXPECT_TRUE(note);
+}
+
+TEST(PointHydrology, ReferencesAndCautionNotes) {
+    const auto dir = catchpeak::test::scratch_dir("point_refs");
+    const Project p = load_project(scs_project(dir));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    std::vector<std::string> keys;
+    for (const auto &ref : r.references) {
+        keys.push_back(ref.key);
+        EXPECT_FALSE(ref.citation.empty());
+    }
+    for (const std::string k :
+         {"TR-55 (1986)", "NEH 630 ch. 15 (2010)", "NEH 630 ch. 16 (2007)", "TP-149 (1973)"}) {
+        EXPECT_EQ(std::count(keys.begin(), keys.end(), k), 1) << k;
+    }
+    // Kirpich is not used by this project.
+    EXPECT_EQ(std::count(keys.begin(), keys.end(), "Kirpich (1940)"), 0);
+    EXPECT_EQ(r.caution_notes, catchpeak::report::default_caution_notes());
+}
+
+TEST(PointHydrology, CompositeRunoffOfLandParts) {
+    // Two parts, 1 ha each, CN 98 and CN 70, P = 127 mm (5.0 in). By hand, TR-55 eq. 2-1 to 2-4:
+    //   CN 98: S = 0.204082 in, Ia = 0.040816, Q = 4.959184^2 / 5.163265 = 4.763162 in;
+    //   CN 70: S = 4.285714 in, Ia = 0.857143, Q = 4.142857^2 / 8.428571 = 2.036319 in;
+    //   weighted Q = 3.399741 in; composite CN 84: S = 1.904762, Ia = 0.380952,
+    //   Q = 4.619048^2 / 6.523810 = 3.270396 in; difference 3.8 % (below the 5 % warning).
+    const auto dir = catchpeak::test::scratch_dir("point_parts");
+    const Project p = load_project(scs_project(dir));
+    PointInputs in;
+    in.area_m2 = 20000.0;
+    in.longest_flow_path_m = 200.0;
+    in.slope = 0.02;
+    in.cn = 84.0;
+    in.tc_min = 10.0;
+    in.land_parts = {{"roofs", 10000.0, 98.0}, {"lawn", 10000.0, 70.0}};
+    in.source = "test input";
+    const auto loaded = load_hydrology_tables(p, config_dir());
+    catchpeak::report::DesignPointResult dp;
+    dp.id = "SP-9";
+    compute_point_hydrology(p, in, loaded.view(), dp);
+    auto q = [](double cn) {
+        const double s = 1000.0 / cn - 10.0;
+        return (p_in - 0.2 * s) * (p_in - 0.2 * s) / (p_in - 0.2 * s + s);
+    };
+    const double weighted_in = 0.5 * q(98.0) + 0.5 * q(70.0);
+    EXPECT_NEAR(weighted_in, 3.3997, 1e-4); // the hand figures in the comment above
+    bool weighted_line = false;
+    for (const auto &l : dp.lines.lines()) {
+        if (l.kind == catchpeak::LineKind::calculation && l.unit == "mm" &&
+            std::abs(l.value - weighted_in * 25.4) < 1e-6) {
+            weighted_line = true;
+        }
+    }
+    EXPECT_TRUE(weighted_line) << "no line with the area-weighted runoff";
+    // The peaks use the composite CN (TR-55's procedure), Q of CN 84.
+    EXPECT_NEAR(peak(dp, "tr55_graphical").intermediates.at("runoff_depth_mm"), q(84.0) * 25.4,
+                1e-6);
+}
+
+TEST(PointHydrology, RunWritesTheSheetWithTheHydrograph) {
+    const auto dir = catchpeak::test::scratch_dir("point_run");
+    RunOptions options;
+    options.quiet = true;
+    options.run_time_utc = "2026-01-01T00:00:00Z";
+    std::ostringstream out;
+    std::ostringstream err;
+    run_project(scs_project(dir), options, out, err);
+    EXPECT_TRUE(fs::exists(dir / "out" / "results.json"));
+    std::ifstream in(dir / "out" / "results.json");
+    std::ostringstream s;
+    s << in.rdbuf();
+    EXPECT_NE(s.str().find("\"scs_unit_hydrograph\""), std::string::npos);
+    EXPECT_NE(s.str().find("\"excess_mm\""), std::string::npos);
+}
