@@ -76,9 +76,11 @@ double ground(double x, double y) {
         // gutters collect them. The outer 60 m of the subdivision are fill slopes falling
         // outwards to natural ground.
         z -= 1.5 * std::sin(x / 170.0) * std::cos(y / 230.0) * 0.8;
-        const double across = std::abs(x - 600.0);
+        // Measured from the centre of the gutter cell column, so that the gutter is one cell wide
+        // (a two-cell flat bottom would carry the two sides in parallel, never joined).
+        const double across = std::abs(x - 600.5);
         const double taper = std::clamp((300.0 - across) / 60.0, 0.0, 1.0);
-        z += (0.012 * (x - 600.0) + 0.03 * across) * taper;
+        z += (0.012 * (x - 600.5) + 0.03 * across) * taper;
         if (on_kestrel_way(x, y) || on_thistle_lane(x, y)) {
             z -= 0.15; // street below the lots: curb and gutter
         }
