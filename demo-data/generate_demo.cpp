@@ -12,6 +12,7 @@
 #include <ogr_api.h>
 #include <ogr_srs_api.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
@@ -44,7 +45,7 @@ constexpr double road_half_top_m = 4.0;
 
 bool in_subdivision(double x, double y) { return x > 300 && x < 900 && y > 700 && y < 1200; }
 bool in_commercial(double x, double y) { return x > 1000 && x < 1300 && y > 250 && y < 450; }
-bool on_kestrel_way(double x, double y) { return std::abs(x - 600.0) < 5.0 && y > 640 && y < 1200; }
+bool on_kestrel_way(double x, double y) { return std::abs(x - 600.0) < 5.0 && y > 585 && y < 1200; }
 bool on_thistle_lane(double x, double y) {
     return std::abs(y - 1000.0) < 5.0 && x > 300 && x < 900;
 }
@@ -56,19 +57,41 @@ double natural_ground(double x, double y) {
     const double side = d > 0 ? 0.045 * d : -0.035 * d;
     const double undulation = 1.5 * std::sin(x / 170.0) * std::cos(y / 230.0);
     const double channel = -1.2 * std::exp(-(d / 4.0) * (d / 4.0));
-    return 130.0 - 0.012 * x + side + undulation + channel;
+    // The valley is closed inside the DEM: near the west, north and south edges the ground
+    // falls towards the edge, so the divides (the valley head some 150 m inside the west edge,
+    // the ridges some 100 m inside the north and south edges) close the catchment of the
+    // culvert inside the DEM.
+    // The drop falls off exponentially inwards, so that it is steep at the edge itself (a
+    // drop flat at the edge would let the valley's own fall carry water in from the edge).
+    auto edge_drop = [](double dist_m) { return 20.0 * std::exp(-dist_m / 40.0); };
+    const double rim = -edge_drop(x) - edge_drop(y) - edge_drop(static_cast<double>(height) - y);
+    return 130.0 - 0.012 * x + side + undulation + channel + rim;
 }
 
 double ground(double x, double y) {
     double z = natural_ground(x, y);
     if (in_subdivision(x, y)) {
-        // Graded lots: the undulation is smoothed out.
+        // Graded lots: the undulation is smoothed out, the valley's eastward fall is taken out,
+        // and the lots fall 3 % across towards Kestrel Way (x = 600 m), so that the street
+        // gutters collect them. The outer 60 m of the subdivision are fill slopes falling
+        // outwards to natural ground.
         z -= 1.5 * std::sin(x / 170.0) * std::cos(y / 230.0) * 0.8;
+        // Measured from the centre of the gutter cell column, so that the gutter is one cell wide
+        // (a two-cell flat bottom would carry the two sides in parallel, never joined).
+        const double across = std::abs(x - 600.5);
+        const double taper = std::clamp((300.0 - across) / 60.0, 0.0, 1.0);
+        z += (0.012 * (x - 600.5) + 0.03 * across) * taper;
         if (on_kestrel_way(x, y) || on_thistle_lane(x, y)) {
             z -= 0.15; // street below the lots: curb and gutter
         }
+        if (y > 1195.0) {
+            z += 1.0; // back-lot berm: the hillside above is led around the subdivision
+        }
+        if (y < 705.0 && !on_kestrel_way(x, y)) {
+            z += 1.0; // berm along the lower edge: the lots drain to Kestrel Way, not downhill
+        }
     } else if (on_kestrel_way(x, y)) {
-        z -= 0.15;
+        z -= 0.15; // the street and its outfall channel down to the creek bank
     }
     if (in_commercial(x, y)) {
         // A pad falling 1 % north towards the creek, cut into the slope.
@@ -114,7 +137,8 @@ int soil_group(double x, double y) {
         return 1; // B: alluvium along the creek
     }
     if (y > 1300.0 && x < 700.0) {
-        return 0; // A: sandy hilltop
+        return 1; // B: loamy hilltop (CN 30 of group A woods and meadow is refused by the SCS
+                  // runoff check)
     }
     if (y < 400.0 && x > 1400.0) {
         return 3; // D: clay

@@ -24,37 +24,6 @@ namespace {
 
 using Json = nlohmann::ordered_json;
 
-/// A point or a line as ISO WKB (little-endian), written by hand: no GDAL needed for these.
-void put_u32(std::vector<unsigned char> &b, std::uint32_t v) {
-    for (int i = 0; i < 4; ++i) {
-        b.push_back(static_cast<unsigned char>((v >> (8 * i)) & 0xffu));
-    }
-}
-void put_f64(std::vector<unsigned char> &b, double v) {
-    std::uint64_t u = 0;
-    std::memcpy(&u, &v, sizeof u);
-    for (int i = 0; i < 8; ++i) {
-        b.push_back(static_cast<unsigned char>((u >> (8 * i)) & 0xffu));
-    }
-}
-std::vector<unsigned char> point_wkb(double x, double y) {
-    std::vector<unsigned char> b{1};
-    put_u32(b, 1); // Point
-    put_f64(b, x);
-    put_f64(b, y);
-    return b;
-}
-std::vector<unsigned char> line_wkb(const std::vector<std::pair<double, double>> &xy) {
-    std::vector<unsigned char> b{1};
-    put_u32(b, 2); // LineString
-    put_u32(b, static_cast<std::uint32_t>(xy.size()));
-    for (const auto &[x, y] : xy) {
-        put_f64(b, x);
-        put_f64(b, y);
-    }
-    return b;
-}
-
 void check_options(const DelineateOptions &o) {
     if (!std::isfinite(o.snap_radius_m) || o.snap_radius_m < 0.0) {
         throw_input_error("--snap-radius", fmt::format("{} m", o.snap_radius_m),
@@ -94,16 +63,48 @@ std::string crs_name_of(const std::string &wkt) {
     return b == std::string::npos ? std::string{} : wkt.substr(a + 1, b - a - 1);
 }
 
+/// A point or a line as ISO WKB (little-endian), written by hand: no GDAL needed for these.
+void put_u32(std::vector<unsigned char> &b, std::uint32_t v) {
+    for (int i = 0; i < 4; ++i) {
+        b.push_back(static_cast<unsigned char>((v >> (8 * i)) & 0xffu));
+    }
+}
+void put_f64(std::vector<unsigned char> &b, double v) {
+    std::uint64_t u = 0;
+    std::memcpy(&u, &v, sizeof u);
+    for (int i = 0; i < 8; ++i) {
+        b.push_back(static_cast<unsigned char>((u >> (8 * i)) & 0xffu));
+    }
+}
 } // namespace
 
-DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {
+std::vector<unsigned char> point_wkb(double x, double y) {
+    std::vector<unsigned char> b{1};
+    put_u32(b, 1); // Point
+    put_f64(b, x);
+    put_f64(b, y);
+    return b;
+}
+std::vector<unsigned char> line_wkb(const std::vector<std::pair<double, double>> &xy) {
+    std::vector<unsigned char> b{1};
+    put_u32(b, 2); // LineString
+    put_u32(b, static_cast<std::uint32_t>(xy.size()));
+    for (const auto &[x, y] : xy) {
+        put_f64(b, x);
+        put_f64(b, y);
+    }
+    return b;
+}
+
+Delineation delineate_catchments(const DelineateOptions &options, std::ostream *progress) {
     check_options(options);
     detail::ProgressBar bar(progress);
-    DelineateSummary summary;
+    Delineation out;
 
     bar.start("reading DEM");
-    const io::Dem dem = io::read_dem(options.dem);
-    summary.notes.insert(summary.notes.end(), dem.notes.begin(), dem.notes.end());
+    out.dem = io::read_dem(options.dem);
+    const io::Dem &dem = out.dem;
+    out.notes.insert(out.notes.end(), dem.notes.begin(), dem.notes.end());
     const auto &grid = dem.elevation_m;
     const double extent_x_m = static_cast<double>(grid.width()) * grid.transform.cell_dx();
     const double extent_y_m = static_cast<double>(grid.height()) * grid.transform.cell_dy();
@@ -120,7 +121,7 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
     bar.start("reading design points");
     const io::DesignPointLayer points =
         io::read_design_points(options.points, options.id_field, grid.crs_wkt);
-    summary.notes.insert(summary.notes.end(), points.notes.begin(), points.notes.end());
+    out.notes.insert(out.notes.end(), points.notes.begin(), points.notes.end());
     std::vector<terrain::DesignPoint> tpoints;
     tpoints.reserve(points.points.size());
     for (const auto &p : points.points) {
@@ -131,7 +132,7 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
     if (options.breach_lines) {
         bar.start("reading breach lines");
         const io::LineLayer lines = io::read_lines(*options.breach_lines, grid.crs_wkt);
-        summary.notes.insert(summary.notes.end(), lines.notes.begin(), lines.notes.end());
+        out.notes.insert(out.notes.end(), lines.notes.begin(), lines.notes.end());
         for (const auto &l : lines.lines) {
             breach.push_back(terrain::BreachLine{fmt::format("{}: feature {}", lines.source, l.fid),
                                                  l.vertices});
@@ -143,7 +144,7 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
     settings.stream_threshold_m2 = options.stream_threshold_m2;
     settings.threads = options.threads;
     std::string current_step;
-    const terrain::TerrainResult result = terrain::run_terrain(
+    out.result = terrain::run_terrain(
         grid, tpoints, breach, settings,
         [&](std::string_view step, double) {
             if (step != "done" && step != current_step) {
@@ -152,6 +153,8 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
             }
         },
         points.source);
+    out.points_source = points.source;
+    const terrain::TerrainResult &result = out.result;
 
     bar.start("polygonizing catchments");
     const auto local_polygons = io::polygonize_labels(result.labels);
@@ -179,70 +182,6 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
         total_wkb[i] = parts.size() == 1 ? *parts.front() : io::union_polygons(parts);
         bar.update(static_cast<double>(i + 1) / static_cast<double>(n));
     }
-
-    // catchments.json
-    Json doc;
-    doc["dem_file"] = options.dem.string();
-    doc["dem_crs"] = crs_name_of(grid.crs_wkt);
-    doc["dem_horizontal_unit"] = dem.horizontal_unit;
-    doc["dem_vertical_unit"] = dem.vertical_unit;
-    doc["cell_size_x_m"] = grid.transform.cell_dx();
-    doc["cell_size_y_m"] = grid.transform.cell_dy();
-    doc["dem_width_cells"] = grid.width();
-    doc["dem_height_cells"] = grid.height();
-    doc["design_points_file"] = options.points.string();
-    doc["id_field"] = options.id_field;
-    doc["breach_lines_file"] =
-        options.breach_lines ? Json(options.breach_lines->string()) : Json(nullptr);
-    doc["snap_radius_m"] = options.snap_radius_m;
-    doc["stream_threshold_m2"] = options.stream_threshold_m2;
-    doc["notes"] = summary.notes;
-    Json list = Json::array();
-    for (std::size_t i = 0; i < n; ++i) {
-        const auto &p = result.points[i];
-        const auto &fp = p.longest_flow_path;
-        Json j;
-        j["id"] = p.id;
-        j["given_x_m"] = p.given_x;
-        j["given_y_m"] = p.given_y;
-        j["snapped_x_m"] = p.snapped_x;
-        j["snapped_y_m"] = p.snapped_y;
-        j["snap_distance_m"] = p.snap_distance_m;
-        j["accumulation_cells"] = p.accumulation;
-        j["accumulation_m2"] = p.accumulation_m2;
-        j["total_cells"] = p.total_cells;
-        j["area_m2"] = p.area_m2;
-        j["local_cells"] = p.local_cells;
-        j["local_area_m2"] = p.local_area_m2;
-        j["longest_flow_path_m"] = fp.length_m;
-        j["elevation_top_m"] = fp.elevation_top_m;
-        j["elevation_outlet_m"] = fp.elevation_outlet_m;
-        j["slope_flow_path_m_per_m"] = fp.slope_m_per_m;
-        j["elevation_10_m"] = fp.elevation_10_m;
-        j["elevation_85_m"] = fp.elevation_85_m;
-        j["slope_10_85_m_per_m"] = fp.slope_10_85_m_per_m;
-        j["mean_slope_m_per_m"] = p.mean_slope_m_per_m;
-        j["touches_dem_edge"] = p.touches_dem_edge;
-        j["downstream_design_point"] =
-            p.downstream_point ? Json(result.points[*p.downstream_point].id) : Json(nullptr);
-        Json up = Json::array();
-        for (auto k : p.upstream_points) {
-            up.push_back(result.points[k].id);
-        }
-        j["upstream_design_points"] = up;
-        Json all = Json::array();
-        for (auto k : all_up[i]) {
-            all.push_back(result.points[k].id);
-        }
-        j["all_upstream_design_points"] = all;
-        j["warnings"] = p.warnings;
-        for (const auto &w : p.warnings) {
-            summary.warnings.push_back(fmt::format("design point '{}': {}", p.id, w));
-        }
-        list.push_back(std::move(j));
-    }
-    doc["design_points"] = std::move(list);
-    const std::string json_text = doc.dump(2) + "\n";
 
     // catchments.gpkg
     using io::FieldType;
@@ -343,13 +282,99 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
               static_cast<std::int64_t>(s.accumulation_end), s.accumulation_end_m2}});
     }
 
+    out.total_wkb = std::move(total_wkb);
+    out.local_wkb.resize(n);
+    for (std::size_t i = 0; i < n; ++i) {
+        out.local_wkb[i] = locals.features[i].wkb;
+    }
+    out.all_upstream = std::move(all_up);
+    out.layers = {std::move(catchments), std::move(locals), std::move(paths), std::move(dps),
+                  std::move(streams)};
+    bar.finish();
+    return out;
+}
+
+DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {
+    Delineation d = delineate_catchments(options, progress);
+    detail::ProgressBar bar(progress);
+    DelineateSummary summary;
+    summary.notes = d.notes;
+    const auto &grid = d.dem.elevation_m;
+    const auto &dem = d.dem;
+    const auto &result = d.result;
+    const auto &all_up = d.all_upstream;
+    const std::size_t n = result.points.size();
+    // catchments.json
+    Json doc;
+    doc["dem_file"] = options.dem.string();
+    doc["dem_crs"] = crs_name_of(grid.crs_wkt);
+    doc["dem_horizontal_unit"] = dem.horizontal_unit;
+    doc["dem_vertical_unit"] = dem.vertical_unit;
+    doc["cell_size_x_m"] = grid.transform.cell_dx();
+    doc["cell_size_y_m"] = grid.transform.cell_dy();
+    doc["dem_width_cells"] = grid.width();
+    doc["dem_height_cells"] = grid.height();
+    doc["design_points_file"] = options.points.string();
+    doc["id_field"] = options.id_field;
+    doc["breach_lines_file"] =
+        options.breach_lines ? Json(options.breach_lines->string()) : Json(nullptr);
+    doc["snap_radius_m"] = options.snap_radius_m;
+    doc["stream_threshold_m2"] = options.stream_threshold_m2;
+    doc["notes"] = summary.notes;
+    Json list = Json::array();
+    for (std::size_t i = 0; i < n; ++i) {
+        const auto &p = result.points[i];
+        const auto &fp = p.longest_flow_path;
+        Json j;
+        j["id"] = p.id;
+        j["given_x_m"] = p.given_x;
+        j["given_y_m"] = p.given_y;
+        j["snapped_x_m"] = p.snapped_x;
+        j["snapped_y_m"] = p.snapped_y;
+        j["snap_distance_m"] = p.snap_distance_m;
+        j["accumulation_cells"] = p.accumulation;
+        j["accumulation_m2"] = p.accumulation_m2;
+        j["total_cells"] = p.total_cells;
+        j["area_m2"] = p.area_m2;
+        j["local_cells"] = p.local_cells;
+        j["local_area_m2"] = p.local_area_m2;
+        j["longest_flow_path_m"] = fp.length_m;
+        j["elevation_top_m"] = fp.elevation_top_m;
+        j["elevation_outlet_m"] = fp.elevation_outlet_m;
+        j["slope_flow_path_m_per_m"] = fp.slope_m_per_m;
+        j["elevation_10_m"] = fp.elevation_10_m;
+        j["elevation_85_m"] = fp.elevation_85_m;
+        j["slope_10_85_m_per_m"] = fp.slope_10_85_m_per_m;
+        j["mean_slope_m_per_m"] = p.mean_slope_m_per_m;
+        j["touches_dem_edge"] = p.touches_dem_edge;
+        j["downstream_design_point"] =
+            p.downstream_point ? Json(result.points[*p.downstream_point].id) : Json(nullptr);
+        Json up = Json::array();
+        for (auto k : p.upstream_points) {
+            up.push_back(result.points[k].id);
+        }
+        j["upstream_design_points"] = up;
+        Json all = Json::array();
+        for (auto k : all_up[i]) {
+            all.push_back(result.points[k].id);
+        }
+        j["all_upstream_design_points"] = all;
+        j["warnings"] = p.warnings;
+        for (const auto &w : p.warnings) {
+            summary.warnings.push_back(fmt::format("design point '{}': {}", p.id, w));
+        }
+        list.push_back(std::move(j));
+    }
+    doc["design_points"] = std::move(list);
+    const std::string json_text = doc.dump(2) + "\n";
+
     bar.start("writing results");
     prepare_out_dir(options.out_dir);
     summary.json = options.out_dir / "catchments.json";
     summary.gpkg = options.out_dir / "catchments.gpkg";
     io::PendingFile gpkg_file(summary.gpkg);
     io::PendingFile json_file(summary.json);
-    io::write_gpkg(gpkg_file.temp_path(), {catchments, locals, paths, dps, streams});
+    io::write_gpkg(gpkg_file.temp_path(), d.layers);
     bar.update(0.9);
     io::write_text_file_atomic(json_file.temp_path(), json_text);
     gpkg_file.commit();

@@ -1,14 +1,15 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/pipeline.hpp"
 
+#include "catchpeak/app/dem_project.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
-
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/core/version.hpp"
 #include "catchpeak/hydro/rational.hpp"
 #include "catchpeak/hydro/tc.hpp"
+#include "catchpeak/io/atomic_file.hpp"
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
@@ -42,12 +43,6 @@ std::string utc_now() {
 /// Methods and inputs this build cannot compute yet, each a problem naming the key.
 void not_yet_available(const Project &p, Problems &problems) {
     const std::string pf = p.file.string();
-    if (!p.uses_table()) {
-        problems.add(input_message(
-            fmt::format("{}:{}: [inputs] dem", pf, p.inputs.dem ? p.inputs.dem->line : 0),
-            "catchments from a DEM cannot be delineated by this build yet",
-            "a catchment table ('catchment_table')"));
-    }
     auto tc_ok = [](const std::string &m) {
         return m == "kirpich" || m == "given" || m == "nrcs_lag";
     };
@@ -122,22 +117,40 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
     return r;
 }
 
-report::RunResults compute_project(const Project &p, std::ostream &progress, bool quiet) {
+report::RunResults compute_project(const Project &p, std::ostream &progress, bool quiet,
+                                   std::vector<io::OutLayer> *gpkg_layers) {
     Problems problems;
     check_project(p, problems);
     not_yet_available(p, problems);
     problems.throw_if_any();
 
-    if (!quiet) {
-        progress << "catchpeak: reading " << p.inputs.catchment_table->given << '\n';
+    std::vector<TableCatchment> rows;
+    if (p.uses_table()) {
+        if (!quiet) {
+            progress << "catchpeak: reading " << p.inputs.catchment_table->given << '\n';
+        }
+        rows = read_catchment_table(p.inputs.catchment_table->resolved);
     }
-    const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
     const LoadedTables tables = load_hydrology_tables(p, config_dir());
-    if (!quiet) {
-        progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
-                                rows.size(), p.rainfall.return_periods_yr.size());
+    report::RunResults r;
+    if (p.uses_table()) {
+        if (!quiet) {
+            progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
+                                    rows.size(), p.rainfall.return_periods_yr.size());
+        }
+        r = compute_from_table(p, rows, tables.view());
+    } else {
+        r = compute_from_table(p, {}, tables.view()); // project info, references, notes
+        DemPoints dem = compute_dem_points(p, tables.view(), quiet ? nullptr : &progress);
+        r.points = std::move(dem.points);
+        for (const auto &dp : r.points) {
+            add_method_references(p, dp, r.references);
+        }
+        r.references.insert(r.references.end(), dem.references.begin(), dem.references.end());
+        if (gpkg_layers != nullptr) {
+            *gpkg_layers = std::move(dem.layers);
+        }
     }
-    report::RunResults r = compute_from_table(p, rows, tables.view());
 
     // The stamp: what was run, on what. Paths as written in the project file.
     r.stamp.tool_version = std::string(version());
@@ -168,13 +181,24 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
 fs::path run_project(const fs::path &project_file, const RunOptions &options, std::ostream &out,
                      std::ostream &err) {
     const Project p = load_project(project_file);
-    report::RunResults r = compute_project(p, err, options.quiet);
+    std::vector<io::OutLayer> layers;
+    report::RunResults r = compute_project(p, err, options.quiet, &layers);
     r.stamp.run_time_utc = options.run_time_utc.empty() ? utc_now() : options.run_time_utc;
     const fs::path dir = options.out_dir ? *options.out_dir : p.output_dir;
     if (!options.quiet) {
         err << "catchpeak: writing results and the calculation sheet\n";
     }
+    std::optional<io::PendingFile> gpkg;
+    if (!layers.empty()) {
+        std::error_code ec;
+        fs::create_directories(dir, ec);
+        gpkg.emplace(dir / "catchments.gpkg");
+        io::write_gpkg(gpkg->temp_path(), layers);
+    }
     (void)report::write_outputs(r, dir);
+    if (gpkg) {
+        gpkg->commit();
+    }
     if (!options.quiet) {
         out << summary_table(r);
         out << fmt::format("outputs: {}\n", fs::absolute(dir).lexically_normal().string());
@@ -188,6 +212,9 @@ void check_project_file(const fs::path &project_file, std::ostream &out) {
     const Project p = parse_project(text, project_file, problems);
     check_project(p, problems);
     not_yet_available(p, problems);
+    if (problems.empty() && !p.uses_table()) {
+        check_dem_inputs(p, problems);
+    }
     problems.throw_if_any();
     out << fmt::format("{}: no problems found\n", project_file.string());
 }

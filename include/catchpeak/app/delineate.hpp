@@ -1,6 +1,10 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/io/gpkg.hpp"
+#include "catchpeak/io/raster.hpp"
+#include "catchpeak/terrain/delineation.hpp"
+
 #include <cstddef>
 #include <filesystem>
 #include <optional>
@@ -30,6 +34,33 @@ struct DelineateSummary {
     std::vector<std::string> notes;    ///< conversions and assumptions (units, CRS)
     std::vector<std::string> warnings; ///< "<id>: <warning>" for every design point warning
 };
+
+/// The catchments of every design point, in memory: what `delineate` writes and what `run`
+/// weights and computes.
+struct Delineation {
+    io::Dem dem;                   ///< the DEM as read (metres)
+    std::string points_source;     ///< the design point file (and layer), for messages
+    terrain::TerrainResult result; ///< points, labels, flow paths, streams, warnings
+    /// Per design point (in the order of result.points), ISO WKB: the total catchment (own
+    /// part and every nested catchment upstream) and the local part alone.
+    std::vector<std::vector<unsigned char>> total_wkb;
+    std::vector<std::vector<unsigned char>> local_wkb;
+    std::vector<std::vector<std::size_t>> all_upstream; ///< every design point upstream
+    /// Layers of catchments.gpkg: catchments, local_catchments, flow_paths, design_points,
+    /// streams.
+    std::vector<io::OutLayer> layers;
+    std::vector<std::string> notes; ///< conversions and assumptions (units, CRS)
+};
+
+/// Reads the DEM, the design points and the breach lines, runs the terrain analysis, and
+/// polygonizes the local and total catchments. Checks the options as `delineate` does.
+/// Progress goes to `progress` (null = silent). Throws InputError for bad input.
+[[nodiscard]] Delineation delineate_catchments(const DelineateOptions &options,
+                                               std::ostream *progress);
+
+/// ISO WKB of a point and of a line string (little-endian), for the gpkg layers.
+[[nodiscard]] std::vector<unsigned char> point_wkb(double x, double y);
+[[nodiscard]] std::vector<unsigned char> line_wkb(const std::vector<std::pair<double, double>> &xy);
 
 /// Delineates the catchment above every design point and writes out_dir/catchments.json and
 /// out_dir/catchments.gpkg (layers catchments, local_catchments, flow_paths, design_points,

@@ -5,6 +5,7 @@
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/project.hpp"
 #include "catchpeak/hydro/tables.hpp"
+#include "catchpeak/io/gpkg.hpp"
 #include "catchpeak/rain/idf.hpp"
 #include "catchpeak/report/results.hpp"
 
@@ -33,8 +34,10 @@ struct RunOptions {
 
 /// Computes a whole project: checks it, reads its inputs, computes every design point.
 /// Throws InputError listing every problem found by the check.
+/// For a DEM project, `gpkg_layers` (when not null) receives the layers of catchments.gpkg.
 [[nodiscard]] report::RunResults compute_project(const Project &project, std::ostream &progress,
-                                                 bool quiet);
+                                                 bool quiet,
+                                                 std::vector<io::OutLayer> *gpkg_layers = nullptr);
 
 /// The table printed at the end of a run, in the sheet's units.
 [[nodiscard]] std::string summary_table(const report::RunResults &results);

@@ -1,0 +1,428 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/dem_project.hpp"
+
+#include "catchpeak/app/delineate.hpp"
+#include "catchpeak/app/inputs.hpp"
+#include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/core/units.hpp"
+#include "catchpeak/io/raster.hpp"
+#include "catchpeak/io/vector.hpp"
+#include "catchpeak/io/wkb_rings.hpp"
+#include "catchpeak/land/overlay.hpp"
+#include "catchpeak/land/tables.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <map>
+#include <numbers>
+#include <set>
+
+namespace catchpeak::app {
+
+namespace {
+
+constexpr const char *d8_source = "D8 (O'Callaghan & Mark 1984) on the conditioned DEM";
+constexpr const char *conditioning_source =
+    "D8 (O'Callaghan & Mark 1984) on the DEM conditioned by Priority-Flood (Barnes et al. 2014)";
+constexpr const char *horn_source = "Horn (1981) slope of every cell, averaged over the catchment";
+
+/// The largest side of the map's hillshade, pixels.
+constexpr std::size_t hillshade_max_px = 600;
+
+std::vector<report::Polygon> rings_of(const std::vector<unsigned char> &wkb) {
+    std::vector<report::Polygon> out;
+    for (auto &p : io::wkb_polygon_rings(wkb)) {
+        out.push_back(std::move(p));
+    }
+    return out;
+}
+
+/// Vertical exaggeration of the hillshade: catchments of drainage design are often gentle (1 to
+/// 5 %), and a true-scale hillshade of them is a flat grey.
+constexpr double hillshade_z_factor = 4.0;
+
+/// A standard hillshade (light from the north-west, 45 degrees above the horizon; Horn's
+/// gradient, heights exaggerated hillshade_z_factor times) of the DEM window [min_x, max_x] x
+/// [min_y, max_y], at most hillshade_max_px a side. Only a backdrop for the map: no number on the
+/// sheet depends on it.
+void fill_hillshade(const Grid<float> &dem, double min_x, double min_y, double max_x, double max_y,
+                    report::MapData &map) {
+    const auto &t = dem.transform;
+    const double dx = t.cell_dx();
+    const double dy = t.cell_dy();
+    const auto w = static_cast<long long>(dem.width());
+    const auto h = static_cast<long long>(dem.height());
+    auto col_of = [&](double x) {
+        return static_cast<long long>(std::floor((x - t.origin_x) / dx));
+    };
+    auto row_of = [&](double y) {
+        return static_cast<long long>(std::floor((t.origin_y - y) / dy));
+    };
+    const long long c0 = std::clamp(col_of(min_x), 0LL, w - 1);
+    const long long c1 = std::clamp(col_of(max_x), 0LL, w - 1);
+    const long long r0 = std::clamp(row_of(max_y), 0LL, h - 1);
+    const long long r1 = std::clamp(row_of(min_y), 0LL, h - 1);
+    const long long cols = c1 - c0 + 1;
+    const long long rows = r1 - r0 + 1;
+    const long long step =
+        std::max(1LL, (std::max(cols, rows) + static_cast<long long>(hillshade_max_px) - 1) /
+                          static_cast<long long>(hillshade_max_px));
+    const long long pw = (cols + step - 1) / step;
+    const long long ph = (rows + step - 1) / step;
+    map.hillshade_width = static_cast<std::size_t>(pw);
+    map.hillshade_height = static_cast<std::size_t>(ph);
+    map.hillshade.assign(map.hillshade_width * map.hillshade_height, 0);
+    map.hillshade_min_x = t.origin_x + static_cast<double>(c0) * dx;
+    map.hillshade_max_x = t.origin_x + static_cast<double>(c0 + pw * step) * dx;
+    map.hillshade_max_y = t.origin_y - static_cast<double>(r0) * dy;
+    map.hillshade_min_y = t.origin_y - static_cast<double>(r0 + ph * step) * dy;
+
+    const double zenith = (90.0 - 45.0) * std::numbers::pi / 180.0;
+    const double azimuth = (360.0 - 315.0 + 90.0) * std::numbers::pi / 180.0;
+    auto z = [&](long long c, long long r, double fallback) {
+        c = std::clamp(c, 0LL, w - 1);
+        r = std::clamp(r, 0LL, h - 1);
+        const float v = dem(static_cast<std::size_t>(c), static_cast<std::size_t>(r));
+        return std::isnan(v) ? fallback : hillshade_z_factor * static_cast<double>(v);
+    };
+    const double sdx = dx * static_cast<double>(step);
+    const double sdy = dy * static_cast<double>(step);
+    for (long long j = 0; j < ph; ++j) {
+        for (long long i = 0; i < pw; ++i) {
+            const long long c = c0 + i * step;
+            const long long r = r0 + j * step;
+            const double e = z(c, r, std::nan(""));
+            std::uint8_t shade = 230; // nodata: light grey
+            if (!std::isnan(e)) {
+                const double a = z(c - step, r - step, e), b = z(c, r - step, e),
+                             cc = z(c + step, r - step, e), d = z(c - step, r, e),
+                             f = z(c + step, r, e), g = z(c - step, r + step, e),
+                             hh = z(c, r + step, e), ii = z(c + step, r + step, e);
+                const double dzdx = ((cc + 2.0 * f + ii) - (a + 2.0 * d + g)) / (8.0 * sdx);
+                const double dzdy = ((g + 2.0 * hh + ii) - (a + 2.0 * b + cc)) / (8.0 * sdy);
+                const double slope = std::atan(std::hypot(dzdx, dzdy));
+                const double aspect = std::atan2(dzdy, -dzdx);
+                const double v = std::cos(zenith) * std::cos(slope) +
+                                 std::sin(zenith) * std::sin(slope) * std::cos(azimuth - aspect);
+                shade = static_cast<std::uint8_t>(std::clamp(v, 0.0, 1.0) * 255.0);
+            }
+            map.hillshade[static_cast<std::size_t>(j * pw + i)] = shade;
+        }
+    }
+}
+
+report::MapData make_map(const Delineation &d, std::size_t i) {
+    const auto &p = d.result.points[i];
+    report::MapData map;
+    map.catchment = rings_of(d.total_wkb[i]);
+    if (!p.upstream_points.empty()) {
+        map.local_catchment = rings_of(d.local_wkb[i]);
+    }
+    map.longest_flow_path = p.longest_flow_path.vertices_xy;
+    map.given_xy = {p.given_x, p.given_y};
+    map.snapped_xy = {p.snapped_x, p.snapped_y};
+    double min_x = std::min(p.given_x, p.snapped_x), max_x = std::max(p.given_x, p.snapped_x);
+    double min_y = std::min(p.given_y, p.snapped_y), max_y = std::max(p.given_y, p.snapped_y);
+    for (const auto &poly : map.catchment) {
+        for (const auto &[x, y] : poly.front()) {
+            min_x = std::min(min_x, x);
+            max_x = std::max(max_x, x);
+            min_y = std::min(min_y, y);
+            max_y = std::max(max_y, y);
+        }
+    }
+    // The sheet pads the catchment's box and widens it to the frame's shape: the hillshade
+    // covers a square around the catchment with a margin, and wider still east and west.
+    const auto &t = d.dem.elevation_m.transform;
+    const double half = std::max(0.65 * std::max(max_x - min_x, max_y - min_y), 5.0 * t.cell_dx());
+    const double cx = 0.5 * (min_x + max_x);
+    const double cy = 0.5 * (min_y + max_y);
+    min_x = cx - 1.6 * half;
+    max_x = cx + 1.6 * half;
+    min_y = cy - half;
+    max_y = cy + half;
+    fill_hillshade(d.dem.elevation_m, min_x, min_y, max_x, max_y, map);
+    for (const auto &s : d.result.streams) {
+        const bool inside = std::any_of(s.vertices_xy.begin(), s.vertices_xy.end(), [&](auto xy) {
+            return xy.first >= min_x && xy.first <= max_x && xy.second >= min_y &&
+                   xy.second <= max_y;
+        });
+        if (inside && s.vertices_xy.size() >= 2) {
+            map.streams.push_back(s.vertices_xy);
+        }
+    }
+    return map;
+}
+
+land::LandTables project_tables(const Project &p) {
+    land::LandTables tables = land::read_default_land_tables(config_dir());
+    if (p.inputs.c_table || p.inputs.cn_table) {
+        const auto base = config_dir() / "land";
+        const auto own = land::read_land_tables(
+            p.inputs.c_table ? p.inputs.c_table->resolved : base / "runoff_coefficients.csv",
+            p.inputs.cn_table ? p.inputs.cn_table->resolved : base / "curve_numbers.csv",
+            base / "impervious_shares.csv");
+        tables = own;
+    }
+    return tables;
+}
+
+land::OverlaySettings overlay_settings(const Project &p) {
+    land::OverlaySettings s;
+    s.class_field = p.inputs.class_field;
+    s.soil_group_field = p.inputs.soil_group_field;
+    s.drained = p.settings.dual_soil_group == "drained";
+    if (p.settings.uncovered_land != "refuse") {
+        s.uncovered = land::Uncovered::use_default;
+        s.default_class = p.settings.uncovered_land;
+    }
+    s.units = p.info.units;
+    return s;
+}
+
+/// A land-cover or soils layer in the DEM's CRS. A layer without a CRS is refused: C and CN of a
+/// catchment must not hang on a guess of where its polygons lie.
+io::VectorLayer read_land_layer(const InputPath &in, const std::string &key, const Project &p,
+                                const std::string &crs) {
+    std::vector<std::string> notes;
+    io::VectorLayer layer = io::read_vector_layer(in.resolved, crs, {}, &notes);
+    for (const auto &n : notes) {
+        if (n.find("has no coordinate reference system") != std::string::npos) {
+            throw_input_error(
+                fmt::format("{}:{}: [inputs] {} '{}'", p.file.string(), in.line, key, in.given),
+                "the layer has no coordinate reference system",
+                "a layer with its CRS (a GeoPackage, or a shapefile with its .prj); "
+                "it is reprojected to the DEM's CRS when it differs");
+        }
+    }
+    return layer;
+}
+
+void require_layers(const Project &p) {
+    const std::string pf = p.file.string();
+    if (!p.inputs.design_points) {
+        throw_input_error(pf + ": [inputs] design_points", "is missing for a DEM project",
+                          "a point layer of design points beside 'dem'");
+    }
+    if (!p.inputs.land_cover || !p.inputs.soils) {
+        throw_input_error(
+            pf + (p.inputs.land_cover ? ": [inputs] soils" : ": [inputs] land_cover"),
+            "is missing for a DEM project",
+            "a land-cover polygon layer ('land_cover') and a soils polygon layer ('soils'), "
+            "to weight C and CN over each catchment");
+    }
+}
+
+/// The lines of the terrain figures of one design point (not numbered yet).
+CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
+    const bool us = p.info.units == units::System::us_customary;
+    const auto &pt = d.result.points[i];
+    const auto &fp = pt.longest_flow_path;
+    const std::string pts_src = fmt::format("project input ({})", p.inputs.design_points->given);
+    CalcLines lines;
+    auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
+    const char *lu = us ? "ft" : "m";
+    lines.note("Design point as given",
+               fmt::format("x = {:.2f} m, y = {:.2f} m", pt.given_x, pt.given_y), pts_src);
+    lines.note("Design point snapped to the cell of largest flow accumulation within the snap "
+               "radius",
+               fmt::format("x = {:.2f} m, y = {:.2f} m; moved {} {}", pt.snapped_x, pt.snapped_y,
+                           sig(len(pt.snap_distance_m)), lu),
+               d8_source, len(pt.snap_distance_m), lu);
+    if (us) {
+        lines.note("Catchment area", fmt::format("A = {} ac", sig(units::m2_to_acre(pt.area_m2))),
+                   conditioning_source, units::m2_to_acre(pt.area_m2), "ac");
+    } else {
+        lines.note("Catchment area", fmt::format("A = {} ha", sig(units::m2_to_ha(pt.area_m2))),
+                   conditioning_source, units::m2_to_ha(pt.area_m2), "ha");
+    }
+    if (!pt.upstream_points.empty()) {
+        std::string ids;
+        for (auto k : d.all_upstream[i]) {
+            ids += (ids.empty() ? "" : ", ") + d.result.points[k].id;
+        }
+        const double la =
+            us ? units::m2_to_acre(pt.local_area_m2) : units::m2_to_ha(pt.local_area_m2);
+        lines.note("Local catchment area (without the catchments of the design points upstream)",
+                   fmt::format("A local = {} {}; upstream: {}", sig(la), us ? "ac" : "ha", ids),
+                   d8_source, la, us ? "ac" : "ha");
+    }
+    lines.note("Longest flow path length", fmt::format("L = {} {}", sig(len(fp.length_m)), lu),
+               d8_source, len(fp.length_m), lu);
+    lines.note("Elevation at the top of the longest flow path",
+               fmt::format("Z top = {} {}", sig(len(fp.elevation_top_m)), lu),
+               "DEM elevation (conditioned)", len(fp.elevation_top_m), lu);
+    lines.note("Elevation at the outlet",
+               fmt::format("Z outlet = {} {}", sig(len(fp.elevation_outlet_m)), lu),
+               "DEM elevation (conditioned)", len(fp.elevation_outlet_m), lu);
+    lines.calc("Slope of the longest flow path", "S = (Z top - Z outlet) / L",
+               fmt::format("S = ({} - {}) / {}", sig(len(fp.elevation_top_m)),
+                           sig(len(fp.elevation_outlet_m)), sig(len(fp.length_m))),
+               fp.slope_m_per_m, us ? "ft/ft" : "m/m", "H/L of the longest flow path");
+    lines.note("Slope 10-85 of the longest flow path",
+               fmt::format("S 10-85 = {} {}", sig(fp.slope_10_85_m_per_m), us ? "ft/ft" : "m/m"),
+               "elevations at 10 % and 85 % of L from the outlet", fp.slope_10_85_m_per_m,
+               us ? "ft/ft" : "m/m");
+    lines.note("Mean catchment slope",
+               fmt::format("S mean = {} {}", sig(pt.mean_slope_m_per_m), us ? "ft/ft" : "m/m"),
+               horn_source, pt.mean_slope_m_per_m, us ? "ft/ft" : "m/m");
+    for (const auto &w : pt.warnings) {
+        lines.warn("Delineation", w, d8_source);
+    }
+    return lines;
+}
+
+} // namespace
+
+DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
+                             std::ostream *progress) {
+    require_layers(p);
+    DelineateOptions o;
+    o.dem = p.inputs.dem->resolved;
+    o.points = p.inputs.design_points->resolved;
+    o.id_field = p.inputs.id_field;
+    o.snap_radius_m = p.settings.snap_radius_m;
+    o.out_dir = p.output_dir; // not written to: delineate_catchments writes nothing
+    if (p.inputs.breach_lines) {
+        o.breach_lines = p.inputs.breach_lines->resolved;
+    }
+    const Delineation d = delineate_catchments(o, progress);
+    const std::string &crs = d.dem.elevation_m.crs_wkt;
+
+    if (progress != nullptr) {
+        *progress << "catchpeak: weighting land cover and soils\n";
+    }
+    const io::VectorLayer land_cover = read_land_layer(*p.inputs.land_cover, "land_cover", p, crs);
+    const io::VectorLayer soils = read_land_layer(*p.inputs.soils, "soils", p, crs);
+    const land::LandOverlay overlay(land_cover, soils, project_tables(p), overlay_settings(p));
+
+    DemPoints out;
+    out.layers = d.layers;
+    out.references = {
+        {"O'Callaghan & Mark 1984",
+         "O'Callaghan, J.F. and Mark, D.M. (1984). The extraction of drainage networks from "
+         "digital elevation data. Computer Vision, Graphics, and Image Processing 28, 323-344."},
+        {"Barnes et al. 2014",
+         "Barnes, R., Lehman, C. and Mulla, D. (2014). Priority-flood: an optimal "
+         "depression-filling and watershed-labeling algorithm for digital elevation models. "
+         "Computers & Geosciences 62, 117-127."},
+        {"Horn (1981)", "Horn, B.K.P. (1981). Hill shading and the reflectance map. Proceedings "
+                        "of the IEEE 69(1), 14-47."},
+    };
+    const std::size_t n = d.result.points.size();
+    for (std::size_t i = 0; i < n; ++i) {
+        const auto &pt = d.result.points[i];
+        const auto &fp = pt.longest_flow_path;
+        report::DesignPointResult dp;
+        dp.id = pt.id;
+        dp.given_xy = {pt.given_x, pt.given_y};
+        dp.snapped_xy = {pt.snapped_x, pt.snapped_y};
+        dp.snap_distance_m = pt.snap_distance_m;
+        dp.catchment.area_m2 = pt.area_m2;
+        dp.catchment.local_area_m2 = pt.local_area_m2;
+        dp.catchment.longest_flow_path_m = fp.length_m;
+        dp.catchment.elevation_top_m = fp.elevation_top_m;
+        dp.catchment.elevation_outlet_m = fp.elevation_outlet_m;
+        dp.catchment.slope_flow_path = fp.slope_m_per_m;
+        dp.catchment.slope_10_85 = fp.slope_10_85_m_per_m;
+        dp.catchment.mean_slope = pt.mean_slope_m_per_m;
+        for (auto k : d.all_upstream[i]) {
+            dp.catchment.upstream_points.push_back(d.result.points[k].id);
+        }
+        dp.lines = terrain_lines(p, d, i);
+        if (i == 0) {
+            dp.lines.append(overlay.layer_warnings());
+        }
+        const land::CatchmentLand total =
+            overlay.weight(d.total_wkb[i], pt.id, pt.mean_slope_m_per_m);
+        dp.land = total.weighting;
+        dp.lines.append(total.lines);
+        if (!pt.upstream_points.empty() && !d.local_wkb[i].empty()) {
+            const land::CatchmentLand local =
+                overlay.weight(d.local_wkb[i], pt.id + " local", pt.mean_slope_m_per_m);
+            dp.lines.note("Local catchment (own part, without the catchments of the design "
+                          "points upstream): land weighting for information",
+                          "the peaks of this design point use the total catchment above",
+                          d8_source);
+            dp.lines.append(local.lines);
+        }
+        dp.map = make_map(d, i);
+
+        PointInputs in;
+        in.area_m2 = pt.area_m2;
+        in.longest_flow_path_m = fp.length_m;
+        in.slope = fp.slope_m_per_m;
+        in.mean_slope = pt.mean_slope_m_per_m;
+        if (std::isfinite(dp.land.c_weighted)) {
+            in.c = dp.land.c_weighted;
+        }
+        if (std::isfinite(dp.land.cn_weighted)) {
+            in.cn = dp.land.cn_weighted;
+        }
+        for (const auto &part : dp.land.parts) {
+            in.land_parts.push_back(
+                {fmt::format("{}, soil group {}", part.land_class, part.soil_group), part.area_m2,
+                 part.cn});
+        }
+        in.source = "from the lines above: delineation (DEM) and land weighting";
+        compute_point_hydrology(p, in, tables, dp);
+        out.points.push_back(std::move(dp));
+    }
+    return out;
+}
+
+void check_dem_inputs(const Project &p, Problems &problems) {
+    auto collect = [&](auto &&f) {
+        try {
+            f();
+        } catch (const InputError &e) {
+            problems.add(e.what());
+        }
+    };
+    collect([&] { require_layers(p); });
+    if (!problems.empty()) {
+        return;
+    }
+    std::string crs;
+    collect([&] {
+        const io::Dem dem = io::read_dem(p.inputs.dem->resolved);
+        crs = dem.elevation_m.crs_wkt;
+        const auto &t = dem.elevation_m.transform;
+        const double min_x = t.origin_x;
+        const double max_x =
+            t.origin_x + static_cast<double>(dem.elevation_m.width()) * t.cell_dx();
+        const double max_y = t.origin_y;
+        const double min_y =
+            t.origin_y - static_cast<double>(dem.elevation_m.height()) * t.cell_dy();
+        const io::DesignPointLayer pts =
+            io::read_design_points(p.inputs.design_points->resolved, p.inputs.id_field, crs);
+        for (const auto &pt : pts.points) {
+            if (!(pt.x >= min_x && pt.x < max_x && pt.y > min_y && pt.y <= max_y)) {
+                problems.add(input_message(
+                    fmt::format("{}: feature {}", pts.source, pt.fid),
+                    fmt::format("design point '{}' at ({:.3f}, {:.3f}) lies outside the DEM "
+                                "extent",
+                                pt.id, pt.x, pt.y),
+                    fmt::format("points inside the DEM extent, x {:.3f} to {:.3f}, y {:.3f} "
+                                "to {:.3f}",
+                                min_x, max_x, min_y, max_y)));
+            }
+        }
+    });
+    if (crs.empty()) {
+        return;
+    }
+    collect([&] {
+        const io::VectorLayer land_cover =
+            read_land_layer(*p.inputs.land_cover, "land_cover", p, crs);
+        const io::VectorLayer soils = read_land_layer(*p.inputs.soils, "soils", p, crs);
+        const land::LandOverlay overlay(land_cover, soils, project_tables(p), overlay_settings(p));
+        (void)overlay;
+    });
+}
+
+} // namespace catchpeak::app

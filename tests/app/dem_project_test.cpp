@@ -1,0 +1,107 @@
+// SPDX-License-Identifier: MIT
+// A DEM project end to end (`run` as a function): the V valley of dem_project_data.hpp with two
+// nested design points and two land-cover classes on soil group B. Areas, C and CN are checked
+// against values computed by hand from the geometry and the shipped tables
+// (config/land/runoff_coefficients.csv: commercial 0.825, residential_1_4_ac 0.40, midpoints of
+// the ASCE ranges; config/land/curve_numbers.csv, TR-55 (1986) Table 2-2a, soil B: commercial 92,
+// residential_1_4_ac 75). No expected value was taken from catchpeak's output.
+#include "app/dem_project_data.hpp"
+#include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/core/error.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
+
+#include <fstream>
+#include <sstream>
+
+namespace fs = std::filesystem;
+namespace t = catchpeak::test;
+
+// Under LeakSanitizer (asan preset): fontconfig's process-lifetime caches (the sheet is rendered).
+extern "C" const char *__lsan_default_suppressions() { return "leak:libfontconfig.so\n"; }
+
+namespace {
+
+nlohmann::json read_json(const fs::path &p) {
+    std::ifstream in(p);
+    return nlohmann::json::parse(in);
+}
+
+const nlohmann::json &point(const nlohmann::json &doc, const std::string &id) {
+    for (const auto &p : doc.at("design_points")) {
+        if (p.at("id") == id) {
+            return p;
+        }
+    }
+    throw std::runtime_error("no design point " + id);
+}
+
+} // namespace
+
+TEST(DemProject, AreasCAndCnOfNestedPointsMatchTheHandComputation) {
+    using S = t::DemProjectSpec;
+    const auto dir = t::scratch_dir("dem_project_hand");
+    const auto project = t::make_dem_project(dir);
+    std::ostringstream out;
+    std::ostringstream err;
+    catchpeak::app::RunOptions o;
+    o.quiet = true;
+    o.run_time_utc = "2026-01-01T00:00:00Z";
+    const fs::path written = catchpeak::app::run_project(project, o, out, err);
+    ASSERT_TRUE(fs::exists(written / "results.json"));
+    EXPECT_TRUE(fs::exists(written / "catchments.gpkg"));
+    EXPECT_TRUE(fs::exists(written / "calculation-sheet.pdf"));
+    const auto doc = read_json(written / "results.json");
+
+    // Catchment of the axis cell of row r: 31 columns x (r - 4) rows of 100 m2 (see the
+    // geometry in dem_project_data.hpp). Cell counts are exact; the tolerance is rounding.
+    constexpr double cell_m2 = S::cell_m * S::cell_m;
+    const double up_area = 31.0 * (S::upper_row - S::head_row + 1) * cell_m2;   // 62 000 m2
+    const double out_area = 31.0 * (S::outlet_row - S::head_row + 1) * cell_m2; // 155 000 m2
+    const auto &up = point(doc, "DP-UP");
+    const auto &dn = point(doc, "DP-OUT");
+    EXPECT_NEAR(up["catchment"]["area_m2"].get<double>(), up_area, 1e-6);
+    EXPECT_NEAR(dn["catchment"]["area_m2"].get<double>(), out_area, 1e-6);
+    EXPECT_NEAR(dn["catchment"]["local_area_m2"].get<double>(), out_area - up_area, 1e-6);
+    EXPECT_EQ(dn["catchment_source"], "dem");
+    EXPECT_NEAR(up["snap_distance_m"].get<double>(), 0.0, 1e-9); // given on the axis cell
+
+    // Commercial: rows 5..14 (310 cells) in both catchments; residential: the rest.
+    const double com_m2 = 31.0 * (S::split_row - S::head_row) * cell_m2;
+    const double c_up = (com_m2 * 0.825 + (up_area - com_m2) * 0.40) / up_area;    // 0.6125
+    const double cn_up = (com_m2 * 92.0 + (up_area - com_m2) * 75.0) / up_area;    // 83.5
+    const double c_out = (com_m2 * 0.825 + (out_area - com_m2) * 0.40) / out_area; // 0.485
+    const double cn_out = (com_m2 * 92.0 + (out_area - com_m2) * 75.0) / out_area; // 78.4
+    // Tolerance: GEOS overlay of exact rectangles, rounding only.
+    EXPECT_NEAR(up["land"]["c_weighted"].get<double>(), c_up, 1e-9);
+    EXPECT_NEAR(up["land"]["cn_weighted"].get<double>(), cn_up, 1e-9);
+    EXPECT_NEAR(dn["land"]["c_weighted"].get<double>(), c_out, 1e-9);
+    EXPECT_NEAR(dn["land"]["cn_weighted"].get<double>(), cn_out, 1e-9);
+
+    // The Rational peaks use that C (intermediate "c") for both return periods.
+    ASSERT_EQ(dn["peaks"].size(), 2u);
+    for (const auto &pk : dn["peaks"]) {
+        EXPECT_NEAR(pk["intermediates"]["c"].get<double>(), c_out, 1e-9);
+        EXPECT_FALSE(pk["line_id"].get<std::string>().empty());
+    }
+    // The terrain figures are lines with their sources.
+    bool d8_line = false;
+    for (const auto &l : dn["lines"]) {
+        if (l["label"] == "Catchment area") {
+            d8_line = d8_line || l["source"].get<std::string>().find("D8") != std::string::npos;
+            EXPECT_NEAR(l["value"].get<double>(), out_area / 1e4, 1e-9);
+        }
+    }
+    EXPECT_TRUE(d8_line);
+}
+
+TEST(DemProject, CheckValidatesWithoutWritingAnything) {
+    const auto dir = t::scratch_dir("dem_project_check");
+    const auto project = t::make_dem_project(dir);
+    std::ostringstream out;
+    catchpeak::app::check_project_file(project, out);
+    EXPECT_NE(out.str().find("no problems found"), std::string::npos);
+    EXPECT_FALSE(fs::exists(dir / "out"));
+}

@@ -1,0 +1,106 @@
+// SPDX-License-Identifier: MIT
+// `catchpeak run` and `catchpeak check` on bad DEM projects: data-driven records (STYLE.md 7).
+// Each record changes one thing in the valid valley project of app/dem_project_data.hpp and
+// states the exit code, the text the message must hold, and that no results.json was written.
+#include "app/dem_project_data.hpp"
+#include "catchpeak/cli/run.hpp"
+#include "catchpeak/core/error.hpp"
+#include "support/test_env.hpp"
+
+#include <gtest/gtest.h>
+
+#include <functional>
+#include <sstream>
+#include <string>
+#include <vector>
+
+using catchpeak::ExitCode;
+namespace fs = std::filesystem;
+namespace t = catchpeak::test;
+
+namespace {
+
+struct DemCase {
+    std::string name;
+    std::function<void(t::DemProjectOptions &)> change;
+    std::string command;                 ///< "run" or "check"
+    std::vector<std::string> expect_err; ///< every piece must appear on stderr
+};
+
+const std::vector<DemCase> &dem_cases() {
+    using S = t::DemProjectSpec;
+    static const std::vector<DemCase> c = {
+        {"empty_point_layer",
+         [](auto &o) { o.empty_points = true; },
+         "run",
+         {"points.gpkg", "holds no design point"}},
+        {"empty_point_layer_check",
+         [](auto &o) { o.empty_points = true; },
+         "check",
+         {"points.gpkg", "holds no design point"}},
+        {"point_outside_dem",
+         [](auto &o) {
+             o.points = {{t::cell_x(S::axis_col), t::cell_y(S::outlet_row), "DP-OUT"},
+                         {t::cell_x(S::axis_col) + 5000.0, t::cell_y(S::outlet_row), "DP-FAR"}};
+         },
+         "run",
+         {"DP-FAR", "lies outside the DEM extent"}},
+        {"point_outside_dem_check",
+         [](auto &o) {
+             o.points = {{t::cell_x(S::axis_col) + 5000.0, t::cell_y(S::outlet_row), "DP-FAR"}};
+         },
+         "check",
+         {"DP-FAR", "lies outside the DEM extent"}},
+        {"land_cover_without_crs",
+         [](auto &o) { o.land_crs = ""; },
+         "run",
+         {"[inputs] land_cover", "has no coordinate reference system"}},
+        {"land_cover_without_crs_check",
+         [](auto &o) { o.land_crs = ""; },
+         "check",
+         {"[inputs] land_cover", "has no coordinate reference system"}},
+        {"land_class_missing_from_table",
+         [](auto &o) { o.residential_class = "residential_on_the_moon"; },
+         "run",
+         {"residential_on_the_moon"}},
+        {"geographic_dem",
+         [](auto &o) { o.dem_crs = "EPSG:4326"; },
+         "run",
+         {"dem.tif", "geographic CRS"}},
+        {"geographic_dem_check",
+         [](auto &o) { o.dem_crs = "EPSG:4326"; },
+         "check",
+         {"dem.tif", "geographic CRS"}},
+    };
+    return c;
+}
+
+[[maybe_unused]] void PrintTo(const DemCase &c, std::ostream *os) { *os << c.name; }
+
+class DemRunBadInput : public ::testing::TestWithParam<DemCase> {};
+
+} // namespace
+
+TEST_P(DemRunBadInput, ExitTwoWithMessageAndNothingWritten) {
+    const auto &c = GetParam();
+    const auto dir = t::scratch_dir("dem_bad_" + c.name);
+    t::DemProjectOptions o;
+    c.change(o);
+    const auto project = t::make_dem_project(dir, o);
+    std::ostringstream out;
+    std::ostringstream err;
+    const std::vector<std::string> args =
+        c.command == "run" ? std::vector<std::string>{"run", "--quiet", project.string()}
+                           : std::vector<std::string>{"check", project.string()};
+    const int code = catchpeak::cli::run(args, out, err);
+    EXPECT_EQ(code, static_cast<int>(ExitCode::bad_input)) << out.str() << err.str();
+    for (const auto &piece : c.expect_err) {
+        EXPECT_NE(err.str().find(piece), std::string::npos) << "missing '" << piece << "' in:\n"
+                                                            << err.str();
+    }
+    EXPECT_FALSE(fs::exists(dir / "out" / "results.json"));
+    EXPECT_FALSE(fs::exists(dir / "out" / "catchments.gpkg"));
+}
+
+INSTANTIATE_TEST_SUITE_P(Cases, DemRunBadInput, ::testing::ValuesIn(dem_cases()),
+                         [](const auto &param_info) { return param_info.param.name; });
