@@ -63,13 +63,15 @@ TEST(CnRunoff, HawkinsRatioConvertsTheCurveNumber) {
 
 TEST(CnRunoff, RefusesBadInput) {
     try {
-        (void)h::cn_runoff(50.0, 30.0, System::si);
+        (void)h::cn_runoff(50.0, 29.5, System::si);
         FAIL() << "no InputError";
     } catch (const InputError &e) {
         const std::string m = e.what();
         EXPECT_NE(m.find("curve number"), std::string::npos) << m;
-        EXPECT_NE(m.find("30 < CN <= 100"), std::string::npos) << m;
+        EXPECT_NE(m.find("30 <= CN <= 100"), std::string::npos) << m;
     }
+    // CN 30 is in TR-55 Table 2-2c (meadow, soil group A): accepted.
+    EXPECT_NO_THROW((void)h::cn_runoff(50.0, 30.0, System::si));
     EXPECT_THROW((void)h::cn_runoff(50.0, 100.5, System::si), InputError);
     EXPECT_THROW((void)h::cn_runoff(50.0, std::numeric_limits<double>::quiet_NaN(), System::si),
                  InputError);
