@@ -255,10 +255,10 @@ CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
                d8_source, len(fp.length_m), lu);
     lines.note("Elevation at the top of the longest flow path",
                fmt::format("Z top = {} {}", sig(len(fp.elevation_top_m)), lu),
-               "DEM elevation (conditioned)", len(fp.elevation_top_m), lu);
+               "DEM as given (before conditioning)", len(fp.elevation_top_m), lu);
     lines.note("Elevation at the outlet",
                fmt::format("Z outlet = {} {}", sig(len(fp.elevation_outlet_m)), lu),
-               "DEM elevation (conditioned)", len(fp.elevation_outlet_m), lu);
+               "DEM as given (before conditioning)", len(fp.elevation_outlet_m), lu);
     lines.calc("Slope of the longest flow path", "S = (Z top - Z outlet) / L",
                fmt::format("S = ({} - {}) / {}", sig(len(fp.elevation_top_m)),
                            sig(len(fp.elevation_outlet_m)), sig(len(fp.length_m))),
