@@ -2,7 +2,7 @@
 #include "catchpeak/app/delineate.hpp"
 
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/atomic_file.hpp"
+#include "catchpeak/core/files.hpp"
 #include "catchpeak/io/gpkg.hpp"
 #include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/raster.hpp"
@@ -372,11 +372,11 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
     prepare_out_dir(options.out_dir);
     summary.json = options.out_dir / "catchments.json";
     summary.gpkg = options.out_dir / "catchments.gpkg";
-    io::PendingFile gpkg_file(summary.gpkg);
-    io::PendingFile json_file(summary.json);
+    PendingFile gpkg_file(summary.gpkg);
+    PendingFile json_file(summary.json);
     io::write_gpkg(gpkg_file.temp_path(), d.layers);
     bar.update(0.9);
-    io::write_text_file_atomic(json_file.temp_path(), json_text);
+    write_text_file_atomic(json_file.temp_path(), json_text);
     gpkg_file.commit();
     json_file.commit();
     bar.finish();

@@ -5,11 +5,11 @@
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/core/version.hpp"
 #include "catchpeak/hydro/rational.hpp"
 #include "catchpeak/hydro/tc.hpp"
-#include "catchpeak/io/atomic_file.hpp"
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
@@ -188,7 +188,7 @@ fs::path run_project(const fs::path &project_file, const RunOptions &options, st
     if (!options.quiet) {
         err << "catchpeak: writing results and the calculation sheet\n";
     }
-    std::optional<io::PendingFile> gpkg;
+    std::optional<PendingFile> gpkg;
     if (!layers.empty()) {
         std::error_code ec;
         fs::create_directories(dir, ec);
@@ -208,7 +208,7 @@ fs::path run_project(const fs::path &project_file, const RunOptions &options, st
 
 void check_project_file(const fs::path &project_file, std::ostream &out) {
     Problems problems;
-    const std::string text = io::read_text_file(project_file);
+    const std::string text = read_text_file(project_file);
     const Project p = parse_project(text, project_file, problems);
     check_project(p, problems);
     not_yet_available(p, problems);
@@ -231,15 +231,7 @@ fs::path init_project(const fs::path &dir) {
         throw_input_error(dir.string(), "the folder cannot be created: " + ec.message(),
                           "a folder you may write to");
     }
-    const fs::path tmp = dir / ".project.toml.partial";
-    {
-        std::ofstream o(tmp, std::ios::binary | std::ios::trunc);
-        o << project_template();
-        if (!o) {
-            throw_input_error(tmp.string(), "cannot be written", "a folder you may write to");
-        }
-    }
-    fs::rename(tmp, file);
+    write_text_file_atomic(file, project_template());
     return file;
 }
 

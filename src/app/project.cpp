@@ -2,6 +2,7 @@
 #include "catchpeak/app/project.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 #include "catchpeak/io/csv.hpp"
 
 #include <fmt/format.h>
@@ -630,7 +631,7 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
 }
 
 Project load_project(const fs::path &file) {
-    const std::string text = io::read_text_file(file);
+    const std::string text = read_text_file(file);
     Problems problems;
     Project p = parse_project(text, file, problems);
     problems.throw_if_any();

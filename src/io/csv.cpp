@@ -2,6 +2,7 @@
 #include "catchpeak/io/csv.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 
 #include <fmt/format.h>
 
@@ -150,17 +151,6 @@ CsvTable parse_csv(std::string_view text, std::string source) {
                           "a first line naming the columns, separated by commas");
     }
     return table;
-}
-
-std::string read_text_file(const std::filesystem::path &path) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) {
-        throw_input_error(path.string(), "cannot be opened for reading",
-                          "an existing, readable file");
-    }
-    std::ostringstream buffer;
-    buffer << in.rdbuf();
-    return buffer.str();
 }
 
 CsvTable read_csv(const std::filesystem::path &path) {

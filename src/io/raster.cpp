@@ -2,7 +2,7 @@
 #include "catchpeak/io/raster.hpp"
 
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/atomic_file.hpp"
+#include "catchpeak/core/files.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>

@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/results_json.hpp"
 
-#include "atomic_file.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -479,21 +479,21 @@ Stamp parse_run_record_json(std::string_view text, std::string_view where) {
 }
 
 void write_results_json(const RunResults &results, const std::filesystem::path &dir) {
-    detail::write_text_file(dir / results_file_name, results_json(results));
+    write_text_file_atomic(dir / results_file_name, results_json(results));
 }
 
 RunResults read_results_json(const std::filesystem::path &dir) {
     const auto file = dir / results_file_name;
-    return parse_results_json(detail::read_text_file(file), file.string());
+    return parse_results_json(read_text_file(file), file.string());
 }
 
 void write_run_record(const Stamp &stamp, const std::filesystem::path &dir) {
-    detail::write_text_file(dir / run_record_file_name, run_record_json(stamp));
+    write_text_file_atomic(dir / run_record_file_name, run_record_json(stamp));
 }
 
 Stamp read_run_record(const std::filesystem::path &dir) {
     const auto file = dir / run_record_file_name;
-    return parse_run_record_json(detail::read_text_file(file), file.string());
+    return parse_run_record_json(read_text_file(file), file.string());
 }
 
 } // namespace catchpeak::report

@@ -1,9 +1,9 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/sheet.hpp"
 
-#include "atomic_file.hpp"
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 #include "catchpeak/report/sheet_units.hpp"
 
 #include <cairo-pdf.h>
@@ -1333,8 +1333,8 @@ class SheetWriter {
     // ----- output ------------------------------------------------------------------------------
 
     std::size_t output(const std::filesystem::path &file) {
-        const auto tmp = detail::partial_name(file);
-        SurfacePtr pdf(cairo_pdf_surface_create(tmp.c_str(), page_w_, page_h_));
+        PendingFile pending(file);
+        SurfacePtr pdf(cairo_pdf_surface_create(pending.temp_path().c_str(), page_w_, page_h_));
         if (cairo_surface_status(pdf.get()) != CAIRO_STATUS_SUCCESS) {
             throw_input_error(file.string(), "cannot open the file for writing",
                               "a writable output folder");
@@ -1360,14 +1360,12 @@ class SheetWriter {
         const auto status = cairo_surface_status(pdf.get());
         pdf.reset();
         if (status != CAIRO_STATUS_SUCCESS) {
-            std::error_code ec;
-            std::filesystem::remove(tmp, ec);
             throw_input_error(file.string(),
                               std::string("writing the PDF failed: ") +
                                   cairo_status_to_string(status),
                               "a writable output folder with free space");
         }
-        detail::commit_partial(file);
+        pending.commit();
         return n;
     }
 

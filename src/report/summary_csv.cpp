@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/summary_csv.hpp"
 
-#include "atomic_file.hpp"
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/files.hpp"
 #include "catchpeak/report/sheet_units.hpp"
 
 #include <fmt/format.h>
@@ -48,7 +48,7 @@ std::string summary_csv(const RunResults &results) {
 }
 
 void write_summary_csv(const RunResults &results, const std::filesystem::path &dir) {
-    detail::write_text_file(dir / summary_file_name, summary_csv(results));
+    write_text_file_atomic(dir / summary_file_name, summary_csv(results));
 }
 
 } // namespace catchpeak::report

@@ -11,6 +11,7 @@
 //   local area = total minus the nested catchment).
 // No value of this DEM is compared with a number catchpeak printed before.
 #include "catchpeak/app/delineate.hpp"
+#include "catchpeak/core/files.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
@@ -421,7 +422,7 @@ TEST_F(RealTerrain, ResultsAreByteIdenticalWhateverTheThreadCount) {
         o.out_dir = dir / ("threads_" + std::to_string(threads));
         o.threads = threads;
         const auto summary = catchpeak::app::delineate(o, nullptr);
-        texts.push_back(catchpeak::io::read_text_file(summary.json));
+        texts.push_back(catchpeak::read_text_file(summary.json));
     }
     EXPECT_FALSE(texts[0].empty());
     EXPECT_EQ(texts[0], texts[1]);

@@ -45,22 +45,13 @@ std::vector<io::OutLayer> two_layers() {
     return {points, areas};
 }
 
-bool has_temp_files(const fs::path &dir) {
-    for (const auto &e : fs::directory_iterator(dir)) {
-        if (e.path().filename().string().find(".part-") != std::string::npos) {
-            return true;
-        }
-    }
-    return false;
-}
-
 } // namespace
 
 TEST(WriteGpkg, LayersFieldsValuesAndCrsReadBack) {
     const auto dir = t::scratch_dir("gpkg_ok");
     const auto p = dir / "out.gpkg";
     io::write_gpkg(p, two_layers());
-    EXPECT_FALSE(has_temp_files(dir));
+    EXPECT_TRUE(t::pending_files(dir).empty());
 
     t::gdal_init();
     GDALDatasetUniquePtr ds(GDALDataset::Open(p.string().c_str(), GDAL_OF_VECTOR));
@@ -111,7 +102,7 @@ TEST(WriteGpkg, FailureLeavesNothingBehind) {
     layers[1].features[0].values.pop_back(); // one value short: a bug, caught
     EXPECT_THROW(io::write_gpkg(dir / "out.gpkg", layers), catchpeak::InternalError);
     EXPECT_FALSE(fs::exists(dir / "out.gpkg"));
-    EXPECT_FALSE(has_temp_files(dir));
+    EXPECT_TRUE(t::pending_files(dir).empty());
     EXPECT_THROW(io::write_gpkg(dir / "missing_folder" / "out.gpkg", two_layers()),
                  catchpeak::InputError);
 }

@@ -29,15 +29,6 @@ std::vector<float> ramp(int w, int h) {
     return v;
 }
 
-bool has_temp_files(const fs::path &dir) {
-    for (const auto &e : fs::directory_iterator(dir)) {
-        if (e.path().filename().string().find(".part-") != std::string::npos) {
-            return true;
-        }
-    }
-    return false;
-}
-
 } // namespace
 
 TEST(ReadDem, MetreGeoTiffWithNodata) {
@@ -255,7 +246,7 @@ TEST(WriteGeotiff, RoundTripsEachTypeAndLeavesNoTemporaryFile) {
         ds->GetRasterBand(1)->RasterIO(GF_Read, 1, 0, 1, 1, &v, 1, 1, GDT_UInt32, 0, 0, nullptr),
         CE_None);
     EXPECT_EQ(v, 4000000000u);
-    EXPECT_FALSE(has_temp_files(dir));
+    EXPECT_TRUE(t::pending_files(dir).empty());
 }
 
 TEST(WriteGeotiff, UnwritableFolderIsAnInputErrorAndLeavesNothing) {
@@ -264,5 +255,5 @@ TEST(WriteGeotiff, UnwritableFolderIsAnInputErrorAndLeavesNothing) {
     const auto msg = catchpeak::test::input_error_of(
         [&] { catchpeak::io::write_geotiff(f, dir / "no_such_folder" / "f.tif"); });
     EXPECT_NE(msg.find("f.tif"), std::string::npos) << msg;
-    EXPECT_FALSE(has_temp_files(dir));
+    EXPECT_TRUE(t::pending_files(dir).empty());
 }

@@ -9,6 +9,7 @@
 #include <gtest/gtest.h>
 
 #include <fstream>
+#include <iterator>
 
 namespace catchpeak::report {
 namespace {
@@ -22,12 +23,10 @@ TEST(Outputs, WritesTheFourFilesAndNothingPartial) {
         EXPECT_GT(std::filesystem::file_size(f), 0u) << f;
     }
     EXPECT_GE(out.sheet_pages, 4u);
-    std::size_t files = 0;
-    for (const auto &e : std::filesystem::directory_iterator(dir)) {
-        ++files;
-        EXPECT_EQ(e.path().string().find(".partial"), std::string::npos) << e.path();
-    }
-    EXPECT_EQ(files, 4u);
+    const auto files = std::distance(std::filesystem::directory_iterator(dir),
+                                     std::filesystem::directory_iterator{});
+    EXPECT_EQ(files, 4);
+    EXPECT_TRUE(test::pending_files(dir).empty());
     EXPECT_EQ(read_results_json(dir).points.size(), 2u);
     EXPECT_EQ(read_run_record(dir).run_time_utc, r.stamp.run_time_utc);
 }

@@ -72,7 +72,7 @@ std::size_t pdf_pages(const std::filesystem::path &pdf) {
 
 void check_sheet(const RunResults &r, const std::filesystem::path &pdf, std::size_t pages) {
     ASSERT_TRUE(std::filesystem::exists(pdf));
-    EXPECT_FALSE(std::filesystem::exists(pdf.string() + ".partial"));
+    EXPECT_TRUE(test::pending_files(pdf.parent_path()).empty());
     EXPECT_EQ(pdf_pages(pdf), pages);
     const auto text = fold(pdf_text(pdf));
     ASSERT_FALSE(text.empty()) << "pdftotext gave nothing";

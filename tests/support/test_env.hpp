@@ -8,6 +8,7 @@
 #include <stdexcept>
 #include <string>
 #include <system_error>
+#include <vector>
 
 #include <unistd.h>
 
@@ -54,6 +55,23 @@ inline std::filesystem::path scratch_dir(const std::string &test_name) {
     std::filesystem::remove_all(dir);
     std::filesystem::create_directories(dir);
     return dir;
+}
+
+/// Files under `dir` (searched recursively) still carrying the temporary name of a file being
+/// written (".<stem>.part-<pid>-<n><ext>", core/files.hpp): a finished or failed write leaves none.
+/// A missing folder holds none.
+inline std::vector<std::filesystem::path> pending_files(const std::filesystem::path &dir) {
+    std::vector<std::filesystem::path> found;
+    std::error_code ec;
+    if (!std::filesystem::is_directory(dir, ec)) {
+        return found;
+    }
+    for (const auto &e : std::filesystem::recursive_directory_iterator(dir)) {
+        if (e.path().filename().string().find(".part-") != std::string::npos) {
+            found.push_back(e.path());
+        }
+    }
+    return found;
 }
 
 } // namespace catchpeak::test

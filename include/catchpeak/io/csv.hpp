@@ -53,9 +53,6 @@ struct CsvTable {
 /// Reads and parses a CSV file. Throws InputError when it cannot be read.
 [[nodiscard]] CsvTable read_csv(const std::filesystem::path &path);
 
-/// Reads a whole text file. Throws InputError naming the file when it cannot be read.
-[[nodiscard]] std::string read_text_file(const std::filesystem::path &path);
-
 /// Parses a decimal number with std::from_chars (locale-independent). The whole text (after
 /// trimming blanks) must be the number. Throws InputError "<where>: '<text>' is not a number".
 [[nodiscard]] double parse_number(std::string_view text, std::string_view where);

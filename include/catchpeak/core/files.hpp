@@ -1,11 +1,13 @@
 // SPDX-License-Identifier: MIT
 #pragma once
+// Writing files so that nothing half-written is left behind, and reading whole files. Shared by
+// io, report and app.
 
 #include <filesystem>
 #include <string>
 #include <string_view>
 
-namespace catchpeak::io {
+namespace catchpeak {
 
 /// A file being written under a temporary name in the folder of its final name
 /// (".<name>.part-<n><extension>", so drivers that look at the extension still recognise it).
@@ -36,6 +38,10 @@ class PendingFile {
 };
 
 /// Writes a text file through a PendingFile (temporary name, then rename).
+/// Throws InputError naming the file when it cannot be written.
 void write_text_file_atomic(const std::filesystem::path &path, std::string_view text);
 
-} // namespace catchpeak::io
+/// Reads a whole file as bytes; throws InputError naming the file when it cannot be opened.
+[[nodiscard]] std::string read_text_file(const std::filesystem::path &path);
+
+} // namespace catchpeak

@@ -1,5 +1,5 @@
 // SPDX-License-Identifier: MIT
-#include "catchpeak/io/atomic_file.hpp"
+#include "catchpeak/core/files.hpp"
 
 #include "catchpeak/core/error.hpp"
 
@@ -7,10 +7,11 @@
 
 #include <atomic>
 #include <fstream>
+#include <sstream>
 #include <system_error>
 #include <unistd.h>
 
-namespace catchpeak::io {
+namespace catchpeak {
 
 namespace {
 std::atomic<unsigned long> counter{0};
@@ -71,10 +72,23 @@ void write_text_file_atomic(const std::filesystem::path &path, std::string_view 
         out.write(text.data(), static_cast<std::streamsize>(text.size()));
         out.close();
         if (!out) {
-            throw_input_error(path.string(), "cannot be written", "a writable folder");
+            throw_input_error(path.string(),
+                              "cannot be written (is the folder writable, the disk full?)",
+                              "a writable folder with free space");
         }
     }
     file.commit();
 }
 
-} // namespace catchpeak::io
+std::string read_text_file(const std::filesystem::path &path) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) {
+        throw_input_error(path.string(), "cannot be opened for reading",
+                          "an existing, readable file");
+    }
+    std::ostringstream buffer;
+    buffer << in.rdbuf();
+    return buffer.str();
+}
+
+} // namespace catchpeak
