@@ -89,6 +89,15 @@ SpatialRefPtr spatial_ref_from_wkt(const std::string &wkt) {
     return srs;
 }
 
+bool has_crs(const OGRSpatialReference *srs) {
+    if (srs == nullptr || srs->IsEmpty()) {
+        return false;
+    }
+    const char *name = srs->GetName();
+    const std::string_view n = name != nullptr ? name : "";
+    return n != "Undefined geographic SRS" && n != "Undefined Cartesian SRS";
+}
+
 std::string to_wkt(const OGRSpatialReference *srs) {
     if (srs == nullptr) {
         return {};

@@ -85,6 +85,11 @@ class GdalErrorScope {
 /// empty. Traditional GIS axis order (x = easting/longitude). Throws InternalError when the
 /// text is not understood (our own WKT always is).
 [[nodiscard]] SpatialRefPtr spatial_ref_from_wkt(const std::string &wkt);
+/// False for a missing or empty spatial reference and for the placeholders a GeoPackage carries
+/// when its layer was written without a CRS ("Undefined geographic SRS", srs_id 0, and
+/// "Undefined Cartesian SRS", srs_id -1, of the OGC GeoPackage standard, table
+/// gpkg_spatial_ref_sys): none of them says where the coordinates lie.
+[[nodiscard]] bool has_crs(const OGRSpatialReference *srs);
 /// WKT (WKT2_2018 where possible) of a spatial reference; "" for null.
 [[nodiscard]] std::string to_wkt(const OGRSpatialReference *srs);
 

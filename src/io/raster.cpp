@@ -88,7 +88,7 @@ Dem read_dem(const std::filesystem::path &path) {
     }
 
     const OGRSpatialReference *srs = ds->GetSpatialRef();
-    if (srs == nullptr || srs->IsEmpty()) {
+    if (!detail::has_crs(srs)) {
         throw_input_error(file, "has no coordinate reference system (CRS)",
                           std::string(accepted_crs) +
                               "; assign the right one with 'gdal_edit.py -a_srs EPSG:<code> " +

@@ -64,14 +64,15 @@ OpenLayer open_layer(const std::filesystem::path &path, const std::string &targe
     }
     out.source = detail::source_name(path, out.layer->GetName(), count > 1);
 
-    const OGRSpatialReference *layer_srs = out.layer->GetSpatialRef();
+    const OGRSpatialReference *layer_srs =
+        detail::has_crs(out.layer->GetSpatialRef()) ? out.layer->GetSpatialRef() : nullptr;
     auto target = detail::spatial_ref_from_wkt(target_crs_wkt);
     if (!target) {
         out.crs_wkt = detail::to_wkt(layer_srs);
         return out;
     }
     out.crs_wkt = target_crs_wkt;
-    if (layer_srs == nullptr || layer_srs->IsEmpty()) {
+    if (layer_srs == nullptr) {
         out.notes.push_back(fmt::format("{}: the layer has no coordinate reference system; its "
                                         "coordinates are taken to be in the DEM's CRS ({})",
                                         out.source,

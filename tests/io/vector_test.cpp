@@ -81,6 +81,18 @@ TEST(ReadVectorLayer, LayerWithoutCrsIsTakenToBeInTheTargetCrsWithANote) {
     EXPECT_DOUBLE_EQ(geometry(layer.features[0].wkb)->toPoint()->getX(), 1.0);
 }
 
+TEST(ReadVectorLayer, GeoPackageLayerWrittenWithoutCrsIsTreatedAsHavingNone) {
+    // A GeoPackage layer created without a CRS carries a placeholder ("Undefined ... SRS",
+    // srs_id 0 or -1 of the OGC GeoPackage standard), not a CRS to reproject from.
+    const auto dir = t::scratch_dir("no_crs_gpkg");
+    const auto p = t::make_layer(dir / "p.gpkg", "p", {"id"}, {{"POINT (1 2)", {"A"}}}, "", "GPKG");
+    std::vector<std::string> notes;
+    const auto layer = io::read_vector_layer(p, t::crs_wkt(utm33), {}, &notes);
+    ASSERT_EQ(notes.size(), 1u);
+    EXPECT_NE(notes[0].find("no coordinate reference system"), std::string::npos) << notes[0];
+    EXPECT_DOUBLE_EQ(geometry(layer.features[0].wkb)->toPoint()->getX(), 1.0);
+}
+
 TEST(ReadVectorLayer, SeveralLayersNeedAName) {
     const auto dir = t::scratch_dir("layers");
     const auto p = dir / "two.gpkg";
