@@ -31,6 +31,20 @@ std::string short_method(const std::string &m) {
     return m;
 }
 
+/// Method name for a sentence.
+std::string long_method(const std::string &m) {
+    if (m == "rational") {
+        return "the Rational Method";
+    }
+    if (m == "tr55_graphical") {
+        return "the TR-55 graphical peak discharge method";
+    }
+    if (m == "scs_unit_hydrograph") {
+        return "the SCS unit hydrograph";
+    }
+    return m;
+}
+
 int method_order(const std::string &m) {
     if (m == "rational") {
         return 0;
@@ -48,46 +62,80 @@ int method_order(const std::string &m) {
 
 std::string summary_table(const report::RunResults &r) {
     const bool us = r.project.units == units::System::us_customary;
-    // One column per return period and method that any point has, in a fixed order.
-    std::vector<std::pair<double, std::string>> cols;
+    const std::string q_unit = us ? "ft3/s" : "m3/s";
+    // The return periods and methods that any point has, in a fixed order.
+    std::vector<double> periods;
+    std::vector<std::string> methods;
     for (const auto &dp : r.points) {
         for (const auto &pk : dp.peaks) {
-            const std::pair<double, std::string> c{pk.return_period_yr, pk.method};
-            if (std::find(cols.begin(), cols.end(), c) == cols.end()) {
-                cols.push_back(c);
+            if (std::find(periods.begin(), periods.end(), pk.return_period_yr) == periods.end()) {
+                periods.push_back(pk.return_period_yr);
+            }
+            if (std::find(methods.begin(), methods.end(), pk.method) == methods.end()) {
+                methods.push_back(pk.method);
             }
         }
     }
-    std::sort(cols.begin(), cols.end(), [](const auto &a, const auto &b) {
-        return a.first != b.first ? a.first < b.first
-                                  : method_order(a.second) < method_order(b.second);
-    });
-    const bool one_method = std::all_of(cols.begin(), cols.end(),
-                                        [&](const auto &c) { return c.second == "rational"; });
+    std::sort(periods.begin(), periods.end());
+    std::sort(methods.begin(), methods.end(),
+              [](const auto &a, const auto &b) { return method_order(a) < method_order(b); });
+    const auto peak = [&](const report::DesignPointResult &dp, double rp, const std::string &m) {
+        for (const auto &pk : dp.peaks) {
+            if (pk.return_period_yr == rp && pk.method == m) {
+                return sig(us ? units::m3s_to_cfs(pk.q_m3_s) : pk.q_m3_s);
+            }
+        }
+        return std::string("-");
+    };
+    const auto area = [&](const report::DesignPointResult &dp) {
+        return sig(us ? units::m2_to_acre(dp.catchment.area_m2)
+                      : units::m2_to_ha(dp.catchment.area_m2));
+    };
+    const std::string warnings_note =
+        "warnings: warning lines of the point, listed on the calculation sheet\n";
     std::string s =
         fmt::format("{:<12} {:>10} {:>8}", "point", us ? "area ac" : "area ha", "tc min");
-    for (const auto &[rp, m] : cols) {
-        const std::string head =
-            one_method ? fmt::format("Q{} {}", rp, us ? "ft3/s" : "m3/s")
-                       : fmt::format("Q{} {} {}", rp, short_method(m), us ? "ft3/s" : "m3/s");
-        s += fmt::format(" {:>{}}", head, one_method ? 12 : 20);
+    if (methods.size() <= 1) {
+        // One method: a row per point, a column per return period.
+        for (const double rp : periods) {
+            s += fmt::format(" {:>12}", fmt::format("Q{} {}", rp, q_unit));
+        }
+        s += "  warnings\n";
+        for (const auto &dp : r.points) {
+            s += fmt::format("{:<12} {:>10} {:>8}", dp.id, area(dp), sig(dp.tc_min));
+            for (const double rp : periods) {
+                s += fmt::format(" {:>12}", methods.empty() ? "-" : peak(dp, rp, methods[0]));
+            }
+            s += fmt::format("  {}\n", dp.lines.warning_count());
+        }
+        s += fmt::format("QT: peak flow of return period T years by {}; {}",
+                         methods.empty() ? "no method" : long_method(methods[0]), warnings_note);
+        return s;
+    }
+    // Several methods: a row per point and return period, a column per method, so that the
+    // table stays narrow enough for a terminal.
+    s += fmt::format(" {:>6}", "T yr");
+    for (const auto &m : methods) {
+        s += fmt::format(" {:>14}", fmt::format("{} {}", short_method(m), q_unit));
     }
     s += "  warnings\n";
     for (const auto &dp : r.points) {
-        const double a =
-            us ? units::m2_to_acre(dp.catchment.area_m2) : units::m2_to_ha(dp.catchment.area_m2);
-        s += fmt::format("{:<12} {:>10} {:>8}", dp.id, sig(a), sig(dp.tc_min));
-        for (const auto &[rp, m] : cols) {
-            std::string q = "-";
-            for (const auto &pk : dp.peaks) {
-                if (pk.return_period_yr == rp && pk.method == m) {
-                    q = sig(us ? units::m3s_to_cfs(pk.q_m3_s) : pk.q_m3_s);
-                }
+        bool first = true;
+        for (const double rp : periods) {
+            if (first) {
+                s += fmt::format("{:<12} {:>10} {:>8}", dp.id, area(dp), sig(dp.tc_min));
+            } else {
+                s += fmt::format("{:<12} {:>10} {:>8}", "", "", "");
             }
-            s += fmt::format(" {:>{}}", q, one_method ? 12 : 20);
+            s += fmt::format(" {:>6}", rp);
+            for (const auto &m : methods) {
+                s += fmt::format(" {:>14}", peak(dp, rp, m));
+            }
+            s += first ? fmt::format("  {}\n", dp.lines.warning_count()) : "\n";
+            first = false;
         }
-        s += fmt::format("  {}\n", dp.lines.warning_count());
     }
+    s += "T: return period; " + warnings_note;
     return s;
 }
 
