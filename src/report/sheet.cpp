@@ -1343,6 +1343,12 @@ class SheetWriter {
                                        ("Calculation sheet: " + r_.project.name).c_str());
         cairo_pdf_surface_set_metadata(pdf.get(), CAIRO_PDF_METADATA_CREATOR,
                                        ("catchpeak " + r_.stamp.tool_version).c_str());
+        // The creation date is the time of the run (not of writing), so that the same results
+        // give the same PDF bytes; cairo would otherwise write the wall-clock time.
+        if (!r_.stamp.run_time_utc.empty()) {
+            cairo_pdf_surface_set_metadata(pdf.get(), CAIRO_PDF_METADATA_CREATE_DATE,
+                                           r_.stamp.run_time_utc.c_str());
+        }
         const std::size_t n = pages_.size();
         {
             CairoPtr c(cairo_create(pdf.get()));

@@ -2,6 +2,7 @@
 #include "catchpeak/report/sheet.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 #include "catchpeak/report/sheet_units.hpp"
 #include "report/sample_results.hpp"
 #include "support/test_env.hpp"
@@ -9,9 +10,11 @@
 #include <gtest/gtest.h>
 
 #include <array>
+#include <chrono>
 #include <cstdio>
 #include <memory>
 #include <sstream>
+#include <thread>
 
 // Under LeakSanitizer (asan preset): fontconfig keeps its font configuration in memory that it
 // reaches only through pointers LeakSanitizer cannot follow, and never frees it while pango's
@@ -171,6 +174,21 @@ TEST(Sheet, LongTextWrapsAndContinuesAcrossPages) {
     EXPECT_GE(pages, 5u); // 80 wrapped lines do not fit on one page
     check_sheet(r, pdf, pages);
     EXPECT_NE(fold(pdf_text(pdf)).find("Design point DP1 (continued)"), std::string::npos);
+}
+
+TEST(Sheet, SameResultsGiveTheSamePdfBytes) {
+    // The PDF carries the time of the run as its creation date, not the time it was written,
+    // so a sheet can be compared byte for byte with the one a checker regenerates.
+    const auto r = test::sample_results(2, units::System::si, {10, 100}, true);
+    const auto dir = test::scratch_dir("sheet_bytes");
+    (void)write_sheet_pdf(r, dir / "a.pdf");
+    std::this_thread::sleep_for(std::chrono::milliseconds(1100)); // a different wall-clock second
+    (void)write_sheet_pdf(r, dir / "b.pdf");
+    const auto a = read_text_file(dir / "a.pdf");
+    EXPECT_FALSE(a.empty());
+    EXPECT_TRUE(a == read_text_file(dir / "b.pdf")) << "the two PDFs differ";
+    const auto info = run("pdfinfo '" + (dir / "a.pdf").string() + "'");
+    EXPECT_NE(info.find(r.stamp.run_time_utc.substr(0, 4)), std::string::npos) << info;
 }
 
 TEST(Sheet, PageSize) {
