@@ -123,6 +123,8 @@ report::MapData make_map(const Delineation &d, std::size_t i) {
         map.local_catchment = rings_of(d.local_wkb[i]);
     }
     map.longest_flow_path = p.longest_flow_path.vertices_xy;
+    map.crs_unit = d.dem.horizontal_unit;
+    map.crs_unit_m = d.dem.horizontal_unit_m;
     map.given_xy = {p.given_x, p.given_y};
     map.snapped_xy = {p.snapped_x, p.snapped_y};
     double min_x = std::min(p.given_x, p.snapped_x), max_x = std::max(p.given_x, p.snapped_x);

@@ -136,6 +136,18 @@ double nice_step(double raw) {
     return (f < 1.5 ? 1.0 : f < 3.5 ? 2.0 : f < 7.5 ? 5.0 : 10.0) * p;
 }
 
+/// "metres", "international feet", "US survey feet": a unit name as a plural.
+std::string plural_unit(const std::string &unit) {
+    if (unit.empty()) {
+        return "metres";
+    }
+    const auto foot = unit.rfind("foot");
+    if (foot != std::string::npos && foot + 4 == unit.size()) {
+        return unit.substr(0, foot) + "feet";
+    }
+    return unit + "s";
+}
+
 /// A tick label: no decimals when the step is whole, else as many as the step needs.
 std::string tick_label(double v, double step) {
     int decimals = 0;
@@ -923,7 +935,7 @@ class SheetWriter {
         cairo_set_line_width(c, 0.7);
         cairo_rectangle(c, f.x, f.y, f.w, f.h);
         cairo_stroke(c);
-        grid_labels(f);
+        grid_labels(f, m.crs_unit_m > 0.0 ? m.crs_unit_m : 1.0);
         legend(margin_pt + content_w_ - legend_w, f.y, legend_w, m, p.id);
         y_ += block_h + 10.0;
     }
@@ -1040,9 +1052,11 @@ class SheetWriter {
         draw_text(bx + bar_w + 3.0, by - 3.0, esc(label), Style::tiny, -1.0);
     }
 
-    void grid_labels(const MapFrame &f) const {
+    /// Grid coordinates along the frame, labelled in the linear unit of the DEM file's CRS
+    /// (`unit_m` metres per unit), in which the engineer's survey gives them.
+    void grid_labels(const MapFrame &f, double unit_m) const {
         cairo_t *c = cr();
-        const double step = nice_step((f.world.max_x - f.world.min_x) / 4.0);
+        const double step = nice_step((f.world.max_x - f.world.min_x) / unit_m / 4.0) * unit_m;
         set_rgb(c, black);
         cairo_set_line_width(c, 0.5);
         // Eastings below the frame.
@@ -1051,7 +1065,7 @@ class SheetWriter {
             cairo_move_to(c, x, f.y + f.h);
             cairo_line_to(c, x, f.y + f.h + 3.0);
             cairo_stroke(c);
-            const auto label = tick_label(v, step);
+            const auto label = tick_label(v / unit_m, step / unit_m);
             const double tw = text_width(label, Style::tiny);
             if (x - tw / 2.0 < f.x - 12.0 || x + tw / 2.0 > f.x + f.w + 4.0) {
                 continue;
@@ -1064,7 +1078,7 @@ class SheetWriter {
             cairo_move_to(c, f.x, y);
             cairo_line_to(c, f.x - 3.0, y);
             cairo_stroke(c);
-            const auto label = tick_label(v, step);
+            const auto label = tick_label(v / unit_m, step / unit_m);
             const double tw = text_width(label, Style::tiny);
             if (y + tw / 2.0 > f.y + f.h + 2.0 || y - tw / 2.0 < f.y - 2.0) {
                 continue;
@@ -1138,8 +1152,9 @@ class SheetWriter {
         }
         yy += 4.0;
         draw_text(x, yy,
-                  esc("Grid coordinates in metres, in the coordinate system of the DEM; north "
-                      "is grid north."),
+                  esc(fmt::format("Grid coordinates in {}, in the coordinate system of the DEM; "
+                                  "north is grid north.",
+                                  plural_unit(m.crs_unit))),
                   Style::tiny, w, dark_grey);
     }
 

@@ -144,6 +144,25 @@ TEST(Sheet, UsCustomarySheetHoldsEveryPointPeakAndCaution) {
     EXPECT_NE(run("pdfinfo '" + pdf.string() + "'").find("612 x 792 pts"), std::string::npos);
 }
 
+TEST(Sheet, MapGridIsLabelledInTheUnitOfTheDemsCrs) {
+    // A DEM in US survey feet (1 ftUS = 1200/3937 m exactly, NIST SP 811 / the 1959 notice):
+    // the catchment lies around E 1,000,000 ftUS, N 500,000 ftUS, given here in metres as the
+    // program keeps coordinates inside.
+    constexpr double ft_us = 1200.0 / 3937.0;
+    auto r = test::sample_results(1, units::System::us_customary, {10});
+    r.points[0].map = test::sample_map(1.0e6 * ft_us, 5.0e5 * ft_us, 100.0, false);
+    r.points[0].map->crs_unit = "US survey foot";
+    r.points[0].map->crs_unit_m = ft_us;
+    const auto dir = test::scratch_dir("sheet_map_feet");
+    const auto pdf = dir / "calculation-sheet.pdf";
+    (void)write_sheet_pdf(r, pdf);
+    const auto text = fold(pdf_text(pdf));
+    EXPECT_NE(text.find("Grid coordinates in US survey feet"), std::string::npos);
+    // 1,000,000 is a multiple of any grid step the map can choose, so it is an easting label.
+    EXPECT_NE(text.find("1000000"), std::string::npos) << text.substr(0, 3000);
+    EXPECT_EQ(text.find("304800"), std::string::npos) << "an easting labelled in metres";
+}
+
 TEST(Sheet, SiSheetOnA4WithOwnCautionNotes) {
     auto r = test::sample_results(2, units::System::si, {5, 25});
     r.caution_notes = {"Invented caution note number one, long enough to wrap across the width "

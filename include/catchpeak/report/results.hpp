@@ -63,6 +63,10 @@ struct MapData {
     std::vector<std::uint8_t> hillshade;
     double hillshade_min_x = 0.0, hillshade_min_y = 0.0; ///< lower-left corner
     double hillshade_max_x = 0.0, hillshade_max_y = 0.0; ///< upper-right corner
+    /// The linear unit of the DEM file's own CRS, in which the map's grid coordinates are
+    /// labelled (so they match the engineer's survey), and metres per that unit.
+    std::string crs_unit = "metre";
+    double crs_unit_m = 1.0;
 };
 
 /// Figures of a catchment, from the DEM or from a catchment table.
