@@ -11,11 +11,13 @@
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/io/storm_table.hpp"
+#include "catchpeak/rain/frequency.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
 #include <cmath>
+#include <set>
 #include <string_view>
 #include <utility>
 
@@ -92,6 +94,66 @@ constexpr double storm_step_min = 6.0;
 
 std::string depth_text(double mm, bool us) {
     return us ? fmt::format("{} in", sig(units::mm_to_in(mm))) : fmt::format("{} mm", sig(mm));
+}
+
+/// Appends the lines of `part` to `lines`, leaving out every line already shown (same label,
+/// numbers and source in `shown`): the fit of the annual maximum series repeats its mean,
+/// moments and warnings for every return period, and the sheet shows them once.
+void append_once(CalcLines &lines, const CalcLines &part, std::set<std::string> &shown) {
+    for (const auto &l : part.lines()) {
+        if (shown.insert(l.label + '\n' + l.numbers + '\n' + l.source).second) {
+            lines.add(l);
+        }
+    }
+}
+
+/// The 24-hour design depth of return period `rp`, mm, with its lines: the depth given in
+/// [rainfall] depths_24h, or the depth fitted to the annual maximum series by the project's
+/// distribution. `shown` holds the frequency-analysis lines already on this point's sheet.
+double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, double rp,
+                           CalcLines &lines, std::set<std::string> &shown) {
+    const bool us = p.info.units == units::System::us_customary;
+    const std::string pf = p.file.filename().string();
+    const auto depth = p.rainfall.depth_24h_mm.find(rp);
+    if (depth != p.rainfall.depth_24h_mm.end()) {
+        const double p_mm = depth->second;
+        lines.note(fmt::format("24-hour rainfall depth, {}-year", rp),
+                   fmt::format("P = {}", depth_text(p_mm, us)),
+                   fmt::format("project input ({}, [rainfall] {})", pf, p.rainfall.depth_24h_key),
+                   us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+        return p_mm;
+    }
+    if (tables.ams == nullptr) {
+        throw_input_error(fmt::format("{}: [rainfall] depths_24h", p.file.string()),
+                          fmt::format("no 24-hour depth for the {}-year return period", rp),
+                          "one depth for every return period in return_periods_yr, or an "
+                          "annual maximum series");
+    }
+    const AnnualMaximumSeries &ams = *tables.ams;
+    CalcLines part;
+    const auto [first, last] = std::minmax_element(ams.years.begin(), ams.years.end());
+    part.note("Annual maximum series of 24-hour depths",
+              fmt::format("n = {} years, {} to {} (column {})", ams.depth_mm.size(), *first, *last,
+                          ams.column),
+              fmt::format("project input ({})", ams.source),
+              static_cast<double>(ams.depth_mm.size()), "years");
+    const bool gev = p.rainfall.ams_distribution == "gev";
+    WithLines<double> fit{0.0, {}};
+    try {
+        fit = gev ? rain::gev_depth(ams.depth_mm, rp, p.info.units)
+                  : rain::gumbel_depth(ams.depth_mm, rp, p.info.units);
+    } catch (const InputError &e) {
+        throw InputError(fmt::format("{}: {}", ams.source, e.what()));
+    }
+    part.append(fit.lines);
+    append_once(lines, part, shown);
+    const double p_mm = fit.value;
+    lines.note(fmt::format("24-hour rainfall depth, {}-year", rp),
+               fmt::format("P = x_T = {}", depth_text(p_mm, us)),
+               fmt::format("design depth of the line above: {} fit of {}",
+                           gev ? "GEV (L-moments)" : "Gumbel (moments)", ams.source),
+               us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+    return p_mm;
 }
 
 } // namespace
@@ -187,6 +249,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         parts.push_back({lp.area_m2, lp.cn});
     }
     const bool scs = uses("tr55_graphical") || uses("scs_unit_hydrograph");
+    std::set<std::string> ams_shown; // frequency-analysis lines already on this sheet
     if (scs && !in.cn) {
         throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
                           "a CN for the SCS Curve Number methods (column 'cn')");
@@ -228,19 +291,8 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         if (!scs) {
             continue;
         }
-        const auto depth = p.rainfall.depth_24h_mm.find(rp);
-        if (depth == p.rainfall.depth_24h_mm.end()) {
-            throw_input_error(fmt::format("{}: [rainfall] depths_24h", p.file.string()),
-                              fmt::format("no 24-hour depth for the {}-year return period", rp),
-                              "one depth for every return period in return_periods_yr");
-        }
-        const double p_mm = depth->second;
+        const double p_mm = design_depth_24h_mm(p, tables, rp, lines, ams_shown);
         const double cn = *in.cn;
-        lines.note(
-            fmt::format("24-hour rainfall depth, {}-year", rp),
-            fmt::format("P = {}", depth_text(p_mm, us)),
-            fmt::format("project input ({}, [rainfall] depths_24h)", p.file.filename().string()),
-            us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
         auto runoff = hydro::cn_runoff(p_mm, cn, p.info.units, ratio);
         lines.append(runoff.lines);
         if (!parts.empty()) {
@@ -323,6 +375,7 @@ HydrologyTables LoadedTables::view() const {
     t.pond_factors = &pond_factors;
     t.unit_hydrograph = &unit_hydrograph;
     t.storm = storm ? &*storm : nullptr;
+    t.ams = ams ? &*ams : nullptr;
     return t;
 }
 
@@ -330,6 +383,10 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
     LoadedTables t;
     if (p.rainfall.idf) {
         t.idf = io::read_idf_csv(p.rainfall.idf->resolved);
+    }
+    if (p.rainfall.annual_maximum_series) {
+        t.ams = read_annual_maximum_series(p.rainfall.annual_maximum_series->resolved,
+                                           p.rainfall.annual_maximum_series->given);
     }
     auto read = [&](const std::string &role, const std::string &name, auto reader, auto &into) {
         into = reader(config / name);
@@ -358,7 +415,6 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
 
 void add_method_references(const Project &p, const report::DesignPointResult &dp,
                            std::vector<report::Reference> &refs) {
-    (void)p;
     auto add = [&](const std::string &key, const std::string &citation) {
         for (const auto &r : refs) {
             if (r.key == key) {
@@ -394,6 +450,25 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
                                  "Volume and Rate of Runoff in Small Watersheds, Technical Paper "
                                  "149 (TP-149), rev. April 1973.");
         }
+    }
+    const bool ams = std::any_of(dp.lines.lines().begin(), dp.lines.lines().end(), [](auto &l) {
+        return l.label == "Annual maximum series of 24-hour depths";
+    });
+    if (ams && p.rainfall.ams_distribution == "gev") {
+        add("Hosking (1990)",
+            "Hosking, J.R.M. (1990). L-moments: analysis and estimation of distributions using "
+            "linear combinations of order statistics. Journal of the Royal Statistical Society, "
+            "Series B 52(1), 105-124.");
+        add("Hosking & Wallis (1997)", "Hosking, J.R.M. and Wallis, J.R. (1997). Regional "
+                                       "Frequency Analysis: an approach based on L-moments. "
+                                       "Cambridge University Press.");
+        add("Hosking, Wallis & Wood (1985)",
+            "Hosking, J.R.M., Wallis, J.R. and Wood, E.F. (1985). Estimation of the generalized "
+            "extreme-value distribution by the method of probability-weighted moments. "
+            "Technometrics 27(3), 251-261.");
+    } else if (ams) {
+        add("Chow, Maidment & Mays (1988)", "Chow, V.T., Maidment, D.R. and Mays, L.W. (1988). "
+                                            "Applied Hydrology. McGraw-Hill, New York.");
     }
 }
 

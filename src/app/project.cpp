@@ -382,6 +382,10 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
 void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     r.idf = t.path("idf", dir);
     r.annual_maximum_series = t.path("annual_maximum_series", dir);
+    if (auto d = t.choice("ams_distribution", {"gumbel", "gev"})) {
+        r.ams_distribution = *d;
+    }
+    r.ams_distribution_line = t.line_of("ams_distribution");
     if (const toml::node *n = t.get("return_periods_yr")) {
         const std::string accepted = "a list of return periods in years, each > 1, e.g. [2, 10]";
         if (const toml::array *arr = n->as_array(); arr != nullptr && !arr->empty()) {
@@ -445,6 +449,21 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
         }
     }
     t.finish();
+    const std::size_t ams_line = t.line_of("annual_maximum_series");
+    const std::size_t depth_line = std::max(t.line_of("depths_24h_mm"), t.line_of("depths_24h_in"));
+    if (ams_line != 0 && depth_line != 0) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [rainfall]", t.file(), depth_line),
+            fmt::format("both 24-hour depths and an annual maximum series (line {}) are given",
+                        ams_line),
+            "either 'depths_24h_mm' / 'depths_24h_in' or 'annual_maximum_series', not both"));
+    }
+    if (r.ams_distribution_line != 0 && ams_line == 0) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [rainfall] ams_distribution", t.file(), r.ams_distribution_line),
+            "a distribution is chosen but no annual maximum series is given",
+            "'ams_distribution' only with 'annual_maximum_series'"));
+    }
     if (!r.idf && r.depth_24h_mm.empty() && !r.annual_maximum_series) {
         t.missing("idf", "an IDF table ('idf'), 24-hour depths ('depths_24h_mm' or "
                          "'depths_24h_in') or an annual maximum series");

@@ -47,7 +47,11 @@ struct Rainfall {
     std::map<double, double> depth_24h_mm;
     std::string depth_24h_key;      ///< "depths_24h_mm" or "depths_24h_in" as written; "" if none
     std::size_t depth_24h_line = 0; ///< line of that key in the project file, for messages
+    /// Annual maximum 24-hour depths (CSV: year, depth_24h_mm or depth_24h_in); when given,
+    /// the 24-hour design depth of every return period is fitted to it.
     std::optional<InputPath> annual_maximum_series;
+    std::string ams_distribution = "gumbel"; ///< "gumbel" (moments) or "gev" (L-moments)
+    std::size_t ams_distribution_line = 0;   ///< line of the key, 0 when not given
 };
 
 /// Per design point choices in [[methods.point]].

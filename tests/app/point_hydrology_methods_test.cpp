@@ -1,0 +1,246 @@
+// SPDX-License-Identifier: MIT
+// The methods `catchpeak run` takes from the project file beyond the basic ones: design depths
+// from an annual maximum series, the segmental tc methods, land parts of a catchment table, the
+// pond and swamp share, the storm time step. Every expected figure is computed by hand in this
+// file from the published equations (the steps are written out below), never copied from
+// catchpeak's output.
+#include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/app/point_hydrology.hpp"
+#include "catchpeak/app/recheck.hpp"
+#include "catchpeak/core/error.hpp"
+#include "support/test_env.hpp"
+
+#include <fmt/format.h>
+#include <gtest/gtest.h>
+
+#include <algorithm>
+#include <cmath>
+#include <fstream>
+#include <numbers>
+#include <sstream>
+#include <string>
+#include <vector>
+
+using namespace catchpeak::app;
+namespace fs = std::filesystem;
+
+namespace {
+
+void write(const fs::path &path, const std::string &text) {
+    std::ofstream(path, std::ios::binary) << text;
+}
+
+const catchpeak::report::DesignPointResult &point(const catchpeak::report::RunResults &r,
+                                                  const std::string &id) {
+    for (const auto &p : r.points) {
+        if (p.id == id) {
+            return p;
+        }
+    }
+    throw std::runtime_error("no design point " + id);
+}
+
+const catchpeak::report::Peak &peak(const catchpeak::report::DesignPointResult &dp,
+                                    const std::string &method, double rp) {
+    for (const auto &p : dp.peaks) {
+        if (p.method == method && p.return_period_yr == rp) {
+            return p;
+        }
+    }
+    throw std::runtime_error("no peak " + method);
+}
+
+std::size_t count_label(const catchpeak::report::DesignPointResult &dp, const std::string &label,
+                        catchpeak::LineKind kind) {
+    return static_cast<std::size_t>(
+        std::count_if(dp.lines.lines().begin(), dp.lines.lines().end(), [&](const auto &l) {
+            return l.kind == kind && l.label.find(label) != std::string::npos;
+        }));
+}
+
+// An invented series of twelve annual maximum 24-hour depths (mm), years 2001-2012.
+const std::vector<double> series_mm = {48.0, 62.0, 55.0, 71.0, 90.0, 58.0,
+                                       66.0, 83.0, 52.0, 77.0, 61.0, 105.0};
+
+std::string series_csv() {
+    std::string s = "year,depth_24h_mm\n";
+    for (std::size_t i = 0; i < series_mm.size(); ++i) {
+        s += fmt::format("{},{}\n", 2001 + i, series_mm[i]);
+    }
+    return s;
+}
+
+/// Invented table project: one catchment, CN 80, tc given 30 min, TR-55 graphical peak, depths
+/// from the annual maximum series by `distribution`.
+fs::path ams_project(const fs::path &dir, const std::string &distribution) {
+    write(dir / "project.toml", R"([project]
+name = "Thistledown Lane drainage"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+return_periods_yr = [10, 100]
+storm_type = "II"
+annual_maximum_series = "ams.csv"
+ams_distribution = ")" + distribution +
+                                    R"("
+
+[methods]
+peak = ["tr55_graphical"]
+
+[output]
+folder = "out"
+)");
+    write(dir / "catchments.csv", "id,area_ha,length_m,slope_percent,cn,tc_min\n"
+                                  "TL-1,40,900,2,80,30\n");
+    write(dir / "ams.csv", series_csv());
+    return dir / "project.toml";
+}
+
+} // namespace
+
+TEST(DesignDepths, GumbelByMomentsComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("ams_gumbel");
+    const Project p = load_project(ams_project(dir, "gumbel"));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "TL-1");
+    // By hand (Chow, Maidment & Mays 1988, sec. 12.3): mean and sample standard deviation
+    // (n - 1), K_T = -(sqrt(6)/pi)(0.5772 + ln(ln(T/(T - 1)))) (eq. 12.3.8), x_T = mean + K_T s.
+    const double n = static_cast<double>(series_mm.size());
+    double sum = 0.0;
+    for (double x : series_mm) {
+        sum += x;
+    }
+    const double mean = sum / n; // 868 / 12 = 72.333 mm
+    double ss = 0.0;
+    for (double x : series_mm) {
+        ss += (x - mean) * (x - mean);
+    }
+    const double sd = std::sqrt(ss / (n - 1.0));
+    auto k_t = [](double t) {
+        return -(std::sqrt(6.0) / std::numbers::pi) * (0.5772 + std::log(std::log(t / (t - 1.0))));
+    };
+    // K_10 = 1.305, K_100 = 3.137 as commonly tabulated for the Gumbel distribution (value from
+    // memory, not checked against the source); tolerance: the tables print 3 decimals.
+    EXPECT_NEAR(k_t(10.0), 1.305, 0.0006);
+    EXPECT_NEAR(k_t(100.0), 3.137, 0.0006);
+    for (double t : {10.0, 100.0}) {
+        // Tolerance 1e-9 mm: floating point only (same equations).
+        EXPECT_NEAR(peak(dp, "tr55_graphical", t).intermediates.at("rainfall_depth_mm"),
+                    mean + k_t(t) * sd, 1e-9)
+            << t;
+    }
+    // The sheet shows n, the mean and the standard deviation once, K_T and x_T per return period.
+    EXPECT_EQ(count_label(dp, "Annual maximum series", catchpeak::LineKind::note), 1u);
+    EXPECT_EQ(count_label(dp, "Mean of the annual maxima", catchpeak::LineKind::calculation), 1u);
+    EXPECT_EQ(count_label(dp, "Standard deviation", catchpeak::LineKind::calculation), 1u);
+    EXPECT_EQ(count_label(dp, "Gumbel frequency factor", catchpeak::LineKind::calculation), 2u);
+    EXPECT_EQ(count_label(dp, "Design depth, Gumbel", catchpeak::LineKind::calculation), 2u);
+    // 12 years: a short record (fewer than 20 years; the warning names each return period) and
+    // 100 yr > 2 x 12 yr (10 yr is not) are warnings (common practice, no source).
+    EXPECT_EQ(count_label(dp, "Short rainfall record", catchpeak::LineKind::warning), 2u);
+    EXPECT_EQ(count_label(dp, "Return period beyond the record", catchpeak::LineKind::warning), 1u);
+    bool chow = false;
+    for (const auto &ref : r.references) {
+        chow = chow || ref.key == "Chow, Maidment & Mays (1988)";
+    }
+    EXPECT_TRUE(chow);
+}
+
+TEST(DesignDepths, GevByLMomentsComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("ams_gev");
+    const Project p = load_project(ams_project(dir, "gev"));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "TL-1");
+    // By hand (Hosking 1990; Hosking & Wallis 1997): unbiased probability-weighted moments of
+    // the sorted values, l1 = b0, l2 = 2 b1 - b0, l3 = 6 b2 - 6 b1 + b0, tau3 = l3 / l2;
+    // c = 2/(3 + tau3) - ln 2/ln 3, k = 7.8590 c + 2.9554 c^2 (Hosking, Wallis & Wood 1985);
+    // alpha = l2 k / ((1 - 2^-k) Gamma(1 + k)), xi = l1 - alpha (1 - Gamma(1 + k)) / k;
+    // x_T = xi + alpha (1 - (-ln(1 - 1/T))^k) / k.
+    std::vector<double> v = series_mm;
+    std::sort(v.begin(), v.end());
+    const double n = static_cast<double>(v.size());
+    double b0 = 0.0, b1 = 0.0, b2 = 0.0;
+    for (std::size_t i = 0; i < v.size(); ++i) {
+        const double j = static_cast<double>(i) + 1.0;
+        b0 += v[i] / n;
+        b1 += (j - 1.0) / (n - 1.0) * v[i] / n;
+        b2 += (j - 1.0) * (j - 2.0) / ((n - 1.0) * (n - 2.0)) * v[i] / n;
+    }
+    const double l1 = b0;
+    const double l2 = 2.0 * b1 - b0;
+    const double tau3 = (6.0 * b2 - 6.0 * b1 + b0) / l2;
+    const double c = 2.0 / (3.0 + tau3) - std::log(2.0) / std::log(3.0);
+    const double k = 7.8590 * c + 2.9554 * c * c;
+    const double g = std::tgamma(1.0 + k);
+    const double alpha = l2 * k / ((1.0 - std::pow(2.0, -k)) * g);
+    const double xi = l1 - alpha * (1.0 - g) / k;
+    for (double t : {10.0, 100.0}) {
+        const double x = xi + alpha * (1.0 - std::pow(-std::log(1.0 - 1.0 / t), k)) / k;
+        // Tolerance 1e-9 mm: floating point only (same equations).
+        EXPECT_NEAR(peak(dp, "tr55_graphical", t).intermediates.at("rainfall_depth_mm"), x, 1e-9)
+            << t;
+    }
+    EXPECT_EQ(count_label(dp, "L-skewness", catchpeak::LineKind::calculation), 1u);
+    EXPECT_EQ(count_label(dp, "Design depth, GEV", catchpeak::LineKind::calculation), 2u);
+    bool hosking = false;
+    for (const auto &ref : r.references) {
+        hosking = hosking || ref.key == "Hosking (1990)";
+    }
+    EXPECT_TRUE(hosking);
+}
+
+TEST(DesignDepths, InchesColumnIsConverted) {
+    const auto dir = catchpeak::test::scratch_dir("ams_inches");
+    ams_project(dir, "gumbel");
+    std::string s = "year,depth_24h_in\n";
+    for (std::size_t i = 0; i < series_mm.size(); ++i) {
+        s += fmt::format("{},{:.6f}\n", 2001 + i, series_mm[i] / 25.4);
+    }
+    write(dir / "ams.csv", s);
+    const auto ams = read_annual_maximum_series(dir / "ams.csv", "ams.csv");
+    ASSERT_EQ(ams.depth_mm.size(), series_mm.size());
+    for (std::size_t i = 0; i < series_mm.size(); ++i) {
+        // Tolerance 1e-4 mm: the file holds 6 decimals of inches (rounding 1.3e-5 mm).
+        EXPECT_NEAR(ams.depth_mm[i], series_mm[i], 1e-4);
+    }
+}
+
+namespace {
+
+/// Runs a project into its "out" folder and rechecks it.
+RecheckReport run_and_recheck(const fs::path &project) {
+    RunOptions options;
+    options.quiet = true;
+    options.run_time_utc = "2026-01-01T00:00:00Z";
+    std::ostringstream out;
+    std::ostringstream err;
+    run_project(project, options, out, err);
+    return recheck(project.parent_path() / "out");
+}
+
+} // namespace
+
+TEST(DesignDepths, RecheckReproducesTheFitAndSeesAChangedSeries) {
+    const auto dir = catchpeak::test::scratch_dir("ams_recheck");
+    const auto project = ams_project(dir, "gev");
+    const auto report = run_and_recheck(project);
+    EXPECT_TRUE(report.all_reproduced()) << format_recheck(report);
+    EXPECT_GT(report.lines_reproduced, 20u);
+    // One year's maximum changed: the recorded SHA-256 of the series no longer matches.
+    auto changed = series_mm;
+    changed[0] = 49.0;
+    std::string s = "year,depth_24h_mm\n";
+    for (std::size_t i = 0; i < changed.size(); ++i) {
+        s += fmt::format("{},{}\n", 2001 + i, changed[i]);
+    }
+    write(dir / "ams.csv", s);
+    const auto after = recheck(dir / "out");
+    EXPECT_FALSE(after.all_reproduced());
+    EXPECT_GE(after.inputs_not_unchanged(), 1u);
+    EXPECT_FALSE(after.line_differences.empty());
+}
