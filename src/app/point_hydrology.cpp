@@ -92,6 +92,9 @@ std::vector<double> rebin(const rain::Hyetograph &h, double step_s, std::size_t 
 /// the unit hydrograph's duration D there). 6 min divides 24 h and follows the tables' detail.
 constexpr double storm_step_min = 6.0;
 
+constexpr const char *txdot_kk =
+    "TxDOT Hydraulic Design Manual ch. 4, Kerby-Kirpich (Roussel et al. 2005)";
+
 std::string depth_text(double mm, bool us) {
     return us ? fmt::format("{} in", sig(units::mm_to_in(mm))) : fmt::format("{} mm", sig(mm));
 }
@@ -156,6 +159,163 @@ double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, doub
     return p_mm;
 }
 
+constexpr const char *split_source =
+    "split of the longest flow path by the project's settings ([settings] "
+    "sheet_flow_max_length_m, shallow_length_m)";
+
+/// A length for the sheet: ft on a US sheet, m on an SI sheet.
+double sheet_length(double m, bool us) { return us ? units::m_to_ft(m) : m; }
+
+/// The first part of the longest flow path, overland (sheet) flow: L1 = min(L, L max). A line.
+double overland_length_m(const Project &p, const PointInputs &in, const std::string &label,
+                         CalcLines &lines) {
+    const bool us = p.info.units == units::System::us_customary;
+    const char *lu = us ? "ft" : "m";
+    const double l1 = std::min(in.longest_flow_path_m, p.settings.sheet_flow_max_length_m);
+    lines.calc(label, "L1 = min(L, L1 max)",
+               fmt::format("L1 = min({}, {})", sig(sheet_length(in.longest_flow_path_m, us)),
+                           sig(sheet_length(p.settings.sheet_flow_max_length_m, us))),
+               sheet_length(l1, us), lu,
+               "[settings] sheet_flow_max_length_m: the first part of the longest flow path");
+    return l1;
+}
+
+/// The note that every segment takes the slope of the longest flow path.
+void segment_slope_note(const PointInputs &in, bool us, CalcLines &lines) {
+    lines.note("Slope of every segment",
+               fmt::format("s = slope of the longest flow path = {} {} (the inputs give no "
+                           "slope per segment)",
+                           sig(in.slope), us ? "ft/ft" : "m/m"),
+               in.source, in.slope, us ? "ft/ft" : "m/m");
+}
+
+/// TR-55 segmental tc (TR-55 ch. 3): sheet, shallow concentrated and channel flow along the
+/// longest flow path, split by the settings; P2 from the rainfall inputs.
+double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const SegmentalParameters &sp,
+                             const HydrologyTables &tables, CalcLines &lines,
+                             std::set<std::string> &shown) {
+    const bool us = p.info.units == units::System::us_customary;
+    const char *lu = us ? "ft" : "m";
+    const std::string params =
+        fmt::format("project input ({}, [methods.tr55_segmental])", p.file.filename().string());
+    lines.note("Time of concentration, TR-55 segmental",
+               "tc = sum of the travel times of sheet, shallow concentrated and channel flow",
+               "TR-55 (1986) ch. 3");
+    segment_slope_note(in, us, lines);
+    const double l = in.longest_flow_path_m;
+    const double l1 = overland_length_m(p, in, "Sheet flow length", lines);
+    double l2 = l - l1;
+    if (sp.shallow_length_m) {
+        l2 = std::min(l - l1, *sp.shallow_length_m);
+        lines.calc("Shallow concentrated flow length", "L2 = min(L - L1, L2 set)",
+                   fmt::format("L2 = min({} - {}, {})", sig(sheet_length(l, us)),
+                               sig(sheet_length(l1, us)),
+                               sig(sheet_length(*sp.shallow_length_m, us))),
+                   sheet_length(l2, us), lu, params + ": shallow_length_m");
+    } else {
+        lines.calc("Shallow concentrated flow length", "L2 = L - L1",
+                   fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
+                   sheet_length(l2, us), lu, split_source);
+        if (l2 > 0.0) {
+            lines.warn("Where the channel starts is not given",
+                       "no shallow_length_m in [methods.tr55_segmental]: the whole flow path "
+                       "after the sheet flow is taken as shallow concentrated flow, which is "
+                       "slower than channel flow; give the length to where the flow enters a "
+                       "channel",
+                       "TR-55 (1986) ch. 3");
+        }
+    }
+    const double l3 = l - l1 - l2;
+    if (l3 > 0.0) {
+        lines.calc("Channel flow length", "L3 = L - L1 - L2",
+                   fmt::format("L3 = {} - {} - {}", sig(sheet_length(l, us)),
+                               sig(sheet_length(l1, us)), sig(sheet_length(l2, us))),
+                   sheet_length(l3, us), lu, split_source);
+    }
+    std::vector<double> times;
+    {
+        const double p2_mm = design_depth_24h_mm(p, tables, 2.0, lines, shown);
+        lines.note("Manning roughness, sheet flow", fmt::format("n = {}", sig(sp.sheet_manning_n)),
+                   params + ": sheet_manning_n (TR-55 Table 3-1)", sp.sheet_manning_n);
+        const auto limit = p.settings.sheet_flow_max_length_m <= units::ft_to_m(100.0) + 1e-9
+                               ? hydro::SheetFlowLimit::neh630_100_ft
+                               : hydro::SheetFlowLimit::tr55_300_ft;
+        auto t =
+            hydro::sheet_flow_tt_min(sp.sheet_manning_n, l1, p2_mm, in.slope, limit, p.info.units);
+        lines.append(t.lines);
+        times.push_back(t.value);
+    }
+    if (l2 > 0.0) {
+        auto t = hydro::shallow_flow_tt_min(l2, in.slope,
+                                            sp.shallow_surface == "paved"
+                                                ? hydro::ShallowSurface::paved
+                                                : hydro::ShallowSurface::unpaved,
+                                            p.info.units);
+        lines.append(t.lines);
+        times.push_back(t.value);
+    }
+    if (l3 > 0.0) {
+        lines.note("Channel section and roughness",
+                   us ? fmt::format("n = {}, a = {} ft2, pw = {} ft", sig(sp.channel_manning_n),
+                                    sig(units::m2_to_ft2(sp.channel_flow_area_m2)),
+                                    sig(units::m_to_ft(sp.channel_wetted_perimeter_m)))
+                      : fmt::format("n = {}, a = {} m2, pw = {} m", sig(sp.channel_manning_n),
+                                    sig(sp.channel_flow_area_m2),
+                                    sig(sp.channel_wetted_perimeter_m)),
+                   params + ": channel_manning_n, channel_flow_area_m2, "
+                            "channel_wetted_perimeter_m");
+        auto t =
+            hydro::channel_flow_tt_min(sp.channel_manning_n, sp.channel_flow_area_m2,
+                                       sp.channel_wetted_perimeter_m, in.slope, l3, p.info.units);
+        lines.append(t.lines);
+        times.push_back(t.value);
+    }
+    auto sum = hydro::sum_travel_times_min(times, p.info.units);
+    lines.append(sum.lines);
+    return sum.value;
+}
+
+/// Kerby-Kirpich tc (TxDOT Hydraulic Design Manual ch. 4, after Roussel et al. 2005): Kerby
+/// overland flow over the first part of the flow path, Kirpich for the rest.
+double kerby_kirpich_tc_min(const Project &p, const PointInputs &in, const KerbyParameters &kp,
+                            CalcLines &lines) {
+    const bool us = p.info.units == units::System::us_customary;
+    const char *lu = us ? "ft" : "m";
+    lines.note("Time of concentration, Kerby-Kirpich",
+               "tc = tov (Kerby, overland flow) + tch (Kirpich, channel flow)", txdot_kk);
+    segment_slope_note(in, us, lines);
+    const double l = in.longest_flow_path_m;
+    const double l1 = overland_length_m(p, in, "Overland flow length", lines);
+    const double l2 = l - l1;
+    lines.note("Retardance coefficient N", fmt::format("N = {}", sig(kp.retardance_n)),
+               fmt::format("project input ({}, [methods.kerby_kirpich]: retardance_n; Kerby's "
+                           "table in the TxDOT Hydraulic Design Manual ch. 4)",
+                           p.file.filename().string()),
+               kp.retardance_n);
+    auto ov = hydro::kerby_tov_min(l1, kp.retardance_n, in.slope, p.info.units);
+    lines.append(ov.lines);
+    double tch = 0.0;
+    if (l2 > 0.0) {
+        lines.calc("Channel flow length", "L2 = L - L1",
+                   fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
+                   sheet_length(l2, us), lu, split_source);
+        auto ch = hydro::kirpich_tc_min(l2, in.slope, in.area_m2, p.info.units);
+        lines.append(ch.lines);
+        tch = ch.value;
+    }
+    const double tc = ov.value + tch;
+    lines.calc("Time of concentration, Kerby-Kirpich", "tc = tov + tch",
+               fmt::format("tc = {} + {}", sig(ov.value), sig(tch)), tc, "min", txdot_kk);
+    // TxDOT gives 0.25-150 mi2 for the combined method (checked secondary, REFERENCES.md 3).
+    const double area_mi2 = in.area_m2 / units::m2_per_mi2;
+    if (area_mi2 < 0.25 || area_mi2 > 150.0) {
+        lines.warn("Kerby-Kirpich: catchment area outside the method's range",
+                   fmt::format("catchment area {} mi2 lies outside 0.25 to 150 mi2", sig(area_mi2)),
+                   "TxDOT Hydraulic Design Manual ch. 4 (Roussel et al. 2005)");
+    }
+    return tc;
+}
+
 } // namespace
 
 void compute_point_hydrology(const Project &p, const PointInputs &in, const HydrologyTables &tables,
@@ -185,6 +345,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     }
 
     // Time of concentration.
+    std::set<std::string> ams_shown; // frequency-analysis lines already on this sheet
     const PointOverride *o = override_for(p, dp.id);
     std::string tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
     double tc = 0.0;
@@ -222,6 +383,13 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                                         p.info.units);
         lines.append(k.lines);
         tc = k.value;
+    } else if (tc_method == "tr55_segmental") {
+        tc = tr55_segmental_tc_min(p, in,
+                                   o != nullptr ? o->tr55_segmental : p.methods.tr55_segmental,
+                                   tables, lines, ams_shown);
+    } else if (tc_method == "kerby_kirpich") {
+        tc = kerby_kirpich_tc_min(p, in, o != nullptr ? o->kerby_kirpich : p.methods.kerby_kirpich,
+                                  lines);
     } else {
         auto k = hydro::kirpich_tc_min(in.longest_flow_path_m, in.slope, in.area_m2, p.info.units);
         lines.append(k.lines);
@@ -249,7 +417,6 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         parts.push_back({lp.area_m2, lp.cn});
     }
     const bool scs = uses("tr55_graphical") || uses("scs_unit_hydrograph");
-    std::set<std::string> ams_shown; // frequency-analysis lines already on this sheet
     if (scs && !in.cn) {
         throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
                           "a CN for the SCS Curve Number methods (column 'cn')");
@@ -436,6 +603,21 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
     }
     if (dp.tc_method == "nrcs_lag") {
         add("NEH 630 ch. 15 (2010)", neh630 + "chapter 15 Time of Concentration (2010).");
+    }
+    if (dp.tc_method == "tr55_segmental") {
+        add("TR-55 (1986)", tr55);
+    }
+    if (dp.tc_method == "kerby_kirpich") {
+        add("TxDOT Hydraulic Design Manual",
+            "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
+        add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
+                              "watersheds. Civil Engineering 10(6), 362.");
+        add("Kerby (1959)", "Kerby, W.S. (1959). Time of concentration for overland flow. Civil "
+                            "Engineering 29(3), 174.");
+        add("Roussel et al. (2005)",
+            "Roussel, M.C., Thompson, D.B., Fang, X., Cleveland, T.G. and Garcia, C.A. (2005). "
+            "Time-parameter estimation for applicable Texas watersheds. Research report for the "
+            "Texas Department of Transportation (citation from memory, not checked).");
     }
     for (const auto &pk : dp.peaks) {
         if (pk.method == "rational") {

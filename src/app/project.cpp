@@ -38,6 +38,12 @@ bool Project::uses_method(std::string_view method) const {
     });
 }
 
+bool Project::uses_tc_method(std::string_view method) const {
+    return methods.tc_method == method ||
+           std::any_of(methods.points.begin(), methods.points.end(),
+                       [&](const auto &o) { return o.tc_method && *o.tc_method == method; });
+}
+
 void Problems::throw_if_any() const {
     if (list_.empty()) {
         return;
@@ -470,9 +476,40 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     }
 }
 
+/// Reads the keys of the segmental tc method present in `t` over `s` (the project's table, or
+/// a point's keys over the project's values).
+void read_segmental(TableReader &t, SegmentalParameters &s) {
+    s.sheet_manning_n = t.number("sheet_manning_n", 0.0, 1.0, false).value_or(s.sheet_manning_n);
+    s.shallow_surface =
+        t.choice("shallow_surface", {"unpaved", "paved"}).value_or(s.shallow_surface);
+    if (auto v = t.number("shallow_length_m", 0.0, 100000.0)) {
+        s.shallow_length_m = *v;
+    }
+    s.channel_manning_n =
+        t.number("channel_manning_n", 0.0, 1.0, false).value_or(s.channel_manning_n);
+    s.channel_flow_area_m2 =
+        t.number("channel_flow_area_m2", 0.0, 10000.0, false).value_or(s.channel_flow_area_m2);
+    s.channel_wetted_perimeter_m = t.number("channel_wetted_perimeter_m", 0.0, 10000.0, false)
+                                       .value_or(s.channel_wetted_perimeter_m);
+}
+
+void read_kerby(TableReader &t, KerbyParameters &k) {
+    k.retardance_n = t.number("retardance_n", 0.0, 1.0, false).value_or(k.retardance_n);
+}
+
 void read_methods(TableReader &t, const Project &p, Methods &m, Problems &problems) {
     if (auto v = t.choice("tc", known_tc_methods())) {
         m.tc_method = *v;
+    }
+    if (const auto *seg = sub_table(t, "tr55_segmental")) {
+        TableReader r(*seg, "methods.tr55_segmental", t.file(), problems);
+        read_segmental(r, m.tr55_segmental);
+        r.finish();
+    }
+    if (const auto *kk = sub_table(t, "kerby_kirpich")) {
+        TableReader r(*kk, "methods.kerby_kirpich", t.file(), problems);
+        read_kerby(r, m.kerby_kirpich);
+        r.finish();
     }
     bool found = false;
     auto peaks = method_list(t, "peak", known_peak_methods(), found);
@@ -504,6 +541,10 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                     o.peak_methods = pk;
                 }
                 o.tc_min = pt.number("tc_min", 0.0, 10000.0, false);
+                o.tr55_segmental = m.tr55_segmental;
+                read_segmental(pt, o.tr55_segmental);
+                o.kerby_kirpich = m.kerby_kirpich;
+                read_kerby(pt, o.kerby_kirpich);
                 if (o.tc_method == std::string("given") && !o.tc_min) {
                     pt.missing("tc_min", "a time of concentration in minutes with tc = \"given\"");
                 }
@@ -626,6 +667,13 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
             name + ": [rainfall]",
             "the SCS Curve Number methods need 24-hour depths, none are given",
             "depths_24h_mm or depths_24h_in, one per return period, or annual_maximum_series"));
+    }
+    if (p.uses_tc_method("tr55_segmental") && !p.rainfall.annual_maximum_series &&
+        p.rainfall.depth_24h_mm.count(2.0) == 0) {
+        problems.add(input_message(
+            name + ": [methods] tc = \"tr55_segmental\"",
+            "TR-55 sheet flow needs the 2-year 24-hour rainfall depth P2, none is given",
+            "a \"2\" entry in depths_24h_mm or depths_24h_in, or annual_maximum_series"));
     }
     if (scs && p.rainfall.storm_type.empty()) {
         problems.add(input_message(name + ": [rainfall] storm_type",

@@ -244,3 +244,154 @@ TEST(DesignDepths, RecheckReproducesTheFitAndSeesAChangedSeries) {
     EXPECT_GE(after.inputs_not_unchanged(), 1u);
     EXPECT_FALSE(after.line_differences.empty());
 }
+
+namespace {
+
+/// Invented US customary table project for the segmental tc methods: BR-1 (250 ac, longest flow
+/// path 8,800 ft at 0.01 ft/ft, CN 75), BR-2 the same with its own sheet flow roughness.
+fs::path segmental_project(const fs::path &dir, const std::string &tc,
+                           const std::string &extra_methods) {
+    write(dir / "project.toml", R"([project]
+name = "Bramblewood Creek crossing"
+units = "US"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+return_periods_yr = [2]
+storm_type = "II"
+depths_24h_in = { "2" = 3.6 }
+
+[methods]
+tc = ")" + tc + R"("
+peak = ["tr55_graphical"]
+)" + extra_methods + R"(
+[settings]
+minimum_tc_min = 5
+
+[output]
+folder = "out"
+)");
+    write(dir / "catchments.csv", "id,area_ac,length_ft,slope_m_per_m,cn\n"
+                                  "BR-1,250,8800,0.01,75\n"
+                                  "BR-2,250,8800,0.01,75\n");
+    return dir / "project.toml";
+}
+
+} // namespace
+
+TEST(SegmentalTc, Tr55SheetShallowChannelComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("tc_tr55_segmental");
+    const Project p = load_project(segmental_project(dir, "tr55_segmental", R"(
+[methods.tr55_segmental]
+shallow_length_m = 426.72      # 1,400 ft
+
+[[methods.point]]
+id = "BR-2"
+sheet_manning_n = 0.011
+shallow_surface = "paved"
+)"));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    // By hand, TR-55 (1986) ch. 3, US units; the split: sheet flow the first 100 ft (the default
+    // sheet_flow_max_length_m, 30.48 m), shallow concentrated 1,400 ft, channel the remaining
+    // 8,800 - 100 - 1,400 = 7,300 ft; s = 0.01 for every segment; P2 = 3.6 in.
+    //   sheet (eq. 3-3): Tt = 0.007 (n L)^0.8 / (P2^0.5 s^0.4), n = 0.24 (the default);
+    //   shallow, unpaved: V = 16.1345 s^0.5 ft/s; Tt = L / (3600 V);
+    //   channel (Manning): r = 27 / 28.2 ft (the default section), n = 0.05,
+    //   V = 1.49 r^(2/3) s^0.5 / n; Tt = L / (3600 V).
+    const double s = 0.01;
+    auto sheet_h = [&](double n) {
+        return 0.007 * std::pow(n * 100.0, 0.8) / (std::sqrt(3.6) * std::pow(s, 0.4));
+    };
+    const double shallow_h = 1400.0 / (3600.0 * 16.1345 * std::sqrt(s));
+    const double shallow_paved_h = 1400.0 / (3600.0 * 20.3282 * std::sqrt(s));
+    const double v_ch = 1.49 * std::pow(27.0 / 28.2, 2.0 / 3.0) * std::sqrt(s) / 0.05;
+    const double channel_h = 7300.0 / (3600.0 * v_ch);
+    // TR-55 Example 3-1 (problem statement checked secondary; answers from memory, not
+    // checked): sheet flow n = 0.24, 100 ft, s = 0.01, P2 = 3.6 in -> 0.30 h; shallow
+    // unpaved 1,400 ft, s = 0.01 -> 0.24 h. Tolerance 0.005 h: printed to 0.01 h.
+    EXPECT_NEAR(sheet_h(0.24), 0.30, 0.005);
+    EXPECT_NEAR(shallow_h, 0.24, 0.005);
+    const auto &br1 = point(r, "BR-1");
+    EXPECT_EQ(br1.tc_method, "tr55_segmental");
+    // Tolerance 1e-9 min: floating point only (same equations; the lengths pass through m).
+    EXPECT_NEAR(br1.tc_min, 60.0 * (sheet_h(0.24) + shallow_h + channel_h), 1e-9);
+    const auto &br2 = point(r, "BR-2");
+    EXPECT_NEAR(br2.tc_min, 60.0 * (sheet_h(0.011) + shallow_paved_h + channel_h), 1e-9);
+    // Every segment has its lines, in hours on a US sheet.
+    EXPECT_EQ(count_label(br1, "Travel time, sheet flow", catchpeak::LineKind::calculation), 1u);
+    EXPECT_EQ(count_label(br1, "Travel time, shallow concentrated flow",
+                          catchpeak::LineKind::calculation),
+              1u);
+    EXPECT_EQ(count_label(br1, "Travel time, channel flow", catchpeak::LineKind::calculation), 1u);
+    EXPECT_EQ(count_label(br1, "Channel flow length", catchpeak::LineKind::calculation), 1u);
+    bool tr55 = false;
+    for (const auto &ref : r.references) {
+        tr55 = tr55 || ref.key == "TR-55 (1986)";
+    }
+    EXPECT_TRUE(tr55);
+}
+
+TEST(SegmentalTc, Tr55WithoutShallowLengthWarns) {
+    const auto dir = catchpeak::test::scratch_dir("tc_tr55_no_shallow");
+    const Project p = load_project(segmental_project(dir, "tr55_segmental", ""));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &br1 = point(r, "BR-1");
+    // No channel: sheet flow 100 ft, then shallow concentrated flow over the other 8,700 ft.
+    const double s = 0.01;
+    const double sheet_h =
+        0.007 * std::pow(0.24 * 100.0, 0.8) / (std::sqrt(3.6) * std::pow(s, 0.4));
+    const double shallow_h = 8700.0 / (3600.0 * 16.1345 * std::sqrt(s));
+    EXPECT_NEAR(br1.tc_min, 60.0 * (sheet_h + shallow_h), 1e-9);
+    EXPECT_EQ(
+        count_label(br1, "Where the channel starts is not given", catchpeak::LineKind::warning),
+        1u);
+    EXPECT_EQ(count_label(br1, "Travel time, channel flow", catchpeak::LineKind::calculation), 0u);
+}
+
+TEST(SegmentalTc, KerbyKirpichComputedByHand) {
+    const auto dir = catchpeak::test::scratch_dir("tc_kerby_kirpich");
+    Project p = load_project(segmental_project(dir, "kerby_kirpich", R"(
+[[methods.point]]
+id = "BR-2"
+retardance_n = 0.20
+)"));
+    p.settings.sheet_flow_max_length_m = 152.4; // 500 ft of overland flow
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    // By hand (TxDOT Hydraulic Design Manual ch. 4): tov = 0.828 (L N / S^0.5)^0.467 min
+    // (L = 500 ft), tch = 0.0078 L^0.77 S^-0.385 min (Kirpich, L = 8,800 - 500 = 8,300 ft),
+    // S = 0.01 for both, tc = tov + tch.
+    const double s = 0.01;
+    auto tov = [&](double n) { return 0.828 * std::pow(500.0 * n / std::sqrt(s), 0.467); };
+    const double tch = 0.0078 * std::pow(8300.0, 0.77) * std::pow(s, -0.385);
+    // TxDOT HDM worked example (checked secondary, REFERENCES.md 3): L = 500 ft, N = 0.40,
+    // S = 0.02 -> printed "about 25" min (24.5 computed). Tolerance 0.6 min: "about" 25.
+    EXPECT_NEAR(0.828 * std::pow(500.0 * 0.40 / std::sqrt(0.02), 0.467), 25.0, 0.6);
+    EXPECT_EQ(point(r, "BR-1").tc_method, "kerby_kirpich");
+    // Tolerance 1e-9 min: floating point only.
+    EXPECT_NEAR(point(r, "BR-1").tc_min, tov(0.40) + tch, 1e-9); // default N = 0.40
+    EXPECT_NEAR(point(r, "BR-2").tc_min, tov(0.20) + tch, 1e-9);
+    // 250 ac = 0.39 mi2 lies inside the 0.25-150 mi2 of the combined method: no warning.
+    EXPECT_EQ(count_label(point(r, "BR-1"), "Kerby-Kirpich: catchment area",
+                          catchpeak::LineKind::warning),
+              0u);
+    bool kerby = false;
+    for (const auto &ref : r.references) {
+        kerby = kerby || ref.key == "Kerby (1959)";
+    }
+    EXPECT_TRUE(kerby);
+}
+
+TEST(SegmentalTc, RecheckReproducesTheSegments) {
+    const auto dir = catchpeak::test::scratch_dir("tc_segmental_recheck");
+    const auto report = run_and_recheck(segmental_project(dir, "tr55_segmental", R"(
+[methods.tr55_segmental]
+shallow_length_m = 426.72
+)"));
+    EXPECT_TRUE(report.all_reproduced()) << format_recheck(report);
+    EXPECT_GT(report.lines_reproduced, 30u);
+}
