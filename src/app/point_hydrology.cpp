@@ -88,10 +88,6 @@ std::vector<double> rebin(const rain::Hyetograph &h, double step_s, std::size_t 
     return out;
 }
 
-/// Step of the design storm hyetograph handed to the unit hydrograph, min (it is re-binned to
-/// the unit hydrograph's duration D there). 6 min divides 24 h and follows the tables' detail.
-constexpr double storm_step_min = 6.0;
-
 constexpr const char *txdot_kk =
     "TxDOT Hydraulic Design Manual ch. 4, Kerby-Kirpich (Roussel et al. 2005)";
 
@@ -428,10 +424,26 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                    "is an extrapolation of the method",
                    "TR-55 (1986) ch. 4");
     }
+    double pond_percent = 0.0;
     if (uses("tr55_graphical")) {
-        lines.note("Ponds and swamps",
-                   "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
-                   "project input");
+        const std::string pf = p.file.filename().string();
+        if (o != nullptr && o->pond_swamp_percent) {
+            pond_percent = *o->pond_swamp_percent;
+            lines.note("Ponds and swamps",
+                       fmt::format("share of the catchment = {} %", sig(pond_percent)),
+                       fmt::format("project input ({}, [[methods.point]] line {})", pf, o->line),
+                       pond_percent, "%");
+        } else if (p.settings.pond_swamp_percent) {
+            pond_percent = *p.settings.pond_swamp_percent;
+            lines.note("Ponds and swamps",
+                       fmt::format("share of the catchment = {} %", sig(pond_percent)),
+                       fmt::format("project input ({}, [settings] pond_swamp_percent)", pf),
+                       pond_percent, "%");
+        } else {
+            lines.note("Ponds and swamps",
+                       "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
+                       "project input ([settings] pond_swamp_percent not given)");
+        }
     }
     for (double rp : p.rainfall.return_periods_yr) {
         if (uses("rational") && tables.idf != nullptr && tables.frequency_factors != nullptr &&
@@ -474,7 +486,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                 *tables.peak_coefficients, *tables.pond_factors,
                 hydro::parse_storm_type(p.rainfall.storm_type,
                                         p.file.string() + ": [rainfall] storm_type"),
-                in.area_m2, tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm, 0.0,
+                in.area_m2, tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm, pond_percent,
                 p.info.units);
             // The line that gives Q: the last calculation line of the TR-55 peak's lines.
             q_line_index.push_back(last_calculation_index(lines, q.lines));
@@ -497,10 +509,22 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             if (tables.unit_hydrograph == nullptr || tables.storm == nullptr) {
                 throw InternalError("unit hydrograph or storm table not loaded");
             }
-            auto rain = rain::storm_hyetograph(*tables.storm, p_mm, storm_step_min, p.info.units);
+            const double step_min = p.settings.storm_time_step_min;
+            auto rain = rain::storm_hyetograph(*tables.storm, p_mm, step_min, p.info.units);
             lines.append(rain.lines);
             auto h = hydro::unit_hydrograph_from_rainfall(*tables.unit_hydrograph, rain.value, cn,
                                                           in.area_m2, tc, p.info.units, {}, ratio);
+            const double tp_min = h.value.tp_h * 60.0;
+            if (step_min > 0.2 * tp_min) {
+                h.lines.warn("Storm time step long for the unit hydrograph",
+                             fmt::format("storm time step {} min exceeds 0.2 tp = 0.2 x {} min = "
+                                         "{} min: the rainfall of a step is spread evenly over "
+                                         "the unit hydrograph's shorter steps and the peak may "
+                                         "be too low; choose a shorter storm_time_step_min",
+                                         sig(step_min), sig(tp_min), sig(0.2 * tp_min)),
+                             "NRCS NEH 630 ch. 16: a time step of no more than about 0.2 tp "
+                             "(from memory, not checked)");
+            }
             q_line_index.push_back(calculation_index(lines, h.lines, "Peak flow"));
             lines.append(h.lines);
             const auto &hg = h.value;

@@ -541,6 +541,7 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                     o.peak_methods = pk;
                 }
                 o.tc_min = pt.number("tc_min", 0.0, 10000.0, false);
+                o.pond_swamp_percent = pt.number("pond_swamp_percent", 0.0, 100.0);
                 o.tr55_segmental = m.tr55_segmental;
                 read_segmental(pt, o.tr55_segmental);
                 o.kerby_kirpich = m.kerby_kirpich;
@@ -582,6 +583,21 @@ void read_settings(TableReader &t, Settings &s) {
     s.dual_soil_group =
         t.choice("dual_soil_group", {"drained", "undrained"}).value_or(s.dual_soil_group);
     s.uncovered_land = t.text("uncovered_land").value_or(s.uncovered_land);
+    s.pond_swamp_percent = t.number("pond_swamp_percent", 0.0, 100.0);
+    s.pond_swamp_line = t.line_of("pond_swamp_percent");
+    if (auto step = t.number("storm_time_step_min", 0.0, 60.0, false)) {
+        const double steps = 1440.0 / *step;
+        if (std::abs(steps - std::round(steps)) > 1e-9 * steps) {
+            t.problem(*t.get("storm_time_step_min"), "storm_time_step_min",
+                      fmt::format("{} min does not divide the 24-hour storm into whole steps "
+                                  "(1440 / {} = {})",
+                                  *step, *step, steps),
+                      "a step that divides 1440 min, e.g. 1, 2, 3, 5, 6, 10, 12, 15, 30 or 60");
+        } else {
+            s.storm_time_step_min = *step;
+        }
+    }
+    s.storm_time_step_line = t.line_of("storm_time_step_min");
     t.finish();
 }
 

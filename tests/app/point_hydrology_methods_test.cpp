@@ -395,3 +395,108 @@ shallow_length_m = 426.72
     EXPECT_TRUE(report.all_reproduced()) << format_recheck(report);
     EXPECT_GT(report.lines_reproduced, 30u);
 }
+
+namespace {
+
+/// Invented SI table project: PS-1 and PS-2, 640 ac = 1 mi2 each, CN 80, tc given 30 min,
+/// P24 = 127 mm = 5.0 in, Type II; `settings` and `methods_extra` are added to the file.
+fs::path pond_project(const fs::path &dir, const std::string &settings,
+                      const std::string &methods_extra) {
+    write(dir / "project.toml", R"([project]
+name = "Heronsgate marsh outfall"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+return_periods_yr = [25]
+storm_type = "II"
+depths_24h_mm = { "25" = 127.0 }
+
+[methods]
+peak = ["tr55_graphical", "scs_unit_hydrograph"]
+)" + methods_extra + R"(
+[settings]
+minimum_tc_min = 5
+)" + settings + R"(
+[output]
+folder = "out"
+)");
+    write(dir / "catchments.csv", "id,area_ac,length_m,slope_percent,cn,tc_min\n"
+                                  "PS-1,640,3000,2,80,30\n"
+                                  "PS-2,640,3000,2,80,30\n");
+    return dir / "project.toml";
+}
+
+} // namespace
+
+TEST(PondsAndSwamps, FpFromTheProjectAndThePoint) {
+    const auto dir = catchpeak::test::scratch_dir("pond_factor");
+    const Project p = load_project(pond_project(dir, "pond_swamp_percent = 1.0\n", R"(
+[[methods.point]]
+id = "PS-2"
+pond_swamp_percent = 0.6
+)"));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    // Fp from config/tr55_pond_factors.csv (TR-55 Table 4-2; values from memory, not checked
+    // against the source): 1 % -> 0.87; 0.6 % lies between 0.2 % (0.97) and 1 % (0.87):
+    // linear interpolation 0.97 + (0.6 - 0.2) / (1 - 0.2) x (0.87 - 0.97) = 0.92.
+    const auto &pk1 = peak(point(r, "PS-1"), "tr55_graphical", 25.0);
+    const auto &pk2 = peak(point(r, "PS-2"), "tr55_graphical", 25.0);
+    EXPECT_NEAR(pk1.intermediates.at("fp"), 0.87, 1e-12);
+    EXPECT_NEAR(pk2.intermediates.at("fp"), 0.92, 1e-12);
+    // qp = qu Am Q Fp (TR-55 eq. 4-1): the same catchments, so the peaks differ by Fp alone.
+    // Tolerance 1e-12 relative: floating point only.
+    EXPECT_NEAR(pk2.q_m3_s / pk1.q_m3_s, 0.92 / 0.87, 1e-12);
+    // By hand, TR-55 ch. 2 and 4: Q = (5.0 - 0.5)^2 / (5.0 - 0.5 + 2.5) in, Ia/P = 0.10 (the
+    // first Type II row: C0 2.55323, C1 -0.61512, C2 -0.16403), tc = 0.5 h.
+    const double q_in = 4.5 * 4.5 / 7.0;
+    const double lt = std::log10(0.5);
+    const double qu = std::pow(10.0, 2.55323 - 0.61512 * lt - 0.16403 * lt * lt);
+    const double qp_m3_s = qu * 1.0 * q_in * 0.87 * 0.028316846592;
+    EXPECT_NEAR(pk1.q_m3_s, qp_m3_s, qp_m3_s * 1e-6); // floating point and the 4-digit Ia/P row
+}
+
+TEST(PondsAndSwamps, NotGivenIsZeroWithANote) {
+    const auto dir = catchpeak::test::scratch_dir("pond_none");
+    const Project p = load_project(pond_project(dir, "", ""));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    EXPECT_DOUBLE_EQ(peak(point(r, "PS-1"), "tr55_graphical", 25.0).intermediates.at("fp"), 1.0);
+    EXPECT_EQ(count_label(point(r, "PS-1"), "Ponds and swamps", catchpeak::LineKind::note), 1u);
+}
+
+TEST(StormTimeStep, TheSettingIsUsedAndALongStepWarns) {
+    // tc = 30 min. NEH 630 ch. 16 (from memory, not checked): a step of no more than about
+    // 0.2 tp. With tp = D/2 + 0.6 tc (NEH 630 ch. 16) and D near 0.133 tc = 4 min, tp is
+    // about 20 min and 0.2 tp about 4 min: a 15-min storm step warns, a 3-min step does not.
+    for (const double step : {15.0, 3.0}) {
+        const auto dir =
+            catchpeak::test::scratch_dir(fmt::format("storm_step_{}", static_cast<int>(step)));
+        const Project p =
+            load_project(pond_project(dir, fmt::format("storm_time_step_min = {}\n", step), ""));
+        EXPECT_DOUBLE_EQ(p.settings.storm_time_step_min, step);
+        std::ostringstream progress;
+        const auto r = compute_project(p, progress, true);
+        const auto &dp = point(r, "PS-1");
+        bool step_line = false;
+        for (const auto &l : dp.lines.lines()) {
+            if (l.label == "Time step" && l.value == step &&
+                l.numbers.find(fmt::format("{} steps", static_cast<int>(1440.0 / step))) !=
+                    std::string::npos) {
+                step_line = true;
+            }
+        }
+        EXPECT_TRUE(step_line) << step;
+        const auto &pk = peak(dp, "scs_unit_hydrograph", 25.0);
+        const double tp_min = pk.intermediates.at("unit_hydrograph_tp_min");
+        // tp = D/2 + 0.6 tc (NEH 630 ch. 16), D the unit hydrograph's step.
+        EXPECT_NEAR(tp_min, pk.intermediates.at("step_min") / 2.0 + 0.6 * 30.0, 1e-9);
+        EXPECT_EQ(count_label(dp, "Storm time step long", catchpeak::LineKind::warning),
+                  step > 0.2 * tp_min ? 1u : 0u)
+            << step;
+        EXPECT_EQ(step > 0.2 * tp_min, step == 15.0) << tp_min;
+    }
+}

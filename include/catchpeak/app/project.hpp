@@ -84,9 +84,10 @@ struct PointOverride {
     std::size_t line = 0;
     std::optional<std::string> tc_method;
     std::optional<std::vector<std::string>> peak_methods;
-    std::optional<double> tc_min;       ///< a tc given by the engineer instead of computed
-    SegmentalParameters tr55_segmental; ///< the project's, with this point's keys over them
-    KerbyParameters kerby_kirpich;      ///< the project's, with this point's keys over them
+    std::optional<double> tc_min;             ///< a tc given by the engineer instead of computed
+    std::optional<double> pond_swamp_percent; ///< overrides [settings] pond_swamp_percent
+    SegmentalParameters tr55_segmental;       ///< the project's, with this point's keys over them
+    KerbyParameters kerby_kirpich;            ///< the project's, with this point's keys over them
 };
 
 /// [methods]
@@ -107,6 +108,14 @@ struct Settings {
     double initial_abstraction_ratio = 0.2; ///< Ia/S: 0.2 (TR-55) or 0.05 (Hawkins 2002)
     std::string dual_soil_group = "undrained";
     std::string uncovered_land = "refuse"; ///< "refuse" or the name of a land-cover class
+    /// Share of the catchment in ponds and swamps, %, for the TR-55 graphical method's Fp;
+    /// unset: 0 % (Fp = 1), said in a note.
+    std::optional<double> pond_swamp_percent;
+    std::size_t pond_swamp_line = 0;
+    /// Time step of the NRCS 24-hour storm hyetograph, min: > 0, at most 60, and 1440 divided
+    /// by it a whole number (the 24-hour storm in whole steps).
+    double storm_time_step_min = 6.0;
+    std::size_t storm_time_step_line = 0;
 };
 
 struct Project {
