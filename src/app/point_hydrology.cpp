@@ -110,13 +110,14 @@ void append_once(CalcLines &lines, const CalcLines &part, std::set<std::string> 
 /// [rainfall] depths_24h, or the depth fitted to the annual maximum series by the project's
 /// distribution. `shown` holds the frequency-analysis lines already on this point's sheet.
 double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, double rp,
-                           CalcLines &lines, std::set<std::string> &shown) {
+                           CalcLines &lines, std::set<std::string> &shown,
+                           std::string_view purpose = {}) {
     const bool us = p.info.units == units::System::us_customary;
     const std::string pf = p.file.filename().string();
     const auto depth = p.rainfall.depth_24h_mm.find(rp);
     if (depth != p.rainfall.depth_24h_mm.end()) {
         const double p_mm = depth->second;
-        lines.note(fmt::format("24-hour rainfall depth, {}-year", rp),
+        lines.note(fmt::format("24-hour rainfall depth, {}-year{}", rp, purpose),
                    fmt::format("P = {}", depth_text(p_mm, us)),
                    fmt::format("project input ({}, [rainfall] {})", pf, p.rainfall.depth_24h_key),
                    us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
@@ -147,7 +148,7 @@ double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, doub
     part.append(fit.lines);
     append_once(lines, part, shown);
     const double p_mm = fit.value;
-    lines.note(fmt::format("24-hour rainfall depth, {}-year", rp),
+    lines.note(fmt::format("24-hour rainfall depth, {}-year{}", rp, purpose),
                fmt::format("P = x_T = {}", depth_text(p_mm, us)),
                fmt::format("design depth of the line above: {} fit of {}",
                            gev ? "GEV (L-moments)" : "Gumbel (moments)", ams.source),
@@ -230,7 +231,8 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
     }
     std::vector<double> times;
     {
-        const double p2_mm = design_depth_24h_mm(p, tables, 2.0, lines, shown);
+        const double p2_mm =
+            design_depth_24h_mm(p, tables, 2.0, lines, shown, " (P2 for sheet flow)");
         lines.note("Manning roughness, sheet flow", fmt::format("n = {}", sig(sp.sheet_manning_n)),
                    params + ": sheet_manning_n (TR-55 Table 3-1)", sp.sheet_manning_n);
         const auto limit = p.settings.sheet_flow_max_length_m <= units::ft_to_m(100.0) + 1e-9
