@@ -5,6 +5,7 @@
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/idf_csv.hpp"
+#include "catchpeak/rain/frequency.hpp"
 #include "catchpeak/rain/idf.hpp"
 
 #include <fmt/format.h>
@@ -151,6 +152,48 @@ std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
     return out;
 }
 
+AnnualMaximumSeries read_annual_maximum_series(const fs::path &path, const std::string &given) {
+    const io::CsvTable t = io::read_csv(path);
+    AnnualMaximumSeries s;
+    s.source = given;
+    const std::size_t year_col = t.column("year");
+    const auto depth =
+        required_one_of(t, {"depth_24h_mm", "depth_24h_in"}, "the annual maximum 24-hour depth");
+    s.column = depth.first;
+    const double factor = depth.first == "depth_24h_mm" ? 1.0 : units::in_to_mm(1.0);
+    std::set<int> seen;
+    for (const auto &row : t.rows) {
+        const double y = t.number(row, year_col);
+        if (!(y == std::floor(y)) || y < 1.0 || y > 9999.0) {
+            throw_input_error(t.where(row, year_col), fmt::format("'{}' is not a year", y),
+                              "a year as a whole number, e.g. 1994");
+        }
+        const int year = static_cast<int>(y);
+        if (!seen.insert(year).second) {
+            throw_input_error(t.where(row, year_col), fmt::format("year {} is listed twice", year),
+                              "one value per year (the largest 24-hour depth of that year)");
+        }
+        const double d = t.number(row, depth.second);
+        if (!std::isfinite(d) || d < 0.0) {
+            throw_input_error(t.where(row, depth.second), fmt::format("depth {} is negative", d),
+                              "a depth >= 0");
+        }
+        s.years.push_back(year);
+        s.depth_mm.push_back(d * factor);
+    }
+    if (s.depth_mm.size() < rain::min_record_years) {
+        throw_input_error(
+            t.source, fmt::format("{} years of annual maxima", s.depth_mm.size()),
+            fmt::format("at least {} years (common practice, no source)", rain::min_record_years));
+    }
+    if (std::all_of(s.depth_mm.begin(), s.depth_mm.end(),
+                    [&](double d) { return d == s.depth_mm.front(); })) {
+        throw_input_error(t.source, "all depths are equal",
+                          "a series that varies from year to year");
+    }
+    return s;
+}
+
 namespace {
 
 void check_file(const std::optional<InputPath> &p, const std::string &project_file,
@@ -206,6 +249,12 @@ void check_project(const Project &p, Problems &problems) {
         return; // the tables below cannot be read
     }
 
+    if (p.rainfall.annual_maximum_series) {
+        collect(problems, [&] {
+            (void)read_annual_maximum_series(p.rainfall.annual_maximum_series->resolved,
+                                             p.rainfall.annual_maximum_series->given);
+        });
+    }
     if (p.rainfall.idf) {
         collect(problems, [&] {
             const rain::Idf idf = io::read_idf_csv(p.rainfall.idf->resolved);

@@ -43,22 +43,6 @@ std::string utc_now() {
 /// Methods and inputs this build cannot compute yet, each a problem naming the key.
 void not_yet_available(const Project &p, Problems &problems) {
     const std::string pf = p.file.string();
-    auto tc_ok = [](const std::string &m) {
-        return m == "kirpich" || m == "given" || m == "nrcs_lag";
-    };
-    const std::string accepted = "\"kirpich\", \"nrcs_lag\", or \"given\" per design point";
-    if (!tc_ok(p.methods.tc_method)) {
-        problems.add(input_message(
-            pf + ": [methods] tc",
-            fmt::format("tc method '{}' is not in this build yet", p.methods.tc_method), accepted));
-    }
-    for (const auto &o : p.methods.points) {
-        if (o.tc_method && !tc_ok(*o.tc_method)) {
-            problems.add(input_message(
-                fmt::format("{}:{}: [[methods.point]] tc", pf, o.line),
-                fmt::format("tc method '{}' is not in this build yet", *o.tc_method), accepted));
-        }
-    }
     if (p.uses_table() && p.inputs.land_cover) {
         problems.add(
             input_message(fmt::format("{}:{}: [inputs] land_cover", pf, p.inputs.land_cover->line),

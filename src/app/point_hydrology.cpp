@@ -11,11 +11,13 @@
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/io/storm_table.hpp"
+#include "catchpeak/rain/frequency.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
 #include <cmath>
+#include <set>
 #include <string_view>
 #include <utility>
 
@@ -86,12 +88,230 @@ std::vector<double> rebin(const rain::Hyetograph &h, double step_s, std::size_t 
     return out;
 }
 
-/// Step of the design storm hyetograph handed to the unit hydrograph, min (it is re-binned to
-/// the unit hydrograph's duration D there). 6 min divides 24 h and follows the tables' detail.
-constexpr double storm_step_min = 6.0;
+constexpr const char *txdot_kk =
+    "TxDOT Hydraulic Design Manual ch. 4, Kerby-Kirpich (Roussel et al. 2005)";
 
 std::string depth_text(double mm, bool us) {
     return us ? fmt::format("{} in", sig(units::mm_to_in(mm))) : fmt::format("{} mm", sig(mm));
+}
+
+/// Appends the lines of `part` to `lines`, leaving out every line already shown (same label,
+/// numbers and source in `shown`): the fit of the annual maximum series repeats its mean,
+/// moments and warnings for every return period, and the sheet shows them once.
+void append_once(CalcLines &lines, const CalcLines &part, std::set<std::string> &shown) {
+    for (const auto &l : part.lines()) {
+        if (shown.insert(l.label + '\n' + l.numbers + '\n' + l.source).second) {
+            lines.add(l);
+        }
+    }
+}
+
+/// The 24-hour design depth of return period `rp`, mm, with its lines: the depth given in
+/// [rainfall] depths_24h, or the depth fitted to the annual maximum series by the project's
+/// distribution. `shown` holds the frequency-analysis lines already on this point's sheet.
+double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, double rp,
+                           CalcLines &lines, std::set<std::string> &shown,
+                           std::string_view purpose = {}) {
+    const bool us = p.info.units == units::System::us_customary;
+    const std::string pf = p.file.filename().string();
+    const auto depth = p.rainfall.depth_24h_mm.find(rp);
+    if (depth != p.rainfall.depth_24h_mm.end()) {
+        const double p_mm = depth->second;
+        lines.note(fmt::format("24-hour rainfall depth, {}-year{}", rp, purpose),
+                   fmt::format("P = {}", depth_text(p_mm, us)),
+                   fmt::format("project input ({}, [rainfall] {})", pf, p.rainfall.depth_24h_key),
+                   us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+        return p_mm;
+    }
+    if (tables.ams == nullptr) {
+        throw_input_error(fmt::format("{}: [rainfall] depths_24h", p.file.string()),
+                          fmt::format("no 24-hour depth for the {}-year return period", rp),
+                          "one depth for every return period in return_periods_yr, or an "
+                          "annual maximum series");
+    }
+    const AnnualMaximumSeries &ams = *tables.ams;
+    CalcLines part;
+    const auto [first, last] = std::minmax_element(ams.years.begin(), ams.years.end());
+    part.note("Annual maximum series of 24-hour depths",
+              fmt::format("n = {} years, {} to {} (column {})", ams.depth_mm.size(), *first, *last,
+                          ams.column),
+              fmt::format("project input ({})", ams.source),
+              static_cast<double>(ams.depth_mm.size()), "years");
+    const bool gev = p.rainfall.ams_distribution == "gev";
+    WithLines<double> fit{0.0, {}};
+    try {
+        fit = gev ? rain::gev_depth(ams.depth_mm, rp, p.info.units)
+                  : rain::gumbel_depth(ams.depth_mm, rp, p.info.units);
+    } catch (const InputError &e) {
+        throw InputError(fmt::format("{}: {}", ams.source, e.what()));
+    }
+    part.append(fit.lines);
+    append_once(lines, part, shown);
+    const double p_mm = fit.value;
+    lines.note(fmt::format("24-hour rainfall depth, {}-year{}", rp, purpose),
+               fmt::format("P = x_T = {}", depth_text(p_mm, us)),
+               fmt::format("design depth of the line above: {} fit of {}",
+                           gev ? "GEV (L-moments)" : "Gumbel (moments)", ams.source),
+               us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+    return p_mm;
+}
+
+constexpr const char *split_source =
+    "split of the longest flow path by the project's settings ([settings] "
+    "sheet_flow_max_length_m, shallow_length_m)";
+
+/// A length for the sheet: ft on a US sheet, m on an SI sheet.
+double sheet_length(double m, bool us) { return us ? units::m_to_ft(m) : m; }
+
+/// The first part of the longest flow path, overland (sheet) flow: L1 = min(L, L max). A line.
+double overland_length_m(const Project &p, const PointInputs &in, const std::string &label,
+                         CalcLines &lines) {
+    const bool us = p.info.units == units::System::us_customary;
+    const char *lu = us ? "ft" : "m";
+    const double l1 = std::min(in.longest_flow_path_m, p.settings.sheet_flow_max_length_m);
+    lines.calc(label, "L1 = min(L, L1 max)",
+               fmt::format("L1 = min({}, {})", sig(sheet_length(in.longest_flow_path_m, us)),
+                           sig(sheet_length(p.settings.sheet_flow_max_length_m, us))),
+               sheet_length(l1, us), lu,
+               "[settings] sheet_flow_max_length_m: the first part of the longest flow path");
+    return l1;
+}
+
+/// The note that every segment takes the slope of the longest flow path.
+void segment_slope_note(const PointInputs &in, bool us, CalcLines &lines) {
+    lines.note("Slope of every segment",
+               fmt::format("s = slope of the longest flow path = {} {} (the inputs give no "
+                           "slope per segment)",
+                           sig(in.slope), us ? "ft/ft" : "m/m"),
+               in.source, in.slope, us ? "ft/ft" : "m/m");
+}
+
+/// TR-55 segmental tc (TR-55 ch. 3): sheet, shallow concentrated and channel flow along the
+/// longest flow path, split by the settings; P2 from the rainfall inputs.
+double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const SegmentalParameters &sp,
+                             const HydrologyTables &tables, CalcLines &lines,
+                             std::set<std::string> &shown) {
+    const bool us = p.info.units == units::System::us_customary;
+    const char *lu = us ? "ft" : "m";
+    const std::string params =
+        fmt::format("project input ({}, [methods.tr55_segmental])", p.file.filename().string());
+    lines.note("Time of concentration, TR-55 segmental",
+               "tc = sum of the travel times of sheet, shallow concentrated and channel flow",
+               "TR-55 (1986) ch. 3");
+    segment_slope_note(in, us, lines);
+    const double l = in.longest_flow_path_m;
+    const double l1 = overland_length_m(p, in, "Sheet flow length", lines);
+    double l2 = l - l1;
+    if (sp.shallow_length_m) {
+        l2 = std::min(l - l1, *sp.shallow_length_m);
+        lines.calc("Shallow concentrated flow length", "L2 = min(L - L1, L2 set)",
+                   fmt::format("L2 = min({} - {}, {})", sig(sheet_length(l, us)),
+                               sig(sheet_length(l1, us)),
+                               sig(sheet_length(*sp.shallow_length_m, us))),
+                   sheet_length(l2, us), lu, params + ": shallow_length_m");
+    } else {
+        lines.calc("Shallow concentrated flow length", "L2 = L - L1",
+                   fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
+                   sheet_length(l2, us), lu, split_source);
+        if (l2 > 0.0) {
+            lines.warn("Where the channel starts is not given",
+                       "no shallow_length_m in [methods.tr55_segmental]: the whole flow path "
+                       "after the sheet flow is taken as shallow concentrated flow, which is "
+                       "slower than channel flow; give the length to where the flow enters a "
+                       "channel",
+                       "TR-55 (1986) ch. 3");
+        }
+    }
+    const double l3 = l - l1 - l2;
+    if (l3 > 0.0) {
+        lines.calc("Channel flow length", "L3 = L - L1 - L2",
+                   fmt::format("L3 = {} - {} - {}", sig(sheet_length(l, us)),
+                               sig(sheet_length(l1, us)), sig(sheet_length(l2, us))),
+                   sheet_length(l3, us), lu, split_source);
+    }
+    std::vector<double> times;
+    {
+        const double p2_mm =
+            design_depth_24h_mm(p, tables, 2.0, lines, shown, " (P2 for sheet flow)");
+        lines.note("Manning roughness, sheet flow", fmt::format("n = {}", sig(sp.sheet_manning_n)),
+                   params + ": sheet_manning_n (TR-55 Table 3-1)", sp.sheet_manning_n);
+        const auto limit = p.settings.sheet_flow_max_length_m <= units::ft_to_m(100.0) + 1e-9
+                               ? hydro::SheetFlowLimit::neh630_100_ft
+                               : hydro::SheetFlowLimit::tr55_300_ft;
+        auto t =
+            hydro::sheet_flow_tt_min(sp.sheet_manning_n, l1, p2_mm, in.slope, limit, p.info.units);
+        lines.append(t.lines);
+        times.push_back(t.value);
+    }
+    if (l2 > 0.0) {
+        auto t = hydro::shallow_flow_tt_min(l2, in.slope,
+                                            sp.shallow_surface == "paved"
+                                                ? hydro::ShallowSurface::paved
+                                                : hydro::ShallowSurface::unpaved,
+                                            p.info.units);
+        lines.append(t.lines);
+        times.push_back(t.value);
+    }
+    if (l3 > 0.0) {
+        lines.note("Channel section and roughness",
+                   us ? fmt::format("n = {}, a = {} ft2, pw = {} ft", sig(sp.channel_manning_n),
+                                    sig(units::m2_to_ft2(sp.channel_flow_area_m2)),
+                                    sig(units::m_to_ft(sp.channel_wetted_perimeter_m)))
+                      : fmt::format("n = {}, a = {} m2, pw = {} m", sig(sp.channel_manning_n),
+                                    sig(sp.channel_flow_area_m2),
+                                    sig(sp.channel_wetted_perimeter_m)),
+                   params + ": channel_manning_n, channel_flow_area_m2, "
+                            "channel_wetted_perimeter_m");
+        auto t =
+            hydro::channel_flow_tt_min(sp.channel_manning_n, sp.channel_flow_area_m2,
+                                       sp.channel_wetted_perimeter_m, in.slope, l3, p.info.units);
+        lines.append(t.lines);
+        times.push_back(t.value);
+    }
+    auto sum = hydro::sum_travel_times_min(times, p.info.units);
+    lines.append(sum.lines);
+    return sum.value;
+}
+
+/// Kerby-Kirpich tc (TxDOT Hydraulic Design Manual ch. 4, after Roussel et al. 2005): Kerby
+/// overland flow over the first part of the flow path, Kirpich for the rest.
+double kerby_kirpich_tc_min(const Project &p, const PointInputs &in, const KerbyParameters &kp,
+                            CalcLines &lines) {
+    const bool us = p.info.units == units::System::us_customary;
+    const char *lu = us ? "ft" : "m";
+    lines.note("Time of concentration, Kerby-Kirpich",
+               "tc = tov (Kerby, overland flow) + tch (Kirpich, channel flow)", txdot_kk);
+    segment_slope_note(in, us, lines);
+    const double l = in.longest_flow_path_m;
+    const double l1 = overland_length_m(p, in, "Overland flow length", lines);
+    const double l2 = l - l1;
+    lines.note("Retardance coefficient N", fmt::format("N = {}", sig(kp.retardance_n)),
+               fmt::format("project input ({}, [methods.kerby_kirpich]: retardance_n; Kerby's "
+                           "table in the TxDOT Hydraulic Design Manual ch. 4)",
+                           p.file.filename().string()),
+               kp.retardance_n);
+    auto ov = hydro::kerby_tov_min(l1, kp.retardance_n, in.slope, p.info.units);
+    lines.append(ov.lines);
+    double tch = 0.0;
+    if (l2 > 0.0) {
+        lines.calc("Channel flow length", "L2 = L - L1",
+                   fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
+                   sheet_length(l2, us), lu, split_source);
+        auto ch = hydro::kirpich_tc_min(l2, in.slope, in.area_m2, p.info.units);
+        lines.append(ch.lines);
+        tch = ch.value;
+    }
+    const double tc = ov.value + tch;
+    lines.calc("Time of concentration, Kerby-Kirpich", "tc = tov + tch",
+               fmt::format("tc = {} + {}", sig(ov.value), sig(tch)), tc, "min", txdot_kk);
+    // TxDOT gives 0.25-150 mi2 for the combined method (checked secondary, REFERENCES.md 3).
+    const double area_mi2 = in.area_m2 / units::m2_per_mi2;
+    if (area_mi2 < 0.25 || area_mi2 > 150.0) {
+        lines.warn("Kerby-Kirpich: catchment area outside the method's range",
+                   fmt::format("catchment area {} mi2 lies outside 0.25 to 150 mi2", sig(area_mi2)),
+                   "TxDOT Hydraulic Design Manual ch. 4 (Roussel et al. 2005)");
+    }
+    return tc;
 }
 
 } // namespace
@@ -123,6 +343,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     }
 
     // Time of concentration.
+    std::set<std::string> ams_shown; // frequency-analysis lines already on this sheet
     const PointOverride *o = override_for(p, dp.id);
     std::string tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
     double tc = 0.0;
@@ -160,6 +381,13 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                                         p.info.units);
         lines.append(k.lines);
         tc = k.value;
+    } else if (tc_method == "tr55_segmental") {
+        tc = tr55_segmental_tc_min(p, in,
+                                   o != nullptr ? o->tr55_segmental : p.methods.tr55_segmental,
+                                   tables, lines, ams_shown);
+    } else if (tc_method == "kerby_kirpich") {
+        tc = kerby_kirpich_tc_min(p, in, o != nullptr ? o->kerby_kirpich : p.methods.kerby_kirpich,
+                                  lines);
     } else {
         auto k = hydro::kirpich_tc_min(in.longest_flow_path_m, in.slope, in.area_m2, p.info.units);
         lines.append(k.lines);
@@ -198,10 +426,26 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                    "is an extrapolation of the method",
                    "TR-55 (1986) ch. 4");
     }
+    double pond_percent = 0.0;
     if (uses("tr55_graphical")) {
-        lines.note("Ponds and swamps",
-                   "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
-                   "project input");
+        const std::string pf = p.file.filename().string();
+        if (o != nullptr && o->pond_swamp_percent) {
+            pond_percent = *o->pond_swamp_percent;
+            lines.note("Ponds and swamps",
+                       fmt::format("share of the catchment = {} %", sig(pond_percent)),
+                       fmt::format("project input ({}, [[methods.point]] line {})", pf, o->line),
+                       pond_percent, "%");
+        } else if (p.settings.pond_swamp_percent) {
+            pond_percent = *p.settings.pond_swamp_percent;
+            lines.note("Ponds and swamps",
+                       fmt::format("share of the catchment = {} %", sig(pond_percent)),
+                       fmt::format("project input ({}, [settings] pond_swamp_percent)", pf),
+                       pond_percent, "%");
+        } else {
+            lines.note("Ponds and swamps",
+                       "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
+                       "project input ([settings] pond_swamp_percent not given)");
+        }
     }
     for (double rp : p.rainfall.return_periods_yr) {
         if (uses("rational") && tables.idf != nullptr && tables.frequency_factors != nullptr &&
@@ -228,19 +472,8 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         if (!scs) {
             continue;
         }
-        const auto depth = p.rainfall.depth_24h_mm.find(rp);
-        if (depth == p.rainfall.depth_24h_mm.end()) {
-            throw_input_error(fmt::format("{}: [rainfall] depths_24h", p.file.string()),
-                              fmt::format("no 24-hour depth for the {}-year return period", rp),
-                              "one depth for every return period in return_periods_yr");
-        }
-        const double p_mm = depth->second;
+        const double p_mm = design_depth_24h_mm(p, tables, rp, lines, ams_shown);
         const double cn = *in.cn;
-        lines.note(
-            fmt::format("24-hour rainfall depth, {}-year", rp),
-            fmt::format("P = {}", depth_text(p_mm, us)),
-            fmt::format("project input ({}, [rainfall] depths_24h)", p.file.filename().string()),
-            us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
         auto runoff = hydro::cn_runoff(p_mm, cn, p.info.units, ratio);
         lines.append(runoff.lines);
         if (!parts.empty()) {
@@ -255,7 +488,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                 *tables.peak_coefficients, *tables.pond_factors,
                 hydro::parse_storm_type(p.rainfall.storm_type,
                                         p.file.string() + ": [rainfall] storm_type"),
-                in.area_m2, tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm, 0.0,
+                in.area_m2, tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm, pond_percent,
                 p.info.units);
             // The line that gives Q: the last calculation line of the TR-55 peak's lines.
             q_line_index.push_back(last_calculation_index(lines, q.lines));
@@ -278,10 +511,22 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             if (tables.unit_hydrograph == nullptr || tables.storm == nullptr) {
                 throw InternalError("unit hydrograph or storm table not loaded");
             }
-            auto rain = rain::storm_hyetograph(*tables.storm, p_mm, storm_step_min, p.info.units);
+            const double step_min = p.settings.storm_time_step_min;
+            auto rain = rain::storm_hyetograph(*tables.storm, p_mm, step_min, p.info.units);
             lines.append(rain.lines);
             auto h = hydro::unit_hydrograph_from_rainfall(*tables.unit_hydrograph, rain.value, cn,
                                                           in.area_m2, tc, p.info.units, {}, ratio);
+            const double tp_min = h.value.tp_h * 60.0;
+            if (step_min > 0.2 * tp_min) {
+                h.lines.warn("Storm time step long for the unit hydrograph",
+                             fmt::format("storm time step {} min exceeds 0.2 tp = 0.2 x {} min = "
+                                         "{} min: the rainfall of a step is spread evenly over "
+                                         "the unit hydrograph's shorter steps and the peak may "
+                                         "be too low; choose a shorter storm_time_step_min",
+                                         sig(step_min), sig(tp_min), sig(0.2 * tp_min)),
+                             "NRCS NEH 630 ch. 16: a time step of no more than about 0.2 tp "
+                             "(from memory, not checked)");
+            }
             q_line_index.push_back(calculation_index(lines, h.lines, "Peak flow"));
             lines.append(h.lines);
             const auto &hg = h.value;
@@ -323,6 +568,7 @@ HydrologyTables LoadedTables::view() const {
     t.pond_factors = &pond_factors;
     t.unit_hydrograph = &unit_hydrograph;
     t.storm = storm ? &*storm : nullptr;
+    t.ams = ams ? &*ams : nullptr;
     return t;
 }
 
@@ -330,6 +576,10 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
     LoadedTables t;
     if (p.rainfall.idf) {
         t.idf = io::read_idf_csv(p.rainfall.idf->resolved);
+    }
+    if (p.rainfall.annual_maximum_series) {
+        t.ams = read_annual_maximum_series(p.rainfall.annual_maximum_series->resolved,
+                                           p.rainfall.annual_maximum_series->given);
     }
     auto read = [&](const std::string &role, const std::string &name, auto reader, auto &into) {
         into = reader(config / name);
@@ -358,7 +608,6 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
 
 void add_method_references(const Project &p, const report::DesignPointResult &dp,
                            std::vector<report::Reference> &refs) {
-    (void)p;
     auto add = [&](const std::string &key, const std::string &citation) {
         for (const auto &r : refs) {
             if (r.key == key) {
@@ -381,6 +630,21 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
     if (dp.tc_method == "nrcs_lag") {
         add("NEH 630 ch. 15 (2010)", neh630 + "chapter 15 Time of Concentration (2010).");
     }
+    if (dp.tc_method == "tr55_segmental") {
+        add("TR-55 (1986)", tr55);
+    }
+    if (dp.tc_method == "kerby_kirpich") {
+        add("TxDOT Hydraulic Design Manual",
+            "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
+        add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
+                              "watersheds. Civil Engineering 10(6), 362.");
+        add("Kerby (1959)", "Kerby, W.S. (1959). Time of concentration for overland flow. Civil "
+                            "Engineering 29(3), 174.");
+        add("Roussel et al. (2005)",
+            "Roussel, M.C., Thompson, D.B., Fang, X., Cleveland, T.G. and Garcia, C.A. (2005). "
+            "Time-parameter estimation for applicable Texas watersheds. Research report for the "
+            "Texas Department of Transportation (citation from memory, not checked).");
+    }
     for (const auto &pk : dp.peaks) {
         if (pk.method == "rational") {
             add("TxDOT Hydraulic Design Manual", "Texas Department of Transportation, Hydraulic "
@@ -394,6 +658,25 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
                                  "Volume and Rate of Runoff in Small Watersheds, Technical Paper "
                                  "149 (TP-149), rev. April 1973.");
         }
+    }
+    const bool ams = std::any_of(dp.lines.lines().begin(), dp.lines.lines().end(), [](auto &l) {
+        return l.label == "Annual maximum series of 24-hour depths";
+    });
+    if (ams && p.rainfall.ams_distribution == "gev") {
+        add("Hosking (1990)",
+            "Hosking, J.R.M. (1990). L-moments: analysis and estimation of distributions using "
+            "linear combinations of order statistics. Journal of the Royal Statistical Society, "
+            "Series B 52(1), 105-124.");
+        add("Hosking & Wallis (1997)", "Hosking, J.R.M. and Wallis, J.R. (1997). Regional "
+                                       "Frequency Analysis: an approach based on L-moments. "
+                                       "Cambridge University Press.");
+        add("Hosking, Wallis & Wood (1985)",
+            "Hosking, J.R.M., Wallis, J.R. and Wood, E.F. (1985). Estimation of the generalized "
+            "extreme-value distribution by the method of probability-weighted moments. "
+            "Technometrics 27(3), 251-261.");
+    } else if (ams) {
+        add("Chow, Maidment & Mays (1988)", "Chow, V.T., Maidment, D.R. and Mays, L.W. (1988). "
+                                            "Applied Hydrology. McGraw-Hill, New York.");
     }
 }
 

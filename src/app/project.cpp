@@ -39,6 +39,12 @@ bool Project::uses_method(std::string_view method) const {
     });
 }
 
+bool Project::uses_tc_method(std::string_view method) const {
+    return methods.tc_method == method ||
+           std::any_of(methods.points.begin(), methods.points.end(),
+                       [&](const auto &o) { return o.tc_method && *o.tc_method == method; });
+}
+
 void Problems::throw_if_any() const {
     if (list_.empty()) {
         return;
@@ -383,6 +389,10 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
 void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     r.idf = t.path("idf", dir);
     r.annual_maximum_series = t.path("annual_maximum_series", dir);
+    if (auto d = t.choice("ams_distribution", {"gumbel", "gev"})) {
+        r.ams_distribution = *d;
+    }
+    r.ams_distribution_line = t.line_of("ams_distribution");
     if (const toml::node *n = t.get("return_periods_yr")) {
         const std::string accepted = "a list of return periods in years, each > 1, e.g. [2, 10]";
         if (const toml::array *arr = n->as_array(); arr != nullptr && !arr->empty()) {
@@ -446,15 +456,61 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
         }
     }
     t.finish();
+    const std::size_t ams_line = t.line_of("annual_maximum_series");
+    const std::size_t depth_line = std::max(t.line_of("depths_24h_mm"), t.line_of("depths_24h_in"));
+    if (ams_line != 0 && depth_line != 0) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [rainfall]", t.file(), depth_line),
+            fmt::format("both 24-hour depths and an annual maximum series (line {}) are given",
+                        ams_line),
+            "either 'depths_24h_mm' / 'depths_24h_in' or 'annual_maximum_series', not both"));
+    }
+    if (r.ams_distribution_line != 0 && ams_line == 0) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [rainfall] ams_distribution", t.file(), r.ams_distribution_line),
+            "a distribution is chosen but no annual maximum series is given",
+            "'ams_distribution' only with 'annual_maximum_series'"));
+    }
     if (!r.idf && r.depth_24h_mm.empty() && !r.annual_maximum_series) {
         t.missing("idf", "an IDF table ('idf'), 24-hour depths ('depths_24h_mm' or "
                          "'depths_24h_in') or an annual maximum series");
     }
 }
 
+/// Reads the keys of the segmental tc method present in `t` over `s` (the project's table, or
+/// a point's keys over the project's values).
+void read_segmental(TableReader &t, SegmentalParameters &s) {
+    s.sheet_manning_n = t.number("sheet_manning_n", 0.0, 1.0, false).value_or(s.sheet_manning_n);
+    s.shallow_surface =
+        t.choice("shallow_surface", {"unpaved", "paved"}).value_or(s.shallow_surface);
+    if (auto v = t.number("shallow_length_m", 0.0, 100000.0)) {
+        s.shallow_length_m = *v;
+    }
+    s.channel_manning_n =
+        t.number("channel_manning_n", 0.0, 1.0, false).value_or(s.channel_manning_n);
+    s.channel_flow_area_m2 =
+        t.number("channel_flow_area_m2", 0.0, 10000.0, false).value_or(s.channel_flow_area_m2);
+    s.channel_wetted_perimeter_m = t.number("channel_wetted_perimeter_m", 0.0, 10000.0, false)
+                                       .value_or(s.channel_wetted_perimeter_m);
+}
+
+void read_kerby(TableReader &t, KerbyParameters &k) {
+    k.retardance_n = t.number("retardance_n", 0.0, 1.0, false).value_or(k.retardance_n);
+}
+
 void read_methods(TableReader &t, const Project &p, Methods &m, Problems &problems) {
     if (auto v = t.choice("tc", known_tc_methods())) {
         m.tc_method = *v;
+    }
+    if (const auto *seg = sub_table(t, "tr55_segmental")) {
+        TableReader r(*seg, "methods.tr55_segmental", t.file(), problems);
+        read_segmental(r, m.tr55_segmental);
+        r.finish();
+    }
+    if (const auto *kk = sub_table(t, "kerby_kirpich")) {
+        TableReader r(*kk, "methods.kerby_kirpich", t.file(), problems);
+        read_kerby(r, m.kerby_kirpich);
+        r.finish();
     }
     bool found = false;
     auto peaks = method_list(t, "peak", known_peak_methods(), found);
@@ -486,6 +542,11 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                     o.peak_methods = pk;
                 }
                 o.tc_min = pt.number("tc_min", 0.0, 10000.0, false);
+                o.pond_swamp_percent = pt.number("pond_swamp_percent", 0.0, 100.0);
+                o.tr55_segmental = m.tr55_segmental;
+                read_segmental(pt, o.tr55_segmental);
+                o.kerby_kirpich = m.kerby_kirpich;
+                read_kerby(pt, o.kerby_kirpich);
                 if (o.tc_method == std::string("given") && !o.tc_min) {
                     pt.missing("tc_min", "a time of concentration in minutes with tc = \"given\"");
                 }
@@ -523,6 +584,21 @@ void read_settings(TableReader &t, Settings &s) {
     s.dual_soil_group =
         t.choice("dual_soil_group", {"drained", "undrained"}).value_or(s.dual_soil_group);
     s.uncovered_land = t.text("uncovered_land").value_or(s.uncovered_land);
+    s.pond_swamp_percent = t.number("pond_swamp_percent", 0.0, 100.0);
+    s.pond_swamp_line = t.line_of("pond_swamp_percent");
+    if (auto step = t.number("storm_time_step_min", 0.0, 60.0, false)) {
+        const double steps = 1440.0 / *step;
+        if (std::abs(steps - std::round(steps)) > 1e-9 * steps) {
+            t.problem(*t.get("storm_time_step_min"), "storm_time_step_min",
+                      fmt::format("{} min does not divide the 24-hour storm into whole steps "
+                                  "(1440 / {} = {})",
+                                  *step, *step, steps),
+                      "a step that divides 1440 min, e.g. 1, 2, 3, 5, 6, 10, 12, 15, 30 or 60");
+        } else {
+            s.storm_time_step_min = *step;
+        }
+    }
+    s.storm_time_step_line = t.line_of("storm_time_step_min");
     t.finish();
 }
 
@@ -608,6 +684,13 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
             name + ": [rainfall]",
             "the SCS Curve Number methods need 24-hour depths, none are given",
             "depths_24h_mm or depths_24h_in, one per return period, or annual_maximum_series"));
+    }
+    if (p.uses_tc_method("tr55_segmental") && !p.rainfall.annual_maximum_series &&
+        p.rainfall.depth_24h_mm.count(2.0) == 0) {
+        problems.add(input_message(
+            name + ": [methods] tc = \"tr55_segmental\"",
+            "TR-55 sheet flow needs the 2-year 24-hour rainfall depth P2, none is given",
+            "a \"2\" entry in depths_24h_mm or depths_24h_in, or annual_maximum_series"));
     }
     if (scs && p.rainfall.storm_type.empty()) {
         problems.add(input_message(name + ": [rainfall] storm_type",

@@ -36,6 +36,21 @@ struct TableCatchment {
 /// Throws InputError naming the file, the line and the column.
 [[nodiscard]] std::vector<TableCatchment> read_catchment_table(const std::filesystem::path &path);
 
+/// An annual maximum series of 24-hour rainfall depths: one value per year.
+struct AnnualMaximumSeries {
+    std::string source;           ///< the file name as given in the project file
+    std::vector<int> years;       ///< as in the file
+    std::vector<double> depth_mm; ///< the largest 24-hour depth of each year, mm
+    std::string column;           ///< "depth_24h_mm" or "depth_24h_in"
+};
+
+/// Reads an annual maximum series (CSV) with the columns `year` (a whole number, each year
+/// once) and `depth_24h_mm` or `depth_24h_in` (>= 0). At least rain::min_record_years values,
+/// not all equal (the frequency analysis needs a spread). `given` names the file in messages.
+/// Throws InputError naming the file, the line and the column.
+[[nodiscard]] AnnualMaximumSeries read_annual_maximum_series(const std::filesystem::path &path,
+                                                             const std::string &given);
+
 /// The folder of the method tables (config/): $CATCHPEAK_CONFIG_DIR when set, else the
 /// config/ folder of the source tree the program was built from.
 [[nodiscard]] std::filesystem::path config_dir();

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/project.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/rain/design_storm.hpp"
@@ -45,6 +46,7 @@ struct HydrologyTables {
     const hydro::PondFactorTable *pond_factors = nullptr;                ///< TR-55 graphical
     const hydro::DimensionlessUnitHydrograph *unit_hydrograph = nullptr; ///< SCS UH
     const rain::StormDistribution *storm = nullptr; ///< the project's NRCS 24-hour storm
+    const AnnualMaximumSeries *ams = nullptr;       ///< [rainfall] annual_maximum_series
 };
 
 /// Loads the tables the project's methods need from the configuration folder `config`
@@ -56,6 +58,7 @@ struct LoadedTables {
     hydro::PondFactorTable pond_factors;
     hydro::DimensionlessUnitHydrograph unit_hydrograph;
     std::optional<rain::StormDistribution> storm;
+    std::optional<AnnualMaximumSeries> ams;
     /// Each file read, (role, path relative to the config folder or as given), for the stamp.
     std::vector<std::pair<std::string, std::filesystem::path>> config_files;
     /// Pointers into this object; valid while it lives and is not moved.

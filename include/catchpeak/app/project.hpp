@@ -47,7 +47,35 @@ struct Rainfall {
     std::map<double, double> depth_24h_mm;
     std::string depth_24h_key;      ///< "depths_24h_mm" or "depths_24h_in" as written; "" if none
     std::size_t depth_24h_line = 0; ///< line of that key in the project file, for messages
+    /// Annual maximum 24-hour depths (CSV: year, depth_24h_mm or depth_24h_in); when given,
+    /// the 24-hour design depth of every return period is fitted to it.
     std::optional<InputPath> annual_maximum_series;
+    std::string ams_distribution = "gumbel"; ///< "gumbel" (moments) or "gev" (L-moments)
+    std::size_t ams_distribution_line = 0;   ///< line of the key, 0 when not given
+};
+
+/// Choices of the engineer for tc = "tr55_segmental" ([methods.tr55_segmental], and per point
+/// in [[methods.point]]). The longest flow path is split: the first sheet_flow_max_length_m is
+/// sheet flow, the next shallow_length_m shallow concentrated flow, the rest channel flow.
+/// Defaults: sheet n 0.24, dense grasses (TR-55 Table 3-1); channel n 0.05 and the channel
+/// section a = 27 ft2, pw = 28.2 ft of TR-55 Example 3-1.
+struct SegmentalParameters {
+    double sheet_manning_n = 0.24;
+    std::string shallow_surface = "unpaved"; ///< "unpaved" or "paved"
+    /// Length of shallow concentrated flow after the sheet flow, m; unset: the whole rest of
+    /// the flow path (a warning line says so).
+    std::optional<double> shallow_length_m;
+    double channel_manning_n = 0.05;
+    double channel_flow_area_m2 = 27.0 * 0.3048 * 0.3048; ///< 27 ft2
+    double channel_wetted_perimeter_m = 28.2 * 0.3048;    ///< 28.2 ft
+};
+
+/// Choices for tc = "kerby_kirpich" ([methods.kerby_kirpich], and per point): Kerby overland
+/// flow over the first sheet_flow_max_length_m of the flow path, Kirpich for the rest.
+/// Default retardance N 0.40, average grass (Kerby's table as given in the TxDOT Hydraulic
+/// Design Manual ch. 4).
+struct KerbyParameters {
+    double retardance_n = 0.40;
 };
 
 /// Per design point choices in [[methods.point]].
@@ -56,13 +84,18 @@ struct PointOverride {
     std::size_t line = 0;
     std::optional<std::string> tc_method;
     std::optional<std::vector<std::string>> peak_methods;
-    std::optional<double> tc_min; ///< a tc given by the engineer instead of computed
+    std::optional<double> tc_min;             ///< a tc given by the engineer instead of computed
+    std::optional<double> pond_swamp_percent; ///< overrides [settings] pond_swamp_percent
+    SegmentalParameters tr55_segmental;       ///< the project's, with this point's keys over them
+    KerbyParameters kerby_kirpich;            ///< the project's, with this point's keys over them
 };
 
 /// [methods]
 struct Methods {
     std::string tc_method = "kirpich";
     std::vector<std::string> peak_methods{"rational"};
+    SegmentalParameters tr55_segmental;
+    KerbyParameters kerby_kirpich;
     std::vector<PointOverride> points;
 };
 
@@ -75,6 +108,14 @@ struct Settings {
     double initial_abstraction_ratio = 0.2; ///< Ia/S: 0.2 (TR-55) or 0.05 (Hawkins 2002)
     std::string dual_soil_group = "undrained";
     std::string uncovered_land = "refuse"; ///< "refuse" or the name of a land-cover class
+    /// Share of the catchment in ponds and swamps, %, for the TR-55 graphical method's Fp;
+    /// unset: 0 % (Fp = 1), said in a note.
+    std::optional<double> pond_swamp_percent;
+    std::size_t pond_swamp_line = 0;
+    /// Time step of the NRCS 24-hour storm hyetograph, min: > 0, at most 60, and 1440 divided
+    /// by it a whole number (the 24-hour storm in whole steps).
+    double storm_time_step_min = 6.0;
+    std::size_t storm_time_step_line = 0;
 };
 
 struct Project {
@@ -89,6 +130,8 @@ struct Project {
 
     [[nodiscard]] bool uses_table() const noexcept { return inputs.catchment_table.has_value(); }
     [[nodiscard]] bool uses_method(std::string_view method) const;
+    /// True when the project's tc method or a point's is `method`.
+    [[nodiscard]] bool uses_tc_method(std::string_view method) const;
 };
 
 /// The tc and peak methods a project may name.
