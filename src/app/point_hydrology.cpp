@@ -59,6 +59,33 @@ std::size_t calculation_index(const CalcLines &lines, const CalcLines &part,
     return at;
 }
 
+/// Drops a warning that repeats word for word one given earlier for the same design point (the
+/// Rational Method's area limit, say, is the same for every return period): the sheet shows it
+/// once. `indices` (of calculation lines) are mapped to the shortened list.
+void drop_repeated_warnings(CalcLines &lines, std::vector<std::size_t> &indices) {
+    auto &all = lines.lines();
+    std::vector<std::size_t> new_index(all.size() + 1, 0);
+    std::vector<CalcLine> kept;
+    kept.reserve(all.size());
+    for (std::size_t k = 0; k < all.size(); ++k) {
+        const auto &l = all[k];
+        const bool repeated = l.kind == LineKind::warning &&
+                              std::any_of(kept.begin(), kept.end(), [&](const CalcLine &e) {
+                                  return e.kind == LineKind::warning && e.label == l.label &&
+                                         e.numbers == l.numbers && e.source == l.source;
+                              });
+        new_index[k] = kept.size();
+        if (!repeated) {
+            kept.push_back(l);
+        }
+    }
+    new_index[all.size()] = kept.size();
+    for (auto &i : indices) {
+        i = new_index[std::min(i, all.size())];
+    }
+    all = std::move(kept);
+}
+
 hydro::IaRatio ia_ratio(const Project &p) {
     return p.settings.initial_abstraction_ratio < 0.1 ? hydro::IaRatio::r005 : hydro::IaRatio::r020;
 }
@@ -517,7 +544,14 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             auto h = hydro::unit_hydrograph_from_rainfall(*tables.unit_hydrograph, rain.value, cn,
                                                           in.area_m2, tc, p.info.units, {}, ratio);
             const double tp_min = h.value.tp_h * 60.0;
-            if (step_min > 0.2 * tp_min) {
+            // Where the storm table itself is coarser than the step around the peak, its own
+            // warning says so, and a shorter step would not help.
+            const bool table_coarser = std::any_of(
+                rain.lines.lines().begin(), rain.lines.lines().end(), [](const CalcLine &l) {
+                    return l.kind == LineKind::warning &&
+                           l.label.rfind("Peak averaged over a table interval", 0) == 0;
+                });
+            if (step_min > 0.2 * tp_min && !table_coarser) {
                 h.lines.warn("Storm time step long for the unit hydrograph",
                              fmt::format("storm time step {} min exceeds 0.2 tp = 0.2 x {} min = "
                                          "{} min: the rainfall of a step is spread evenly over "
@@ -552,6 +586,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             dp.peaks.push_back(std::move(pk));
         }
     }
+    drop_repeated_warnings(lines, q_line_index);
     number_lines(lines, dp.id);
     for (std::size_t k = 0; k < dp.peaks.size(); ++k) {
         if (q_line_index[k] < lines.size()) {

@@ -471,8 +471,11 @@ TEST(PondsAndSwamps, NotGivenIsZeroWithANote) {
 TEST(StormTimeStep, TheSettingIsUsedAndALongStepWarns) {
     // tc = 30 min. NEH 630 ch. 16 (from memory, not checked): a step of no more than about
     // 0.2 tp. With tp = D/2 + 0.6 tc (NEH 630 ch. 16) and D near 0.133 tc = 4 min, tp is
-    // about 20 min and 0.2 tp about 4 min: a 15-min storm step warns, a 3-min step does not.
-    for (const double step : {15.0, 3.0}) {
+    // about 20 min and 0.2 tp about 4 min: a 60-min storm step warns, a 3-min step does not.
+    // A 15-min step is long too, but the storm table's points lie 30 min apart around the peak
+    // (config/storms), so the table's own warning ("Peak averaged over a table interval") is the
+    // one that applies: a shorter step would not help, and the step warning is not given.
+    for (const double step : {60.0, 15.0, 3.0}) {
         const auto dir =
             catchpeak::test::scratch_dir(fmt::format("storm_step_{}", static_cast<int>(step)));
         const Project p =
@@ -494,9 +497,63 @@ TEST(StormTimeStep, TheSettingIsUsedAndALongStepWarns) {
         const double tp_min = pk.intermediates.at("unit_hydrograph_tp_min");
         // tp = D/2 + 0.6 tc (NEH 630 ch. 16), D the unit hydrograph's step.
         EXPECT_NEAR(tp_min, pk.intermediates.at("step_min") / 2.0 + 0.6 * 30.0, 1e-9);
+        const auto table_warnings =
+            count_label(dp, "Peak averaged over a table interval", catchpeak::LineKind::warning);
+        EXPECT_EQ(table_warnings, step == 60.0 ? 0u : 1u) << step;
         EXPECT_EQ(count_label(dp, "Storm time step long", catchpeak::LineKind::warning),
-                  step > 0.2 * tp_min ? 1u : 0u)
+                  step == 60.0 ? 1u : 0u)
             << step;
-        EXPECT_EQ(step > 0.2 * tp_min, step == 15.0) << tp_min;
+        EXPECT_EQ(step > 0.2 * tp_min, step != 3.0) << tp_min;
+    }
+}
+
+TEST(Warnings, AWarningTheSameForEveryReturnPeriodIsShownOnce) {
+    // 640 ac = 259 ha lies over the Rational Method's 80 ha limit for each of the three return
+    // periods; the warning says the same each time and is shown once, while every return period
+    // keeps its own peak line.
+    const auto dir = catchpeak::test::scratch_dir("warning_once");
+    write(dir / "project.toml", R"([project]
+name = "Heronsgate marsh outfall"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [2, 5, 10]
+
+[methods]
+peak = ["rational"]
+
+[settings]
+rational_area_limit_ha = 80.0
+
+[output]
+folder = "out"
+)");
+    write(dir / "idf.csv", "# unit: mm/h\n"
+                           "duration_min,2,5,10\n"
+                           "5,100,125,150\n"
+                           "60,30,38,45\n"
+                           "120,20,25,30\n");
+    write(dir / "catchments.csv", "id,area_ac,length_m,slope_percent,c\n"
+                                  "PS-1,640,3000,2,0.3\n");
+    std::ostringstream progress;
+    const auto r = compute_project(load_project(dir / "project.toml"), progress, true);
+    const auto &dp = point(r, "PS-1");
+    EXPECT_EQ(count_label(dp, "Rational Method: catchment area over the limit",
+                          catchpeak::LineKind::warning),
+              1u);
+    ASSERT_EQ(dp.peaks.size(), 3u);
+    // Each peak's line id still names a calculation line giving that peak.
+    for (const auto &pk : dp.peaks) {
+        const auto &all = dp.lines.lines();
+        const auto it =
+            std::find_if(all.begin(), all.end(), [&](const auto &l) { return l.id == pk.line_id; });
+        ASSERT_NE(it, all.end()) << pk.line_id;
+        EXPECT_EQ(it->kind, catchpeak::LineKind::calculation);
+        // The sheet is SI: the line's value is the peak in m3/s.
+        EXPECT_DOUBLE_EQ(it->value, pk.q_m3_s) << pk.line_id;
     }
 }
