@@ -355,6 +355,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         dp.map = make_map(d, i);
 
         PointInputs in;
+        in.restate_inputs = false; // the terrain and land lines above give them
         in.area_m2 = pt.area_m2;
         in.longest_flow_path_m = fp.length_m;
         in.slope = fp.slope_m_per_m;

@@ -351,22 +351,28 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     const double area_ha = units::m2_to_ha(in.area_m2);
     const double area_ac = units::m2_to_acre(in.area_m2);
     const double length_ft = units::m_to_ft(in.longest_flow_path_m);
-    if (us) {
-        lines.note("Catchment area", fmt::format("A = {} ac", sig(area_ac)), src, area_ac, "ac");
-        lines.note("Longest flow path length", fmt::format("L = {} ft", sig(length_ft)), src,
-                   length_ft, "ft");
-    } else {
-        lines.note("Catchment area", fmt::format("A = {} ha", sig(area_ha)), src, area_ha, "ha");
-        lines.note("Longest flow path length", fmt::format("L = {} m", sig(in.longest_flow_path_m)),
-                   src, in.longest_flow_path_m, "m");
-    }
-    lines.note("Slope of the longest flow path", fmt::format("S = {} m/m", sig(in.slope)), src,
-               in.slope, us ? "ft/ft" : "m/m");
-    if (in.c) {
-        lines.note("Runoff coefficient", fmt::format("C = {}", sig(*in.c)), src, *in.c);
-    }
-    if (in.cn) {
-        lines.note("Curve number", fmt::format("CN = {}", sig(*in.cn)), src, *in.cn);
+    if (in.restate_inputs) {
+        if (us) {
+            lines.note("Catchment area", fmt::format("A = {} ac", sig(area_ac)), src, area_ac,
+                       "ac");
+            lines.note("Longest flow path length", fmt::format("L = {} ft", sig(length_ft)), src,
+                       length_ft, "ft");
+        } else {
+            lines.note("Catchment area", fmt::format("A = {} ha", sig(area_ha)), src, area_ha,
+                       "ha");
+            lines.note("Longest flow path length",
+                       fmt::format("L = {} m", sig(in.longest_flow_path_m)), src,
+                       in.longest_flow_path_m, "m");
+        }
+        lines.note("Slope of the longest flow path",
+                   fmt::format("S = {} {}", sig(in.slope), us ? "ft/ft" : "m/m"), src, in.slope,
+                   us ? "ft/ft" : "m/m");
+        if (in.c) {
+            lines.note("Runoff coefficient", fmt::format("C = {}", sig(*in.c)), src, *in.c);
+        }
+        if (in.cn) {
+            lines.note("Curve number", fmt::format("CN = {}", sig(*in.cn)), src, *in.cn);
+        }
     }
 
     // Time of concentration.

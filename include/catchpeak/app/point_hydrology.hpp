@@ -36,6 +36,9 @@ struct PointInputs {
     std::vector<LandPart> land_parts; ///< empty: no area-weighted runoff alternative
     std::optional<double> tc_min;     ///< a tc given in the catchment input
     std::string source;               ///< source text for the input notes
+    /// Whether the lines begin by restating A, L, S, C and CN. Off where earlier lines of the
+    /// same design point already give them (the terrain and land lines of a DEM project).
+    bool restate_inputs = true;
 };
 
 /// The method tables a run has loaded. Pointers may be null when no chosen method needs them.
