@@ -44,7 +44,7 @@ Kind kind_of(const Project &p, LandInput which) {
             "classes"};
 }
 
-/// "10 x 10 m" (or "0.0002778 x 0.0002778 degree").
+/// "10.00 x 10.00 m" (or "0.0001000 x 0.0001000 degree"): 4 significant figures, as the sheet.
 std::string cells(double x, double y, const std::string &unit) {
     const std::string u = unit == "metre" || unit == "meter" ? "m" : unit;
     return fmt::format("{} x {} {}", sig(x), sig(y), u);
