@@ -4,6 +4,7 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
+#include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/vector.hpp"
 #include "catchpeak/io/wkb_rings.hpp"
 #include "catchpeak/land/tables.hpp"

@@ -2,7 +2,6 @@
 #include "catchpeak/io/class_raster.hpp"
 
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/polygonize.hpp"
 #include "gdal_handles.hpp"
 
 #include <gdal_alg.h>
@@ -308,7 +307,6 @@ ClassRaster read_class_raster(const std::filesystem::path &path, const std::stri
 
     // Codes: integers; the distinct ones, ascending, get labels 1, 2, ...
     std::map<std::int64_t, std::uint64_t> counts;
-    std::vector<std::int64_t> code_of(cells.values.size(), 0);
     for (std::size_t i = 0; i < cells.values.size(); ++i) {
         const double v = cells.values[i];
         if (cells.valid[i] == 0 || std::isnan(v)) {
@@ -322,8 +320,7 @@ ClassRaster read_class_raster(const std::filesystem::path &path, const std::stri
                                           x, y, v),
                               accepted_raster);
         }
-        code_of[i] = static_cast<std::int64_t>(v);
-        ++counts[code_of[i]];
+        ++counts[static_cast<std::int64_t>(v)];
     }
     if (counts.size() >= static_cast<std::size_t>(std::numeric_limits<std::int32_t>::max())) {
         throw_input_error(file, fmt::format("holds {} distinct codes", counts.size()),
@@ -341,28 +338,10 @@ ClassRaster read_class_raster(const std::filesystem::path &path, const std::stri
     out.labels.nodata = 0;
     for (std::size_t i = 0; i < cells.values.size(); ++i) {
         if (cells.valid[i] != 0 && !std::isnan(cells.values[i])) {
-            out.labels[i] = label_of[code_of[i]];
+            out.labels[i] = label_of[static_cast<std::int64_t>(cells.values[i])];
         }
     }
     read_names(*ds->GetRasterBand(1), name_column, out);
-    return out;
-}
-
-std::vector<LabelPatch> polygonize_patches(const Grid<std::uint32_t> &labels) {
-    std::vector<LabelPatch> out;
-    for (const auto &lp : polygonize_labels(labels)) {
-        auto g = detail::from_wkb(lp.wkb);
-        const auto type = wkbFlatten(g->getGeometryType());
-        if (type == wkbPolygon) {
-            out.push_back({lp.label, lp.wkb});
-        } else if (type == wkbMultiPolygon || type == wkbGeometryCollection) {
-            for (auto *part : *g->toGeometryCollection()) {
-                if (wkbFlatten(part->getGeometryType()) == wkbPolygon) {
-                    out.push_back({lp.label, detail::to_iso_wkb(*part)});
-                }
-            }
-        }
-    }
     return out;
 }
 

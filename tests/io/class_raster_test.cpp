@@ -2,7 +2,6 @@
 #include "catchpeak/io/class_raster.hpp"
 
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/polygonize.hpp"
 #include "io/class_raster_data.hpp"
 #include "support/input_error.hpp"
 #include "support/test_env.hpp"
@@ -208,27 +207,4 @@ TEST(ReadClassRaster, AnotherCrsIsWarpedByNearestNeighbourToTheTarget) {
             }
         }
     }
-}
-
-TEST(PolygonizePatches, OnePolygonPerPatchOfFourConnectedCells) {
-    // Label 1 in two patches that touch at a corner, label 2 in one patch:
-    //   1 2
-    //   2 1
-    catchpeak::Grid<std::uint32_t> g(2, 2, 0);
-    g.transform = {0.0, 1.0, 0.0, 2.0, 0.0, -1.0};
-    g(0, 0) = 1;
-    g(1, 1) = 1;
-    g(1, 0) = 2;
-    g(0, 1) = 2;
-    const auto patches = polygonize_patches(g);
-    ASSERT_EQ(patches.size(), 4u);
-    double area = 0.0;
-    for (const auto &p : patches) {
-        EXPECT_NEAR(polygon_area(p.wkb), 1.0, 1e-12); // one cell each, exact
-        area += polygon_area(p.wkb);
-    }
-    EXPECT_EQ(patches[0].label, 1u);
-    EXPECT_EQ(patches[1].label, 1u);
-    EXPECT_EQ(patches[2].label, 2u);
-    EXPECT_NEAR(area, 4.0, 1e-12);
 }

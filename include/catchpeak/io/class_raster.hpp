@@ -78,15 +78,4 @@ inline constexpr int class_raster_margin_cells = 2;
                                             const std::string &target_crs_wkt, const Extent &window,
                                             const std::string &name_column);
 
-/// One 4-connected patch of cells of a label, as a polygon.
-struct LabelPatch {
-    std::uint32_t label = 0;
-    std::vector<unsigned char> wkb; ///< Polygon (with its holes), ISO WKB, valid
-};
-
-/// The labels of a grid as polygons, one per patch of 4-connected cells (polygonize_labels,
-/// with every MultiPolygon split into its polygons so that a spatial index sees small pieces),
-/// ascending by label.
-[[nodiscard]] std::vector<LabelPatch> polygonize_patches(const Grid<std::uint32_t> &labels);
-
 } // namespace catchpeak::io
