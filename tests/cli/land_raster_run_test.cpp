@@ -146,6 +146,9 @@ TEST(LandRasterRun, RastersOnTheDemGridGiveTheHandComputedCAndCn) {
     const std::string rec = record.dump();
     EXPECT_NE(rec.find("codes.csv"), std::string::npos) << rec;
     EXPECT_NE(rec.find("soils.tif.aux.xml"), std::string::npos) << rec;
+    // Input files are never modified: no .aux.xml appears beside the land-cover raster.
+    EXPECT_FALSE(fs::exists(dir / "land.tif.aux.xml"));
+    EXPECT_EQ(rec.find("land.tif.aux.xml"), std::string::npos) << rec;
     // recheck verifies them and reproduces every line.
     ASSERT_EQ(run_cli({"recheck", (dir / "out").string()}, err), 0) << err;
 }
