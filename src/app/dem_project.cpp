@@ -3,6 +3,7 @@
 
 #include "catchpeak/app/delineate.hpp"
 #include "catchpeak/app/inputs.hpp"
+#include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
@@ -186,24 +187,6 @@ land::OverlaySettings overlay_settings(const Project &p) {
     return s;
 }
 
-/// A land-cover or soils layer in the DEM's CRS. A layer without a CRS is refused: C and CN of a
-/// catchment must not hang on a guess of where its polygons lie.
-io::VectorLayer read_land_layer(const InputPath &in, const std::string &key, const Project &p,
-                                const std::string &crs) {
-    std::vector<std::string> notes;
-    io::VectorLayer layer = io::read_vector_layer(in.resolved, crs, {}, &notes);
-    for (const auto &n : notes) {
-        if (n.find("has no coordinate reference system") != std::string::npos) {
-            throw_input_error(
-                fmt::format("{}:{}: [inputs] {} '{}'", p.file.string(), in.line, key, in.given),
-                "the layer has no coordinate reference system",
-                "a layer with its CRS (a GeoPackage, or a shapefile with its .prj); "
-                "it is reprojected to the DEM's CRS when it differs");
-        }
-    }
-    return layer;
-}
-
 void require_layers(const Project &p) {
     const std::string pf = p.file.string();
     if (!p.inputs.design_points) {
@@ -214,7 +197,7 @@ void require_layers(const Project &p) {
         throw_input_error(
             pf + (p.inputs.land_cover ? ": [inputs] soils" : ": [inputs] land_cover"),
             "is missing for a DEM project",
-            "a land-cover polygon layer ('land_cover') and a soils polygon layer ('soils'), "
+            "a land-cover layer or raster ('land_cover') and a soils layer or raster ('soils'), "
             "to weight C and CN over each catchment");
     }
 }
@@ -298,8 +281,10 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
     if (progress != nullptr) {
         *progress << "catchpeak: weighting land cover and soils\n";
     }
-    const io::VectorLayer land_cover = read_land_layer(*p.inputs.land_cover, "land_cover", p, crs);
-    const io::VectorLayer soils = read_land_layer(*p.inputs.soils, "soils", p, crs);
+    // Rasters of land cover or soils are read over the catchments' extent only.
+    const io::Extent window = extent_of(d.total_wkb);
+    const io::VectorLayer land_cover = read_land_input(p, LandInput::land_cover, crs, window);
+    const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, window);
     const land::LandOverlay overlay(land_cover, soils, project_tables(p), overlay_settings(p));
 
     DemPoints out;
@@ -391,6 +376,7 @@ void check_dem_inputs(const Project &p, Problems &problems) {
         return;
     }
     std::string crs;
+    io::Extent dem_extent;
     collect([&] {
         const io::Dem dem = io::read_dem(p.inputs.dem->resolved);
         crs = dem.elevation_m.crs_wkt;
@@ -401,6 +387,7 @@ void check_dem_inputs(const Project &p, Problems &problems) {
         const double max_y = t.origin_y;
         const double min_y =
             t.origin_y - static_cast<double>(dem.elevation_m.height()) * t.cell_dy();
+        dem_extent = {min_x, min_y, max_x, max_y};
         const io::DesignPointLayer pts =
             io::read_design_points(p.inputs.design_points->resolved, p.inputs.id_field, crs);
         for (const auto &pt : pts.points) {
@@ -420,9 +407,10 @@ void check_dem_inputs(const Project &p, Problems &problems) {
         return;
     }
     collect([&] {
+        // A raster is read over the DEM's extent and its codes checked, without polygons.
         const io::VectorLayer land_cover =
-            read_land_layer(*p.inputs.land_cover, "land_cover", p, crs);
-        const io::VectorLayer soils = read_land_layer(*p.inputs.soils, "soils", p, crs);
+            read_land_input(p, LandInput::land_cover, crs, dem_extent, false);
+        const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, dem_extent, false);
         const land::LandOverlay overlay(land_cover, soils, project_tables(p), overlay_settings(p));
         (void)overlay;
     });

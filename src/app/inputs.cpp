@@ -240,6 +240,8 @@ void check_project(const Project &p, Problems &problems) {
     check_file(p.inputs.catchment_table, pf, "[inputs] catchment_table", problems);
     check_file(p.inputs.land_cover, pf, "[inputs] land_cover", problems);
     check_file(p.inputs.soils, pf, "[inputs] soils", problems);
+    check_file(p.inputs.land_cover_codes, pf, "[inputs] land_cover_codes", problems);
+    check_file(p.inputs.soil_group_codes, pf, "[inputs] soil_group_codes", problems);
     check_file(p.inputs.breach_lines, pf, "[inputs] breach_lines", problems);
     check_file(p.inputs.c_table, pf, "[inputs] c_table", problems);
     check_file(p.inputs.cn_table, pf, "[inputs] cn_table", problems);

@@ -150,6 +150,15 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     add("design points", p.inputs.design_points);
     add("land cover", p.inputs.land_cover);
     add("soils", p.inputs.soils);
+    add("land cover codes", p.inputs.land_cover_codes);
+    add("soil group codes", p.inputs.soil_group_codes);
+    // A raster's category names and attribute table may live beside it (GDAL's .aux.xml).
+    for (const auto &[role, ip] : {std::pair{"land cover names", p.inputs.land_cover},
+                                   std::pair{"soils names", p.inputs.soils}}) {
+        if (ip && fs::exists(ip->resolved.string() + ".aux.xml")) {
+            add(role, InputPath{ip->given + ".aux.xml", ip->resolved.string() + ".aux.xml", 0});
+        }
+    }
     add("breach lines", p.inputs.breach_lines);
     add("C table", p.inputs.c_table);
     add("CN table", p.inputs.cn_table);

@@ -359,6 +359,8 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     in.class_field = t.text("class_field").value_or("class");
     in.soils = t.path("soils", dir);
     in.soil_group_field = t.text("soil_group_field").value_or("hsg");
+    in.land_cover_codes = t.path("land_cover_codes", dir);
+    in.soil_group_codes = t.path("soil_group_codes", dir);
     in.breach_lines = t.path("breach_lines", dir);
     in.c_table = t.path("c_table", dir);
     in.cn_table = t.path("cn_table", dir);

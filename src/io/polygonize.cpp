@@ -8,6 +8,7 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <limits>
 #include <map>
 #include <memory>
@@ -51,13 +52,9 @@ detail::GeometryPtr finish(std::unique_ptr<OGRMultiPolygon> multi) {
     return g;
 }
 
-} // namespace
-
-std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels) {
-    detail::ensure_gdal();
-    if (labels.empty()) {
-        return {};
-    }
+/// Cells per label (0 excluded). Throws InternalError for labels >= 2^31 (GDALPolygonize writes
+/// them to a 32-bit signed field).
+std::map<std::uint32_t, std::uint64_t> label_counts(const Grid<std::uint32_t> &labels) {
     std::map<std::uint32_t, std::uint64_t> counts;
     for (std::size_t i = 0; i < labels.size(); ++i) {
         if (labels[i] != 0) {
@@ -67,9 +64,12 @@ std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels) {
             ++counts[labels[i]];
         }
     }
-    if (counts.empty()) {
-        return {};
-    }
+    return counts;
+}
+
+/// GDALPolygonize of the labels (0 = none) on an in-memory copy: an in-memory dataset whose
+/// only layer holds one polygon per patch of 4-connected cells, with the label in field 0.
+detail::DatasetPtr polygonize_to_layer(const Grid<std::uint32_t> &labels) {
     GdalErrorScope errors;
     GDALDriver *mem = GetGDALDriverManager()->GetDriverByName("MEM");
     const int w = static_cast<int>(labels.width());
@@ -112,6 +112,22 @@ std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels) {
         throw InternalError(errors.describe("GDALPolygonize failed"));
     }
 
+    return vec;
+}
+
+} // namespace
+
+std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels) {
+    detail::ensure_gdal();
+    if (labels.empty()) {
+        return {};
+    }
+    auto counts = label_counts(labels);
+    if (counts.empty()) {
+        return {};
+    }
+    auto vec = polygonize_to_layer(labels);
+    OGRLayer *layer = vec->GetLayer(0);
     std::map<std::uint32_t, std::unique_ptr<OGRMultiPolygon>> parts;
     layer->ResetReading();
     for (auto &f : *layer) {
@@ -143,6 +159,46 @@ std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels) {
     if (out.size() != counts.size()) {
         throw InternalError("polygonize lost a label");
     }
+    return out;
+}
+
+std::vector<LabelPatch> polygonize_patches(const Grid<std::uint32_t> &labels) {
+    detail::ensure_gdal();
+    if (labels.empty() || label_counts(labels).empty()) {
+        return {};
+    }
+    auto vec = polygonize_to_layer(labels);
+    OGRLayer *layer = vec->GetLayer(0);
+    std::vector<LabelPatch> out;
+    GdalErrorScope errors;
+    layer->ResetReading();
+    for (auto &f : *layer) {
+        const auto label = static_cast<std::uint32_t>(f->GetFieldAsInteger(0));
+        OGRGeometry *g = f->GetGeometryRef();
+        if (g == nullptr || wkbFlatten(g->getGeometryType()) != wkbPolygon) {
+            continue;
+        }
+        if (g->IsValid()) {
+            out.push_back({label, detail::to_iso_wkb(*g)});
+            continue;
+        }
+        detail::GeometryPtr fixed(g->MakeValid());
+        if (!fixed) {
+            throw InternalError(errors.describe("cannot make a polygon valid"));
+        }
+        const auto type = wkbFlatten(fixed->getGeometryType());
+        if (type == wkbPolygon) {
+            out.push_back({label, detail::to_iso_wkb(*fixed)});
+        } else if (type == wkbMultiPolygon || type == wkbGeometryCollection) {
+            for (auto *part : *fixed->toGeometryCollection()) {
+                if (wkbFlatten(part->getGeometryType()) == wkbPolygon) {
+                    out.push_back({label, detail::to_iso_wkb(*part)});
+                }
+            }
+        }
+    }
+    std::stable_sort(out.begin(), out.end(),
+                     [](const LabelPatch &a, const LabelPatch &b) { return a.label < b.label; });
     return out;
 }
 

@@ -35,7 +35,8 @@ struct LayerFeature {
 
 struct Layer {
     std::string source;
-    std::string kind; ///< "land-cover layer" or "soils layer"
+    std::string kind;         ///< "land-cover layer" or "soils layer"
+    std::string feature_noun; ///< "feature", or "code" for a layer made from a raster
     std::vector<LayerFeature> features;
     std::unique_ptr<geos::StrTree> tree;
 };
@@ -167,10 +168,11 @@ struct LandOverlay::Impl {
     void load(Layer &layer, const io::VectorLayer &in, const std::string &field, bool is_soil) {
         layer.source = in.source;
         layer.kind = is_soil ? "soils layer" : "land-cover layer";
+        layer.feature_noun = in.feature_noun;
         const geos::WkbReader reader(ctx);
         layer.features.reserve(in.features.size());
         for (const auto &f : in.features) {
-            const std::string where = fmt::format("{}: feature {}", in.source, f.fid);
+            const std::string where = fmt::format("{}: {} {}", in.source, in.feature_noun, f.fid);
             LayerFeature lf;
             lf.fid = f.fid;
             const auto attr = f.attributes.find(field);
@@ -584,8 +586,9 @@ CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wk
         const SoilGroup g = key.second;
         const auto missing = [&](const TableInfo &info, std::string_view kind) {
             const std::string from =
-                sum.first_fid < 0 ? "the default class of the project settings"
-                                  : fmt::format("{}, feature {}", im.land.source, sum.first_fid);
+                sum.first_fid < 0
+                    ? "the default class of the project settings"
+                    : fmt::format("{}, {} {}", im.land.source, im.land.feature_noun, sum.first_fid);
             throw_input_error(info.name,
                               fmt::format("land-cover class '{}' ({}, in catchment '{}') is not "
                                           "in this {} table",

@@ -118,3 +118,53 @@ TEST(PolygonizeLabels, EmptyGridGivesNothing) {
     Grid<std::uint32_t> g(3, 3, 0);
     EXPECT_TRUE(io::polygonize_labels(g).empty());
 }
+
+TEST(PolygonizePatches, OnePolygonPerPatchOfFourConnectedCells) {
+    // Label 1 in two patches that touch at a corner, label 2 in one patch:
+    //   1 2
+    //   2 1
+    Grid<std::uint32_t> g(2, 2, 0);
+    g.transform = {0.0, 1.0, 0.0, 2.0, 0.0, -1.0};
+    g(0, 0) = 1;
+    g(1, 1) = 1;
+    g(1, 0) = 2;
+    g(0, 1) = 2;
+    const auto patches = io::polygonize_patches(g);
+    ASSERT_EQ(patches.size(), 4u);
+    double area = 0.0;
+    for (const auto &p : patches) {
+        EXPECT_NEAR(io::polygon_area(p.wkb), 1.0, 1e-12); // one cell each, exact
+        area += io::polygon_area(p.wkb);
+    }
+    EXPECT_EQ(patches[0].label, 1u);
+    EXPECT_EQ(patches[1].label, 1u);
+    EXPECT_EQ(patches[2].label, 2u);
+    EXPECT_NEAR(area, 4.0, 1e-12);
+}
+
+TEST(PolygonizePatches, PatchAreasOfEveryLabelAddUpToItsCells) {
+    // A random grid of 3 labels and holes (0): the patches of a label cover its cells exactly
+    // (cell edges; 1e-9 relative for the rounding of the areas).
+    std::mt19937 rng(7);
+    std::uniform_int_distribution<std::uint32_t> pick(0, 3);
+    Grid<std::uint32_t> g(40, 30, 0);
+    g.transform = {1000.0, 2.0, 0.0, 5000.0, 0.0, -2.0};
+    std::map<std::uint32_t, double> cells_m2;
+    for (std::size_t i = 0; i < g.size(); ++i) {
+        g[i] = pick(rng);
+        if (g[i] != 0) {
+            cells_m2[g[i]] += 4.0;
+        }
+    }
+    std::map<std::uint32_t, double> patches_m2;
+    std::uint32_t last = 0;
+    for (const auto &p : io::polygonize_patches(g)) {
+        EXPECT_GE(p.label, last); // ascending by label
+        last = p.label;
+        patches_m2[p.label] += io::polygon_area(p.wkb);
+    }
+    ASSERT_EQ(patches_m2.size(), cells_m2.size());
+    for (const auto &[label, m2] : cells_m2) {
+        EXPECT_NEAR(patches_m2[label], m2, m2 * 1e-9) << "label " << label;
+    }
+}

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // TR-55 (USDA SCS 1986, Urban Hydrology for Small Watersheds, 2nd ed.) Examples 2-1 and 2-2,
-// rebuilt as polygons and weighted with the shipped tables (config/land/).
+// rebuilt as polygons (and as rasters of class codes, below) and weighted with the shipped
+// tables (config/land/).
 //
 // Problem statement (REFERENCES.md section 8, checked secondary): a 250 acre watershed,
 // 70 % hydrologic soil group C (175 ac) and 30 % group B (75 ac).
@@ -10,14 +11,17 @@
 // The printed answers (70 and 75) are value from memory, not checked against the source; the
 // unrounded values are computed from TR-55's area weighting with the CNs of Tables 2-2a and
 // 2-2c (checked secondary).
+#include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/land/overlay.hpp"
+#include "io/class_raster_data.hpp"
 #include "support/test_env.hpp"
 #include "support/wkb.hpp"
 
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <fstream>
 #include <string>
 
 using namespace catchpeak::land;
@@ -104,4 +108,86 @@ TEST(Tr55Example2_2, DevelopedCompositeCn75) {
     EXPECT_EQ(std::lround(r.weighting.cn_weighted), 75);
     // Impervious share, computed from TR-55 Table 2-2a: 25 % on 175 ac of 250 ac = 17.5 %.
     EXPECT_NEAR(r.weighting.impervious_share, 0.175, 0.175 * overlay_rounding);
+}
+
+// The same two examples with land cover and soils given as rasters of class codes (10 x 10
+// cells of 100 m x 101.2 m, so that the 75 ac and 175 ac strips end on cell edges), read and
+// polygonized as `run` does: the composite CNs are those of the polygons above.
+namespace {
+
+namespace t = catchpeak::test;
+using catchpeak::app::InputPath;
+using catchpeak::app::LandInput;
+
+constexpr double x0 = 500000.0;
+constexpr double y0 = 4000000.0;
+
+t::ClassRasterSpec tr55_raster(const std::vector<double> &codes,
+                               std::vector<std::string> categories) {
+    t::ClassRasterSpec s;
+    s.width = 10;
+    s.height = 10;
+    s.gt = {x0, width_m / 10.0, 0.0, y0 + height_m, 0.0, -height_m / 10.0};
+    s.crs_wkt = t::crs_wkt("EPSG:32633");
+    s.codes = codes;
+    s.categories = std::move(categories);
+    return s;
+}
+
+CatchmentLand weigh_rasters(const std::string &name, const std::vector<double> &land_codes) {
+    const auto dir = t::scratch_dir(name);
+    // Land cover named by a code table, soils by the raster's category names.
+    t::make_class_raster(dir / "land.tif", tr55_raster(land_codes, {}));
+    std::ofstream(dir / "codes.csv")
+        << "code,class\n1,pasture_good\n2,residential_1_2_ac\n3,open_space_good\n";
+    // Soils: group B on columns 0..2 (x < 300 m, 75 ac), C on columns 3..9 (175 ac).
+    t::make_class_raster(
+        dir / "soils.tif",
+        tr55_raster(t::codes_of(10, 10, [](int col, int) { return col < 3 ? 2 : 3; }),
+                    {"", "A", "B", "C", "D"}));
+    catchpeak::app::Project p;
+    p.file = dir / "project.toml";
+    p.inputs.land_cover = InputPath{"land.tif", dir / "land.tif", 1};
+    p.inputs.land_cover_codes = InputPath{"codes.csv", dir / "codes.csv", 2};
+    p.inputs.soils = InputPath{"soils.tif", dir / "soils.tif", 3};
+    const std::string crs = t::crs_wkt("EPSG:32633");
+    const auto watershed = rect_wkb(x0, y0, x0 + width_m, y0 + height_m);
+    const auto window = catchpeak::app::extent_of({watershed});
+    const LandOverlay overlay(
+        catchpeak::app::read_land_input(p, LandInput::land_cover, crs, window),
+        catchpeak::app::read_land_input(p, LandInput::soils, crs, window),
+        read_default_land_tables(t::config_dir()), OverlaySettings{});
+    return overlay.weight(watershed, name, 0.02);
+}
+
+} // namespace
+
+TEST(Tr55Example2_1, AsRastersCompositeCn70) {
+    const auto r = weigh_rasters("tr55_2_1_raster", std::vector<double>(100, 1.0));
+    ASSERT_EQ(r.weighting.parts.size(), 2u);
+    EXPECT_NEAR(units::m2_to_acre(part(r, "pasture_good", "B")->area_m2), 75.0,
+                75.0 * overlay_rounding);
+    EXPECT_NEAR(units::m2_to_acre(part(r, "pasture_good", "C")->area_m2), 175.0,
+                175.0 * overlay_rounding);
+    // Computed: (61 x 75 + 74 x 175) / 250 = 70.1 (TR-55 Table 2-2c CNs).
+    EXPECT_NEAR(r.weighting.cn_weighted, 70.1, 70.1 * overlay_rounding);
+    // TR-55 Ex. 2-1: CN 70 (value from memory, not checked against the source).
+    EXPECT_EQ(std::lround(r.weighting.cn_weighted), 70);
+}
+
+TEST(Tr55Example2_2, AsRastersCompositeCn75) {
+    // 1/2 acre residential on columns 0..6 (x < 700 m, 175 ac), open space on columns 7..9.
+    const auto r = weigh_rasters("tr55_2_2_raster",
+                                 t::codes_of(10, 10, [](int col, int) { return col < 7 ? 2 : 3; }));
+    ASSERT_EQ(r.weighting.parts.size(), 3u);
+    EXPECT_NEAR(units::m2_to_acre(part(r, "residential_1_2_ac", "B")->area_m2), 75.0,
+                75.0 * overlay_rounding);
+    EXPECT_NEAR(units::m2_to_acre(part(r, "residential_1_2_ac", "C")->area_m2), 100.0,
+                100.0 * overlay_rounding);
+    EXPECT_NEAR(units::m2_to_acre(part(r, "open_space_good", "C")->area_m2), 75.0,
+                75.0 * overlay_rounding);
+    // Computed: (70 x 75 + 80 x 100 + 74 x 75) / 250 = 75.2 (TR-55 Table 2-2a CNs).
+    EXPECT_NEAR(r.weighting.cn_weighted, 75.2, 75.2 * overlay_rounding);
+    // TR-55 Ex. 2-2: CN 75 (value from memory, not checked against the source).
+    EXPECT_EQ(std::lround(r.weighting.cn_weighted), 75);
 }

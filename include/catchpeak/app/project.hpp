@@ -33,6 +33,10 @@ struct Inputs {
     std::string class_field = "class";
     std::optional<InputPath> soils;
     std::string soil_group_field = "hsg";
+    /// Code tables (CSV: code,class and code,soil_group) for land cover and soils given as
+    /// rasters of codes; empty: the raster's own category names or attribute table.
+    std::optional<InputPath> land_cover_codes;
+    std::optional<InputPath> soil_group_codes;
     std::optional<InputPath> breach_lines;
     std::optional<InputPath> c_table;  ///< empty: the table shipped in config/
     std::optional<InputPath> cn_table; ///< empty: the table shipped in config/

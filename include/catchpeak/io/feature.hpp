@@ -21,6 +21,9 @@ struct VectorLayer {
     std::string source;  ///< "<file>" or "<file>, layer '<name>'", for messages
     std::string crs_wkt; ///< CRS of the geometries (after any reprojection)
     std::vector<VectorFeature> features;
+    /// What a feature id names in messages: "feature" for a vector layer, "code" for polygons
+    /// made from a raster of class codes (their id is the code).
+    std::string feature_noun = "feature";
 };
 
 } // namespace catchpeak::io

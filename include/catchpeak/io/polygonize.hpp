@@ -27,6 +27,18 @@ struct LabelPolygon {
 /// them to a 32-bit signed field).
 [[nodiscard]] std::vector<LabelPolygon> polygonize_labels(const Grid<std::uint32_t> &labels);
 
+/// One patch of 4-connected cells of a label, as a polygon.
+struct LabelPatch {
+    std::uint32_t label = 0;
+    std::vector<unsigned char> wkb; ///< Polygon (with its holes), ISO WKB, valid, grid CRS
+};
+
+/// The labels of a grid (0 = no label) as one polygon per patch of 4-connected cells, ascending
+/// by label (GDALPolygonize, as polygonize_labels, without merging the patches of a label: a
+/// spatial index then sees small pieces). A patch whose polygon is invalid (a hole touching its
+/// shell) is repaired with MakeValid and may give several polygons.
+[[nodiscard]] std::vector<LabelPatch> polygonize_patches(const Grid<std::uint32_t> &labels);
+
 /// The union of polygons given as WKB (GEOS through OGR), made valid; ISO WKB. Used to build a
 /// total catchment from the local catchments it contains. An empty list gives an empty
 /// MultiPolygon.

@@ -1,0 +1,45 @@
+// SPDX-License-Identifier: MIT
+#pragma once
+
+#include "catchpeak/app/project.hpp"
+#include "catchpeak/io/class_raster.hpp"
+#include "catchpeak/io/feature.hpp"
+
+#include <cstdint>
+#include <map>
+#include <string>
+#include <vector>
+
+/// The land-cover and soils inputs of a DEM project, polygon layers or rasters of class codes,
+/// as the land overlay takes them.
+namespace catchpeak::app {
+
+enum class LandInput { land_cover, soils };
+
+/// The box around polygons given as ISO WKB (the catchments); all zero for none.
+[[nodiscard]] io::Extent extent_of(const std::vector<std::vector<unsigned char>> &polygons);
+
+/// A code table of the project (`land_cover_codes`, `soil_group_codes`): a CSV with columns
+/// `code` (an integer) and `name_column` ("class" or "soil_group"). Throws InputError naming the
+/// file and line for a code that is not an integer, a code listed twice or an empty name.
+[[nodiscard]] std::map<std::int64_t, std::string> read_code_table(const InputPath &table,
+                                                                  const std::string &name_column);
+
+/// Reads the land-cover or soils input of a project, in the DEM's CRS `crs_wkt`.
+///
+/// - A vector layer is read whole; a layer without CRS is refused. A code table given for a
+///   vector layer is refused (it would not be used).
+/// - A raster of class codes is read over `window` (the catchments' extent; a margin is added),
+///   reprojected by nearest neighbour when its CRS differs, its codes named by the project's
+///   code table when there is one, else by the raster's attribute table or category names,
+///   and (when `polygons`) turned into one polygon per patch of cells of a code, carrying the
+///   name in the class field (or soil group field). The layer's source states the cell size
+///   and where the names come from; its features' ids are the codes. Nodata cells are not
+///   covered. Refused: a raster without CRS, a code in the window that the names do not
+///   cover (naming the code, the raster and the table), a raster with neither a code table
+///   nor names of its own, and (soils) a name that is not a hydrologic soil group.
+[[nodiscard]] io::VectorLayer read_land_input(const Project &project, LandInput which,
+                                              const std::string &crs_wkt, const io::Extent &window,
+                                              bool polygons = true);
+
+} // namespace catchpeak::app

@@ -1,0 +1,202 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/land_inputs.hpp"
+
+#include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/io/csv.hpp"
+#include "catchpeak/io/polygonize.hpp"
+#include "catchpeak/io/vector.hpp"
+#include "catchpeak/io/wkb_rings.hpp"
+#include "catchpeak/land/tables.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace catchpeak::app {
+
+namespace {
+
+/// What differs between the land-cover input and the soils input.
+struct Kind {
+    const InputPath &input;
+    const std::optional<InputPath> &codes;
+    std::string key;         ///< "land_cover" or "soils"
+    std::string codes_key;   ///< "land_cover_codes" or "soil_group_codes"
+    std::string field;       ///< the class or soil group field of the polygons
+    std::string name_column; ///< column of the code table: "class" or "soil_group"
+    std::string names;       ///< "classes" or "soil groups"
+};
+
+Kind kind_of(const Project &p, LandInput which) {
+    if (which == LandInput::soils) {
+        return {*p.inputs.soils,    p.inputs.soil_group_codes, "soils",
+                "soil_group_codes", p.inputs.soil_group_field, "soil_group",
+                "soil groups"};
+    }
+    return {*p.inputs.land_cover,
+            p.inputs.land_cover_codes,
+            "land_cover",
+            "land_cover_codes",
+            p.inputs.class_field,
+            "class",
+            "classes"};
+}
+
+/// "10.00 x 10.00 m" (or "0.0001000 x 0.0001000 degree"): 4 significant figures, as the sheet.
+std::string cells(double x, double y, const std::string &unit) {
+    const std::string u = unit == "metre" || unit == "meter" ? "m" : unit;
+    return fmt::format("{} x {} {}", sig(x), sig(y), u);
+}
+
+/// A polygon layer in the DEM's CRS. A layer without a CRS is refused: C and CN of a catchment
+/// must not hang on a guess of where its polygons lie.
+io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::string &crs) {
+    const std::string where =
+        fmt::format("{}:{}: [inputs] {} '{}'", p.file.string(), k.input.line, k.key, k.input.given);
+    if (k.codes) {
+        throw_input_error(
+            fmt::format("{}:{}: [inputs] {}", p.file.string(), k.codes->line, k.codes_key),
+            fmt::format("'{}' is a vector layer, whose polygons carry their {} in field '{}'; a "
+                        "code table applies to a raster of codes only",
+                        k.input.given, k.names, k.field),
+            fmt::format("no '{}' for a polygon layer, or a raster of codes in '{}'", k.codes_key,
+                        k.key));
+    }
+    std::vector<std::string> notes;
+    io::VectorLayer layer = io::read_vector_layer(k.input.resolved, crs, {}, &notes);
+    for (const auto &n : notes) {
+        if (n.find("has no coordinate reference system") != std::string::npos) {
+            throw_input_error(where, "the layer has no coordinate reference system",
+                              "a layer with its CRS (a GeoPackage, or a shapefile with its .prj); "
+                              "it is reprojected to the DEM's CRS when it differs");
+        }
+    }
+    return layer;
+}
+
+} // namespace
+
+io::Extent extent_of(const std::vector<std::vector<unsigned char>> &polygons) {
+    constexpr double inf = std::numeric_limits<double>::infinity();
+    io::Extent e{inf, inf, -inf, -inf};
+    for (const auto &wkb : polygons) {
+        for (const auto &poly : io::wkb_polygon_rings(wkb)) {
+            for (const auto &[x, y] : poly.front()) {
+                e.min_x = std::min(e.min_x, x);
+                e.min_y = std::min(e.min_y, y);
+                e.max_x = std::max(e.max_x, x);
+                e.max_y = std::max(e.max_y, y);
+            }
+        }
+    }
+    return e.min_x <= e.max_x ? e : io::Extent{};
+}
+
+std::map<std::int64_t, std::string> read_code_table(const InputPath &table,
+                                                    const std::string &name_column) {
+    const io::CsvTable t = io::read_csv(table.resolved);
+    const std::size_t code_col = t.column("code");
+    const std::size_t name_col = t.column(name_column);
+    std::map<std::int64_t, std::string> names;
+    std::map<std::int64_t, std::size_t> line_of;
+    for (const auto &row : t.rows) {
+        const double v = t.number(row, code_col);
+        if (v != std::floor(v) || std::abs(v) > 9007199254740992.0) {
+            throw_input_error(t.where(row, code_col),
+                              fmt::format("'{}' is not an integer code", t.text(row, code_col)),
+                              "the integer codes of the raster");
+        }
+        const auto code = static_cast<std::int64_t>(v);
+        const std::string &name = t.text(row, name_col);
+        if (name.empty()) {
+            throw_input_error(t.where(row, name_col), fmt::format("code {} has no name", code),
+                              fmt::format("a {} for every code", name_column));
+        }
+        if (const auto it = line_of.find(code); it != line_of.end()) {
+            throw_input_error(t.where(row, code_col),
+                              fmt::format("code {} is listed twice (lines {} and {})", code,
+                                          it->second, row.line),
+                              "each code once");
+        }
+        line_of.emplace(code, row.line);
+        names.emplace(code, name);
+    }
+    return names;
+}
+
+io::VectorLayer read_land_input(const Project &p, LandInput which, const std::string &crs_wkt,
+                                const io::Extent &window, bool polygons) {
+    const Kind k = kind_of(p, which);
+    if (io::data_kind(k.input.resolved) == io::DataKind::vector) {
+        return read_vector_input(p, k, crs_wkt);
+    }
+    const io::ClassRaster r = io::read_class_raster(k.input.resolved, crs_wkt, window, k.field);
+
+    // Names of the codes: the project's table when it gives one, else the raster's own.
+    std::map<std::int64_t, std::string> names;
+    std::string names_from;
+    if (k.codes) {
+        names = read_code_table(*k.codes, k.name_column);
+        names_from = fmt::format("the code table '{}' ([inputs] {})", k.codes->given, k.codes_key);
+    } else if (!r.names_from.empty()) {
+        names = r.names;
+        names_from = r.names_from;
+    } else {
+        throw_input_error(
+            r.source,
+            fmt::format("is a raster of codes ([inputs] {}) without category names or an "
+                        "attribute table that names them, and the project gives no code table",
+                        k.key),
+            fmt::format("'{}' in [inputs]: a CSV with columns code,{}, one row per code; or a "
+                        "raster whose attribute table has a column '{}' or a name column, or "
+                        "that has category names",
+                        k.codes_key, k.name_column, k.field));
+    }
+    for (std::size_t i = 0; i < r.codes.size(); ++i) {
+        const std::int64_t code = r.codes[i];
+        const auto it = names.find(code);
+        const std::string what =
+            fmt::format("code {} ({} cells within the catchments' extent)", code, r.cell_counts[i]);
+        if (it == names.end()) {
+            throw_input_error(r.source, fmt::format("{} is not named by {}", what, names_from),
+                              fmt::format("a name for every code of the raster{}",
+                                          k.codes ? fmt::format(" (a row code,{} in '{}')",
+                                                                k.name_column, k.codes->given)
+                                                  : std::string()));
+        }
+        if (which == LandInput::soils) {
+            (void)land::read_soil_group(
+                it->second, p.settings.dual_soil_group == "drained",
+                fmt::format("{}: {}, named '{}' by {}", r.source, what, it->second, names_from));
+        }
+    }
+
+    io::VectorLayer layer;
+    layer.crs_wkt = crs_wkt;
+    layer.feature_noun = "code";
+    const std::string size = cells(r.cell_x_m, r.cell_y_m, "metre");
+    layer.source =
+        r.reprojected
+            ? fmt::format("{} (raster of {} cells in {}, reprojected to {} cells in the DEM's "
+                          "CRS by nearest neighbour; codes to {} by {})",
+                          r.source, cells(r.file_cell_x, r.file_cell_y, r.file_unit),
+                          r.file_crs_name, size, k.names, names_from)
+            : fmt::format("{} (raster of {} cells; codes to {} by {})", r.source, size, k.names,
+                          names_from);
+    if (polygons) {
+        for (auto &patch : io::polygonize_patches(r.labels)) {
+            const std::int64_t code = r.codes[patch.label - 1];
+            io::VectorFeature f;
+            f.fid = code;
+            f.wkb = std::move(patch.wkb);
+            f.attributes.emplace(k.field, names.at(code));
+            layer.features.push_back(std::move(f));
+        }
+    }
+    return layer;
+}
+
+} // namespace catchpeak::app
