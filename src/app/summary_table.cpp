@@ -4,6 +4,7 @@
 
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/units.hpp"
+#include "catchpeak/report/sheet_units.hpp"
 
 #include <fmt/format.h>
 
@@ -27,20 +28,6 @@ std::string short_method(const std::string &m) {
     }
     if (m == "scs_unit_hydrograph") {
         return "SCS UH";
-    }
-    return m;
-}
-
-/// Method name for a sentence.
-std::string long_method(const std::string &m) {
-    if (m == "rational") {
-        return "the Rational Method";
-    }
-    if (m == "tr55_graphical") {
-        return "the TR-55 graphical peak discharge method";
-    }
-    if (m == "scs_unit_hydrograph") {
-        return "the SCS unit hydrograph";
     }
     return m;
 }
@@ -109,7 +96,8 @@ std::string summary_table(const report::RunResults &r) {
             s += fmt::format("  {}\n", dp.lines.warning_count());
         }
         s += fmt::format("QT: peak flow of return period T years by {}; {}",
-                         methods.empty() ? "no method" : long_method(methods[0]), warnings_note);
+                         methods.empty() ? "no method" : "the " + report::method_title(methods[0]),
+                         warnings_note);
         return s;
     }
     // Several methods: a row per point and return period, a column per method, so that the

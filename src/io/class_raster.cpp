@@ -2,6 +2,7 @@
 #include "catchpeak/io/class_raster.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/io/csv.hpp"
 #include "gdal_handles.hpp"
 
 #include <gdal_alg.h>
@@ -26,21 +27,6 @@ constexpr const char *accepted_raster =
 
 /// Codes beyond this magnitude are not exact in a double (2^53).
 constexpr double max_exact_code = 9007199254740992.0;
-
-std::string lower(std::string s) {
-    std::transform(s.begin(), s.end(), s.begin(),
-                   [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
-    return s;
-}
-
-std::string trim(const std::string &s) {
-    const auto b = s.find_first_not_of(" \t\r\n");
-    if (b == std::string::npos) {
-        return {};
-    }
-    const auto e = s.find_last_not_of(" \t\r\n");
-    return s.substr(b, e - b + 1);
-}
 
 /// The cells of the window as read: values and validity, row-major, with their transform.
 struct Cells {
@@ -184,7 +170,8 @@ void read_names(GDALRasterBand &band, const std::string &name_column, ClassRaste
     if (GDALRasterAttributeTable *rat = band.GetDefaultRAT(); rat != nullptr) {
         int col = -1;
         for (int i = 0; i < rat->GetColumnCount() && col < 0; ++i) {
-            if (!name_column.empty() && lower(rat->GetNameOfCol(i)) == lower(name_column)) {
+            if (!name_column.empty() &&
+                ascii_lower(rat->GetNameOfCol(i)) == ascii_lower(name_column)) {
                 col = i;
             }
         }
@@ -199,7 +186,7 @@ void read_names(GDALRasterBand &band, const std::string &name_column, ClassRaste
             for (const auto code : out.codes) {
                 const int row = rat->GetRowOfValue(static_cast<double>(code));
                 if (row >= 0) {
-                    std::string name = trim(rat->GetValueAsString(row, col));
+                    std::string name(trim(rat->GetValueAsString(row, col)));
                     if (!name.empty()) {
                         out.names.emplace(code, std::move(name));
                     }
@@ -220,7 +207,7 @@ void read_names(GDALRasterBand &band, const std::string &name_column, ClassRaste
     out.names_from = "its category names";
     for (const auto code : out.codes) {
         if (code >= 0 && code < count) {
-            std::string name = trim(categories[code]);
+            std::string name(trim(categories[code]));
             if (!name.empty()) {
                 out.names.emplace(code, std::move(name));
             }

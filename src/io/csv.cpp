@@ -14,15 +14,6 @@ namespace catchpeak::io {
 
 namespace {
 
-std::string_view trim(std::string_view s) {
-    const auto first = s.find_first_not_of(" \t\r");
-    if (first == std::string_view::npos) {
-        return {};
-    }
-    const auto last = s.find_last_not_of(" \t\r");
-    return s.substr(first, last - first + 1);
-}
-
 /// Splits one record. `line_no` is for messages.
 std::vector<std::string> split_record(std::string_view line, const std::string &source,
                                       std::size_t line_no) {
@@ -151,6 +142,26 @@ CsvTable parse_csv(std::string_view text, std::string source) {
                           "a first line naming the columns, separated by commas");
     }
     return table;
+}
+
+std::string_view trim(std::string_view text) noexcept {
+    constexpr std::string_view blanks = " \t\r\n";
+    const auto first = text.find_first_not_of(blanks);
+    if (first == std::string_view::npos) {
+        return {};
+    }
+    const auto last = text.find_last_not_of(blanks);
+    return text.substr(first, last - first + 1);
+}
+
+std::string ascii_lower(std::string_view text) {
+    std::string out(text);
+    for (char &c : out) {
+        if (c >= 'A' && c <= 'Z') {
+            c = static_cast<char>(c - 'A' + 'a');
+        }
+    }
+    return out;
 }
 
 CsvTable read_csv(const std::filesystem::path &path) {

@@ -3,6 +3,7 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/io/csv.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>
@@ -24,15 +25,9 @@ constexpr double us_survey_foot_m = 1200.0 / 3937.0; // exact by definition (189
 
 bool same_factor(double a, double b) { return std::abs(a - b) <= 1e-9 * b; }
 
-std::string lower(std::string s) {
-    std::transform(s.begin(), s.end(), s.begin(),
-                   [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
-    return s;
-}
-
 /// Metres per unit of an elevation unit name as GDAL files state them; nullopt if unknown.
 std::optional<std::pair<std::string, double>> vertical_unit_of(const std::string &name) {
-    const std::string n = lower(name);
+    const std::string n = ascii_lower(name);
     if (n == "m" || n == "metre" || n == "meter" || n == "metres" || n == "meters") {
         return std::pair<std::string, double>{"metre", 1.0};
     }

@@ -2,6 +2,7 @@
 #include "catchpeak/io/vector.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/io/csv.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>
@@ -15,15 +16,6 @@ namespace catchpeak::io {
 namespace {
 
 using detail::GdalErrorScope;
-
-std::string trim(const std::string &s) {
-    const auto b = s.find_first_not_of(" \t\r\n");
-    if (b == std::string::npos) {
-        return {};
-    }
-    const auto e = s.find_last_not_of(" \t\r\n");
-    return s.substr(b, e - b + 1);
-}
 
 /// A layer opened for reading, with the transformation to the target CRS (if any).
 struct OpenLayer {
@@ -145,7 +137,7 @@ std::string text_of(OGRFeature &f, int index) {
     if (!f.IsFieldSetAndNotNull(index)) {
         return {};
     }
-    return trim(f.GetFieldAsString(index));
+    return std::string(trim(f.GetFieldAsString(index)));
 }
 
 std::string feature_where(const std::string &source, std::int64_t fid) {

@@ -65,3 +65,17 @@ TEST(Csv, MissingFileIsBadInput) {
         [] { (void)catchpeak::io::read_csv("/nonexistent/idf.csv"); });
     EXPECT_NE(msg.find("/nonexistent/idf.csv"), std::string::npos) << msg;
 }
+
+TEST(Text, TrimRemovesBlanksAtBothEndsOnly) {
+    using catchpeak::io::trim;
+    EXPECT_EQ(trim("  a b\t\r\n"), "a b");
+    EXPECT_EQ(trim("\n\t "), "");
+    EXPECT_EQ(trim(""), "");
+    EXPECT_EQ(trim("x"), "x");
+}
+
+TEST(Text, AsciiLowerChangesOnlyAsciiLetters) {
+    using catchpeak::io::ascii_lower;
+    EXPECT_EQ(ascii_lower("US Survey Foot"), "us survey foot");
+    EXPECT_EQ(ascii_lower("A/D-1 \xC3\x89"), "a/d-1 \xC3\x89"); // UTF-8 bytes kept as they are
+}

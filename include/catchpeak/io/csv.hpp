@@ -53,6 +53,12 @@ struct CsvTable {
 /// Reads and parses a CSV file. Throws InputError when it cannot be read.
 [[nodiscard]] CsvTable read_csv(const std::filesystem::path &path);
 
+/// `text` without leading and trailing blanks (spaces, tabs, carriage returns, line feeds).
+[[nodiscard]] std::string_view trim(std::string_view text) noexcept;
+
+/// `text` with its ASCII letters in lower case (locale-independent; other bytes unchanged).
+[[nodiscard]] std::string ascii_lower(std::string_view text);
+
 /// Parses a decimal number with std::from_chars (locale-independent). The whole text (after
 /// trimming blanks) must be the number. Throws InputError "<where>: '<text>' is not a number".
 [[nodiscard]] double parse_number(std::string_view text, std::string_view where);
