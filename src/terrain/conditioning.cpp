@@ -7,12 +7,10 @@
 
 #include <algorithm>
 #include <array>
+#include <bit>
 #include <cmath>
 #include <cstddef>
-#include <deque>
-#include <functional>
 #include <limits>
-#include <queue>
 
 namespace catchpeak::terrain {
 
@@ -32,17 +30,99 @@ inline std::size_t neighbour(std::size_t w, std::size_t h, std::size_t c, std::s
     return static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
 }
 
-template <typename Index> struct QueueItem {
-    float z;
-    Index i;
-};
-template <typename Index> struct HigherFirst {
-    bool operator()(const QueueItem<Index> &a, const QueueItem<Index> &b) const noexcept {
-        return a.z > b.z || (a.z == b.z && a.i > b.i);
+/// First-in first-out queue in a ring buffer that doubles when full: its memory follows the
+/// longest queue at any moment, not the number of cells that pass through it.
+template <typename T> class Fifo {
+  public:
+    [[nodiscard]] bool empty() const noexcept { return size_ == 0; }
+    void push(T v) {
+        if (size_ == buf_.size()) {
+            grow();
+        }
+        buf_[(head_ + size_) & (buf_.size() - 1)] = v;
+        ++size_;
     }
+    T pop() noexcept {
+        const T v = buf_[head_];
+        head_ = (head_ + 1) & (buf_.size() - 1);
+        --size_;
+        return v;
+    }
+
+  private:
+    void grow() {
+        std::vector<T> bigger(std::max<std::size_t>(1024, buf_.size() * 2));
+        for (std::size_t k = 0; k < size_; ++k) {
+            bigger[k] = buf_[(head_ + k) & (buf_.size() - 1)];
+        }
+        buf_.swap(bigger);
+        head_ = 0;
+    }
+    std::vector<T> buf_;
+    std::size_t head_ = 0;
+    std::size_t size_ = 0;
 };
 
-/// Priority-Flood with two plain FIFO queues beside the priority queue:
+/// Key of an elevation whose unsigned order is the order of the floats (for non-NaN values).
+inline std::uint32_t ordered_key(float z) noexcept {
+    const auto u = std::bit_cast<std::uint32_t>(z);
+    return (u & 0x80000000U) != 0 ? ~u : (u | 0x80000000U);
+}
+
+/// Monotone priority queue of cells by elevation (a radix heap, Ahuja, Mehlhorn, Orlin and
+/// Tarjan 1990): it pops the lowest key, and no key pushed is below the last key popped, which
+/// holds in Priority-Flood (a cell waits in the queue at its own, final, level). Bucket b holds
+/// the keys that first differ from the last popped key at bit b - 1, so a pop moves each item
+/// at most 32 times. Cells of equal elevation come out in no set order; the filled elevations
+/// do not depend on it.
+template <typename Index> class RadixHeap {
+  public:
+    struct Item {
+        std::uint32_t key;
+        Index cell;
+    };
+    [[nodiscard]] bool empty() const noexcept { return size_ == 0; }
+    void push(std::uint32_t key, Index cell) {
+        if (key < last_) {
+            throw InternalError("Priority-Flood: a cell queued below the current level");
+        }
+        buckets_[bucket_of(key)].push_back({key, cell});
+        ++size_;
+    }
+    Index pop() {
+        if (buckets_[0].empty()) {
+            std::size_t b = 1;
+            while (buckets_[b].empty()) {
+                ++b;
+            }
+            auto &from = buckets_[b];
+            std::uint32_t low = from.front().key;
+            for (const Item &it : from) {
+                low = std::min(low, it.key);
+            }
+            last_ = low;
+            for (const Item &it : from) {
+                buckets_[bucket_of(it.key)].push_back(it);
+            }
+            from.clear();
+        }
+        const Index cell = buckets_[0].back().cell;
+        buckets_[0].pop_back();
+        --size_;
+        return cell;
+    }
+
+  private:
+    [[nodiscard]] std::size_t bucket_of(std::uint32_t key) const noexcept {
+        return key == last_ ? 0 : static_cast<std::size_t>(32 - std::countl_zero(key ^ last_));
+    }
+    std::array<std::vector<Item>, 33> buckets_;
+    std::uint32_t last_ = 0;
+    std::size_t size_ = 0;
+};
+
+/// Priority-Flood (Barnes, Lehman and Mulla 2014) with two plain FIFO queues beside the priority
+/// queue:
 /// - `pit`: cells raised to the level of the cell that found them (inside a depression), as in
 ///   the improved variant of Barnes et al. (2014);
 /// - `trace`: cells higher than the cell that found them. They drain through it, so their
@@ -56,16 +136,9 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
-    std::priority_queue<QueueItem<Index>, std::vector<QueueItem<Index>>, HigherFirst<Index>> open;
-    // FIFOs as deques: they free their consumed blocks, so a long traversal does not keep a
-    // queue as large as the grid.
-    std::deque<Index> pit;
-    std::deque<Index> trace;
-    const auto pop_fifo = [](std::deque<Index> &q) {
-        const Index i = q.front();
-        q.pop_front();
-        return static_cast<std::size_t>(i);
-    };
+    RadixHeap<Index> open;
+    Fifo<Index> pit;
+    Fifo<Index> trace;
 
     // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the raster's
     // outer ring, whose neighbours need bounds checks; the others use index offsets.
@@ -99,7 +172,7 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
     const auto seed = [&](std::size_t i) {
         if ((marks[i] & closed_flag) == 0) {
             marks[i] |= closed_flag;
-            open.push({dem[i], static_cast<Index>(i)});
+            open.push(ordered_key(dem[i]), static_cast<Index>(i));
         }
     };
     for (std::size_t i = 0; i < dem.size(); ++i) {
@@ -123,13 +196,12 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         std::size_t i = 0;
         bool traced = false;
         if (!pit.empty()) {
-            i = pop_fifo(pit);
+            i = pit.pop();
         } else if (!trace.empty()) {
-            i = pop_fifo(trace);
+            i = trace.pop();
             traced = true;
         } else if (!open.empty()) {
-            i = static_cast<std::size_t>(open.top().i);
-            open.pop();
+            i = open.pop();
         } else {
             break;
         }
@@ -142,17 +214,17 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
             }
             if (dem[n] > z) {
                 marks[n] |= closed_flag;
-                trace.push_back(static_cast<Index>(n));
+                trace.push(static_cast<Index>(n));
             } else if (traced) {
                 waits = true; // leave it for the priority queue
             } else {
                 marks[n] |= closed_flag;
                 dem[n] = z;
-                pit.push_back(static_cast<Index>(n));
+                pit.push(static_cast<Index>(n));
             }
         }
         if (waits) {
-            open.push({z, static_cast<Index>(i)});
+            open.push(ordered_key(z), static_cast<Index>(i));
         }
     }
 }

@@ -4,6 +4,9 @@
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
+#include <cstdlib>
+#include <memory>
+#include <new>
 #include <optional>
 #include <string>
 #include <type_traits>
@@ -43,6 +46,61 @@ struct GeoTransform {
     [[nodiscard]] double cell_area() const noexcept { return cell_dx() * cell_dy(); }
 };
 
+namespace detail {
+/// madvise(MADV_HUGEPAGE) where the platform has it; a no-op elsewhere.
+void advise_huge_pages(void *p, std::size_t bytes) noexcept;
+} // namespace detail
+
+/// Allocator of grid cells. Two differences from std::allocator, both for large rasters:
+/// - an element constructed without a value is left uninitialised (default-initialised), so a
+///   grid whose next pass writes every cell is not zero-filled first (`Grid(w, h, no_fill)`);
+/// - a block of 4 MiB or more is aligned to 2 MiB and offered to the kernel for transparent
+///   huge pages, which cuts the TLB misses of passes that jump across a large grid.
+template <typename T> class GridAllocator {
+  public:
+    using value_type = T;
+    GridAllocator() noexcept = default;
+    template <typename U> GridAllocator(const GridAllocator<U> &) noexcept {} // NOLINT
+
+    [[nodiscard]] T *allocate(std::size_t n) {
+        const std::size_t bytes = n * sizeof(T);
+        if (bytes < large_bytes) {
+            return std::allocator<T>{}.allocate(n);
+        }
+        const std::size_t rounded =
+            (bytes + huge_page_bytes - 1) / huge_page_bytes * huge_page_bytes;
+        void *p = std::aligned_alloc(huge_page_bytes, rounded);
+        if (p == nullptr) {
+            throw std::bad_alloc();
+        }
+        detail::advise_huge_pages(p, rounded);
+        return static_cast<T *>(p);
+    }
+    void deallocate(T *p, std::size_t n) noexcept {
+        if (n * sizeof(T) < large_bytes) {
+            std::allocator<T>{}.deallocate(p, n);
+        } else {
+            std::free(p);
+        }
+    }
+    template <typename U>
+    void construct(U *p) noexcept(std::is_nothrow_default_constructible_v<U>) {
+        ::new (static_cast<void *>(p)) U; // default-initialised: no zero fill
+    }
+    template <typename U, typename... Args> void construct(U *p, Args &&...args) {
+        ::new (static_cast<void *>(p)) U(std::forward<Args>(args)...);
+    }
+    template <typename U> bool operator==(const GridAllocator<U> &) const noexcept { return true; }
+
+  private:
+    static constexpr std::size_t huge_page_bytes = std::size_t{2} << 20;
+    static constexpr std::size_t large_bytes = std::size_t{4} << 20;
+};
+
+/// Tag for a grid whose cells are left uninitialised, for a caller that writes every cell next.
+struct NoFill {};
+inline constexpr NoFill no_fill{};
+
 /// A raster held in memory, row-major (row 0 is the top, north), with its georeferencing.
 ///
 /// Nodata is a value: a cell equal to `nodata` (or NaN, for floating-point grids) is not valid.
@@ -53,6 +111,10 @@ template <typename T> class Grid {
     Grid() = default;
     Grid(std::size_t width, std::size_t height, T fill = T{})
         : width_(width), height_(height), cells_(width * height, fill) {}
+    /// Cells left uninitialised: the caller writes every cell before reading any.
+    Grid(std::size_t width, std::size_t height, NoFill) : width_(width), height_(height) {
+        cells_.resize(width * height);
+    }
 
     [[nodiscard]] std::size_t width() const noexcept { return width_; }
     [[nodiscard]] std::size_t height() const noexcept { return height_; }
@@ -71,8 +133,9 @@ template <typename T> class Grid {
     [[nodiscard]] T &operator[](std::size_t i) noexcept { return cells_[i]; }
     [[nodiscard]] const T &operator[](std::size_t i) const noexcept { return cells_[i]; }
 
-    [[nodiscard]] std::vector<T> &cells() noexcept { return cells_; }
-    [[nodiscard]] const std::vector<T> &cells() const noexcept { return cells_; }
+    using Cells = std::vector<T, GridAllocator<T>>;
+    [[nodiscard]] Cells &cells() noexcept { return cells_; }
+    [[nodiscard]] const Cells &cells() const noexcept { return cells_; }
 
     [[nodiscard]] bool in_bounds(long long col, long long row) const noexcept {
         return col >= 0 && row >= 0 && static_cast<std::size_t>(col) < width_ &&
@@ -115,7 +178,7 @@ template <typename T> class Grid {
   private:
     std::size_t width_ = 0;
     std::size_t height_ = 0;
-    std::vector<T> cells_;
+    Cells cells_;
 };
 
 } // namespace catchpeak
