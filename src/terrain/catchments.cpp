@@ -49,44 +49,47 @@ void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
     // Follow each unresolved path downstream to the first resolved cell, then label the path.
     // The walk tracks the column and row, so that no division is needed for each step.
     std::vector<std::size_t> path;
-    for (std::size_t start = 0; start < n; ++start) {
-        if (labels[start] != unresolved) {
-            continue;
-        }
-        path.clear();
-        std::size_t i = start;
-        std::size_t r = start / w;
-        std::size_t c = start - r * w;
-        std::uint32_t label = 0;
-        while (true) {
-            path.push_back(i);
-            const std::uint8_t k = dirs[i];
-            if (k > 8) {
-                label = 0;
-                break;
+    for (std::size_t start_r = 0; start_r < h; ++start_r) {
+        for (std::size_t start_c = 0; start_c < w; ++start_c) {
+            const std::size_t start = start_r * w + start_c;
+            if (labels[start] != unresolved) {
+                continue;
             }
-            // A step off column 0 or row 0 wraps to a huge value, caught by the bounds test.
-            c += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::dcol[k]));
-            r += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::drow[k]));
-            if (c >= w || r >= h) {
-                label = 0;
-                break;
+            path.clear();
+            std::size_t i = start;
+            std::size_t r = start_r;
+            std::size_t c = start_c;
+            std::uint32_t label = 0;
+            while (true) {
+                path.push_back(i);
+                const std::uint8_t k = dirs[i];
+                if (k > 8) {
+                    label = 0;
+                    break;
+                }
+                // A step off column 0 or row 0 wraps to a huge value, caught by the bounds test.
+                c += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::dcol[k]));
+                r += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::drow[k]));
+                if (c >= w || r >= h) {
+                    label = 0;
+                    break;
+                }
+                const std::size_t d = r * w + c;
+                if (labels[d] != unresolved) {
+                    label = labels[d]; // 0 on a cell without direction
+                    break;
+                }
+                if (path.size() > n) {
+                    throw InternalError("delineate_catchments: the directions contain a cycle");
+                }
+                i = d;
             }
-            const std::size_t d = r * w + c;
-            if (labels[d] != unresolved) {
-                label = labels[d]; // 0 on a cell without direction
-                break;
+            for (const std::size_t p : path) {
+                labels[p] = label;
             }
-            if (path.size() > n) {
-                throw InternalError("delineate_catchments: the directions contain a cycle");
+            if (label != 0) {
+                out.local_cells[label - 1] += path.size();
             }
-            i = d;
-        }
-        for (const std::size_t p : path) {
-            labels[p] = label;
-        }
-        if (label != 0) {
-            out.local_cells[label - 1] += path.size();
         }
     }
     out.downstream_label.assign(count, 0);

@@ -32,6 +32,49 @@ inline std::size_t neighbour(std::size_t w, std::size_t h, std::size_t c, std::s
 
 /// First-in first-out queue in a ring buffer that doubles when full: its memory follows the
 /// longest queue at any moment, not the number of cells that pass through it.
+/// The eight neighbours of the cells of a w x h grid: index offsets for a cell inside the
+/// raster, bounds checks for one on its outer ring, decided once per cell.
+class Neighbours {
+  public:
+    Neighbours(std::size_t w, std::size_t h) : w_(w), h_(h) {
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            offset_[k] = static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) +
+                         d8::dcol[k];
+        }
+    }
+    /// True when cell i lies on the raster's outer ring.
+    [[nodiscard]] bool on_ring(std::size_t i) const noexcept {
+        const std::size_t r = i / w_;
+        const std::size_t c = i - r * w_;
+        return c == 0 || r == 0 || c + 1 == w_ || r + 1 == h_;
+    }
+    /// Calls body(k, n) for each neighbour n (code k, ascending) of cell i that is on the grid.
+    template <typename Body> void each(std::size_t i, bool ring, Body body) const {
+        if (!ring) {
+            for (std::uint8_t k = 1; k <= 8; ++k) {
+                body(k, static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset_[k]));
+            }
+            return;
+        }
+        const std::size_t r = i / w_;
+        const std::size_t c = i - r * w_;
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const std::size_t n = neighbour(w_, h_, c, r, k);
+            if (n != no_cell) {
+                body(k, n);
+            }
+        }
+    }
+    template <typename Body> void each(std::size_t i, Body body) const {
+        each(i, on_ring(i), body);
+    }
+
+  private:
+    std::size_t w_;
+    std::size_t h_;
+    std::array<std::ptrdiff_t, 9> offset_{};
+};
+
 template <typename T> class Fifo {
   public:
     [[nodiscard]] bool empty() const noexcept { return size_ == 0; }
@@ -154,17 +197,7 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         marks[r * w] |= edge_flag;
         marks[r * w + w - 1] |= edge_flag;
     }
-    std::array<std::ptrdiff_t, 9> offset{};
-    for (std::uint8_t k = 1; k <= 8; ++k) {
-        offset[k] =
-            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
-    }
-    const auto neighbour_of = [&](std::size_t i, std::uint8_t k) {
-        if ((marks[i] & edge_flag) == 0) {
-            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset[k]);
-        }
-        return neighbour(w, h, i % w, i / w, k);
-    };
+    const Neighbours around(w, h);
 
     // Seeds: valid cells on the raster edge or next to a nodata cell, found from the edge ring
     // and from the nodata cells (a byte test for every other cell). The priority queue orders
@@ -185,12 +218,7 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         if (valid(dem[i])) {
             continue; // a seed already
         }
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour_of(i, k);
-            if (n != no_cell) {
-                seed(n);
-            }
-        }
+        around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) { seed(n); });
     }
     while (true) {
         std::size_t i = 0;
@@ -207,10 +235,9 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         }
         const float z = dem[i];
         bool waits = false;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour_of(i, k);
-            if (n == no_cell || (marks[n] & closed_flag) != 0) {
-                continue;
+        around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) {
+            if ((marks[n] & closed_flag) != 0) {
+                return;
             }
             if (dem[n] > z) {
                 marks[n] |= closed_flag;
@@ -222,7 +249,7 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
                 dem[n] = z;
                 pit.push(static_cast<Index>(n));
             }
-        }
+        });
         if (waits) {
             open.push(ordered_key(z), static_cast<Index>(i));
         }
@@ -318,18 +345,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
-    std::array<std::ptrdiff_t, 9> offset{};
-    for (std::uint8_t k = 1; k <= 8; ++k) {
-        offset[k] =
-            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
-    }
-    // Neighbour k of (c, r): index offsets inside the raster, bounds checks on its outer ring.
-    const auto near = [&](std::size_t c, std::size_t r, std::uint8_t k) {
-        if (c > 0 && r > 0 && c + 1 < w && r + 1 < h) {
-            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(r * w + c) + offset[k]);
-        }
-        return neighbour(w, h, c, r, k);
-    };
+    const Neighbours around(w, h);
     constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
     constexpr std::uint8_t code_mask = 0x0F;
 
@@ -351,7 +367,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     // cells' values are read, and the sweep through each flat sets them all.
     constexpr std::int64_t bias = std::int64_t{1} << 31;
     if (mask.width() != w || mask.height() != h) {
-        mask = Grid<std::uint32_t>(w, h, 0);
+        mask = Grid<std::uint32_t>(w, h, no_fill);
     }
     bool any_flat = false;
     std::vector<std::size_t> frontier;
@@ -370,14 +386,8 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         while (!frontier.empty()) {
             next.clear();
             for (const std::size_t i : frontier) {
-                const std::size_t c = i % w;
-                const std::size_t r = i / w;
                 bool high_edge = false;
-                for (std::uint8_t k = 1; k <= 8; ++k) {
-                    const std::size_t n = near(c, r, k);
-                    if (n == no_cell) {
-                        continue;
-                    }
+                around.each(i, [&](std::uint8_t, std::size_t n) {
                     const float zn = dem[n];
                     if (zn == z) {
                         const std::uint8_t dn = dirs[n];
@@ -391,7 +401,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                     } else if (zn > z && valid(zn)) {
                         high_edge = true;
                     }
-                }
+                });
                 mask[i] = high_edge ? 1U : 0U;
                 if (high_edge) {
                     dirs[i] |= away_flag;
@@ -406,16 +416,14 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         while (!frontier.empty()) {
             next.clear();
             for (const std::size_t i : frontier) {
-                const std::size_t c = i % w;
-                const std::size_t r = i / w;
-                for (std::uint8_t k = 1; k <= 8; ++k) {
-                    const std::size_t n = near(c, r, k);
-                    if (n != no_cell && dirs[n] == (flat_flag | seen_flag) && dem[n] == z) {
+                const std::uint32_t away = mask[i] + 1;
+                around.each(i, [&](std::uint8_t, std::size_t n) {
+                    if (dirs[n] == (flat_flag | seen_flag) && dem[n] == z) {
                         dirs[n] |= away_flag;
-                        mask[n] = mask[i] + 1;
+                        mask[n] = away;
                         next.push_back(n);
                     }
-                }
+                });
             }
             frontier.swap(next);
         }
@@ -431,17 +439,13 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             ++t;
             next.clear();
             for (const std::size_t i : frontier) {
-                const std::size_t c = i % w;
-                const std::size_t r = i / w;
-                for (std::uint8_t k = 1; k <= 8; ++k) {
-                    const std::size_t n = near(c, r, k);
-                    if (n != no_cell && (dirs[n] & (flat_flag | visited_flag)) == flat_flag &&
-                        dem[n] == z) {
+                around.each(i, [&](std::uint8_t, std::size_t n) {
+                    if ((dirs[n] & (flat_flag | visited_flag)) == flat_flag && dem[n] == z) {
                         dirs[n] |= visited_flag;
                         mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
                         next.push_back(n);
                     }
-                }
+                });
             }
             frontier.swap(next);
         }
@@ -468,15 +472,13 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         if ((dirs[i] & visited_flag) == 0) {
             throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
         }
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
+        const float z = dem[i];
         std::uint8_t low_edge = d8::none;
         std::uint8_t best = d8::none;
         std::uint32_t best_mask = mask[i];
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = near(c, r, k);
-            if (n == no_cell || dem[n] != dem[i]) {
-                continue;
+        around.each(i, [&](std::uint8_t k, std::size_t n) {
+            if (dem[n] != z) {
+                return;
             }
             if ((dirs[n] & flat_flag) == 0) {
                 if (dirs[n] != d8::none && low_edge == d8::none) {
@@ -486,7 +488,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                 best_mask = mask[n];
                 best = k;
             }
-        }
+        });
         const std::uint8_t code = low_edge != d8::none ? low_edge : best;
         if (code == d8::none) {
             throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
