@@ -374,6 +374,34 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     std::vector<std::size_t> next;
     std::vector<std::size_t> high_edges;
     std::vector<std::size_t> low_edges;
+    // Direction of a flat cell: to a low edge when one is adjacent, otherwise to the flat
+    // neighbour of smallest combined value below the cell's own. A cell's neighbours on the
+    // flat lie at most one step nearer or farther from the low edges, so the cells at distance
+    // t are given their directions once the search has reached distance t + 1.
+    const auto pick = [&](std::size_t i) {
+        const float z = dem[i];
+        std::uint8_t low_edge = d8::none;
+        std::uint8_t best = d8::none;
+        std::uint32_t best_mask = mask[i];
+        around.each(i, [&](std::uint8_t k, std::size_t n) {
+            if (dem[n] != z) {
+                return;
+            }
+            if ((dirs[n] & flat_flag) == 0) {
+                if (dirs[n] != d8::none && low_edge == d8::none) {
+                    low_edge = k;
+                }
+            } else if (mask[n] < best_mask) {
+                best_mask = mask[n];
+                best = k;
+            }
+        });
+        const std::uint8_t code = low_edge != d8::none ? low_edge : best;
+        if (code == d8::none) {
+            throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
+        }
+        dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
+    };
     const auto resolve_flat = [&](std::size_t start) {
         // Sweep through the flat: its cells, its high edges (flat cells next to higher valid
         // terrain) and its low edges (cells with a direction next to a flat cell of the same
@@ -383,8 +411,10 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         low_edges.clear();
         frontier.assign(1, start);
         dirs[start] = flat_flag | seen_flag;
+        std::size_t flat_cells = 0;
         while (!frontier.empty()) {
             next.clear();
+            flat_cells += frontier.size();
             for (const std::size_t i : frontier) {
                 bool high_edge = false;
                 around.each(i, [&](std::uint8_t, std::size_t n) {
@@ -435,6 +465,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         }
         frontier.swap(low_edges);
         std::int64_t t = 0;
+        std::size_t reached = 0;
         while (!frontier.empty()) {
             ++t;
             next.clear();
@@ -447,7 +478,16 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                     }
                 });
             }
+            if (t > 1) { // frontier holds the flat cells at distance t - 1 (not the low edges)
+                for (const std::size_t i : frontier) {
+                    pick(i);
+                }
+                reached += frontier.size();
+            }
             frontier.swap(next);
+        }
+        if (reached != flat_cells) {
+            throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
         }
     };
     for (std::size_t i = 0; i < dem.size(); ++i) {
@@ -459,42 +499,6 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     if (!any_flat) {
         return;
     }
-    const auto for_each_flat = [&](auto body) {
-        for (std::size_t i = 0; i < dem.size(); ++i) {
-            if ((dirs[i] & flat_flag) != 0) {
-                body(i);
-            }
-        }
-    };
-    // Directions of flat cells: to a low edge when one is adjacent, otherwise to the flat
-    // neighbour of smallest combined value below the cell's own.
-    for_each_flat([&](std::size_t i) {
-        if ((dirs[i] & visited_flag) == 0) {
-            throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
-        }
-        const float z = dem[i];
-        std::uint8_t low_edge = d8::none;
-        std::uint8_t best = d8::none;
-        std::uint32_t best_mask = mask[i];
-        around.each(i, [&](std::uint8_t k, std::size_t n) {
-            if (dem[n] != z) {
-                return;
-            }
-            if ((dirs[n] & flat_flag) == 0) {
-                if (dirs[n] != d8::none && low_edge == d8::none) {
-                    low_edge = k;
-                }
-            } else if (mask[n] < best_mask) {
-                best_mask = mask[n];
-                best = k;
-            }
-        });
-        const std::uint8_t code = low_edge != d8::none ? low_edge : best;
-        if (code == d8::none) {
-            throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
-        }
-        dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
-    });
     for (auto &d : dirs.cells()) {
         d = static_cast<std::uint8_t>(d & code_mask);
     }
