@@ -516,16 +516,22 @@ Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
 void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &lines,
                        unsigned threads, Grid<float> &work, Grid<std::uint8_t> &dirs,
                        Grid<std::uint32_t> &scratch) {
-    // A copy (one pass, no zero fill first), then NaN on nodata cells.
-    work = dem;
+    // A copy with NaN on nodata cells: one pass over row blocks, no zero fill first.
+    const std::size_t w = dem.width();
+    if (work.width() != w || work.height() != dem.height()) {
+        work = Grid<float>(w, dem.height(), no_fill);
+    }
+    work.copy_georef_from(dem);
     work.nodata.reset(); // nodata is NaN in the copy
     const detail::ValidTest valid(dem);
     constexpr float nan = std::numeric_limits<float>::quiet_NaN();
-    for (float &v : work.cells()) {
-        if (!valid(v)) {
-            v = nan;
-        }
-    }
+    detail::for_row_blocks(dem.height(), thread_count(threads), 256,
+                           [&](std::size_t, std::size_t r0, std::size_t r1) {
+                               for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+                                   const float v = dem[i];
+                                   work[i] = valid(v) ? v : nan;
+                               }
+                           });
     apply_breach_lines(work, lines);
     dirs = Grid<std::uint8_t>(dem.width(), dem.height(), 0);
     dirs.copy_georef_from(dem);

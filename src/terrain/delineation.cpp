@@ -180,9 +180,11 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     std::vector<char> edge_local(outlets.size() + 1, 0);
-    for (std::size_t i = 0; i < dirs.size(); ++i) {
-        const std::size_t col = i % w;
-        const std::size_t row = i / w;
+    for (std::size_t i = 0, row = 0, col = 0; i < dirs.size(); ++i) {
+        if (col == w) { // row and column tracked, not divided out for each cell
+            col = 0;
+            ++row;
+        }
         if (dirs[i] == d8::none) {
             for (std::uint8_t k = 1; k <= 8; ++k) {
                 const long long nc = static_cast<long long>(col) + d8::dcol[k];
@@ -195,6 +197,7 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
         } else if (row == 0 || col == 0 || row + 1 == h || col + 1 == w) {
             edge_local[c.labels[i]] = 1;
         }
+        ++col;
     }
 
     report("slopes", 0.85);
