@@ -352,6 +352,9 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     // Flats are handled one at a time (a flat: flat cells of one elevation, 8-connected), so
     // that each search stays within the flat's part of the grids. Distances within a flat do
     // not depend on the order in which flats or cells are taken, so neither do the results.
+    // While a flat is resolved, the only cells with flat_flag but without away_flag (or without
+    // visited_flag) are its own: flats done earlier have all their flags, flats not yet swept
+    // have none. So the two searches need no elevation test.
     //
     // Bits of dirs on flat cells while resolving: flat_flag, seen_flag (found by the sweep
     // through the flat), away_flag (reached by the search away from higher terrain),
@@ -448,7 +451,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             for (const std::size_t i : frontier) {
                 const std::uint32_t away = mask[i] + 1;
                 around.each(i, [&](std::uint8_t, std::size_t n) {
-                    if (dirs[n] == (flat_flag | seen_flag) && dem[n] == z) {
+                    if (dirs[n] == (flat_flag | seen_flag)) {
                         dirs[n] |= away_flag;
                         mask[n] = away;
                         next.push_back(n);
@@ -471,7 +474,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             next.clear();
             for (const std::size_t i : frontier) {
                 around.each(i, [&](std::uint8_t, std::size_t n) {
-                    if ((dirs[n] & (flat_flag | visited_flag)) == flat_flag && dem[n] == z) {
+                    if ((dirs[n] & (flat_flag | visited_flag)) == flat_flag) {
                         dirs[n] |= visited_flag;
                         mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
                         next.push_back(n);
