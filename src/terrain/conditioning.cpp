@@ -112,10 +112,11 @@ inline std::uint32_t ordered_key(float z) noexcept {
     return (u & 0x80000000U) != 0 ? ~u : (u | 0x80000000U);
 }
 
-/// Monotone priority queue of cells by elevation (a radix heap, Ahuja, Mehlhorn, Orlin and
-/// Tarjan 1990): it pops the lowest key, and no key pushed is below the last key popped, which
-/// holds in Priority-Flood (a cell waits in the queue at its own, final, level). Bucket b holds
-/// the keys that first differ from the last popped key at bit b - 1, so a pop moves each item
+/// Monotone priority queue of cells by elevation (a radix heap: Ahuja, Mehlhorn, Orlin and
+/// Tarjan 1990, "Faster algorithms for the shortest path problem", J. ACM 37(2); reference from
+/// memory, not checked): it pops the lowest key, and no key pushed is below the last key popped,
+/// which holds in Priority-Flood (a cell waits in the queue at its own, final, level). Bucket b
+/// holds the keys that first differ from the last popped key at bit b - 1, so a pop moves each item
 /// at most 32 times. Cells of equal elevation come out in no set order; the filled elevations
 /// do not depend on it.
 template <typename Index> class RadixHeap {
