@@ -30,8 +30,6 @@ inline std::size_t neighbour(std::size_t w, std::size_t h, std::size_t c, std::s
     return static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
 }
 
-/// First-in first-out queue in a ring buffer that doubles when full: its memory follows the
-/// longest queue at any moment, not the number of cells that pass through it.
 /// The eight neighbours of the cells of a w x h grid: index offsets for a cell inside the
 /// raster, bounds checks for one on its outer ring, decided once per cell.
 class Neighbours {
@@ -75,6 +73,8 @@ class Neighbours {
     std::array<std::ptrdiff_t, 9> offset_{};
 };
 
+/// First-in first-out queue in a ring buffer that doubles when full: its memory follows the
+/// longest queue at any moment, not the number of cells that pass through it.
 template <typename T> class Fifo {
   public:
     [[nodiscard]] bool empty() const noexcept { return size_ == 0; }
@@ -82,12 +82,12 @@ template <typename T> class Fifo {
         if (size_ == buf_.size()) {
             grow();
         }
-        buf_[(head_ + size_) & (buf_.size() - 1)] = v;
+        buf_[(head_ + size_) & mask_] = v;
         ++size_;
     }
     T pop() noexcept {
         const T v = buf_[head_];
-        head_ = (head_ + 1) & (buf_.size() - 1);
+        head_ = (head_ + 1) & mask_;
         --size_;
         return v;
     }
@@ -96,12 +96,14 @@ template <typename T> class Fifo {
     void grow() {
         std::vector<T> bigger(std::max<std::size_t>(1024, buf_.size() * 2));
         for (std::size_t k = 0; k < size_; ++k) {
-            bigger[k] = buf_[(head_ + k) & (buf_.size() - 1)];
+            bigger[k] = buf_[(head_ + k) & mask_];
         }
         buf_.swap(bigger);
         head_ = 0;
+        mask_ = buf_.size() - 1; // a power of two
     }
     std::vector<T> buf_;
+    std::size_t mask_ = 0;
     std::size_t head_ = 0;
     std::size_t size_ = 0;
 };
