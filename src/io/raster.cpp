@@ -170,30 +170,69 @@ Dem read_dem(const std::filesystem::path &path) {
 
     const auto width = static_cast<std::size_t>(ds->GetRasterXSize());
     const auto height = static_cast<std::size_t>(ds->GetRasterYSize());
-    Grid<float> grid(width, height, 0.0f);
+    Grid<float> grid(width, height, no_fill); // every cell is written below
     grid.transform = transform;
     grid.crs_wkt = crs_wkt;
     grid.nodata = std::numeric_limits<float>::quiet_NaN();
 
-    std::vector<double> row(width);
+    // Strips of whole blocks (rows of tiles), about 8 MiB of doubles each: few, large reads.
+    int block_cols = 0;
+    int block_rows = 0;
+    band->GetBlockSize(&block_cols, &block_rows);
+    const std::size_t block_h = static_cast<std::size_t>(std::max(1, block_rows));
+    const std::size_t wanted_rows = std::max<std::size_t>(
+        1, (std::size_t{8} << 20) / (std::max<std::size_t>(1, width) * sizeof(double)));
+    const std::size_t strip_rows =
+        std::min(height, block_h * std::max<std::size_t>(1, wanted_rows / block_h));
     std::size_t valid = 0;
     const double to_m = dem.vertical_unit_m;
     GdalErrorScope errors;
-    for (std::size_t r = 0; r < height; ++r) {
-        if (band->RasterIO(GF_Read, 0, static_cast<int>(r), static_cast<int>(width), 1, row.data(),
-                           static_cast<int>(width), 1, GDT_Float64, 0, 0, nullptr) != CE_None) {
-            throw_input_error(file, errors.describe(fmt::format("cannot read row {}", r)),
-                              "a readable raster");
+    const auto read_strip = [&](std::size_t r0, std::size_t rows, void *into, GDALDataType type) {
+        if (band->RasterIO(GF_Read, 0, static_cast<int>(r0), static_cast<int>(width),
+                           static_cast<int>(rows), into, static_cast<int>(width),
+                           static_cast<int>(rows), type, 0, 0, nullptr) != CE_None) {
+            throw_input_error(
+                file, errors.describe(fmt::format("cannot read rows {} to {}", r0, r0 + rows - 1)),
+                "a readable raster");
         }
-        for (std::size_t c = 0; c < width; ++c) {
-            const double v = row[c];
-            if (std::isnan(v) || (has_nodata != 0 && v == nodata)) {
-                grid(c, r) = std::numeric_limits<float>::quiet_NaN();
-                continue;
+    };
+    const bool as_stored = band->GetRasterDataType() == GDT_Float32 &&
+                           (has_scale == 0 || scale == 1.0) && (has_offset == 0 || offset == 0.0) &&
+                           to_m == 1.0;
+    if (as_stored) {
+        // Float32 elevations in metres: read straight into the grid, then mark nodata. Adding
+        // 0 turns -0 into +0, as the conversion below does.
+        for (std::size_t r0 = 0; r0 < height; r0 += strip_rows) {
+            const std::size_t rows = std::min(strip_rows, height - r0);
+            float *const cells = grid.cells().data() + r0 * width;
+            read_strip(r0, rows, cells, GDT_Float32);
+            for (std::size_t k = 0; k < rows * width; ++k) {
+                const float v = cells[k];
+                if (std::isnan(v) || (has_nodata != 0 && static_cast<double>(v) == nodata)) {
+                    cells[k] = std::numeric_limits<float>::quiet_NaN();
+                } else {
+                    cells[k] = v + 0.0F;
+                    ++valid;
+                }
             }
-            const double z = (has_scale != 0 ? v * scale : v) + (has_offset != 0 ? offset : 0.0);
-            grid(c, r) = static_cast<float>(z * to_m);
-            ++valid;
+        }
+    } else {
+        std::vector<double> strip(strip_rows * width);
+        for (std::size_t r0 = 0; r0 < height; r0 += strip_rows) {
+            const std::size_t rows = std::min(strip_rows, height - r0);
+            read_strip(r0, rows, strip.data(), GDT_Float64);
+            float *const cells = grid.cells().data() + r0 * width;
+            for (std::size_t k = 0; k < rows * width; ++k) {
+                const double v = strip[k];
+                if (std::isnan(v) || (has_nodata != 0 && v == nodata)) {
+                    cells[k] = std::numeric_limits<float>::quiet_NaN();
+                    continue;
+                }
+                const double z =
+                    (has_scale != 0 ? v * scale : v) + (has_offset != 0 ? offset : 0.0);
+                cells[k] = static_cast<float>(z * to_m);
+                ++valid;
+            }
         }
     }
     if (valid == 0) {

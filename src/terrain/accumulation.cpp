@@ -93,7 +93,6 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
     // One byte a cell: the low nibble counts the inflows still to come (0..8, 15 once the
     // cell is visited); the high nibble holds the code of the upstream neighbour on the
     // longest path (ties: the lowest code). It becomes out.longest_upstream.
-    const std::size_t n = dirs.size();
     out.longest_upstream = Grid<std::uint8_t>(dirs.width(), dirs.height(), 0);
     out.longest_upstream.copy_georef_from(dirs);
     auto &state = out.longest_upstream.cells();
@@ -125,41 +124,46 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
             }
         }
     }
-    for (std::size_t start = 0; start < n; ++start) {
-        if ((state[start] & count_mask) != 0) {
-            continue;
-        }
-        std::size_t i = start;
-        std::size_t r = start / w;
-        std::size_t c = start - r * w;
-        while (true) {
-            state[i] = static_cast<std::uint8_t>(state[i] | visited);
-            std::size_t dc = 0;
-            std::size_t dr = 0;
-            const std::size_t d = downstream(c, r, dc, dr);
-            const std::uint8_t k = dirs[i];
-            if (k != d8::none) {
-                acc[i] += 1;
-                if (d != no_cell && dirs[d] != d8::none) {
-                    acc[d] += acc[i];
-                    const float cand = len[i] + step[k];
-                    const std::uint8_t up = d8::opposite[k]; // from d toward i
-                    const auto current = static_cast<std::uint8_t>(state[d] >> 4);
-                    if (cand > len[d] || current == d8::none || (cand == len[d] && up < current)) {
-                        len[d] = std::max(len[d], cand);
-                        state[d] = static_cast<std::uint8_t>((up << 4) | (state[d] & count_mask));
+    for (std::size_t start_r = 0; start_r < h; ++start_r) {
+        for (std::size_t start_c = 0; start_c < w; ++start_c) {
+            const std::size_t start = start_r * w + start_c;
+            if ((state[start] & count_mask) != 0) {
+                continue;
+            }
+            std::size_t i = start;
+            std::size_t r = start_r;
+            std::size_t c = start_c;
+            while (true) {
+                state[i] = static_cast<std::uint8_t>(state[i] | visited);
+                std::size_t dc = 0;
+                std::size_t dr = 0;
+                const std::size_t d = downstream(c, r, dc, dr);
+                const std::uint8_t k = dirs[i];
+                if (k != d8::none) {
+                    acc[i] += 1;
+                    if (d != no_cell && dirs[d] != d8::none) {
+                        acc[d] += acc[i];
+                        const float cand = len[i] + step[k];
+                        const std::uint8_t up = d8::opposite[k]; // from d toward i
+                        const auto current = static_cast<std::uint8_t>(state[d] >> 4);
+                        if (cand > len[d] || current == d8::none ||
+                            (cand == len[d] && up < current)) {
+                            len[d] = std::max(len[d], cand);
+                            state[d] =
+                                static_cast<std::uint8_t>((up << 4) | (state[d] & count_mask));
+                        }
                     }
                 }
+                if (d == no_cell || (state[d] & count_mask) == visited) {
+                    break;
+                }
+                if ((--state[d] & count_mask) != 0) {
+                    break;
+                }
+                i = d;
+                c = dc;
+                r = dr;
             }
-            if (d == no_cell || (state[d] & count_mask) == visited) {
-                break;
-            }
-            if ((--state[d] & count_mask) != 0) {
-                break;
-            }
-            i = d;
-            c = dc;
-            r = dr;
         }
     }
     for (auto &b : state) {

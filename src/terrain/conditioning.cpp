@@ -7,12 +7,10 @@
 
 #include <algorithm>
 #include <array>
+#include <bit>
 #include <cmath>
 #include <cstddef>
-#include <deque>
-#include <functional>
 #include <limits>
-#include <queue>
 
 namespace catchpeak::terrain {
 
@@ -32,17 +30,145 @@ inline std::size_t neighbour(std::size_t w, std::size_t h, std::size_t c, std::s
     return static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
 }
 
-template <typename Index> struct QueueItem {
-    float z;
-    Index i;
-};
-template <typename Index> struct HigherFirst {
-    bool operator()(const QueueItem<Index> &a, const QueueItem<Index> &b) const noexcept {
-        return a.z > b.z || (a.z == b.z && a.i > b.i);
+/// The eight neighbours of the cells of a w x h grid: index offsets for a cell inside the
+/// raster, bounds checks for one on its outer ring, decided once per cell.
+class Neighbours {
+  public:
+    Neighbours(std::size_t w, std::size_t h) : w_(w), h_(h) {
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            offset_[k] = static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) +
+                         d8::dcol[k];
+        }
     }
+    /// True when cell i lies on the raster's outer ring.
+    [[nodiscard]] bool on_ring(std::size_t i) const noexcept {
+        const std::size_t r = i / w_;
+        const std::size_t c = i - r * w_;
+        return c == 0 || r == 0 || c + 1 == w_ || r + 1 == h_;
+    }
+    /// Calls body(k, n) for each neighbour n (code k, ascending) of cell i that is on the grid.
+    template <typename Body> void each(std::size_t i, bool ring, Body body) const {
+        if (!ring) {
+            for (std::uint8_t k = 1; k <= 8; ++k) {
+                body(k, static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset_[k]));
+            }
+            return;
+        }
+        const std::size_t r = i / w_;
+        const std::size_t c = i - r * w_;
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const std::size_t n = neighbour(w_, h_, c, r, k);
+            if (n != no_cell) {
+                body(k, n);
+            }
+        }
+    }
+    template <typename Body> void each(std::size_t i, Body body) const {
+        each(i, on_ring(i), body);
+    }
+
+  private:
+    std::size_t w_;
+    std::size_t h_;
+    std::array<std::ptrdiff_t, 9> offset_{};
 };
 
-/// Priority-Flood with two plain FIFO queues beside the priority queue:
+/// First-in first-out queue in a ring buffer that doubles when full: its memory follows the
+/// longest queue at any moment, not the number of cells that pass through it.
+template <typename T> class Fifo {
+  public:
+    [[nodiscard]] bool empty() const noexcept { return size_ == 0; }
+    void push(T v) {
+        if (size_ == buf_.size()) {
+            grow();
+        }
+        buf_[(head_ + size_) & mask_] = v;
+        ++size_;
+    }
+    T pop() noexcept {
+        const T v = buf_[head_];
+        head_ = (head_ + 1) & mask_;
+        --size_;
+        return v;
+    }
+
+  private:
+    void grow() {
+        std::vector<T> bigger(std::max<std::size_t>(1024, buf_.size() * 2));
+        for (std::size_t k = 0; k < size_; ++k) {
+            bigger[k] = buf_[(head_ + k) & mask_];
+        }
+        buf_.swap(bigger);
+        head_ = 0;
+        mask_ = buf_.size() - 1; // a power of two
+    }
+    std::vector<T> buf_;
+    std::size_t mask_ = 0;
+    std::size_t head_ = 0;
+    std::size_t size_ = 0;
+};
+
+/// Key of an elevation whose unsigned order is the order of the floats (for non-NaN values).
+inline std::uint32_t ordered_key(float z) noexcept {
+    const auto u = std::bit_cast<std::uint32_t>(z);
+    return (u & 0x80000000U) != 0 ? ~u : (u | 0x80000000U);
+}
+
+/// Monotone priority queue of cells by elevation (a radix heap: Ahuja, Mehlhorn, Orlin and
+/// Tarjan 1990, "Faster algorithms for the shortest path problem", J. ACM 37(2); reference from
+/// memory, not checked): it pops the lowest key, and no key pushed is below the last key popped,
+/// which holds in Priority-Flood (a cell waits in the queue at its own, final, level). Bucket b
+/// holds the keys that first differ from the last popped key at bit b - 1, so a pop moves each item
+/// at most 32 times. Cells of equal elevation come out in no set order; the filled elevations
+/// do not depend on it.
+template <typename Index> class RadixHeap {
+  public:
+    struct Item {
+        std::uint32_t key;
+        Index cell;
+    };
+    [[nodiscard]] bool empty() const noexcept { return size_ == 0; }
+    void push(std::uint32_t key, Index cell) {
+        if (key < last_) {
+            throw InternalError("Priority-Flood: a cell queued below the current level");
+        }
+        buckets_[bucket_of(key)].push_back({key, cell});
+        ++size_;
+    }
+    Index pop() {
+        if (buckets_[0].empty()) {
+            std::size_t b = 1;
+            while (buckets_[b].empty()) {
+                ++b;
+            }
+            auto &from = buckets_[b];
+            std::uint32_t low = from.front().key;
+            for (const Item &it : from) {
+                low = std::min(low, it.key);
+            }
+            last_ = low;
+            for (const Item &it : from) {
+                buckets_[bucket_of(it.key)].push_back(it);
+            }
+            from.clear();
+        }
+        const Index cell = buckets_[0].back().cell;
+        buckets_[0].pop_back();
+        --size_;
+        return cell;
+    }
+
+  private:
+    [[nodiscard]] std::size_t bucket_of(std::uint32_t key) const noexcept {
+        return key == last_ ? 0 : static_cast<std::size_t>(32 - std::countl_zero(key ^ last_));
+    }
+    std::array<std::vector<Item>, 33> buckets_;
+    std::uint32_t last_ = 0;
+    std::size_t size_ = 0;
+};
+
+/// Priority-Flood (Barnes, Lehman and Mulla 2014) with two plain FIFO queues beside the priority
+/// queue:
 /// - `pit`: cells raised to the level of the cell that found them (inside a depression), as in
 ///   the improved variant of Barnes et al. (2014);
 /// - `trace`: cells higher than the cell that found them. They drain through it, so their
@@ -56,16 +182,9 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
-    std::priority_queue<QueueItem<Index>, std::vector<QueueItem<Index>>, HigherFirst<Index>> open;
-    // FIFOs as deques: they free their consumed blocks, so a long traversal does not keep a
-    // queue as large as the grid.
-    std::deque<Index> pit;
-    std::deque<Index> trace;
-    const auto pop_fifo = [](std::deque<Index> &q) {
-        const Index i = q.front();
-        q.pop_front();
-        return static_cast<std::size_t>(i);
-    };
+    RadixHeap<Index> open;
+    Fifo<Index> pit;
+    Fifo<Index> trace;
 
     // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the raster's
     // outer ring, whose neighbours need bounds checks; the others use index offsets.
@@ -81,17 +200,7 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         marks[r * w] |= edge_flag;
         marks[r * w + w - 1] |= edge_flag;
     }
-    std::array<std::ptrdiff_t, 9> offset{};
-    for (std::uint8_t k = 1; k <= 8; ++k) {
-        offset[k] =
-            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
-    }
-    const auto neighbour_of = [&](std::size_t i, std::uint8_t k) {
-        if ((marks[i] & edge_flag) == 0) {
-            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset[k]);
-        }
-        return neighbour(w, h, i % w, i / w, k);
-    };
+    const Neighbours around(w, h);
 
     // Seeds: valid cells on the raster edge or next to a nodata cell, found from the edge ring
     // and from the nodata cells (a byte test for every other cell). The priority queue orders
@@ -99,7 +208,7 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
     const auto seed = [&](std::size_t i) {
         if ((marks[i] & closed_flag) == 0) {
             marks[i] |= closed_flag;
-            open.push({dem[i], static_cast<Index>(i)});
+            open.push(ordered_key(dem[i]), static_cast<Index>(i));
         }
     };
     for (std::size_t i = 0; i < dem.size(); ++i) {
@@ -112,47 +221,40 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
         if (valid(dem[i])) {
             continue; // a seed already
         }
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour_of(i, k);
-            if (n != no_cell) {
-                seed(n);
-            }
-        }
+        around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) { seed(n); });
     }
     while (true) {
         std::size_t i = 0;
         bool traced = false;
         if (!pit.empty()) {
-            i = pop_fifo(pit);
+            i = pit.pop();
         } else if (!trace.empty()) {
-            i = pop_fifo(trace);
+            i = trace.pop();
             traced = true;
         } else if (!open.empty()) {
-            i = static_cast<std::size_t>(open.top().i);
-            open.pop();
+            i = open.pop();
         } else {
             break;
         }
         const float z = dem[i];
         bool waits = false;
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour_of(i, k);
-            if (n == no_cell || (marks[n] & closed_flag) != 0) {
-                continue;
+        around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) {
+            if ((marks[n] & closed_flag) != 0) {
+                return;
             }
             if (dem[n] > z) {
                 marks[n] |= closed_flag;
-                trace.push_back(static_cast<Index>(n));
+                trace.push(static_cast<Index>(n));
             } else if (traced) {
                 waits = true; // leave it for the priority queue
             } else {
                 marks[n] |= closed_flag;
                 dem[n] = z;
-                pit.push_back(static_cast<Index>(n));
+                pit.push(static_cast<Index>(n));
             }
-        }
+        });
         if (waits) {
-            open.push({z, static_cast<Index>(i)});
+            open.push(ordered_key(z), static_cast<Index>(i));
         }
     }
 }
@@ -246,24 +348,16 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
-    std::array<std::ptrdiff_t, 9> offset{};
-    for (std::uint8_t k = 1; k <= 8; ++k) {
-        offset[k] =
-            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
-    }
-    // Neighbour k of (c, r): index offsets inside the raster, bounds checks on its outer ring.
-    const auto near = [&](std::size_t c, std::size_t r, std::uint8_t k) {
-        if (c > 0 && r > 0 && c + 1 < w && r + 1 < h) {
-            return static_cast<std::size_t>(static_cast<std::ptrdiff_t>(r * w + c) + offset[k]);
-        }
-        return neighbour(w, h, c, r, k);
-    };
+    const Neighbours around(w, h);
     constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
     constexpr std::uint8_t code_mask = 0x0F;
 
     // Flats are handled one at a time (a flat: flat cells of one elevation, 8-connected), so
     // that each search stays within the flat's part of the grids. Distances within a flat do
     // not depend on the order in which flats or cells are taken, so neither do the results.
+    // While a flat is resolved, the only cells with flat_flag but without away_flag (or without
+    // visited_flag) are its own: flats done earlier have all their flags, flats not yet swept
+    // have none. So the two searches need no elevation test.
     //
     // Bits of dirs on flat cells while resolving: flat_flag, seen_flag (found by the sweep
     // through the flat), away_flag (reached by the search away from higher terrain),
@@ -279,13 +373,41 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     // cells' values are read, and the sweep through each flat sets them all.
     constexpr std::int64_t bias = std::int64_t{1} << 31;
     if (mask.width() != w || mask.height() != h) {
-        mask = Grid<std::uint32_t>(w, h, 0);
+        mask = Grid<std::uint32_t>(w, h, no_fill);
     }
     bool any_flat = false;
     std::vector<std::size_t> frontier;
     std::vector<std::size_t> next;
     std::vector<std::size_t> high_edges;
     std::vector<std::size_t> low_edges;
+    // Direction of a flat cell: to a low edge when one is adjacent, otherwise to the flat
+    // neighbour of smallest combined value below the cell's own. A cell's neighbours on the
+    // flat lie at most one step nearer or farther from the low edges, so the cells at distance
+    // t are given their directions once the search has reached distance t + 1.
+    const auto pick = [&](std::size_t i) {
+        const float z = dem[i];
+        std::uint8_t low_edge = d8::none;
+        std::uint8_t best = d8::none;
+        std::uint32_t best_mask = mask[i];
+        around.each(i, [&](std::uint8_t k, std::size_t n) {
+            if (dem[n] != z) {
+                return;
+            }
+            if ((dirs[n] & flat_flag) == 0) {
+                if (dirs[n] != d8::none && low_edge == d8::none) {
+                    low_edge = k;
+                }
+            } else if (mask[n] < best_mask) {
+                best_mask = mask[n];
+                best = k;
+            }
+        });
+        const std::uint8_t code = low_edge != d8::none ? low_edge : best;
+        if (code == d8::none) {
+            throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
+        }
+        dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
+    };
     const auto resolve_flat = [&](std::size_t start) {
         // Sweep through the flat: its cells, its high edges (flat cells next to higher valid
         // terrain) and its low edges (cells with a direction next to a flat cell of the same
@@ -295,17 +417,13 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         low_edges.clear();
         frontier.assign(1, start);
         dirs[start] = flat_flag | seen_flag;
+        std::size_t flat_cells = 0;
         while (!frontier.empty()) {
             next.clear();
+            flat_cells += frontier.size();
             for (const std::size_t i : frontier) {
-                const std::size_t c = i % w;
-                const std::size_t r = i / w;
                 bool high_edge = false;
-                for (std::uint8_t k = 1; k <= 8; ++k) {
-                    const std::size_t n = near(c, r, k);
-                    if (n == no_cell) {
-                        continue;
-                    }
+                around.each(i, [&](std::uint8_t, std::size_t n) {
                     const float zn = dem[n];
                     if (zn == z) {
                         const std::uint8_t dn = dirs[n];
@@ -319,7 +437,7 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                     } else if (zn > z && valid(zn)) {
                         high_edge = true;
                     }
-                }
+                });
                 mask[i] = high_edge ? 1U : 0U;
                 if (high_edge) {
                     dirs[i] |= away_flag;
@@ -334,16 +452,14 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         while (!frontier.empty()) {
             next.clear();
             for (const std::size_t i : frontier) {
-                const std::size_t c = i % w;
-                const std::size_t r = i / w;
-                for (std::uint8_t k = 1; k <= 8; ++k) {
-                    const std::size_t n = near(c, r, k);
-                    if (n != no_cell && dirs[n] == (flat_flag | seen_flag) && dem[n] == z) {
+                const std::uint32_t away = mask[i] + 1;
+                around.each(i, [&](std::uint8_t, std::size_t n) {
+                    if (dirs[n] == (flat_flag | seen_flag)) {
                         dirs[n] |= away_flag;
-                        mask[n] = mask[i] + 1;
+                        mask[n] = away;
                         next.push_back(n);
                     }
-                }
+                });
             }
             frontier.swap(next);
         }
@@ -355,23 +471,29 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         }
         frontier.swap(low_edges);
         std::int64_t t = 0;
+        std::size_t reached = 0;
         while (!frontier.empty()) {
             ++t;
             next.clear();
             for (const std::size_t i : frontier) {
-                const std::size_t c = i % w;
-                const std::size_t r = i / w;
-                for (std::uint8_t k = 1; k <= 8; ++k) {
-                    const std::size_t n = near(c, r, k);
-                    if (n != no_cell && (dirs[n] & (flat_flag | visited_flag)) == flat_flag &&
-                        dem[n] == z) {
+                around.each(i, [&](std::uint8_t, std::size_t n) {
+                    if ((dirs[n] & (flat_flag | visited_flag)) == flat_flag) {
                         dirs[n] |= visited_flag;
                         mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
                         next.push_back(n);
                     }
+                });
+            }
+            if (t > 1) { // frontier holds the flat cells at distance t - 1 (not the low edges)
+                for (const std::size_t i : frontier) {
+                    pick(i);
                 }
+                reached += frontier.size();
             }
             frontier.swap(next);
+        }
+        if (reached != flat_cells) {
+            throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
         }
     };
     for (std::size_t i = 0; i < dem.size(); ++i) {
@@ -383,44 +505,6 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
     if (!any_flat) {
         return;
     }
-    const auto for_each_flat = [&](auto body) {
-        for (std::size_t i = 0; i < dem.size(); ++i) {
-            if ((dirs[i] & flat_flag) != 0) {
-                body(i);
-            }
-        }
-    };
-    // Directions of flat cells: to a low edge when one is adjacent, otherwise to the flat
-    // neighbour of smallest combined value below the cell's own.
-    for_each_flat([&](std::size_t i) {
-        if ((dirs[i] & visited_flag) == 0) {
-            throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
-        }
-        const std::size_t c = i % w;
-        const std::size_t r = i / w;
-        std::uint8_t low_edge = d8::none;
-        std::uint8_t best = d8::none;
-        std::uint32_t best_mask = mask[i];
-        for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = near(c, r, k);
-            if (n == no_cell || dem[n] != dem[i]) {
-                continue;
-            }
-            if ((dirs[n] & flat_flag) == 0) {
-                if (dirs[n] != d8::none && low_edge == d8::none) {
-                    low_edge = k;
-                }
-            } else if (mask[n] < best_mask) {
-                best_mask = mask[n];
-                best = k;
-            }
-        }
-        const std::uint8_t code = low_edge != d8::none ? low_edge : best;
-        if (code == d8::none) {
-            throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
-        }
-        dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
-    });
     for (auto &d : dirs.cells()) {
         d = static_cast<std::uint8_t>(d & code_mask);
     }
@@ -438,16 +522,22 @@ Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
 void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &lines,
                        unsigned threads, Grid<float> &work, Grid<std::uint8_t> &dirs,
                        Grid<std::uint32_t> &scratch) {
-    // A copy (one pass, no zero fill first), then NaN on nodata cells.
-    work = dem;
+    // A copy with NaN on nodata cells: one pass over row blocks, no zero fill first.
+    const std::size_t w = dem.width();
+    if (work.width() != w || work.height() != dem.height()) {
+        work = Grid<float>(w, dem.height(), no_fill);
+    }
+    work.copy_georef_from(dem);
     work.nodata.reset(); // nodata is NaN in the copy
     const detail::ValidTest valid(dem);
     constexpr float nan = std::numeric_limits<float>::quiet_NaN();
-    for (float &v : work.cells()) {
-        if (!valid(v)) {
-            v = nan;
-        }
-    }
+    detail::for_row_blocks(dem.height(), thread_count(threads), 256,
+                           [&](std::size_t, std::size_t r0, std::size_t r1) {
+                               for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+                                   const float v = dem[i];
+                                   work[i] = valid(v) ? v : nan;
+                               }
+                           });
     apply_breach_lines(work, lines);
     dirs = Grid<std::uint8_t>(dem.width(), dem.height(), 0);
     dirs.copy_georef_from(dem);

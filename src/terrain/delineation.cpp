@@ -117,6 +117,7 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     report("snapping design points", 0.55);
     result.points.resize(points.size());
     std::vector<std::size_t> outlets;
+    std::vector<std::size_t> first_point_at_outlet; // the first design point snapped there
     std::unordered_map<std::size_t, std::uint32_t> label_of_cell;
     for (std::size_t p = 0; p < points.size(); ++p) {
         const SnappedPoint s =
@@ -135,14 +136,11 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
             label_of_cell.try_emplace(s.cell, static_cast<std::uint32_t>(outlets.size() + 1));
         if (inserted) {
             outlets.push_back(s.cell);
+            first_point_at_outlet.push_back(p);
         } else {
-            std::size_t first = 0;
-            while (result.points[first].cell != s.cell) {
-                ++first;
-            }
             r.warnings.push_back(fmt::format(
                 "snapped to the same cell as design point '{}'; both get the same catchment",
-                result.points[first].id));
+                result.points[first_point_at_outlet[it->second - 1]].id));
         }
         r.label = it->second;
         if (r.snap_distance_m > settings.far_snap_warning_m) {
@@ -180,9 +178,11 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     std::vector<char> edge_local(outlets.size() + 1, 0);
-    for (std::size_t i = 0; i < dirs.size(); ++i) {
-        const std::size_t col = i % w;
-        const std::size_t row = i / w;
+    for (std::size_t i = 0, row = 0, col = 0; i < dirs.size(); ++i) {
+        if (col == w) { // row and column tracked, not divided out for each cell
+            col = 0;
+            ++row;
+        }
         if (dirs[i] == d8::none) {
             for (std::uint8_t k = 1; k <= 8; ++k) {
                 const long long nc = static_cast<long long>(col) + d8::dcol[k];
@@ -195,6 +195,7 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
         } else if (row == 0 || col == 0 || row + 1 == h || col + 1 == w) {
             edge_local[c.labels[i]] = 1;
         }
+        ++col;
     }
 
     report("slopes", 0.85);

@@ -70,25 +70,21 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                         // Inside the raster's outer ring: every neighbour is on the grid. When
                         // all are valid there is no way out to consider, and the steepest
                         // descent below gives the same code as the general loop.
+                        // Branch-free: a neighbour not lower gives a slope <= 0 and a nodata
+                        // (NaN) one gives NaN, and neither passes `s > best_in`; ties keep the
+                        // lowest code, as in the general loop.
                         double best_in = 0.0;
                         std::uint8_t best_in_k = d8::none;
                         bool all_valid = true;
                         for (std::uint8_t k = 1; k <= 8; ++k) {
                             const float zn = dem[static_cast<std::size_t>(
                                 static_cast<std::ptrdiff_t>(i) + offset[k])];
-                            if (!valid(zn)) {
-                                all_valid = false;
-                                break;
-                            }
-                            if (zn < z) {
-                                const double s =
-                                    (static_cast<double>(z) - static_cast<double>(zn)) *
-                                    inv_dist[k];
-                                if (s > best_in) {
-                                    best_in = s;
-                                    best_in_k = k;
-                                }
-                            }
+                            all_valid &= valid(zn);
+                            const double s =
+                                (static_cast<double>(z) - static_cast<double>(zn)) * inv_dist[k];
+                            const bool steeper = s > best_in;
+                            best_in = steeper ? s : best_in;
+                            best_in_k = steeper ? k : best_in_k;
                         }
                         if (all_valid) {
                             dirs[i] = best_in_k;

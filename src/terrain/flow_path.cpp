@@ -55,12 +55,16 @@ FlowPath finish_path(const Grid<std::uint8_t> &dirs, const Grid<float> &dem,
     const double dx = dirs.transform.cell_dx();
     const double dy = dirs.transform.cell_dy();
     FlowPath path;
+    std::array<double, 9> step{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        step[k] = step_length_m(k, dx, dy);
+    }
     // cells runs outlet -> top here.
     std::vector<double> dist(cells.size(), 0.0);
     std::vector<double> z(cells.size(), 0.0);
     for (std::size_t k = 0; k < cells.size(); ++k) {
         if (k > 0) {
-            dist[k] = dist[k - 1] + step_length_m(dirs[cells[k]], dx, dy);
+            dist[k] = dist[k - 1] + step[dirs[cells[k]]];
         }
         z[k] = static_cast<double>(dem[cells[k]]);
     }
@@ -150,11 +154,14 @@ FlowPath longest_flow_path(const Grid<std::uint8_t> &dirs,
     const std::size_t w = dirs.width();
     std::vector<std::size_t> cells{outlet};
     std::size_t cur = outlet;
+    // Column and row tracked along the path, not divided out for each step.
+    std::size_t row = outlet / w;
+    std::size_t col = outlet - row * w;
     while (longest_upstream[cur] != d8::none) {
         const std::uint8_t k = longest_upstream[cur];
-        const long long col = static_cast<long long>(cur % w) + d8::dcol[k];
-        const long long row = static_cast<long long>(cur / w) + d8::drow[k];
-        cur = static_cast<std::size_t>(row) * w + static_cast<std::size_t>(col);
+        col = static_cast<std::size_t>(static_cast<long long>(col) + d8::dcol[k]);
+        row = static_cast<std::size_t>(static_cast<long long>(row) + d8::drow[k]);
+        cur = row * w + col;
         cells.push_back(cur);
         if (cells.size() > dirs.size()) {
             throw InternalError("longest_flow_path: the directions contain a cycle");

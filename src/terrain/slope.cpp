@@ -14,6 +14,15 @@ namespace {
 
 constexpr double fixed_scale = 16777216.0; // 2^24: sums in units of 2^-24 m/m
 
+/// Horn's formula on the 3x3 window a b c / d e f / g h i (one expression for every caller, so
+/// the fast path and the general one give the same bits).
+inline double horn_window(double a, double b, double c, double d, double f, double g, double hh,
+                          double i, double dx, double dy) noexcept {
+    const double dzdx = ((c + 2.0 * f + i) - (a + 2.0 * d + g)) / (8.0 * dx);
+    const double dzdy = ((g + 2.0 * hh + i) - (a + 2.0 * b + c)) / (8.0 * dy);
+    return std::sqrt(dzdx * dzdx + dzdy * dzdy);
+}
+
 inline double horn_at(const Grid<float> &dem, const detail::ValidTest &valid, double dx, double dy,
                       std::size_t col, std::size_t row) {
     const std::size_t w = dem.width();
@@ -29,12 +38,50 @@ inline double horn_at(const Grid<float> &dem, const detail::ValidTest &valid, do
         const float v = dem[static_cast<std::size_t>(r) * w + static_cast<std::size_t>(c)];
         return valid(v) ? static_cast<double>(v) : e;
     };
-    const double a = z(-1, -1), b = z(0, -1), c = z(1, -1);
-    const double d = z(-1, 0), f = z(1, 0);
-    const double g = z(-1, 1), hh = z(0, 1), i = z(1, 1);
-    const double dzdx = ((c + 2.0 * f + i) - (a + 2.0 * d + g)) / (8.0 * dx);
-    const double dzdy = ((g + 2.0 * hh + i) - (a + 2.0 * b + c)) / (8.0 * dy);
-    return std::sqrt(dzdx * dzdx + dzdy * dzdy);
+    return horn_window(z(-1, -1), z(0, -1), z(1, -1), z(-1, 0), z(1, 0), z(-1, 1), z(0, 1), z(1, 1),
+                       dx, dy);
+}
+
+/// Calls slope(col, value) for every valid cell of row `row`: cells away from the raster's
+/// edge read their window without bounds checks, the others go through horn_at.
+template <typename Slope>
+inline void horn_row(const Grid<float> &dem, const detail::ValidTest &valid, double dx, double dy,
+                     std::size_t row, Slope slope) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    const auto general = [&](std::size_t c) {
+        if (valid(dem[row * w + c])) {
+            slope(c, horn_at(dem, valid, dx, dy, c, row));
+        }
+    };
+    if (row == 0 || row + 1 >= h || w < 3) {
+        for (std::size_t c = 0; c < w; ++c) {
+            general(c);
+        }
+        return;
+    }
+    general(0);
+    const float *up = &dem[(row - 1) * w];
+    const float *mid = &dem[row * w];
+    const float *down = &dem[(row + 1) * w];
+    for (std::size_t c = 1; c + 1 < w; ++c) {
+        const float ze = mid[c];
+        if (!valid(ze)) {
+            continue;
+        }
+        const double e = static_cast<double>(ze);
+        const auto z = [&](float v) { return valid(v) ? static_cast<double>(v) : e; };
+        slope(c, horn_window(z(up[c - 1]), z(up[c]), z(up[c + 1]), z(mid[c - 1]), z(mid[c + 1]),
+                             z(down[c - 1]), z(down[c]), z(down[c + 1]), dx, dy));
+    }
+    general(w - 1);
+}
+
+/// std::llround for a value >= 0 (half away from zero), without the library call: the
+/// truncation and the difference are exact for values below 2^52.
+inline std::uint64_t round_non_negative(double v) noexcept {
+    const auto t = static_cast<std::uint64_t>(v);
+    return t + (v - static_cast<double>(t) >= 0.5 ? 1U : 0U);
 }
 
 } // namespace
@@ -54,11 +101,8 @@ Grid<float> horn_slope_grid(const Grid<float> &dem, unsigned threads) {
     detail::for_row_blocks(
         dem.height(), thread_count(threads), 64, [&](std::size_t, std::size_t r0, std::size_t r1) {
             for (std::size_t r = r0; r < r1; ++r) {
-                for (std::size_t c = 0; c < w; ++c) {
-                    if (valid(dem[r * w + c])) {
-                        out[r * w + c] = static_cast<float>(horn_at(dem, valid, dx, dy, c, r));
-                    }
-                }
+                horn_row(dem, valid, dx, dy, r,
+                         [&](std::size_t c, double v) { out[r * w + c] = static_cast<float>(v); });
             }
         });
     return out;
@@ -81,17 +125,14 @@ SlopeSums slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> 
                                std::vector<std::uint64_t> s(slots, 0);
                                std::vector<std::uint64_t> n(slots, 0);
                                for (std::size_t r = r0; r < r1; ++r) {
-                                   for (std::size_t c = 0; c < w; ++c) {
-                                       const std::size_t i = r * w + c;
-                                       const std::uint32_t lab = labels[i];
-                                       if (lab > max_label || !valid(dem[i])) {
-                                           continue;
+                                   const std::uint32_t *row_labels = &labels[r * w];
+                                   horn_row(dem, valid, dx, dy, r, [&](std::size_t c, double v) {
+                                       const std::uint32_t lab = row_labels[c];
+                                       if (lab <= max_label) {
+                                           s[lab] += round_non_negative(v * fixed_scale);
+                                           ++n[lab];
                                        }
-                                       const double v = horn_at(dem, valid, dx, dy, c, r);
-                                       s[lab] += static_cast<std::uint64_t>(
-                                           std::llround(v * fixed_scale));
-                                       ++n[lab];
-                                   }
+                                   });
                                }
                                const std::lock_guard<std::mutex> lock(merge);
                                for (std::size_t k = 0; k < slots; ++k) {

@@ -28,18 +28,20 @@ SnappedPoint snap_point(const Grid<std::uint32_t> &acc, const DesignPoint &point
     const GeoTransform &t = acc.transform;
     const double fc = (point.x - t.origin_x) / t.pixel_width;
     const double fr = (point.y - t.origin_y) / t.pixel_height;
-    const std::string at =
-        fmt::format("design point '{}' at ({:.3f}, {:.3f})", point.id, point.x, point.y);
+    // Formatted only for a message: thousands of points are snapped in one run.
+    const auto at = [&] {
+        return fmt::format("design point '{}' at ({:.3f}, {:.3f})", point.id, point.x, point.y);
+    };
     if (!(fc >= 0.0 && fr >= 0.0 && fc < static_cast<double>(acc.width()) &&
           fr < static_cast<double>(acc.height()))) {
-        throw_input_error(where, at + " lies outside the DEM extent",
+        throw_input_error(where, at() + " lies outside the DEM extent",
                           "points inside the DEM extent, " +
                               extent_text(t, acc.width(), acc.height()));
     }
     const auto c0 = static_cast<std::size_t>(fc);
     const auto r0 = static_cast<std::size_t>(fr);
     if (acc(c0, r0) == 0) {
-        throw_input_error(where, at + " lies on a nodata cell of the DEM",
+        throw_input_error(where, at() + " lies on a nodata cell of the DEM",
                           "points on cells with elevation data (DEM extent " +
                               extent_text(t, acc.width(), acc.height()) + ")");
     }

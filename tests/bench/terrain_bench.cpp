@@ -122,7 +122,7 @@ catchpeak::Grid<float> read_dem(const std::string &path) {
     }
     const auto w = static_cast<std::size_t>(GDALGetRasterXSize(ds));
     const auto h = static_cast<std::size_t>(GDALGetRasterYSize(ds));
-    catchpeak::Grid<float> dem(w, h);
+    catchpeak::Grid<float> dem(w, h, catchpeak::no_fill);
     double gt[6];
     GDALGetGeoTransform(ds, gt);
     dem.transform = {gt[0], gt[1], gt[2], gt[3], gt[4], gt[5]};

@@ -22,6 +22,22 @@ TEST(Grid, RowMajorIndexing) {
     EXPECT_FALSE(g.in_bounds(0, 2));
 }
 
+TEST(Grid, UnfilledGridHasItsSizeAndKeepsWhatIsWritten) {
+    Grid<float> g(4, 3, catchpeak::no_fill);
+    EXPECT_EQ(g.width(), 4u);
+    EXPECT_EQ(g.height(), 3u);
+    ASSERT_EQ(g.size(), 12u);
+    for (std::size_t i = 0; i < g.size(); ++i) {
+        g[i] = static_cast<float>(i) * 0.5f;
+    }
+    EXPECT_EQ(g(3, 2), 5.5f);
+    // A filled grid of the same type still fills.
+    const Grid<float> filled(4, 3, 2.0f);
+    for (std::size_t i = 0; i < filled.size(); ++i) {
+        EXPECT_EQ(filled[i], 2.0f);
+    }
+}
+
 TEST(Grid, NodataValueAndNaNAreInvalid) {
     Grid<float> g(2, 2, 1.0f);
     g.nodata = -9999.0f;

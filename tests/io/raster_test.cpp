@@ -78,6 +78,36 @@ TEST(ReadDem, InternationalFeetConvertedToMetres) {
     EXPECT_NEAR(srs.GetProjParm(SRS_PP_FALSE_EASTING), 500000.0, 1e-6); // rounding of ft->m
 }
 
+TEST(ReadDem, TallRasterIsReadInStripsWithEveryRowInPlace) {
+    // 2048 columns: a read strip holds 512 rows of doubles (8 MiB), so 1100 rows take three
+    // strips; each cell holds its own row and column, so a row read into the wrong place shows.
+    const auto dir = t::scratch_dir("tall");
+    t::RasterSpec s;
+    s.width = 2048;
+    s.height = 1100;
+    s.crs_wkt = t::crs_wkt("EPSG:32633");
+    s.has_nodata = true;
+    for (int r = 0; r < s.height; ++r) {
+        for (int c = 0; c < s.width; ++c) {
+            s.values.push_back(static_cast<float>(r) + static_cast<float>(c % 8) * 0.125f);
+        }
+    }
+    s.values[700 * 2048 + 5] = -9999.0f;
+    for (const std::string unit : {"m", "ft"}) {
+        s.unit = unit;
+        const auto dem = read_dem(t::make_raster(dir / ("dem_" + unit + ".tif"), s));
+        const auto &g = dem.elevation_m;
+        ASSERT_EQ(g.height(), 1100u);
+        const double to_m = unit == "m" ? 1.0 : 0.3048; // international foot, exact
+        for (const std::size_t r : {0u, 511u, 512u, 1023u, 1024u, 1099u}) {
+            EXPECT_FLOAT_EQ(g(3, r), static_cast<float>((static_cast<double>(r) + 0.375) * to_m))
+                << unit << " row " << r;
+        }
+        EXPECT_FALSE(g.is_valid(700 * 2048 + 5)) << unit;
+        EXPECT_EQ(dem.valid_cells, 2048u * 1100u - 1u) << unit;
+    }
+}
+
 TEST(ReadDem, UsSurveyFeetWithMetreElevations) {
     const auto dir = t::scratch_dir("us_feet");
     t::RasterSpec s;
