@@ -17,6 +17,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdlib>
 #include <limits>
 #include <map>
 #include <numbers>
@@ -114,6 +115,41 @@ void fill_hillshade(const Grid<float> &dem, double min_x, double min_y, double m
             map.hillshade[static_cast<std::size_t>(j * pw + i)] = shade;
         }
     }
+}
+
+/// The DEM as given (before conditioning) along a flow path: (distance from the top in m,
+/// elevation in m), one per cell from the top to the outlet. Between two listed vertices the path
+/// runs straight (terrain::FlowPath), so its cells are found by stepping from one to the next.
+std::vector<std::pair<double, double>> flow_path_profile(const terrain::FlowPath &fp,
+                                                         const Grid<float> &dem) {
+    std::vector<std::pair<double, double>> out;
+    if (fp.cells.empty()) {
+        return out;
+    }
+    out.reserve(fp.cell_count);
+    const auto w = static_cast<long long>(dem.width());
+    const double dx = dem.transform.cell_dx();
+    const double dy = dem.transform.cell_dy();
+    const double diagonal = std::hypot(dx, dy);
+    double distance = 0.0;
+    const auto add = [&](long long row, long long col) {
+        out.emplace_back(distance,
+                         static_cast<double>(dem.cells()[static_cast<std::size_t>(row * w + col)]));
+    };
+    add(static_cast<long long>(fp.cells[0]) / w, static_cast<long long>(fp.cells[0]) % w);
+    for (std::size_t k = 1; k < fp.cells.size(); ++k) {
+        const auto a = static_cast<long long>(fp.cells[k - 1]);
+        const auto b = static_cast<long long>(fp.cells[k]);
+        const long long ra = a / w, ca = a % w, rb = b / w, cb = b % w;
+        const long long dr = (rb > ra) - (rb < ra), dc = (cb > ca) - (cb < ca);
+        const long long n = std::max(std::llabs(rb - ra), std::llabs(cb - ca));
+        const double step = (dr != 0 && dc != 0) ? diagonal : (dr != 0 ? dy : dx);
+        for (long long i = 1; i <= n; ++i) {
+            distance += step;
+            add(ra + i * dr, ca + i * dc);
+        }
+    }
+    return out;
 }
 
 report::MapData make_map(const Delineation &d, std::size_t i) {
@@ -345,6 +381,9 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         in.longest_flow_path_m = fp.length_m;
         in.slope = fp.slope_m_per_m;
         in.mean_slope = pt.mean_slope_m_per_m;
+        in.profile = flow_path_profile(fp, d.dem.elevation_m);
+        in.profile_source = "DEM as given (before conditioning), along the longest flow path; "
+                            "elevations linear between cell centres";
         if (std::isfinite(dp.land.c_weighted)) {
             in.c = dp.land.c_weighted;
         }

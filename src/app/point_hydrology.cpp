@@ -204,13 +204,58 @@ double overland_length_m(const Project &p, const PointInputs &in, const std::str
     return l1;
 }
 
-/// The note that every segment takes the slope of the longest flow path.
-void segment_slope_note(const PointInputs &in, bool us, CalcLines &lines) {
-    lines.note("Slope of every segment",
-               fmt::format("s = slope of the longest flow path = {} {} (the inputs give no "
-                           "slope per segment)",
-                           sig(in.slope), us ? "ft/ft" : "m/m"),
-               in.source, in.slope, us ? "ft/ft" : "m/m");
+/// The elevation at `distance_m` from the top of the flow path, linear between the profile's
+/// cells (the profile is not empty).
+double profile_elevation_m(const std::vector<std::pair<double, double>> &profile,
+                           double distance_m) {
+    if (distance_m <= profile.front().first) {
+        return profile.front().second;
+    }
+    if (distance_m >= profile.back().first) {
+        return profile.back().second;
+    }
+    const auto hi =
+        std::lower_bound(profile.begin(), profile.end(), distance_m,
+                         [](const std::pair<double, double> &s, double d) { return s.first < d; });
+    const auto lo = hi - 1;
+    const double t = (distance_m - lo->first) / (hi->first - lo->first);
+    return lo->second + t * (hi->second - lo->second);
+}
+
+/// The slope of the part of the flow path from `from_m` to `to_m` (distances from its top):
+/// from the DEM profile when there is one and it falls along the segment, else the slope of
+/// the whole flow path. Lines say which.
+double segment_slope(const PointInputs &in, bool us, const std::string &segment, double from_m,
+                     double to_m, CalcLines &lines) {
+    const char *su = us ? "ft/ft" : "m/m";
+    if (in.profile.size() < 2 || !(to_m > from_m)) {
+        lines.note(fmt::format("Slope, {}", segment),
+                   fmt::format("s = slope of the longest flow path = {} {} (the inputs give no "
+                               "slope per segment)",
+                               sig(in.slope), su),
+                   in.source, in.slope, su);
+        return in.slope;
+    }
+    const double z0 = profile_elevation_m(in.profile, from_m);
+    const double z1 = profile_elevation_m(in.profile, to_m);
+    const double s = (z0 - z1) / (to_m - from_m);
+    const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
+    const char *lu = us ? "ft" : "m";
+    if (!(s > 0.0)) {
+        lines.warn(fmt::format("Slope, {}: not downhill on the DEM", segment),
+                   fmt::format("the DEM falls {} {} over this segment ({} {} at {} {} from the "
+                               "top, {} {} at {} {}): an embankment, a pit or a flat on the DEM "
+                               "as given; the slope of the whole flow path, {} {}, is used",
+                               sig(len(z0 - z1)), lu, sig(len(z0)), lu, sig(len(from_m)), lu,
+                               sig(len(z1)), lu, sig(len(to_m)), lu, sig(in.slope), su),
+                   in.profile_source);
+        return in.slope;
+    }
+    lines.calc(
+        fmt::format("Slope, {}", segment), "s = (Z start - Z end) / length",
+        fmt::format("s = ({} - {}) / {}", sig(len(z0)), sig(len(z1)), sig(len(to_m - from_m))), s,
+        su, in.profile_source);
+    return s;
 }
 
 /// TR-55 segmental tc (TR-55 ch. 3): sheet, shallow concentrated and channel flow along the
@@ -225,7 +270,6 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
     lines.note("Time of concentration, TR-55 segmental",
                "tc = sum of the travel times of sheet, shallow concentrated and channel flow",
                "TR-55 (1986) ch. 3");
-    segment_slope_note(in, us, lines);
     const double l = in.longest_flow_path_m;
     const double l1 = overland_length_m(p, in, "Sheet flow length", lines);
     double l2 = l - l1;
@@ -265,13 +309,14 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
         const auto limit = p.settings.sheet_flow_max_length_m <= units::ft_to_m(100.0) + 1e-9
                                ? hydro::SheetFlowLimit::neh630_100_ft
                                : hydro::SheetFlowLimit::tr55_300_ft;
-        auto t =
-            hydro::sheet_flow_tt_min(sp.sheet_manning_n, l1, p2_mm, in.slope, limit, p.info.units);
+        const double s1 = segment_slope(in, us, "sheet flow", 0.0, l1, lines);
+        auto t = hydro::sheet_flow_tt_min(sp.sheet_manning_n, l1, p2_mm, s1, limit, p.info.units);
         lines.append(t.lines);
         times.push_back(t.value);
     }
     if (l2 > 0.0) {
-        auto t = hydro::shallow_flow_tt_min(l2, in.slope,
+        const double s2 = segment_slope(in, us, "shallow concentrated flow", l1, l1 + l2, lines);
+        auto t = hydro::shallow_flow_tt_min(l2, s2,
                                             sp.shallow_surface == "paved"
                                                 ? hydro::ShallowSurface::paved
                                                 : hydro::ShallowSurface::unpaved,
@@ -289,9 +334,9 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
                                     sig(sp.channel_wetted_perimeter_m)),
                    params + ": channel_manning_n, channel_flow_area_m2, "
                             "channel_wetted_perimeter_m");
-        auto t =
-            hydro::channel_flow_tt_min(sp.channel_manning_n, sp.channel_flow_area_m2,
-                                       sp.channel_wetted_perimeter_m, in.slope, l3, p.info.units);
+        const double s3 = segment_slope(in, us, "channel flow", l1 + l2, l, lines);
+        auto t = hydro::channel_flow_tt_min(sp.channel_manning_n, sp.channel_flow_area_m2,
+                                            sp.channel_wetted_perimeter_m, s3, l3, p.info.units);
         lines.append(t.lines);
         times.push_back(t.value);
     }
@@ -308,7 +353,6 @@ double kerby_kirpich_tc_min(const Project &p, const PointInputs &in, const Kerby
     const char *lu = us ? "ft" : "m";
     lines.note("Time of concentration, Kerby-Kirpich",
                "tc = tov (Kerby, overland flow) + tch (Kirpich, channel flow)", txdot_kk);
-    segment_slope_note(in, us, lines);
     const double l = in.longest_flow_path_m;
     const double l1 = overland_length_m(p, in, "Overland flow length", lines);
     const double l2 = l - l1;
@@ -317,14 +361,16 @@ double kerby_kirpich_tc_min(const Project &p, const PointInputs &in, const Kerby
                            "table in the TxDOT Hydraulic Design Manual ch. 4)",
                            p.file.filename().string()),
                kp.retardance_n);
-    auto ov = hydro::kerby_tov_min(l1, kp.retardance_n, in.slope, p.info.units);
+    const double s1 = segment_slope(in, us, "overland flow", 0.0, l1, lines);
+    auto ov = hydro::kerby_tov_min(l1, kp.retardance_n, s1, p.info.units);
     lines.append(ov.lines);
     double tch = 0.0;
     if (l2 > 0.0) {
         lines.calc("Channel flow length", "L2 = L - L1",
                    fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
                    sheet_length(l2, us), lu, split_source);
-        auto ch = hydro::kirpich_tc_min(l2, in.slope, in.area_m2, p.info.units);
+        const double s2 = segment_slope(in, us, "channel flow", l1, l, lines);
+        auto ch = hydro::kirpich_tc_min(l2, s2, in.area_m2, p.info.units);
         lines.append(ch.lines);
         tch = ch.value;
     }

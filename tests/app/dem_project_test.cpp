@@ -14,6 +14,7 @@
 #include <nlohmann/json.hpp>
 
 #include <fstream>
+#include <map>
 #include <sstream>
 
 namespace fs = std::filesystem;
@@ -104,4 +105,55 @@ TEST(DemProject, CheckValidatesWithoutWritingAnything) {
     catchpeak::app::check_project_file(project, out);
     EXPECT_NE(out.str().find("no problems found"), std::string::npos);
     EXPECT_FALSE(fs::exists(dir / "out"));
+}
+
+TEST(DemProject, SegmentalTcTakesEachSegmentsSlopeFromTheDem) {
+    // The longest flow path of DP-OUT starts on the head row at a ridge cell 15 columns from the
+    // axis, runs 15 cells (150 m) across to the axis on the side slope of 2 m per 10 m cell
+    // (0.2), then 49 cells (490 m) down the axis at 0.5 m per cell (0.05) to row 54: L = 640 m,
+    // a fall of 30 + 24.5 m (geometry of dem_project_data.hpp, computed by hand).
+    // Split: sheet flow 0-30.48 m (setting), shallow 30.48-130.48 m (shallow_length_m = 100):
+    // both on the side slope, s = 0.2. Channel 130.48-640 m: (0.2 x 19.52 + 0.05 x 490) /
+    // 509.52.
+    const auto dir = t::scratch_dir("dem_project_segments");
+    const auto project = t::make_dem_project(dir);
+    std::string text;
+    {
+        std::ifstream in(project);
+        std::ostringstream s;
+        s << in.rdbuf();
+        text = s.str();
+    }
+    const auto swap = [&](const std::string &from, const std::string &to) {
+        const auto at = text.find(from);
+        ASSERT_NE(at, std::string::npos) << from;
+        text.replace(at, from.size(), to);
+    };
+    swap("tc = \"kirpich\"", "tc = \"tr55_segmental\"");
+    swap("return_periods_yr = [2, 10]", "return_periods_yr = [2, 10]\nstorm_type = \"II\"\n"
+                                        "depths_24h_mm = { \"2\" = 80.0, \"10\" = 120.0 }");
+    swap("[settings]", "[methods.tr55_segmental]\nshallow_length_m = 100.0\n\n[settings]");
+    std::ofstream(project) << text;
+
+    std::ostringstream out;
+    std::ostringstream err;
+    catchpeak::app::RunOptions o;
+    o.quiet = true;
+    o.run_time_utc = "2026-01-01T00:00:00Z";
+    const fs::path written = catchpeak::app::run_project(project, o, out, err);
+    const auto doc = read_json(written / "results.json");
+    const auto &p = point(doc, "DP-OUT");
+    EXPECT_NEAR(p.at("catchment").at("longest_flow_path_m").get<double>(), 640.0, 1e-9);
+    std::map<std::string, double> slope;
+    for (const auto &l : p.at("lines")) {
+        const std::string label = l.at("label");
+        if (label.rfind("Slope, ", 0) == 0 && l.at("kind") == "calculation") {
+            slope[label] = l.at("value").get<double>();
+        }
+    }
+    ASSERT_EQ(slope.size(), 3u) << p.at("lines").dump(1);
+    // Elevations are float32 in the DEM: about 1e-5 m of rounding on 100-160 m.
+    EXPECT_NEAR(slope.at("Slope, sheet flow"), 0.2, 1e-6);
+    EXPECT_NEAR(slope.at("Slope, shallow concentrated flow"), 0.2, 1e-6);
+    EXPECT_NEAR(slope.at("Slope, channel flow"), (0.2 * 19.52 + 0.05 * 490.0) / 509.52, 1e-6);
 }

@@ -36,6 +36,12 @@ struct PointInputs {
     std::vector<LandPart> land_parts; ///< empty: no area-weighted runoff alternative
     std::optional<double> tc_min;     ///< a tc given in the catchment input
     std::string source;               ///< source text for the input notes
+    /// Elevations along the longest flow path, (distance from its top in m, elevation in m),
+    /// one per cell from the top to the outlet, when the catchment comes from a DEM: the
+    /// segmental tc methods then take each segment's own slope. Empty: every segment takes
+    /// `slope`.
+    std::vector<std::pair<double, double>> profile;
+    std::string profile_source; ///< source text for elevations read off the profile
     /// Whether the lines begin by restating A, L, S, C and CN. Off where earlier lines of the
     /// same design point already give them (the terrain and land lines of a DEM project).
     bool restate_inputs = true;
