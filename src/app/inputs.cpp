@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/inputs.hpp"
 
+#include "catchpeak/app/point_hydrology.hpp"
+
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/csv.hpp"
@@ -260,6 +262,7 @@ void check_project(const Project &p, Problems &problems) {
     if (p.rainfall.idf) {
         collect(problems, [&] {
             const rain::Idf idf = io::read_idf_csv(p.rainfall.idf->resolved);
+            check_storm_idf(p, idf, problems);
             const auto have = idf.return_periods_yr();
             for (double rp : p.rainfall.return_periods_yr) {
                 if (std::find(have.begin(), have.end(), rp) == have.end()) {

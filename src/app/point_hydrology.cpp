@@ -551,7 +551,33 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         if (!scs) {
             continue;
         }
-        const double p_mm = design_depth_24h_mm(p, tables, rp, lines, ams_shown);
+        // The design storm: the alternating block from the IDF (then only the unit hydrograph
+        // uses it: the project refuses it with the TR-55 graphical method), or the 24-hour depth
+        // of the NRCS storm.
+        std::optional<rain::Hyetograph> block_storm;
+        double p_mm = 0.0;
+        if (p.rainfall.alternating_block()) {
+            if (tables.idf == nullptr) {
+                throw InternalError("IDF not loaded for the alternating-block storm");
+            }
+            auto storm = rain::alternating_block_hyetograph(
+                *tables.idf, p.rainfall.storm_duration_min, p.settings.storm_time_step_min, rp,
+                p.info.units);
+            lines.append(storm.lines);
+            if (p.rainfall.storm_duration_min < tc) {
+                lines.warn("Storm shorter than the time of concentration",
+                           fmt::format("the alternating-block storm lasts {} min, less than tc = "
+                                       "{} min: rain from the whole catchment does not reach the "
+                                       "design point at once and the peak may be too low; choose "
+                                       "a storm_duration_min of at least tc",
+                                       sig(p.rainfall.storm_duration_min), sig(tc)),
+                           "common practice, no source");
+            }
+            p_mm = storm.value.total_mm();
+            block_storm = std::move(storm.value);
+        } else {
+            p_mm = design_depth_24h_mm(p, tables, rp, lines, ams_shown);
+        }
         const double cn = *in.cn;
         auto runoff = hydro::cn_runoff(p_mm, cn, p.info.units, ratio);
         lines.append(runoff.lines);
@@ -587,11 +613,14 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             dp.peaks.push_back(std::move(pk));
         }
         if (uses("scs_unit_hydrograph")) {
-            if (tables.unit_hydrograph == nullptr || tables.storm == nullptr) {
+            if (tables.unit_hydrograph == nullptr || (!block_storm && tables.storm == nullptr)) {
                 throw InternalError("unit hydrograph or storm table not loaded");
             }
             const double step_min = p.settings.storm_time_step_min;
-            auto rain = rain::storm_hyetograph(*tables.storm, p_mm, step_min, p.info.units);
+            // The alternating block's lines are on the sheet already, before the runoff.
+            auto rain = block_storm
+                            ? WithLines<rain::Hyetograph>{*block_storm, {}}
+                            : rain::storm_hyetograph(*tables.storm, p_mm, step_min, p.info.units);
             lines.append(rain.lines);
             auto h = hydro::unit_hydrograph_from_rainfall(*tables.unit_hydrograph, rain.value, cn,
                                                           in.area_m2, tc, p.info.units, {}, ratio);
@@ -647,6 +676,31 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     }
 }
 
+void check_storm_idf(const Project &p, const rain::Idf &idf, Problems &problems) {
+    const Rainfall &r = p.rainfall;
+    const auto range = idf.duration_range_min();
+    if (!r.alternating_block() || !(r.storm_duration_min > 0.0) || !range) {
+        return;
+    }
+    const double dt = p.settings.storm_time_step_min;
+    const double td = r.storm_duration_min;
+    const auto [lo, hi] = *range;
+    // Relative 1e-9: a duration equal to a table's end, written with other digits, is inside.
+    if (dt >= lo * (1.0 - 1e-9) && td <= hi * (1.0 + 1e-9)) {
+        return;
+    }
+    problems.add(input_message(
+        fmt::format("{}:{}: [rainfall] storm_duration_min", p.file.string(), r.storm_duration_line),
+        fmt::format("the alternating-block storm of {} min in blocks of {} min needs intensities "
+                    "of the IDF '{}' from {} to {} min, but the IDF covers {} to {} min only; it "
+                    "is not extrapolated",
+                    sig(td), sig(dt), r.idf ? r.idf->given : idf.name(), sig(dt), sig(td), sig(lo),
+                    sig(hi)),
+        fmt::format("a storm_duration_min of at most {} min and a [settings] storm_time_step_min "
+                    "of at least {} min, or an IDF that covers {} to {} min",
+                    sig(hi), sig(lo), sig(dt), sig(td))));
+}
+
 HydrologyTables LoadedTables::view() const {
     HydrologyTables t;
     t.idf = idf ? &*idf : nullptr;
@@ -685,6 +739,8 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
     if (p.uses_method("scs_unit_hydrograph")) {
         read("dimensionless unit hydrograph", "scs_dimensionless_unit_hydrograph.csv",
              io::read_dimensionless_unit_hydrograph, t.unit_hydrograph);
+    }
+    if (p.uses_method("scs_unit_hydrograph") && !p.rainfall.alternating_block()) {
         const auto file = io::nrcs_storm_file(config, p.rainfall.storm_type);
         t.storm = io::read_storm_table(file);
         t.config_files.emplace_back("design storm",
@@ -706,6 +762,8 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
     const std::string neh630 =
         "USDA Natural Resources Conservation Service. National Engineering Handbook Part 630 "
         "Hydrology, ";
+    const std::string chow_1988 = "Chow, V.T., Maidment, D.R. and Mays, L.W. (1988). Applied "
+                                  "Hydrology. McGraw-Hill, New York.";
     const std::string tr55 = "USDA Soil Conservation Service (1986). Urban Hydrology for Small "
                              "Watersheds, Technical Release 55 (TR-55), 2nd ed., June 1986.";
     if (dp.tc_method == "kirpich") {
@@ -741,9 +799,13 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
         } else if (pk.method == "scs_unit_hydrograph") {
             add("TR-55 (1986)", tr55);
             add("NEH 630 ch. 16 (2007)", neh630 + "chapter 16 Hydrographs (2007).");
-            add("TP-149 (1973)", "USDA Soil Conservation Service (1973). A Method for Estimating "
-                                 "Volume and Rate of Runoff in Small Watersheds, Technical Paper "
-                                 "149 (TP-149), rev. April 1973.");
+            if (p.rainfall.alternating_block()) {
+                add("Chow, Maidment & Mays (1988)", chow_1988);
+            } else {
+                add("TP-149 (1973)", "USDA Soil Conservation Service (1973). A Method for "
+                                     "Estimating Volume and Rate of Runoff in Small Watersheds, "
+                                     "Technical Paper 149 (TP-149), rev. April 1973.");
+            }
         }
     }
     const bool ams = std::any_of(dp.lines.lines().begin(), dp.lines.lines().end(), [](auto &l) {
@@ -762,8 +824,7 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
             "extreme-value distribution by the method of probability-weighted moments. "
             "Technometrics 27(3), 251-261.");
     } else if (ams) {
-        add("Chow, Maidment & Mays (1988)", "Chow, V.T., Maidment, D.R. and Mays, L.W. (1988). "
-                                            "Applied Hydrology. McGraw-Hill, New York.");
+        add("Chow, Maidment & Mays (1988)", chow_1988);
     }
 }
 

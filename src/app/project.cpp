@@ -422,6 +422,14 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     if (auto s = t.choice("storm_type", {"I", "IA", "II", "III"})) {
         r.storm_type = *s;
     }
+    r.design_storm_line = t.line_of("design_storm");
+    if (auto d = t.choice("design_storm", {"nrcs_24h", "alternating_block"})) {
+        r.design_storm = *d;
+    } else if (r.design_storm_line != 0) {
+        r.design_storm.clear(); // reported; no rule of either storm applies
+    }
+    r.storm_duration_min = t.number("storm_duration_min", 0.0, 1440.0, false).value_or(0.0);
+    r.storm_duration_line = t.line_of("storm_duration_min");
     for (const auto &[key, factor] :
          {std::pair<std::string, double>{"depths_24h_mm", 1.0}, {"depths_24h_in", 25.4}}) {
         const toml::node *n = t.get(key);
@@ -567,7 +575,7 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
     (void)p;
 }
 
-void read_settings(TableReader &t, Settings &s) {
+void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {
     s.snap_radius_m = t.number("snap_radius_m", 0.0, 10000.0).value_or(s.snap_radius_m);
     s.minimum_tc_min = t.number("minimum_tc_min", 0.0, 60.0).value_or(s.minimum_tc_min);
     s.rational_area_limit_ha =
@@ -590,7 +598,8 @@ void read_settings(TableReader &t, Settings &s) {
     s.pond_swamp_line = t.line_of("pond_swamp_percent");
     if (auto step = t.number("storm_time_step_min", 0.0, 60.0, false)) {
         const double steps = 1440.0 / *step;
-        if (std::abs(steps - std::round(steps)) > 1e-9 * steps) {
+        // The alternating block's duration is divided instead (check_design_storm).
+        if (!rain.alternating_block() && std::abs(steps - std::round(steps)) > 1e-9 * steps) {
             t.problem(*t.get("storm_time_step_min"), "storm_time_step_min",
                       fmt::format("{} min does not divide the 24-hour storm into whole steps "
                                   "(1440 / {} = {})",
@@ -602,6 +611,62 @@ void read_settings(TableReader &t, Settings &s) {
     }
     s.storm_time_step_line = t.line_of("storm_time_step_min");
     t.finish();
+}
+
+/// The keys of the design storm fit together: the alternating block has a duration and an IDF
+/// and is not used with the TR-55 graphical method; a duration is only given with it.
+void check_design_storm(const Project &p, Problems &problems) {
+    const std::string name = p.file.string();
+    const Rainfall &r = p.rainfall;
+    if (!r.alternating_block()) {
+        if (r.design_storm == "nrcs_24h" && r.storm_duration_line != 0) {
+            problems.add(input_message(
+                fmt::format("{}:{}: [rainfall] storm_duration_min", name, r.storm_duration_line),
+                "a storm duration is given but the design storm is the NRCS 24-hour storm",
+                "'storm_duration_min' only with design_storm = \"alternating_block\""));
+        }
+        return;
+    }
+    const std::string at = fmt::format("{}:{}: [rainfall] design_storm", name, r.design_storm_line);
+    if (r.storm_duration_line == 0) {
+        problems.add(input_message(at,
+                                   "the alternating-block storm needs a duration, none is given",
+                                   "storm_duration_min = <minutes>, e.g. 60 to 1440, within the "
+                                   "durations of the IDF"));
+    } else if (r.storm_duration_min > 0.0) {
+        const double step = p.settings.storm_time_step_min;
+        const double blocks = r.storm_duration_min / step;
+        if (std::abs(blocks - std::round(blocks)) > 1e-9 * blocks || std::round(blocks) < 1.0) {
+            const bool given = p.settings.storm_time_step_line != 0;
+            problems.add(input_message(
+                given ? fmt::format("{}:{}: [settings] storm_time_step_min", name,
+                                    p.settings.storm_time_step_line)
+                      : fmt::format("{}:{}: [rainfall] storm_duration_min", name,
+                                    r.storm_duration_line),
+                fmt::format("the storm duration of {} min is not a whole number of blocks of {} "
+                            "min{} ({} / {} = {})",
+                            r.storm_duration_min, step,
+                            given ? "" : " (the default storm_time_step_min)", r.storm_duration_min,
+                            step, blocks),
+                "a storm_duration_min that [settings] storm_time_step_min divides, e.g. " +
+                    fmt::format("{} min", std::max(1.0, std::round(blocks)) * step)));
+        }
+    }
+    if (!r.idf) {
+        problems.add(input_message(at,
+                                   "the alternating-block storm is built from the IDF, none "
+                                   "is given",
+                                   "idf = \"<file>.csv\" covering the storm duration"));
+    }
+    if (p.uses_method("tr55_graphical")) {
+        problems.add(input_message(
+            at,
+            "the TR-55 graphical method cannot use the alternating-block storm: its unit peak "
+            "discharge table was derived for the NRCS 24-hour rainfall distributions (Type I, "
+            "IA, II, III) only (TR-55 1986, ch. 4)",
+            "design_storm = \"nrcs_24h\" with tr55_graphical, or the peak methods \"rational\" "
+            "and \"scs_unit_hydrograph\" with the alternating-block storm"));
+    }
 }
 
 } // namespace
@@ -649,7 +714,7 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
     }
     if (const auto *t = sub_table(top, "settings")) {
         TableReader r(*t, "settings", name, problems);
-        read_settings(r, p.settings);
+        read_settings(r, p.rainfall, p.settings);
     }
     p.output_dir = p.dir / "reports" / "latest";
     if (const auto *t = sub_table(top, "output")) {
@@ -675,13 +740,18 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
             section_hint));
     }
     // Methods that need what the project does not give.
-    const bool scs = p.uses_method("tr55_graphical") || p.uses_method("scs_unit_hydrograph");
+    check_design_storm(p, problems);
+    // The NRCS 24-hour storm (its type and 24-hour depths) is needed by the TR-55 graphical
+    // method always, and by the unit hydrograph unless the storm is the alternating block.
+    const bool nrcs_storm =
+        p.uses_method("tr55_graphical") ||
+        (p.uses_method("scs_unit_hydrograph") && !p.rainfall.alternating_block());
     if (p.uses_method("rational") && !p.rainfall.idf) {
         problems.add(input_message(name + ": [rainfall] idf",
                                    "the Rational Method needs an IDF table, none is given",
                                    "idf = \"<file>.csv\""));
     }
-    if (scs && p.rainfall.depth_24h_mm.empty() && !p.rainfall.annual_maximum_series) {
+    if (nrcs_storm && p.rainfall.depth_24h_mm.empty() && !p.rainfall.annual_maximum_series) {
         problems.add(input_message(
             name + ": [rainfall]",
             "the SCS Curve Number methods need 24-hour depths, none are given",
@@ -694,12 +764,12 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
             "TR-55 sheet flow needs the 2-year 24-hour rainfall depth P2, none is given",
             "a \"2\" entry in depths_24h_mm or depths_24h_in, or annual_maximum_series"));
     }
-    if (scs && p.rainfall.storm_type.empty()) {
+    if (nrcs_storm && p.rainfall.storm_type.empty()) {
         problems.add(input_message(name + ": [rainfall] storm_type",
                                    "the SCS Curve Number methods need a storm type",
                                    "\"I\", \"IA\", \"II\" or \"III\""));
     }
-    if (scs && !p.rainfall.depth_24h_mm.empty()) {
+    if (nrcs_storm && !p.rainfall.depth_24h_mm.empty()) {
         for (double rp : p.rainfall.return_periods_yr) {
             if (p.rainfall.depth_24h_mm.count(rp) == 0) {
                 problems.add(input_message(

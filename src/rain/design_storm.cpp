@@ -18,6 +18,11 @@ namespace {
 constexpr const char *chow_ab =
     "Chow, Maidment & Mays (1988), Applied Hydrology, sec. 14.4 (alternating block method)";
 
+/// Block depth lines on the sheet: every block of a storm of at most `max_block_lines` blocks,
+/// else the first `few_block_lines` (the largest, for an IDF whose increments decrease).
+constexpr std::size_t max_block_lines = 12;
+constexpr std::size_t few_block_lines = 6;
+
 std::string where_storm(const StormDistribution &d) {
     return fmt::format("storm distribution '{}'", d.name);
 }
@@ -210,77 +215,126 @@ WithLines<Hyetograph> alternating_block_hyetograph(const Idf &idf, double durati
                           "a duration > 0 min");
     }
     const std::size_t n = whole_steps(duration_min, step_min, where, "storm duration");
-    WithLines<Hyetograph> out{{}, {}};
-    auto &lines = out.lines;
-    const auto unit = depth_unit(sheet_units);
-    lines.note("Design storm",
-               fmt::format("alternating block, {} yr, duration {} min in {} blocks of {} min; "
-                           "largest block at block {} of {}",
-                           sig(return_period_yr), sig(duration_min), n, sig(step_min),
-                           (n - 1) / 2 + 1, n),
-               chow_ab);
+    auto duration_of = [&](std::size_t k) {
+        return k == n ? duration_min : static_cast<double>(k) * step_min;
+    };
     // Cumulative depths D_k = i(k dt) k dt, mm.
     std::vector<double> cumulative(n + 1, 0.0);
     for (std::size_t k = 1; k <= n; ++k) {
-        const double t_min = k == n ? duration_min : static_cast<double>(k) * step_min;
-        const double i = idf.intensity_mm_per_h(t_min, return_period_yr);
-        cumulative[k] = i * units::min_to_h(t_min);
+        const double t_min = duration_of(k);
+        cumulative[k] = idf.intensity_mm_per_h(t_min, return_period_yr) * units::min_to_h(t_min);
         if (cumulative[k] < cumulative[k - 1]) {
             throw_input_error(where,
                               fmt::format("the IDF depth falls from {} mm at {} min to {} mm at "
                                           "{} min, so a block would be negative",
-                                          sig(cumulative[k - 1]),
-                                          sig(static_cast<double>(k - 1) * step_min),
+                                          sig(cumulative[k - 1]), sig(duration_of(k - 1)),
                                           sig(cumulative[k]), sig(t_min)),
                               "an IDF whose depth i t grows with the duration");
         }
     }
+    // Increment k (by duration, from 0) and its rank by size (0: the largest; ties keep the
+    // order of duration).
     std::vector<double> increments(n);
-    for (std::size_t k = 1; k <= n; ++k) {
-        increments[k - 1] = cumulative[k] - cumulative[k - 1];
+    for (std::size_t k = 0; k < n; ++k) {
+        increments[k] = cumulative[k + 1] - cumulative[k];
     }
+    std::vector<std::size_t> by_size(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        by_size[k] = k;
+    }
+    std::stable_sort(by_size.begin(), by_size.end(),
+                     [&](std::size_t a, std::size_t b) { return increments[a] > increments[b]; });
     const bool already_descending =
         std::is_sorted(increments.begin(), increments.end(), std::greater<>());
-    // Line for the first block: i(dt) dt, and for the whole storm: i(Td) Td.
-    const auto first = idf.intensity(step_min, return_period_yr, sheet_units);
-    lines.append(first.lines);
-    lines.calc(already_descending ? "Largest block depth" : "First block depth", "dD_1 = i(dt) dt",
-               fmt::format("dD_1 = {} x {} / 60", sig(mm_h_to_sheet(first.value, sheet_units)),
-                           sig(step_min)),
-               mm_to_sheet(cumulative[1], sheet_units), unit, chow_ab);
-    if (n > 1) {
-        const auto last = idf.intensity(duration_min, return_period_yr, sheet_units);
-        lines.append(last.lines);
-        lines.calc("Storm depth", "D = i(Td) Td",
-                   fmt::format("D = {} x {} / 60", sig(mm_h_to_sheet(last.value, sheet_units)),
-                               sig(duration_min)),
-                   mm_to_sheet(cumulative[n], sheet_units), unit, chow_ab);
+    // Block positions by rank: centre, then right, left, right, ...
+    const std::size_t centre = (n - 1) / 2;
+    std::vector<std::size_t> position_of_rank{centre};
+    position_of_rank.reserve(n);
+    std::size_t right = centre + 1;
+    std::size_t left = centre; // the next left position is left - 1
+    bool go_right = true;
+    for (std::size_t r = 1; r < n; ++r) {
+        position_of_rank.push_back(((go_right && right < n) || left == 0) ? right++ : --left);
+        go_right = !go_right;
     }
+    std::vector<std::size_t> position(n); // of increment k
+    for (std::size_t r = 0; r < n; ++r) {
+        position[by_size[r]] = position_of_rank[r];
+    }
+    WithLines<Hyetograph> out{{}, {}};
+    out.value.step_s = units::min_to_s(step_min);
+    out.value.depth_mm.assign(n, 0.0);
+    for (std::size_t k = 0; k < n; ++k) {
+        out.value.depth_mm[position[k]] = increments[k];
+    }
+
+    auto &lines = out.lines;
+    const auto unit = depth_unit(sheet_units);
+    lines.note("Design storm",
+               fmt::format("alternating block, {} yr, duration Td = {} min in {} blocks of "
+                           "dt = {} min: block depths from the IDF, the largest in the middle of "
+                           "the storm (block {} of {}, {} to {} min), the others in descending "
+                           "order alternately right and left of it",
+                           sig(return_period_yr), sig(duration_min), n, sig(step_min), centre + 1,
+                           n, sig(static_cast<double>(centre) * step_min),
+                           sig(static_cast<double>(centre + 1) * step_min)),
+               chow_ab);
+    // The intensity lines of i(k dt), each shown once.
+    std::vector<double> i_sheet(n + 1, 0.0);
+    std::vector<bool> shown(n + 1, false);
+    auto intensity_at = [&](std::size_t k) {
+        if (!shown[k]) {
+            auto i = idf.intensity(duration_of(k), return_period_yr, sheet_units);
+            lines.append(i.lines);
+            i_sheet[k] = i.value;
+            shown[k] = true;
+        }
+        return mm_h_to_sheet(i_sheet[k], sheet_units);
+    };
+    // Every block when there are few; else the first ones (the largest for the usual IDF).
+    const std::size_t block_lines = n <= max_block_lines ? n : few_block_lines;
+    for (std::size_t k = 1; k <= block_lines; ++k) {
+        const double t1 = static_cast<double>(position[k - 1]) * step_min;
+        const std::string label = fmt::format("Block depth {} of {}, placed {} to {} min", k, n,
+                                              sig(t1), sig(t1 + step_min));
+        const double now = intensity_at(k);
+        if (k == 1) {
+            lines.calc(label, "dD_1 = i(dt) dt",
+                       fmt::format("dD_1 = {} x {} / 60", sig(now), sig(duration_of(1))),
+                       mm_to_sheet(increments[0], sheet_units), unit, chow_ab);
+            continue;
+        }
+        const double before = intensity_at(k - 1);
+        lines.calc(label, "dD_k = i(k dt) k dt - i((k-1) dt) (k-1) dt",
+                   fmt::format("dD_{} = {} x {} / 60 - {} x {} / 60", k, sig(now),
+                               sig(duration_of(k)), sig(before), sig(duration_of(k - 1))),
+                   mm_to_sheet(increments[k - 1], sheet_units), unit, chow_ab);
+    }
+    if (block_lines < n) {
+        lines.note("Other blocks",
+                   fmt::format("blocks {} to {} likewise, dD_k = i(k dt) k dt - i((k-1) dt) "
+                               "(k-1) dt, the smallest {} {}; all are drawn on the hyetograph",
+                               block_lines + 1, n,
+                               sig(mm_to_sheet(increments[by_size.back()], sheet_units)), unit),
+                   chow_ab);
+    }
+    const double i_total = intensity_at(n);
+    lines.calc("Storm depth", "D = i(Td) Td",
+               fmt::format("D = {} x {} / 60", sig(i_total), sig(duration_min)),
+               mm_to_sheet(cumulative[n], sheet_units), unit, chow_ab);
     if (!already_descending) {
-        std::stable_sort(increments.begin(), increments.end(), std::greater<>());
         lines.note("Blocks reordered",
                    fmt::format("the depth increments of the IDF do not decrease steadily with "
                                "duration; they are sorted, largest first ({} {}), before being "
                                "placed",
-                               sig(mm_to_sheet(increments.front(), sheet_units)), unit),
+                               sig(mm_to_sheet(increments[by_size.front()], sheet_units)), unit),
                    chow_ab);
     }
-    // Place the increments: centre, then right, left, right, ...
-    out.value.step_s = units::min_to_s(step_min);
-    out.value.depth_mm.assign(n, 0.0);
-    const std::size_t centre = (n - 1) / 2;
-    std::size_t right = centre + 1;
-    std::size_t left = centre; // the next left position is left - 1
-    out.value.depth_mm[centre] = increments[0];
-    bool go_right = true;
-    for (std::size_t k = 1; k < n; ++k) {
-        if ((go_right && right < n) || left == 0) {
-            out.value.depth_mm[right++] = increments[k];
-        } else {
-            out.value.depth_mm[--left] = increments[k];
-        }
-        go_right = !go_right;
-    }
+    const double peak_mm = increments[by_size.front()];
+    lines.calc(
+        "Peak intensity of the design storm", "i = dD_max / dt",
+        fmt::format("i = {} / ({} / 60)", sig(mm_to_sheet(peak_mm, sheet_units)), sig(step_min)),
+        mm_h_to_sheet(peak_mm / units::min_to_h(step_min), sheet_units), unit + "/h", chow_ab);
     return out;
 }
 

@@ -320,6 +320,17 @@ std::vector<double> Idf::return_periods_yr() const {
     return rp;
 }
 
+std::optional<std::pair<double, double>> Idf::duration_range_min() const {
+    if (const auto *t = std::get_if<IdfTable>(&data_)) {
+        return std::pair{t->durations_min.front(), t->durations_min.back()};
+    }
+    const auto &f = std::get<IdfFormula>(data_);
+    if (f.max_duration_min > 0.0) {
+        return std::pair{f.min_duration_min, f.max_duration_min};
+    }
+    return std::nullopt;
+}
+
 WithLines<double> Idf::intensity(double duration_min, double return_period_yr,
                                  units::System sheet_units) const {
     if (!positive_finite(duration_min)) {

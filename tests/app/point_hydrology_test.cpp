@@ -290,3 +290,97 @@ TEST(PointHydrology, IaFivePercentWithTr55IsAWarning) {
     }
     EXPECT_TRUE(warned);
 }
+
+namespace {
+
+/// Invented project with the alternating-block storm: AB-1 (1 km2, CN 80, tc given 30 min) and
+/// AB-2 (the same with tc 60 min, longer than the 50-min storm). The 10-year IDF gives the
+/// depths i t = 20, 28, 33, 36, 38, 40 mm at 10 to 60 min. No storm type, no 24-hour depths.
+fs::path block_project(const fs::path &dir) {
+    write(dir / "project.toml", R"([project]
+name = "Alder Bend outfall"
+units = "SI"
+
+[inputs]
+catchment_table = "catchments.csv"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [10]
+design_storm = "alternating_block"
+storm_duration_min = 50
+
+[methods]
+tc = "kirpich"
+peak = ["rational", "scs_unit_hydrograph"]
+
+[settings]
+storm_time_step_min = 10
+
+[output]
+folder = "out"
+)");
+    write(dir / "catchments.csv", "id,area_km2,length_m,slope_percent,c,cn,tc_min\n"
+                                  "AB-1,1.0,1500,2,0.5,80,30\n"
+                                  "AB-2,1.0,1500,2,0.5,80,60\n");
+    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n10,120\n20,84\n30,66\n40,54\n"
+                           "50,45.6\n60,40\n");
+    return dir / "project.toml";
+}
+
+} // namespace
+
+TEST(PointHydrology, UnitHydrographOfTheAlternatingBlockStorm) {
+    const auto dir = catchpeak::test::scratch_dir("point_block_storm");
+    const Project p = load_project(block_project(dir));
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "AB-1");
+    const auto &pk = peak(dp, "scs_unit_hydrograph");
+    // The storm's depth is the IDF depth for 50 min: 45.6 mm/h x 50/60 h = 38 mm.
+    EXPECT_NEAR(pk.intermediates.at("rainfall_depth_mm"), 38.0, 1e-9);
+    // Runoff by hand (TR-55 ch. 2, mm): S = 25400/80 - 254 = 63.5 mm, Ia = 12.7 mm,
+    // Q = (38 - 12.7)^2 / (38 - 12.7 + 63.5) = 640.09 / 88.8 = 7.20822 mm.
+    const double q = (38.0 - 12.7) * (38.0 - 12.7) / (38.0 - 12.7 + 63.5);
+    EXPECT_NEAR(pk.intermediates.at("runoff_depth_mm"), q, 1e-6); // floating point only
+    // Volume of the hydrograph = runoff depth x area, 1 km2. Tolerance 2 %: the dimensionless
+    // unit hydrograph's table (ordinates printed to three decimals) has an area of 1 only
+    // within that precision.
+    const double volume_m3 = q / 1000.0 * 1.0e6;
+    EXPECT_NEAR(pk.intermediates.at("volume_m3"), volume_m3, 0.02 * volume_m3);
+    ASSERT_TRUE(pk.hydrograph.has_value());
+    const auto &h = *pk.hydrograph;
+    double sum_q = 0.0;
+    for (double v : h.q_m3_s) {
+        sum_q += v * h.step_s;
+    }
+    EXPECT_NEAR(sum_q, volume_m3, 0.02 * volume_m3);
+    // The hyetograph plotted is the alternating block: all 38 mm, and the rain of the central
+    // block (20 mm in 20 to 30 min) is the heaviest: the largest bin lies in it.
+    EXPECT_NEAR(std::accumulate(h.rain_mm.begin(), h.rain_mm.end(), 0.0), 38.0, 1e-9);
+    const auto heaviest = static_cast<double>(std::max_element(h.rain_mm.begin(), h.rain_mm.end()) -
+                                              h.rain_mm.begin());
+    EXPECT_GE(heaviest * h.step_s, 20.0 * 60.0 - 1e-9);
+    EXPECT_LT(heaviest * h.step_s, 30.0 * 60.0);
+    // The sheet's lines: the storm depth and a block depth; no 24-hour depth.
+    bool storm_depth = false;
+    bool block = false;
+    for (const auto &l : dp.lines.lines()) {
+        storm_depth = storm_depth || (l.label == "Storm depth" && std::abs(l.value - 38.0) < 1e-9);
+        block = block || l.label == "Block depth 1 of 5, placed 20.00 to 30.00 min";
+        EXPECT_EQ(l.label.find("24-hour"), std::string::npos) << l.label;
+        EXPECT_NE(l.label, "Storm shorter than the time of concentration");
+    }
+    EXPECT_TRUE(storm_depth);
+    EXPECT_TRUE(block);
+    // The Rational Method is unchanged: it takes i(tc) = i(30 min) = 66 mm/h from the IDF.
+    EXPECT_NEAR(peak(dp, "rational").intermediates.at("intensity_mm_per_h"), 66.0, 1e-9);
+    // AB-2's tc (60 min) is longer than the storm: a warning line.
+    const auto &dp2 = point(r, "AB-2");
+    EXPECT_TRUE(std::any_of(dp2.lines.lines().begin(), dp2.lines.lines().end(), [](auto &l) {
+        return l.label == "Storm shorter than the time of concentration";
+    }));
+    // The Chow et al. reference is listed.
+    EXPECT_TRUE(std::any_of(r.references.begin(), r.references.end(),
+                            [](auto &ref) { return ref.key == "Chow, Maidment & Mays (1988)"; }));
+}

@@ -96,3 +96,29 @@ TEST(CliRecheck, ProjectOptionForAnOutputFolderElsewhere) {
         cli({"recheck", elsewhere.string(), "--project", (dir / "project.toml").string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
 }
+
+TEST(CliRecheck, AlternatingBlockStormRunIsReproduced) {
+    // The unit hydrograph of the alternating-block storm from the project's IDF (no storm type,
+    // no 24-hour depths): check, run, then recheck reproduces every line and peak.
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_block_storm");
+    write(dir / "project.toml", "[project]\nname = \"Fern Court\"\nunits = \"US\"\n"
+                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
+                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
+                                "design_storm = \"alternating_block\"\nstorm_duration_min = 120\n"
+                                "[methods]\npeak = [\"scs_unit_hydrograph\"]\n"
+                                "[settings]\nstorm_time_step_min = 5\n"
+                                "[output]\nfolder = \"out\"\n");
+    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,cn,tc_min\n"
+                                  "A-1,20.0,600,6,78,25\n");
+    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n60,45\n"
+                           "120,28\n");
+    const auto check = cli({"check", (dir / "project.toml").string()});
+    EXPECT_EQ(check.code, 0) << check.err;
+    const auto run = cli({"run", (dir / "project.toml").string(), "--quiet"});
+    ASSERT_EQ(run.code, 0) << run.err;
+    ASSERT_TRUE(fs::exists(dir / "out" / "results.json"));
+    const auto r = cli({"recheck", (dir / "out").string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
+    EXPECT_NE(r.out.find("1 peaks reproduced, 0 differ"), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+}

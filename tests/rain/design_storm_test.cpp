@@ -8,6 +8,7 @@
 
 #include <cmath>
 #include <string>
+#include <vector>
 
 using catchpeak::InputError;
 using catchpeak::units::System;
@@ -202,4 +203,108 @@ TEST(AlternatingBlock, ValidationMessages) {
                   (void)rain::alternating_block_hyetograph(falling, 20.0, 5.0, 10.0, System::si);
               }).find("outside the table's durations"),
               std::string::npos);
+}
+
+namespace {
+
+/// An invented 10-year IDF table whose depths i t are round numbers:
+/// 10 min 120 mm/h (20 mm), 20 min 84 (28 mm), 30 min 66 (33 mm), 40 min 54 (36 mm),
+/// 50 min 45.6 (38 mm).
+rain::Idf round_depth_idf() {
+    rain::IdfTable t;
+    t.name = "round depths";
+    t.durations_min = {10.0, 20.0, 30.0, 40.0, 50.0};
+    t.return_periods_yr = {10.0};
+    t.intensity_mm_per_h = {{120.0, 84.0, 66.0, 54.0, 45.6}};
+    return rain::Idf(t);
+}
+
+const catchpeak::CalcLine *line_labelled(const catchpeak::CalcLines &lines,
+                                         const std::string &label) {
+    for (const auto &l : lines.lines()) {
+        if (l.label == label) {
+            return &l;
+        }
+    }
+    return nullptr;
+}
+
+} // namespace
+
+// Block depths computed by hand in this test (Chow, Maidment & Mays 1988, sec. 14.4): the depth
+// for k blocks is D_k = i(k dt) k dt = 20, 28, 33, 36, 38 mm; the blocks are the differences,
+// 20, 8, 5, 3, 2 mm; the largest goes in the centre and the others alternately right and left
+// of it. (Chow et al.'s worked example is not used: its values are recalled from memory only,
+// not checked, so they are no check.)
+TEST(AlternatingBlock, BlockDepthsByHandFromASmallIdf) {
+    const auto idf = round_depth_idf();
+    // Five blocks of 10 min: centre block 3 (index 2) = 20, right 8, left 5, right 3, left 2.
+    const auto five = rain::alternating_block_hyetograph(idf, 50.0, 10.0, 10.0, System::si);
+    const std::vector<double> expect5 = {2.0, 5.0, 20.0, 8.0, 3.0};
+    ASSERT_EQ(five.value.steps(), expect5.size());
+    EXPECT_DOUBLE_EQ(five.value.step_s, 600.0);
+    for (std::size_t k = 0; k < expect5.size(); ++k) {
+        // 1e-12 mm: floating point of i t / 60 and the differences only.
+        EXPECT_NEAR(five.value.depth_mm[k], expect5[k], 1e-12) << "block " << k + 1;
+    }
+    EXPECT_NEAR(five.value.total_mm(), 38.0, 1e-12);
+    // Four blocks (even): the largest in the earlier middle block (index 1), then right 8,
+    // left 5, right 3.
+    const auto four = rain::alternating_block_hyetograph(idf, 40.0, 10.0, 10.0, System::si);
+    const std::vector<double> expect4 = {5.0, 20.0, 8.0, 3.0};
+    ASSERT_EQ(four.value.steps(), expect4.size());
+    for (std::size_t k = 0; k < expect4.size(); ++k) {
+        EXPECT_NEAR(four.value.depth_mm[k], expect4[k], 1e-12) << "block " << k + 1;
+    }
+
+    // The sheet's lines: every block's depth with where it is placed, the storm depth and the
+    // peak intensity 20 mm / (10/60 h) = 120 mm/h.
+    struct Expected {
+        std::string label;
+        double value;
+        std::string numbers; // "" when not compared
+    };
+    const std::vector<Expected> expected = {
+        {"Block depth 1 of 5, placed 20.00 to 30.00 min", 20.0, "dD_1 = 120.0 x 10.00 / 60"},
+        {"Block depth 2 of 5, placed 30.00 to 40.00 min", 8.0,
+         "dD_2 = 84.00 x 20.00 / 60 - 120.0 x 10.00 / 60"},
+        {"Block depth 5 of 5, placed 0 to 10.00 min", 2.0, ""},
+        {"Storm depth", 38.0, "D = 45.60 x 50.00 / 60"},
+        {"Peak intensity of the design storm", 120.0, "i = 20.00 / (10.00 / 60)"},
+    };
+    for (const auto &e : expected) {
+        const auto *l = line_labelled(five.lines, e.label);
+        ASSERT_NE(l, nullptr) << e.label;
+        EXPECT_NEAR(l->value, e.value, 1e-9) << e.label; // floating point only
+        if (!e.numbers.empty()) {
+            EXPECT_EQ(l->numbers, e.numbers);
+        }
+    }
+    // Every line names its source.
+    for (const auto &l : five.lines.lines()) {
+        EXPECT_FALSE(l.source.empty()) << l.label;
+    }
+}
+
+TEST(AlternatingBlock, LongStormShowsTheFirstBlocksAndANote) {
+    // 24 h in 60-min blocks of the invented formula: 24 blocks, more than the sheet lists.
+    const auto idf = formula_idf();
+    const auto r =
+        rain::alternating_block_hyetograph(idf, 1440.0, 60.0, 10.0, System::us_customary);
+    ASSERT_EQ(r.value.steps(), 24U);
+    std::size_t block_lines = 0;
+    for (const auto &l : r.lines.lines()) {
+        if (l.label.rfind("Block depth ", 0) == 0) {
+            ++block_lines;
+            EXPECT_EQ(l.unit, "in");
+        }
+    }
+    EXPECT_EQ(block_lines, 6U);
+    ASSERT_NE(line_labelled(r.lines, "Other blocks"), nullptr);
+    // The storm depth line, in inches: i(1440) x 1440 / 60 h, i = 1500 / (1450)^0.8 mm/h.
+    const double depth_in = 1500.0 / std::pow(1450.0, 0.8) * 24.0 / 25.4;
+    const auto *total = line_labelled(r.lines, "Storm depth");
+    ASSERT_NE(total, nullptr);
+    EXPECT_NEAR(total->value, depth_in, depth_in * rel_eps);
+    EXPECT_NEAR(r.value.total_mm() / 25.4, depth_in, depth_in * 1e-9);
 }

@@ -76,6 +76,12 @@ struct LoadedTables {
 [[nodiscard]] LoadedTables load_hydrology_tables(const Project &project,
                                                  const std::filesystem::path &config);
 
+/// Adds a problem when the project's alternating-block storm needs durations the IDF does not
+/// cover: blocks from storm_time_step_min to storm_duration_min (a table's durations, or a
+/// formula's fitted range; a formula without one is taken to hold everywhere). The IDF is not
+/// extrapolated. Nothing for the NRCS 24-hour storm.
+void check_storm_idf(const Project &project, const rain::Idf &idf, Problems &problems);
+
 /// Adds the published sources the design point's methods used to `refs`, each once (by key).
 void add_method_references(const Project &project, const report::DesignPointResult &dp,
                            std::vector<report::Reference> &refs);

@@ -56,6 +56,17 @@ struct Rainfall {
     std::optional<InputPath> annual_maximum_series;
     std::string ams_distribution = "gumbel"; ///< "gumbel" (moments) or "gev" (L-moments)
     std::size_t ams_distribution_line = 0;   ///< line of the key, 0 when not given
+    /// Design storm of the SCS unit hydrograph: "nrcs_24h" (the NRCS 24-hour distribution of
+    /// storm_type with the 24-hour depth) or "alternating_block" (from the IDF, lasting
+    /// storm_duration_min, in blocks of [settings] storm_time_step_min).
+    std::string design_storm = "nrcs_24h";
+    std::size_t design_storm_line = 0;   ///< line of the key, 0 when not given
+    double storm_duration_min = 0.0;     ///< alternating_block only; 0 when not given
+    std::size_t storm_duration_line = 0; ///< line of the key, 0 when not given
+
+    [[nodiscard]] bool alternating_block() const noexcept {
+        return design_storm == "alternating_block";
+    }
 };
 
 /// Choices of the engineer for tc = "tr55_segmental" ([methods.tr55_segmental], and per point
@@ -116,8 +127,8 @@ struct Settings {
     /// unset: 0 % (Fp = 1), said in a note.
     std::optional<double> pond_swamp_percent;
     std::size_t pond_swamp_line = 0;
-    /// Time step of the NRCS 24-hour storm hyetograph, min: > 0, at most 60, and 1440 divided
-    /// by it a whole number (the 24-hour storm in whole steps).
+    /// Time step of the design storm hyetograph, min: > 0, at most 60, and the storm in whole
+    /// steps (1440 min for the NRCS 24-hour storm, storm_duration_min for the alternating block).
     double storm_time_step_min = 6.0;
     std::size_t storm_time_step_line = 0;
 };

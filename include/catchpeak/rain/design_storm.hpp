@@ -47,12 +47,15 @@ void validate(const StormDistribution &d);
 
 /// Alternating-block hyetograph (Chow, Maidment & Mays 1988, Applied Hydrology, sec. 14.4):
 /// block depths D_k = i(k dt) k dt for k = 1..n, increments D_k - D_(k-1) sorted in descending
-/// order, the largest at the centre (block (n-1)/2, counting from 0) and the rest alternately
-/// right and left of it. `duration_min` must be a whole number of steps. When the increments
-/// already decrease with k (the usual IDF), the k largest blocks form a window around the
-/// centre whose sum is D_k; otherwise a note line says they were reordered. Throws InputError when
-/// an increment would be negative (the IDF's depth falls with duration) and whatever Idf::intensity
-/// throws (e.g. a duration outside a table).
+/// order, the largest at the centre (block (n-1)/2, counting from 0: for an even n the earlier of
+/// the two middle blocks) and the rest alternately right and left of it. `duration_min` must be
+/// a whole number of steps. When the increments already decrease with k (the usual IDF), the k
+/// largest blocks form a window around the centre whose sum is D_k; otherwise a note line says
+/// they were reordered. The lines show the storm, each block's depth from the IDF with where it
+/// is placed (every block of a storm of up to 12 blocks, else the first 6 and a note for the
+/// rest), with the IDF's intensity lines, the storm depth i(Td) Td and the peak intensity.
+/// Throws InputError when an increment would be negative (the IDF's depth falls with duration)
+/// and whatever Idf::intensity throws (e.g. a duration outside a table).
 [[nodiscard]] WithLines<Hyetograph>
 alternating_block_hyetograph(const Idf &idf, double duration_min, double step_min,
                              double return_period_yr, units::System sheet_units);

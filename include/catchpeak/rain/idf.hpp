@@ -4,8 +4,10 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/units.hpp"
 
+#include <optional>
 #include <string>
 #include <string_view>
+#include <utility>
 #include <variant>
 #include <vector>
 
@@ -60,6 +62,9 @@ class Idf {
     [[nodiscard]] const std::string &name() const noexcept;
     [[nodiscard]] std::vector<double> return_periods_yr() const;
     [[nodiscard]] bool is_table() const noexcept { return std::holds_alternative<IdfTable>(data_); }
+    /// The durations the IDF covers, min: a table's first and last duration, a formula's fitted
+    /// range; nullopt for a formula whose fitted range is not given.
+    [[nodiscard]] std::optional<std::pair<double, double>> duration_range_min() const;
 
     /// Intensity in mm/h for a duration (min) and return period (yr). The lines show the
     /// calculation in the sheet's units (in/h on a US customary sheet): for a table, the
