@@ -121,14 +121,14 @@ LandPartsById check_land_parts(const Project &p, const std::vector<TableCatchmen
             const double per_m2 = first.area_given / first.area_m2;
             const std::string unit = first.area_column.substr(std::string("area_").size());
             problems.add(input_message(
-                fmt::format("{}: catchment '{}' ({})", land_file, id, lines_of(own)),
+                fmt::format("{}:{}: catchment '{}' ({})", land_file, first.line, id, lines_of(own)),
                 fmt::format("the land parts add up to {} {}, the catchment table gives {} {} "
                             "({}:{}), a difference of {} %",
                             sig(sum_m2 * per_m2), unit, sig(c.area_m2 * per_m2), unit, table_file,
                             c.line, sig(100.0 * (sum_m2 - c.area_m2) / c.area_m2, 3)),
-                fmt::format("parts that add up to the catchment's area within {} % (common "
+                fmt::format("parts that add up to the catchment's area within {:g} % (common "
                             "practice, no source)",
-                            sig(100.0 * land_parts_area_tolerance_share, 2))));
+                            100.0 * land_parts_area_tolerance_share)));
         }
     }
     return out;

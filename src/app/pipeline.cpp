@@ -25,6 +25,7 @@
 #include <ctime>
 #include <fstream>
 #include <ostream>
+#include <tuple>
 #include <utility>
 
 namespace catchpeak::app {
@@ -180,8 +181,25 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
     }
     add("breach lines", p.inputs.breach_lines);
-    add("C table", p.inputs.c_table);
-    add("CN table", p.inputs.cn_table);
+    // The land tables: the project's own, else the shipped ones, when land is weighted.
+    if (!p.uses_table() || !land_parts.empty()) {
+        for (const auto &[role, own, shipped] :
+             {std::tuple{"C table", p.inputs.c_table, "runoff_coefficients.csv"},
+              std::tuple{"CN table", p.inputs.cn_table, "curve_numbers.csv"},
+              std::tuple{"impervious share table", std::optional<InputPath>{},
+                         "impervious_shares.csv"}}) {
+            if (own) {
+                add(role, own);
+            } else {
+                const fs::path rel = fs::path("land") / shipped;
+                r.stamp.inputs.push_back({role, (fs::path("config") / rel).generic_string(),
+                                          sha256_file(config_dir() / rel)});
+            }
+        }
+    } else {
+        add("C table", p.inputs.c_table);
+        add("CN table", p.inputs.cn_table);
+    }
     add("IDF", p.rainfall.idf);
     add("annual maximum series", p.rainfall.annual_maximum_series);
     for (const auto &[role, rel] : tables.config_files) {
