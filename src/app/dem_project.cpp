@@ -197,19 +197,6 @@ report::MapData make_map(const Delineation &d, std::size_t i) {
     return map;
 }
 
-land::LandTables project_tables(const Project &p) {
-    land::LandTables tables = land::read_default_land_tables(config_dir());
-    if (p.inputs.c_table || p.inputs.cn_table) {
-        const auto base = config_dir() / "land";
-        const auto own = land::read_land_tables(
-            p.inputs.c_table ? p.inputs.c_table->resolved : base / "runoff_coefficients.csv",
-            p.inputs.cn_table ? p.inputs.cn_table->resolved : base / "curve_numbers.csv",
-            base / "impervious_shares.csv");
-        tables = own;
-    }
-    return tables;
-}
-
 land::OverlaySettings overlay_settings(const Project &p) {
     land::OverlaySettings s;
     s.class_field = p.inputs.class_field;
@@ -321,7 +308,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
     const io::Extent window = extent_of(d.total_wkb);
     const io::VectorLayer land_cover = read_land_input(p, LandInput::land_cover, crs, window);
     const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, window);
-    const land::LandOverlay overlay(land_cover, soils, project_tables(p), overlay_settings(p));
+    const land::LandOverlay overlay(land_cover, soils, project_land_tables(p), overlay_settings(p));
 
     DemPoints out;
     out.layers = d.layers;
@@ -390,11 +377,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         if (std::isfinite(dp.land.cn_weighted)) {
             in.cn = dp.land.cn_weighted;
         }
-        for (const auto &part : dp.land.parts) {
-            in.land_parts.push_back(
-                {fmt::format("{}, soil group {}", part.land_class, part.soil_group), part.area_m2,
-                 part.cn});
-        }
+        in.land_parts = land_parts_of(dp.land);
         in.source = "from the lines above: delineation (DEM) and land weighting";
         compute_point_hydrology(p, in, tables, dp);
         out.points.push_back(std::move(dp));
@@ -450,7 +433,8 @@ void check_dem_inputs(const Project &p, Problems &problems) {
         const io::VectorLayer land_cover =
             read_land_input(p, LandInput::land_cover, crs, dem_extent, false);
         const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, dem_extent, false);
-        const land::LandOverlay overlay(land_cover, soils, project_tables(p), overlay_settings(p));
+        const land::LandOverlay overlay(land_cover, soils, project_land_tables(p),
+                                        overlay_settings(p));
         (void)overlay;
     });
 }

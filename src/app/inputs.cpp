@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/inputs.hpp"
 
+#include "catchpeak/app/catchment_land.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
-
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/csv.hpp"
@@ -65,6 +65,22 @@ double positive(const io::CsvTable &t, const io::CsvTable::Row &row, std::size_t
     return v;
 }
 
+/// The area column of a table: one of the columns with the unit in the name.
+std::pair<std::string, std::size_t> area_column(const io::CsvTable &t) {
+    return required_one_of(t, {"area_m2", "area_ha", "area_km2", "area_ac", "area_ft2", "area_mi2"},
+                           "the area");
+}
+
+/// An area in the unit of its column (one of area_column's names), in m2.
+double area_to_m2(const std::string &column, double a) {
+    return column == "area_m2"    ? a
+           : column == "area_ha"  ? units::ha_to_m2(a)
+           : column == "area_km2" ? units::km2_to_m2(a)
+           : column == "area_ac"  ? units::acre_to_m2(a)
+           : column == "area_ft2" ? units::ft2_to_m2(a)
+                                  : units::mi2_to_m2(a);
+}
+
 } // namespace
 
 std::filesystem::path config_dir() {
@@ -78,8 +94,7 @@ std::filesystem::path config_dir() {
 std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
     const io::CsvTable t = io::read_csv(path);
     const std::size_t id_col = t.column("id");
-    const auto area = required_one_of(
-        t, {"area_m2", "area_ha", "area_km2", "area_ac", "area_ft2", "area_mi2"}, "the area");
+    const auto area = area_column(t);
     const auto length = required_one_of(t, {"length_m", "length_ft"}, "the longest flow path");
     const auto fall = required_one_of(
         t, {"relief_m", "relief_ft", "slope_m_per_m", "slope_percent"}, "the relief or slope");
@@ -104,14 +119,7 @@ std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
             throw_input_error(t.where(row, id_col), fmt::format("id '{}' is used twice", c.id),
                               "a different id on every row");
         }
-        const double a = positive(t, row, area.second);
-        const std::string &an = area.first;
-        c.area_m2 = an == "area_m2"    ? a
-                    : an == "area_ha"  ? units::ha_to_m2(a)
-                    : an == "area_km2" ? units::km2_to_m2(a)
-                    : an == "area_ac"  ? units::acre_to_m2(a)
-                    : an == "area_ft2" ? units::ft2_to_m2(a)
-                                       : units::mi2_to_m2(a);
+        c.area_m2 = area_to_m2(area.first, positive(t, row, area.second));
         const double l = positive(t, row, length.second);
         c.longest_flow_path_m = length.first == "length_m" ? l : units::ft_to_m(l);
         const double f = positive(t, row, fall.second);
@@ -150,6 +158,41 @@ std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
             c.y = t.number(row, *y_col);
         }
         out.push_back(std::move(c));
+    }
+    return out;
+}
+
+std::vector<TableLandPart> read_catchment_land_table(const fs::path &path, bool drained) {
+    const io::CsvTable t = io::read_csv(path);
+    const std::size_t id_col = t.column("id");
+    const std::size_t class_col = t.column("class");
+    const std::size_t group_col = t.column("soil_group");
+    const auto area = area_column(t);
+    if (t.rows.empty()) {
+        throw_input_error(t.source, "the table has no land parts",
+                          "one row per part of a catchment (id, class, soil_group, area)");
+    }
+    std::vector<TableLandPart> out;
+    out.reserve(t.rows.size());
+    for (const auto &row : t.rows) {
+        TableLandPart part;
+        part.line = row.line;
+        part.id = t.text(row, id_col);
+        if (part.id.empty()) {
+            throw_input_error(t.where(row, id_col), "the id is empty",
+                              "the id of a catchment of the catchment table");
+        }
+        part.land_class = t.text(row, class_col);
+        if (part.land_class.empty()) {
+            throw_input_error(t.where(row, class_col), "the class is empty",
+                              "a land-cover class of the C and CN tables");
+        }
+        part.soil_group_text = t.text(row, group_col);
+        part.soil = land::read_soil_group(part.soil_group_text, drained, t.where(row, group_col));
+        part.area_column = area.first;
+        part.area_given = positive(t, row, area.second);
+        part.area_m2 = area_to_m2(area.first, part.area_given);
+        out.push_back(std::move(part));
     }
     return out;
 }
@@ -240,6 +283,7 @@ void check_project(const Project &p, Problems &problems) {
     check_file(p.inputs.dem, pf, "[inputs] dem", problems);
     check_file(p.inputs.design_points, pf, "[inputs] design_points", problems);
     check_file(p.inputs.catchment_table, pf, "[inputs] catchment_table", problems);
+    check_file(p.inputs.catchment_land_table, pf, "[inputs] catchment_land_table", problems);
     check_file(p.inputs.land_cover, pf, "[inputs] land_cover", problems);
     check_file(p.inputs.soils, pf, "[inputs] soils", problems);
     check_file(p.inputs.land_cover_codes, pf, "[inputs] land_cover_codes", problems);
@@ -289,8 +333,12 @@ void check_project(const Project &p, Problems &problems) {
         collect(problems, [&] {
             const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
             const bool land_layers = p.inputs.land_cover.has_value();
+            const LandPartsById land_parts = read_land_parts(p, rows, problems);
             for (const auto &c : rows) {
                 ids.insert(c.id);
+                if (land_parts.count(c.id) != 0) {
+                    continue; // C and CN come from the land parts (checked above)
+                }
                 const std::string where =
                     fmt::format("{}:{}", p.inputs.catchment_table->resolved.string(), c.line);
                 const PointOverride *o = nullptr;
@@ -313,12 +361,14 @@ void check_project(const Project &p, Problems &problems) {
                 if (rational && !c.c && !land_layers) {
                     problems.add(input_message(
                         where, fmt::format("catchment '{}' has no runoff coefficient", c.id),
-                        "a value in column 'c', or a land-cover layer in [inputs]"));
+                        "a value in column 'c', or land parts of the catchment in the land "
+                        "table ([inputs] catchment_land_table)"));
                 }
                 if (scs && !c.cn && !land_layers) {
                     problems.add(input_message(
                         where, fmt::format("catchment '{}' has no curve number", c.id),
-                        "a value in column 'cn', or land-cover and soils layers in [inputs]"));
+                        "a value in column 'cn', or land parts of the catchment in the land "
+                        "table ([inputs] catchment_land_table)"));
                 }
             }
         });

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/land_inputs.hpp"
 
+#include "catchpeak/app/inputs.hpp"
+
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/io/csv.hpp"
@@ -197,6 +199,29 @@ io::VectorLayer read_land_input(const Project &p, LandInput which, const std::st
         }
     }
     return layer;
+}
+
+land::LandTables project_land_tables(const Project &p) {
+    land::LandTables tables = land::read_default_land_tables(config_dir());
+    if (p.inputs.c_table || p.inputs.cn_table) {
+        const auto base = config_dir() / "land";
+        const auto own = land::read_land_tables(
+            p.inputs.c_table ? p.inputs.c_table->resolved : base / "runoff_coefficients.csv",
+            p.inputs.cn_table ? p.inputs.cn_table->resolved : base / "curve_numbers.csv",
+            base / "impervious_shares.csv");
+        tables = own;
+    }
+    return tables;
+}
+
+std::vector<LandPart> land_parts_of(const report::LandWeighting &w) {
+    std::vector<LandPart> parts;
+    parts.reserve(w.parts.size());
+    for (const auto &part : w.parts) {
+        parts.push_back({fmt::format("{}, soil group {}", part.land_class, part.soil_group),
+                         part.area_m2, part.cn});
+    }
+    return parts;
 }
 
 } // namespace catchpeak::app

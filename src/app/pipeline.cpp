@@ -2,6 +2,7 @@
 #include "catchpeak/app/pipeline.hpp"
 
 #include "catchpeak/app/dem_project.hpp"
+#include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
@@ -24,6 +25,7 @@
 #include <ctime>
 #include <fstream>
 #include <ostream>
+#include <tuple>
 #include <utility>
 
 namespace catchpeak::app {
@@ -54,10 +56,13 @@ void not_yet_available(const Project &p, Problems &problems) {
 } // namespace
 
 report::RunResults compute_from_table(const Project &p, const std::vector<TableCatchment> &rows,
-                                      const HydrologyTables &tables) {
+                                      const HydrologyTables &tables,
+                                      const LandPartsById &land_parts) {
     report::RunResults r;
     r.project = p.info;
     r.caution_notes = report::default_caution_notes();
+    const std::optional<land::LandTables> land_tables =
+        land_parts.empty() ? std::nullopt : std::optional(project_land_tables(p));
 
     for (const auto &c : rows) {
         report::DesignPointResult dp;
@@ -91,6 +96,18 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
         in.c = c.c;
         in.cn = c.cn;
         in.tc_min = c.tc_min;
+        if (const auto parts = land_parts.find(c.id); parts != land_parts.end()) {
+            auto weighted = weight_table_catchment(p, c, parts->second, *land_tables);
+            dp.land = std::move(weighted.weighting);
+            in.land_lines = std::move(weighted.lines);
+            if (std::isfinite(dp.land.c_weighted)) {
+                in.c = dp.land.c_weighted;
+            }
+            if (std::isfinite(dp.land.cn_weighted)) {
+                in.cn = dp.land.cn_weighted;
+            }
+            in.land_parts = land_parts_of(dp.land);
+        }
         in.source =
             fmt::format("project input ({}, line {})",
                         p.inputs.catchment_table ? p.inputs.catchment_table->given : "", c.line);
@@ -115,6 +132,9 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
         rows = read_catchment_table(p.inputs.catchment_table->resolved);
     }
+    Problems land_problems;
+    const LandPartsById land_parts = read_land_parts(p, rows, land_problems);
+    land_problems.throw_if_any();
     const LoadedTables tables = load_hydrology_tables(p, config_dir());
     report::RunResults r;
     if (p.uses_table()) {
@@ -122,7 +142,7 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
             progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
                                     rows.size(), p.rainfall.return_periods_yr.size());
         }
-        r = compute_from_table(p, rows, tables.view());
+        r = compute_from_table(p, rows, tables.view(), land_parts);
     } else {
         r = compute_from_table(p, {}, tables.view()); // project info, references, notes
         DemPoints dem = compute_dem_points(p, tables.view(), quiet ? nullptr : &progress);
@@ -146,6 +166,7 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
     };
     add("catchment table", p.inputs.catchment_table);
+    add("catchment land table", p.inputs.catchment_land_table);
     add("DEM", p.inputs.dem);
     add("design points", p.inputs.design_points);
     add("land cover", p.inputs.land_cover);
@@ -160,8 +181,25 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
     }
     add("breach lines", p.inputs.breach_lines);
-    add("C table", p.inputs.c_table);
-    add("CN table", p.inputs.cn_table);
+    // The land tables: the project's own, else the shipped ones, when land is weighted.
+    if (!p.uses_table() || !land_parts.empty()) {
+        for (const auto &[role, own, shipped] :
+             {std::tuple{"C table", p.inputs.c_table, "runoff_coefficients.csv"},
+              std::tuple{"CN table", p.inputs.cn_table, "curve_numbers.csv"},
+              std::tuple{"impervious share table", std::optional<InputPath>{},
+                         "impervious_shares.csv"}}) {
+            if (own) {
+                add(role, own);
+            } else {
+                const fs::path rel = fs::path("land") / shipped;
+                r.stamp.inputs.push_back({role, (fs::path("config") / rel).generic_string(),
+                                          sha256_file(config_dir() / rel)});
+            }
+        }
+    } else {
+        add("C table", p.inputs.c_table);
+        add("CN table", p.inputs.cn_table);
+    }
     add("IDF", p.rainfall.idf);
     add("annual maximum series", p.rainfall.annual_maximum_series);
     for (const auto &[role, rel] : tables.config_files) {

@@ -413,11 +413,15 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         lines.note("Slope of the longest flow path",
                    fmt::format("S = {} {}", sig(in.slope), us ? "ft/ft" : "m/m"), src, in.slope,
                    us ? "ft/ft" : "m/m");
-        if (in.c) {
-            lines.note("Runoff coefficient", fmt::format("C = {}", sig(*in.c)), src, *in.c);
-        }
-        if (in.cn) {
-            lines.note("Curve number", fmt::format("CN = {}", sig(*in.cn)), src, *in.cn);
+        if (!in.land_lines.empty()) {
+            lines.append(in.land_lines);
+        } else {
+            if (in.c) {
+                lines.note("Runoff coefficient", fmt::format("C = {}", sig(*in.c)), src, *in.c);
+            }
+            if (in.cn) {
+                lines.note("Curve number", fmt::format("CN = {}", sig(*in.cn)), src, *in.cn);
+            }
         }
     }
 

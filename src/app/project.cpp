@@ -355,6 +355,7 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     in.design_points_layer = t.text("design_points_layer").value_or("");
     in.id_field = t.text("id_field").value_or("id");
     in.catchment_table = t.path("catchment_table", dir);
+    in.catchment_land_table = t.path("catchment_land_table", dir);
     in.land_cover = t.path("land_cover", dir);
     in.class_field = t.text("class_field").value_or("class");
     in.soils = t.path("soils", dir);
@@ -382,6 +383,13 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
         t.missing("dem", "a DEM file (GeoTIFF or any raster GDAL reads) with 'design_points'");
     } else if (terrain && !has_points) {
         t.missing("design_points", "a point layer (GeoPackage, shapefile, ...) with 'dem'");
+    }
+    if (const std::size_t line = t.line_of("catchment_land_table"); line != 0 && !has_table) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [inputs] catchment_land_table", t.file(), line),
+            "a land table is given without a catchment table",
+            "'catchment_land_table' beside 'catchment_table' (a DEM project weights land-cover "
+            "and soils layers instead)"));
     }
     if (t.line_of("soils") != 0 && t.line_of("land_cover") == 0) {
         t.missing("land_cover", "a land-cover layer when 'soils' is given");

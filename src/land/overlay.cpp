@@ -2,6 +2,7 @@
 #include "catchpeak/land/overlay.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/land/weighting.hpp"
 #include "geos_handles.hpp"
 
 #include <fmt/format.h>
@@ -19,7 +20,6 @@ namespace catchpeak::land {
 namespace {
 
 constexpr std::size_t no_feature = std::numeric_limits<std::size_t>::max();
-constexpr double nan = std::numeric_limits<double>::quiet_NaN();
 
 /// One polygon of a layer, read once.
 struct LayerFeature {
@@ -146,12 +146,6 @@ ReadPolygon read_polygonal(geos::Context &ctx, const geos::WkbReader &reader,
         out.repaired = true;
     }
     return out;
-}
-
-std::string area_unit(units::System s) { return s == units::System::si ? "ha" : "ac"; }
-
-double area_in_sheet_units(double area_m2, units::System s) {
-    return s == units::System::si ? units::m2_to_ha(area_m2) : units::m2_to_acre(area_m2);
 }
 
 } // namespace
@@ -575,162 +569,40 @@ CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wk
         }
     }
 
-    // Look up C, CN and impervious share per part.
-    const std::optional<double> slope_percent =
-        mean_slope ? std::optional<double>(*mean_slope * 100.0) : std::nullopt;
-    bool slope_used = false;
-    auto &w = out.weighting;
-    double total_m2 = 0.0;
+    // C, CN and impervious share per part, the weighted values and the lines.
+    std::vector<PartArea> parts;
+    parts.reserve(sums.size());
     for (const auto &[key, sum] : sums) {
-        const std::string &cls = key.first;
-        const SoilGroup g = key.second;
-        const auto missing = [&](const TableInfo &info, std::string_view kind) {
-            const std::string from =
-                sum.first_fid < 0
-                    ? "the default class of the project settings"
-                    : fmt::format("{}, {} {}", im.land.source, im.land.feature_noun, sum.first_fid);
-            throw_input_error(info.name,
-                              fmt::format("land-cover class '{}' ({}, in catchment '{}') is not "
-                                          "in this {} table",
-                                          cls, from, label, kind),
-                              "a table that lists every class of the land-cover layer (a project "
-                              "may point to its own table)");
-        };
-        report::LandPart part;
-        part.land_class = cls;
-        part.soil_group = std::string(to_string(g));
-        part.area_m2 = sum.area_m2;
-        part.c = nan;
-        part.cn = nan;
-        part.impervious_share = nan;
-        if (im.tables.c) {
-            if (!im.tables.c->has_class(cls)) {
-                missing(im.tables.c->info(), "runoff coefficient");
-            }
-            const auto &row = im.tables.c->lookup(cls, g, slope_percent);
-            slope_used = slope_used || row.has_band();
-            part.c = row.c;
-        }
-        if (im.tables.cn) {
-            if (!im.tables.cn->has_class(cls)) {
-                missing(im.tables.cn->info(), "curve number");
-            }
-            part.cn = im.tables.cn->cn(cls, g);
-        }
-        if (im.tables.impervious) {
-            if (!im.tables.impervious->has_class(cls)) {
-                missing(im.tables.impervious->info(), "impervious share");
-            }
-            const auto &row = im.tables.impervious->lookup(cls);
-            part.impervious_share = row.share;
-        }
-        total_m2 += part.area_m2;
-        w.parts.push_back(std::move(part));
+        parts.push_back(
+            {key.first, key.second, sum.area_m2,
+             sum.first_fid < 0
+                 ? std::string("the default class of the project settings")
+                 : fmt::format("{}, {} {}", im.land.source, im.land.feature_noun, sum.first_fid)});
     }
-
-    // Weighted sums.
-    const auto weighted = [&](auto member) {
-        double acc = 0.0;
-        for (const auto &p : w.parts) {
-            acc += p.area_m2 * (p.*member);
-        }
-        return acc / total_m2;
-    };
-    w.c_weighted = im.tables.c ? weighted(&report::LandPart::c) : nan;
-    w.cn_weighted = im.tables.cn ? weighted(&report::LandPart::cn) : nan;
-    w.impervious_share = im.tables.impervious ? weighted(&report::LandPart::impervious_share) : nan;
-    w.c_table = im.tables.c ? im.tables.c->info().name : "";
-    w.cn_table = im.tables.cn ? im.tables.cn->info().name : "";
-
-    // ---- calculation lines ----------------------------------------------------------------
-    const std::string au = area_unit(s.units);
-    const auto sheet_area = [&](double m2) { return area_in_sheet_units(m2, s.units); };
-    auto &lines = out.lines;
-    lines.note(fmt::format("Catchment '{}': area of the polygon", label), "A = area of the polygon",
-               "GEOS polygon area", sheet_area(out.area_m2), au);
-    lines.note("Layers overlaid",
-               fmt::format("land cover: {} (field '{}'); soils: {} (field '{}')", im.land.source,
-                           s.class_field, im.soils.source, s.soil_group_field),
-               "project input");
-    if (im.tables.c) {
-        lines.note("Runoff coefficient table", im.tables.c->info().name,
-                   im.tables.c->info().source);
-    }
-    if (im.tables.cn) {
-        lines.note("Curve number table", im.tables.cn->info().name, im.tables.cn->info().source);
-    }
-    if (im.tables.impervious) {
-        lines.note("Impervious share table", im.tables.impervious->info().name,
-                   im.tables.impervious->info().source);
-    }
-    if (!duals.empty()) {
-        lines.note("Dual hydrologic soil groups",
-                   fmt::format("{} (setting drained = {}: {})",
-                               fmt::format("{}", fmt::join(duals, ", ")), s.drained,
-                               s.drained ? "the drained group, the first letter" : "group D"),
-                   "project setting");
-    }
-    if (slope_used) {
-        lines.note("Slope for the C slope bands", "mean slope of the catchment", "terrain",
-                   *slope_percent, "%");
-    }
-    lines.append(warnings);
-    if (std::abs(total_m2 - out.area_m2) > 1e-6 * out.area_m2) {
-        lines.warn("Parts do not add up to the catchment",
-                   fmt::format("the parts add up to {} {}, the catchment is {} {}",
-                               sig(sheet_area(total_m2)), au, sig(sheet_area(out.area_m2)), au),
-                   "GEOS overlay");
-    }
-    const std::string overlay_source =
+    PartsContext pc;
+    pc.label = std::string(label);
+    pc.catchment_area_m2 = out.area_m2;
+    pc.area_label = fmt::format("Catchment '{}': area of the polygon", label);
+    pc.area_text = "A = area of the polygon";
+    pc.area_source = "GEOS polygon area";
+    pc.input_notes.note("Layers overlaid",
+                        fmt::format("land cover: {} (field '{}'); soils: {} (field '{}')",
+                                    im.land.source, s.class_field, im.soils.source,
+                                    s.soil_group_field),
+                        "project input");
+    pc.parts_source =
         fmt::format("overlay of the catchment with {} and {}", im.land.source, im.soils.source);
-    for (std::size_t i = 0; i < w.parts.size(); ++i) {
-        const auto &p = w.parts[i];
-        std::vector<std::string> values;
-        if (im.tables.c) {
-            values.push_back(fmt::format("C = {}", sig(p.c)));
-        }
-        if (im.tables.cn) {
-            values.push_back(fmt::format("CN = {}", sig(p.cn)));
-        }
-        if (im.tables.impervious) {
-            values.push_back(fmt::format("impervious {} %", sig(100.0 * p.impervious_share)));
-        }
-        values.push_back(fmt::format("{} % of the catchment", sig(100.0 * p.area_m2 / total_m2)));
-        lines.calc(fmt::format("Part {}: {}, soil group {}", i + 1, p.land_class, p.soil_group),
-                   fmt::format("A{} = area of catchment, class {} and soil group {}", i + 1,
-                               p.land_class, p.soil_group),
-                   fmt::format("{}", fmt::join(values, ", ")), sheet_area(p.area_m2), au,
-                   overlay_source);
+    pc.area_check_source = "GEOS overlay";
+    pc.dual_groups.assign(duals.begin(), duals.end());
+    pc.drained = s.drained;
+    if (mean_slope) {
+        pc.slope_percent = *mean_slope * 100.0;
     }
-    const auto weighted_line = [&](std::string label_text, std::string symbol, auto member,
-                                   double value, std::string unit, double scale,
-                                   std::string source) {
-        std::vector<std::string> terms;
-        for (const auto &p : w.parts) {
-            terms.push_back(
-                fmt::format("{} x {}", sig(sheet_area(p.area_m2)), sig(scale * (p.*member))));
-        }
-        lines.calc(std::move(label_text), fmt::format("{0} = sum(Ai {0}i) / sum(Ai)", symbol),
-                   fmt::format("{} = ({}) / {}", symbol, fmt::join(terms, " + "),
-                               sig(sheet_area(total_m2))),
-                   scale * value, std::move(unit), std::move(source));
-    };
-    if (im.tables.c) {
-        weighted_line("Runoff coefficient, area-weighted", "C", &report::LandPart::c, w.c_weighted,
-                      "", 1.0, fmt::format("area-weighted; C from {}", im.tables.c->info().name));
-    }
-    if (im.tables.cn) {
-        weighted_line(
-            "Curve number, composite (area-weighted)", "CN", &report::LandPart::cn, w.cn_weighted,
-            "", 1.0,
-            fmt::format("TR-55 (1986) ch. 2, composite CN; CN from {}", im.tables.cn->info().name));
-    }
-    if (im.tables.impervious) {
-        weighted_line(
-            "Impervious share, area-weighted", "I", &report::LandPart::impervious_share,
-            w.impervious_share, "%", 100.0,
-            fmt::format("area-weighted; shares from {}", im.tables.impervious->info().name));
-    }
+    pc.warnings = std::move(warnings);
+    pc.units = s.units;
+    auto weighted = weight_parts(parts, im.tables, pc);
+    out.weighting = std::move(weighted.weighting);
+    out.lines = std::move(weighted.lines);
     return out;
 }
 

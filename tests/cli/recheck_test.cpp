@@ -122,3 +122,40 @@ TEST(CliRecheck, AlternatingBlockStormRunIsReproduced) {
     EXPECT_NE(r.out.find("1 peaks reproduced, 0 differ"), std::string::npos) << r.out;
     EXPECT_NE(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
 }
+
+// A project whose catchment has land parts (a land table): recheck reproduces it, verifies the
+// land table's hash (and the shipped land tables'), and names the land table when it changed.
+TEST(CliRecheck, ALandTableIsRecordedAndReproduced) {
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_land");
+    write(dir / "project.toml", "[project]\nname = \"Fern Court\"\nunits = \"US\"\n"
+                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
+                                "catchment_land_table = \"catchment-land.csv\"\n"
+                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
+                                "[output]\nfolder = \"out\"\n");
+    write(dir / "catchments.csv", "id,area_ac,length_ft,relief_ft,tc_min\nA-1,2.0,400,6,10\n");
+    write(dir / "catchment-land.csv", "id,class,soil_group,area_ac\n"
+                                      "A-1,paved_parking_roofs,C,0.8\n"
+                                      "A-1,open_space_good,B/D,1.2\n");
+    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n");
+    ASSERT_EQ(cli({"run", (dir / "project.toml").string(), "--quiet"}).code, 0);
+    const auto out = dir / "out";
+    std::ifstream rec(out / "run-record.json");
+    std::ostringstream record_text;
+    record_text << rec.rdbuf();
+    const std::string record = record_text.str();
+    EXPECT_NE(record.find("\"catchment land table\""), std::string::npos) << record;
+    EXPECT_NE(record.find("config/land/curve_numbers.csv"), std::string::npos) << record;
+
+    auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
+    // project, catchment table, land table, IDF, frequency factors, three land tables
+    EXPECT_NE(r.out.find("8 of 8 inputs unchanged"), std::string::npos) << r.out;
+
+    write(dir / "catchment-land.csv", "id,class,soil_group,area_ac\n"
+                                      "A-1,paved_parking_roofs,C,1.0\n"
+                                      "A-1,open_space_good,B/D,1.0\n");
+    r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
+    EXPECT_NE(r.out.find("catchment land table 'catchment-land.csv'"), std::string::npos) << r.out;
+    EXPECT_EQ(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+}

@@ -12,6 +12,8 @@
 // unrounded values are computed from TR-55's area weighting with the CNs of Tables 2-2a and
 // 2-2c (checked secondary).
 #include "catchpeak/app/land_inputs.hpp"
+#include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/app/project.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "io/class_raster_data.hpp"
@@ -22,6 +24,7 @@
 
 #include <cmath>
 #include <fstream>
+#include <sstream>
 #include <string>
 
 using namespace catchpeak::land;
@@ -190,4 +193,50 @@ TEST(Tr55Example2_2, AsRastersCompositeCn75) {
     EXPECT_NEAR(r.weighting.cn_weighted, 75.2, 75.2 * overlay_rounding);
     // TR-55 Ex. 2-2: CN 75 (value from memory, not checked against the source).
     EXPECT_EQ(std::lround(r.weighting.cn_weighted), 75);
+}
+
+// Ex. 2-2 as a catchment table with a land table (one row per part), through the table path of
+// `run`: the same parts and composite CN as the overlay above, and the sheet's lines.
+TEST(Tr55Example2_2, AsTableRowsCompositeCn75) {
+    const auto dir = t::scratch_dir("tr55_2_2_table");
+    std::ofstream(dir / "project.toml") << "[project]\nname = \"TR-55 Example 2-2\"\n"
+                                           "units = \"US\"\n\n"
+                                           "[inputs]\ncatchment_table = \"catchments.csv\"\n"
+                                           "catchment_land_table = \"land.csv\"\n\n"
+                                           "[rainfall]\nidf = \"idf.csv\"\n"
+                                           "return_periods_yr = [10]\n\n"
+                                           "[methods]\ntc = \"kirpich\"\npeak = [\"rational\"]\n";
+    // Flow path and slope are not part of the example (any values do for the land weighting).
+    std::ofstream(dir / "catchments.csv") << "id,area_ac,length_ft,slope_percent\n"
+                                             "EX22,250,4780,1\n";
+    std::ofstream(dir / "land.csv") << "id,class,soil_group,area_ac\n"
+                                       "EX22,residential_1_2_ac,B,75\n"
+                                       "EX22,residential_1_2_ac,C,100\n"
+                                       "EX22,open_space_good,C,75\n";
+    std::ofstream(dir / "idf.csv") << "# unit: in/h\nduration_min,10\n5,7.0\n60,2.5\n";
+    std::ostringstream progress;
+    const auto r = catchpeak::app::compute_project(
+        catchpeak::app::load_project(dir / "project.toml"), progress, true);
+    ASSERT_EQ(r.points.size(), 1u);
+    const auto &w = r.points[0].land;
+    ASSERT_EQ(w.parts.size(), 3u);
+    // Computed: (70 x 75 + 80 x 100 + 74 x 75) / 250 = 75.2 (TR-55 Table 2-2a CNs); the areas
+    // are exact acres, so only the rounding of the sums remains (relative 1e-12).
+    EXPECT_NEAR(w.cn_weighted, 75.2, 75.2 * 1e-12);
+    // TR-55 Ex. 2-2: CN 75 (value from memory, not checked against the source).
+    EXPECT_EQ(std::lround(w.cn_weighted), 75);
+    // Impervious share, computed from TR-55 Table 2-2a: 25 % on 175 ac of 250 ac = 17.5 %.
+    EXPECT_NEAR(w.impervious_share, 0.175, 0.175 * 1e-12);
+    // C, computed from the shipped table: residential 1/2 ac 0.325 (any group), open space
+    // good on C at 1 % (below 2 %) 0.15: (0.325 x 175 + 0.15 x 75) / 250 = 0.2725.
+    EXPECT_NEAR(w.c_weighted, 0.2725, 0.2725 * 1e-12);
+    // The composite CN line shows the parts in acres, as a checker writes them.
+    bool found = false;
+    for (const auto &l : r.points[0].lines.lines()) {
+        if (l.label == "Curve number, composite (area-weighted)") {
+            found = true;
+            EXPECT_EQ(l.numbers, "CN = (75.00 x 74.00 + 75.00 x 70.00 + 100.0 x 80.00) / 250.0");
+        }
+    }
+    EXPECT_TRUE(found);
 }

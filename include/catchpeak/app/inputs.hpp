@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/app/project.hpp"
+#include "catchpeak/land/tables.hpp"
 
 #include <filesystem>
 #include <map>
@@ -35,6 +36,27 @@ struct TableCatchment {
 /// - optional: `c`, `cn`, `tc_min`, `x`, `y`.
 /// Throws InputError naming the file, the line and the column.
 [[nodiscard]] std::vector<TableCatchment> read_catchment_table(const std::filesystem::path &path);
+
+/// One row of a catchment land table: one part (land-cover class on a soil group) of one
+/// catchment of the catchment table.
+struct TableLandPart {
+    std::string id; ///< the catchment's id in the catchment table
+    std::size_t line = 0;
+    std::string land_class;
+    std::string soil_group_text; ///< as written (e.g. "B/D")
+    land::SoilGroupReading soil; ///< resolved by the `drained` setting
+    double area_m2 = 0.0;
+    std::string area_column; ///< the area column of the file (area_ac, ...), for messages
+    double area_given = 0.0; ///< the area in that column's unit
+};
+
+/// Reads a catchment land table (CSV): columns `id`, `class`, `soil_group` (A, B, C, D, A/D,
+/// B/D, C/D; dual groups resolve to the first letter when `drained`, else D) and the area in
+/// one of the area columns of the catchment table (`area_m2`, `area_ha`, ...). One row per
+/// part of a catchment; a catchment may have several rows. Throws InputError naming the file,
+/// the line and the column (an empty id or class, an unknown soil group, an area not > 0).
+[[nodiscard]] std::vector<TableLandPart>
+read_catchment_land_table(const std::filesystem::path &path, bool drained);
 
 /// An annual maximum series of 24-hour rainfall depths: one value per year.
 struct AnnualMaximumSeries {

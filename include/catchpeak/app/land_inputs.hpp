@@ -1,9 +1,12 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/project.hpp"
 #include "catchpeak/io/class_raster.hpp"
 #include "catchpeak/io/feature.hpp"
+#include "catchpeak/land/tables.hpp"
+#include "catchpeak/report/results.hpp"
 
 #include <cstdint>
 #include <map>
@@ -41,5 +44,13 @@ enum class LandInput { land_cover, soils };
 [[nodiscard]] io::VectorLayer read_land_input(const Project &project, LandInput which,
                                               const std::string &crs_wkt, const io::Extent &window,
                                               bool polygons = true);
+
+/// The land tables of a project: the shipped tables (config/land/), with the project's own
+/// `c_table` and `cn_table` in their place when given.
+[[nodiscard]] land::LandTables project_land_tables(const Project &project);
+
+/// The parts of a land weighting as the area-weighted runoff alternative of the SCS methods
+/// takes them ("<class>, soil group <group>", area, CN).
+[[nodiscard]] std::vector<LandPart> land_parts_of(const report::LandWeighting &w);
 
 } // namespace catchpeak::app

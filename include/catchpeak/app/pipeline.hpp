@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/app/catchment_land.hpp"
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/project.hpp"
@@ -27,10 +28,13 @@ struct RunOptions {
 
 /// Computes every design point and return period of a project whose catchments come from a
 /// catchment table. `tables` holds the method tables the chosen methods need
-/// (load_hydrology_tables).
+/// (load_hydrology_tables). A catchment with land parts (`land_parts`, checked with
+/// check_land_parts) takes its C, CN and impervious share from their weighting with the
+/// project's land tables; the others take `c` and `cn` from the table.
 [[nodiscard]] report::RunResults compute_from_table(const Project &project,
                                                     const std::vector<TableCatchment> &catchments,
-                                                    const HydrologyTables &tables);
+                                                    const HydrologyTables &tables,
+                                                    const LandPartsById &land_parts = {});
 
 /// Computes a whole project: checks it, reads its inputs, computes every design point.
 /// Throws InputError listing every problem found by the check.

@@ -3,6 +3,7 @@
 
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/project.hpp"
+#include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/rain/design_storm.hpp"
 #include "catchpeak/rain/idf.hpp"
@@ -34,8 +35,11 @@ struct PointInputs {
     std::optional<double> c;          ///< runoff coefficient
     std::optional<double> cn;         ///< curve number (composite)
     std::vector<LandPart> land_parts; ///< empty: no area-weighted runoff alternative
-    std::optional<double> tc_min;     ///< a tc given in the catchment input
-    std::string source;               ///< source text for the input notes
+    /// Lines of a land weighting shown after the restated A, L and S in place of the C and CN
+    /// notes (a catchment table with land parts); empty: C and CN restated as given.
+    CalcLines land_lines;
+    std::optional<double> tc_min; ///< a tc given in the catchment input
+    std::string source;           ///< source text for the input notes
     /// Elevations along the longest flow path, (distance from its top in m, elevation in m),
     /// one per cell from the top to the outlet, when the catchment comes from a DEM: the
     /// segmental tc methods then take each segment's own slope. Empty: every segment takes

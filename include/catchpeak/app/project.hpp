@@ -29,6 +29,9 @@ struct Inputs {
     std::string design_points_layer; ///< empty: the first layer
     std::string id_field = "id";
     std::optional<InputPath> catchment_table;
+    /// Land parts of the catchments of the catchment table (CSV: id, class, soil_group and the
+    /// area with its unit in the column name); C and CN are weighted from them.
+    std::optional<InputPath> catchment_land_table;
     std::optional<InputPath> land_cover;
     std::string class_field = "class";
     std::optional<InputPath> soils;

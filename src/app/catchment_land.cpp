@@ -1,0 +1,189 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/catchment_land.hpp"
+
+#include "catchpeak/app/land_inputs.hpp"
+
+#include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/error.hpp"
+
+#include <fmt/format.h>
+
+#include <cmath>
+#include <set>
+#include <utility>
+
+namespace catchpeak::app {
+
+namespace {
+
+/// "lines 3, 4 and 7" / "line 3" of the parts.
+std::string lines_of(const std::vector<TableLandPart> &parts) {
+    std::vector<std::size_t> lines;
+    lines.reserve(parts.size());
+    for (const auto &p : parts) {
+        lines.push_back(p.line);
+    }
+    if (lines.size() == 1) {
+        return fmt::format("line {}", lines.front());
+    }
+    const std::size_t last = lines.back();
+    lines.pop_back();
+    return fmt::format("lines {} and {}", fmt::join(lines, ", "), last);
+}
+
+/// The class is in every land table that is given, and the C table has one row for its soil
+/// group at the catchment's slope. Adds a problem naming the land table's line otherwise.
+void check_class(const TableLandPart &part, const TableCatchment &c, const land::LandTables &tables,
+                 const std::string &land_file, Problems &problems) {
+    const std::string where = fmt::format("{}:{}: column 'class'", land_file, part.line);
+    const auto missing = [&](const land::TableInfo &info, std::string_view kind,
+                             std::string_view key) {
+        problems.add(input_message(
+            where,
+            fmt::format("land-cover class '{}' (catchment '{}') is not in the {} table {}",
+                        part.land_class, part.id, kind, info.name),
+            fmt::format("a class of that table (a project may point to its own table{})", key)));
+    };
+    if (tables.c && !tables.c->has_class(part.land_class)) {
+        missing(tables.c->info(), "runoff coefficient", " with 'c_table'");
+        return;
+    }
+    if (tables.cn && !tables.cn->has_class(part.land_class)) {
+        missing(tables.cn->info(), "curve number", " with 'cn_table'");
+        return;
+    }
+    if (tables.impervious && !tables.impervious->has_class(part.land_class)) {
+        missing(tables.impervious->info(), "impervious share", "");
+        return;
+    }
+    if (tables.c) {
+        try {
+            (void)tables.c->lookup(part.land_class, part.soil.group, 100.0 * c.slope);
+        } catch (const InputError &e) {
+            problems.add(input_message(
+                fmt::format("{}:{}: column 'soil_group'", land_file, part.line),
+                fmt::format("catchment '{}', class '{}', soil group {}: {}", part.id,
+                            part.land_class, land::to_string(part.soil.group), e.what())));
+        }
+    }
+}
+
+} // namespace
+
+LandPartsById check_land_parts(const Project &p, const std::vector<TableCatchment> &catchments,
+                               const std::vector<TableLandPart> &parts,
+                               const land::LandTables &tables, Problems &problems) {
+    const std::string land_file =
+        p.inputs.catchment_land_table ? p.inputs.catchment_land_table->resolved.string() : "";
+    const std::string table_file =
+        p.inputs.catchment_table ? p.inputs.catchment_table->resolved.string() : "";
+    std::map<std::string, const TableCatchment *> by_id;
+    std::vector<std::string> ids;
+    for (const auto &c : catchments) {
+        by_id.emplace(c.id, &c);
+        ids.push_back(c.id);
+    }
+    LandPartsById out;
+    for (const auto &part : parts) {
+        const auto it = by_id.find(part.id);
+        if (it == by_id.end()) {
+            const std::string hint = closest_match(part.id, ids);
+            problems.add(input_message(
+                fmt::format("{}:{}: column 'id'", land_file, part.line),
+                fmt::format("catchment '{}' is not in the catchment table {}{}", part.id,
+                            table_file,
+                            hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                "an id of the catchment table"));
+            continue;
+        }
+        check_class(part, *it->second, tables, land_file, problems);
+        out[part.id].push_back(part);
+    }
+    for (const auto &[id, own] : out) {
+        const TableCatchment &c = *by_id.at(id);
+        if (c.c || c.cn) {
+            const std::string given = c.c && c.cn ? "'c' and 'cn'" : c.c ? "'c'" : "'cn'";
+            problems.add(input_message(
+                fmt::format("{}:{}", table_file, c.line),
+                fmt::format("catchment '{}' gives {} and has land parts ({}, {}); it is not "
+                            "clear which to use",
+                            id, given, land_file, lines_of(own)),
+                "either 'c' and 'cn' in the catchment table, or land parts in the land table, "
+                "not both"));
+        }
+        double sum_m2 = 0.0;
+        for (const auto &part : own) {
+            sum_m2 += part.area_m2;
+        }
+        if (std::abs(sum_m2 - c.area_m2) > land_parts_area_tolerance_share * c.area_m2) {
+            // Both sums in the unit of the land table's area column.
+            const auto &first = own.front();
+            const double per_m2 = first.area_given / first.area_m2;
+            const std::string unit = first.area_column.substr(std::string("area_").size());
+            problems.add(input_message(
+                fmt::format("{}:{}: catchment '{}' ({})", land_file, first.line, id, lines_of(own)),
+                fmt::format("the land parts add up to {} {}, the catchment table gives {} {} "
+                            "({}:{}), a difference of {} %",
+                            sig(sum_m2 * per_m2), unit, sig(c.area_m2 * per_m2), unit, table_file,
+                            c.line, sig(100.0 * (sum_m2 - c.area_m2) / c.area_m2, 3)),
+                fmt::format("parts that add up to the catchment's area within {:g} % (common "
+                            "practice, no source)",
+                            100.0 * land_parts_area_tolerance_share)));
+        }
+    }
+    return out;
+}
+
+LandPartsById read_land_parts(const Project &p, const std::vector<TableCatchment> &catchments,
+                              Problems &problems) {
+    if (!p.inputs.catchment_land_table) {
+        return {};
+    }
+    try {
+        const auto parts = read_catchment_land_table(p.inputs.catchment_land_table->resolved,
+                                                     p.settings.dual_soil_group == "drained");
+        return check_land_parts(p, catchments, parts, project_land_tables(p), problems);
+    } catch (const InputError &e) {
+        problems.add(e.what());
+    }
+    return {};
+}
+
+land::PartsWeighting weight_table_catchment(const Project &p, const TableCatchment &c,
+                                            const std::vector<TableLandPart> &parts,
+                                            const land::LandTables &tables) {
+    const std::string land_given =
+        p.inputs.catchment_land_table ? p.inputs.catchment_land_table->given : "";
+    const std::string table_given = p.inputs.catchment_table ? p.inputs.catchment_table->given : "";
+    std::vector<land::PartArea> areas;
+    areas.reserve(parts.size());
+    std::set<std::string> duals;
+    for (const auto &part : parts) {
+        areas.push_back({part.land_class, part.soil.group, part.area_m2,
+                         fmt::format("{}, line {}", land_given, part.line)});
+        if (part.soil.dual) {
+            duals.insert(
+                fmt::format("{} -> {}", part.soil_group_text, land::to_string(part.soil.group)));
+        }
+    }
+    land::PartsContext pc;
+    pc.label = c.id;
+    pc.catchment_area_m2 = c.area_m2;
+    const std::string rows = fmt::format("{}, {}", land_given, lines_of(parts));
+    pc.input_notes.note("Land parts",
+                        fmt::format("{}: class, soil group and area of each part", rows),
+                        "project input");
+    pc.parts_source = fmt::format("project input ({})", rows);
+    pc.area_check_source =
+        fmt::format("project input ({}; {}, line {})", rows, table_given, c.line);
+    pc.dual_groups.assign(duals.begin(), duals.end());
+    pc.drained = p.settings.dual_soil_group == "drained";
+    pc.slope_percent = 100.0 * c.slope;
+    pc.slope_text = "slope of the longest flow path (a catchment table gives no mean slope of "
+                    "the catchment)";
+    pc.slope_source = fmt::format("project input ({}, line {})", table_given, c.line);
+    pc.units = p.info.units;
+    return land::weight_parts(areas, tables, pc);
+}
+
+} // namespace catchpeak::app
