@@ -234,12 +234,19 @@ CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
     CalcLines lines;
     auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
     const char *lu = us ? "ft" : "m";
+    // Coordinates in the unit of the DEM file's own CRS, as the engineer's survey gives them.
+    const double crs_m = d.dem.horizontal_unit_m > 0.0 ? d.dem.horizontal_unit_m : 1.0;
+    const std::string crs_u = d.dem.horizontal_unit == "US survey foot"       ? "US ft"
+                              : d.dem.horizontal_unit == "international foot" ? "ft"
+                                                                              : "m";
     lines.note("Design point as given",
-               fmt::format("x = {:.2f} m, y = {:.2f} m", pt.given_x, pt.given_y), pts_src);
+               fmt::format("x = {:.2f} {}, y = {:.2f} {}", pt.given_x / crs_m, crs_u,
+                           pt.given_y / crs_m, crs_u),
+               pts_src);
     lines.note("Design point snapped to the cell of largest flow accumulation within the snap "
                "radius",
-               fmt::format("x = {:.2f} m, y = {:.2f} m; moved {} {}", pt.snapped_x, pt.snapped_y,
-                           sig(len(pt.snap_distance_m)), lu),
+               fmt::format("x = {:.2f} {}, y = {:.2f} {}; moved {} {}", pt.snapped_x / crs_m, crs_u,
+                           pt.snapped_y / crs_m, crs_u, sig(len(pt.snap_distance_m)), lu),
                d8_source, len(pt.snap_distance_m), lu);
     if (us) {
         lines.note("Catchment area", fmt::format("A = {} ac", sig(units::m2_to_acre(pt.area_m2))),

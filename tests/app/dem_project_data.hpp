@@ -60,9 +60,10 @@ inline double cell_y(double row) {
 /// What a test may change in the project.
 struct DemProjectOptions {
     std::string dem_crs = "EPSG:32633";
-    std::string land_crs = "EPSG:32633"; ///< "" = no CRS
-    std::vector<PointSpec> points;       ///< empty: the two design points on the axis
-    bool empty_points = false;           ///< write a point layer without features
+    std::string land_crs = "EPSG:32633";   ///< "" = no CRS
+    std::string points_crs = "EPSG:32633"; ///< of the design points and the soils
+    std::vector<PointSpec> points;         ///< empty: the two design points on the axis
+    bool empty_points = false;             ///< write a point layer without features
     std::string residential_class = "residential_1_4_ac";
 };
 
@@ -89,7 +90,7 @@ inline std::filesystem::path make_dem_project(const std::filesystem::path &dir,
         pts = {{cell_x(S::axis_col), cell_y(S::upper_row), "DP-UP"},
                {cell_x(S::axis_col), cell_y(S::outlet_row), "DP-OUT"}};
     }
-    make_points(dir / "points.gpkg", pts, "EPSG:32633");
+    make_points(dir / "points.gpkg", pts, o.points_crs);
 
     // Land cover: two rectangles over the whole DEM, split at the top of row split_row.
     const double x1 = S::x0 + S::width * S::cell_m;
@@ -105,7 +106,7 @@ inline std::filesystem::path make_dem_project(const std::filesystem::path &dir,
                 {rect(S::x0, y1, x1, y_split), {o.residential_class}}},
                o.land_crs, o.land_crs.empty() ? "ESRI Shapefile" : "GPKG");
     make_layer(dir / "soils.gpkg", "soils", {"hsg"}, {{rect(S::x0, y1, x1, S::y0), {"B"}}},
-               "EPSG:32633");
+               o.points_crs);
     {
         std::ofstream idf(dir / "idf.csv");
         idf << "# unit: mm/h\nduration_min,2,10\n5,100,150\n10,80,120\n60,30,45\n";

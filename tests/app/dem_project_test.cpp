@@ -157,3 +157,31 @@ TEST(DemProject, SegmentalTcTakesEachSegmentsSlopeFromTheDem) {
     EXPECT_NEAR(slope.at("Slope, shallow concentrated flow"), 0.2, 1e-6);
     EXPECT_NEAR(slope.at("Slope, channel flow"), (0.2 * 19.52 + 0.05 * 490.0) / 509.52, 1e-6);
 }
+
+TEST(DemProject, CoordinatesAreGivenInTheUnitOfTheDemsCrs) {
+    // The same valley in a CRS whose unit is the US survey foot (EPSG:2229, NAD83 / California
+    // zone 5 (ftUS)): the design point on the axis at column 20 lies at x = 500000 + 20.5 x 10 =
+    // 500205 ftUS. Inside, coordinates are metres; the lines give them back in US survey feet.
+    const auto dir = t::scratch_dir("dem_project_feet");
+    t::DemProjectOptions opt;
+    opt.dem_crs = "EPSG:2229";
+    opt.land_crs = "EPSG:2229";
+    opt.points_crs = "EPSG:2229";
+    const auto project = t::make_dem_project(dir, opt);
+    std::ostringstream out;
+    std::ostringstream err;
+    catchpeak::app::RunOptions o;
+    o.quiet = true;
+    o.run_time_utc = "2026-01-01T00:00:00Z";
+    const fs::path written = catchpeak::app::run_project(project, o, out, err);
+    const auto doc = read_json(written / "results.json");
+    bool seen = false;
+    for (const auto &l : point(doc, "DP-OUT").at("lines")) {
+        if (l.at("label") == "Design point as given") {
+            const std::string numbers = l.at("numbers");
+            EXPECT_EQ(numbers.rfind("x = 500205.00 US ft, y = ", 0), 0u) << numbers;
+            seen = true;
+        }
+    }
+    EXPECT_TRUE(seen);
+}
