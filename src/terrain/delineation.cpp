@@ -112,7 +112,7 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     detail::condition(dem, breach_lines, threads, al.upstream_length_m, dirs, al.accumulation);
 
     report("flow accumulation", 0.35);
-    detail::accumulation_and_length_into(dirs, al);
+    detail::accumulation_and_length_into(dirs, al, threads);
 
     report("snapping design points", 0.55);
     result.points.resize(points.size());

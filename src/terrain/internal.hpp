@@ -74,8 +74,10 @@ void resolve_flats_with(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs,
 void condition(const Grid<float> &dem, const std::vector<BreachLine> &lines, unsigned threads,
                Grid<float> &work, Grid<std::uint8_t> &dirs, Grid<std::uint32_t> &scratch);
 
-/// accumulation_and_length into the caller's grids (reused when of the right size).
-void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAndLength &out);
+/// accumulation_and_length into the caller's grids (reused when of the right size); the inflow
+/// counts are gathered over row blocks on up to `threads` threads.
+void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAndLength &out,
+                                  unsigned threads);
 
 /// delineate_catchments with the caller's grid as the label buffer (reused when of the right
 /// size).
