@@ -82,6 +82,7 @@ void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAn
 /// delineate_catchments with the caller's grid as the label buffer (reused when of the right
 /// size).
 void delineate_catchments_into(const Grid<std::uint8_t> &dirs,
-                               const std::vector<std::size_t> &outlets, Catchments &out);
+                               const std::vector<std::size_t> &outlets, Catchments &out,
+                               CatchmentSearch how);
 
 } // namespace catchpeak::terrain::detail
