@@ -209,7 +209,8 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
 
     report("slopes", 0.85);
     const auto max_label = static_cast<std::uint32_t>(outlets.size());
-    const SlopeSums sums = slope_sums_by_label(dem, c.labels, max_label, threads);
+    // Only the catchments' own cells are needed (label 0 is outside every catchment).
+    const SlopeSums sums = detail::slope_sums_by_label(dem, c.labels, max_label, threads, false);
     if (!settings.keep_directions) {
         dirs = Grid<std::uint8_t>();
     } else {

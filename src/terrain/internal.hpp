@@ -6,6 +6,7 @@
 #include "catchpeak/terrain/accumulation.hpp"
 #include "catchpeak/terrain/catchments.hpp"
 #include "catchpeak/terrain/conditioning.hpp"
+#include "catchpeak/terrain/slope.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -84,5 +85,10 @@ void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAn
 void delineate_catchments_into(const Grid<std::uint8_t> &dirs,
                                const std::vector<std::size_t> &outlets, Catchments &out,
                                CatchmentSearch how);
+
+/// slope_sums_by_label; without the unlabelled cells (index 0 left at zero) when
+/// `with_unlabelled` is false, which spares the slope of every cell outside the catchments.
+SlopeSums slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> &labels,
+                              std::uint32_t max_label, unsigned threads, bool with_unlabelled);
 
 } // namespace catchpeak::terrain::detail
