@@ -7,11 +7,22 @@
 #include <algorithm>
 #include <array>
 #include <cstddef>
+#include <cstring>
 #include <type_traits>
 
 namespace catchpeak::terrain {
 
 namespace {
+
+/// Sixteen bytes processed as one value (GCC and Clang vector extension).
+using Bytes16 = std::int8_t __attribute__((vector_size(16)));
+static_assert(d8::dcol[1] == 1 && d8::drow[1] == 0 && d8::opposite[1] == 5 && d8::dcol[2] == 1 &&
+                  d8::drow[2] == 1 && d8::opposite[2] == 6 && d8::dcol[3] == 0 &&
+                  d8::drow[3] == 1 && d8::opposite[3] == 7 && d8::dcol[4] == -1 &&
+                  d8::drow[4] == 1 && d8::opposite[4] == 8 && d8::dcol[5] == -1 &&
+                  d8::drow[5] == 0 && d8::dcol[6] == -1 && d8::drow[6] == -1 && d8::dcol[7] == 0 &&
+                  d8::drow[7] == -1 && d8::dcol[8] == 1 && d8::drow[8] == -1,
+              "the inflow count below spells out the D8 codes");
 
 /// Walks the cells in topological order: visit(i, downstream) is called for each cell after
 /// all cells draining into it; `downstream` is the downstream cell on the grid or no_cell.
@@ -65,12 +76,12 @@ Grid<std::uint32_t> flow_accumulation(const Grid<std::uint8_t> &dirs) {
 
 AccumulationAndLength accumulation_and_length(const Grid<std::uint8_t> &dirs) {
     AccumulationAndLength out;
-    detail::accumulation_and_length_into(dirs, out);
+    detail::accumulation_and_length_into(dirs, out, 1);
     return out;
 }
 
 void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
-                                          AccumulationAndLength &out) {
+                                          AccumulationAndLength &out, unsigned threads) {
     const auto reset = [&](auto &g, auto zero) {
         if (g.width() != dirs.width() || g.height() != dirs.height()) {
             g = std::remove_reference_t<decltype(g)>(dirs.width(), dirs.height(), zero);
@@ -93,7 +104,7 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
     // One byte a cell: the low nibble counts the inflows still to come (0..8, 15 once the
     // cell is visited); the high nibble holds the code of the upstream neighbour on the
     // longest path (ties: the lowest code). It becomes out.longest_upstream.
-    out.longest_upstream = Grid<std::uint8_t>(dirs.width(), dirs.height(), 0);
+    out.longest_upstream = Grid<std::uint8_t>(dirs.width(), dirs.height(), no_fill);
     out.longest_upstream.copy_georef_from(dirs);
     auto &state = out.longest_upstream.cells();
     constexpr std::uint8_t count_mask = 0x0F;
@@ -114,16 +125,58 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
         }
         return dr * w + dc;
     };
-    for (std::size_t r = 0; r < h; ++r) {
-        for (std::size_t c = 0; c < w; ++c) {
-            std::size_t dc = 0;
-            std::size_t dr = 0;
-            const std::size_t d = downstream(c, r, dc, dr);
-            if (d != no_cell) {
-                ++state[d];
+    // Inflow counts gathered: each cell counts the neighbours whose code points at it, so row
+    // blocks write only their own cells and run on the worker threads (same result for any
+    // thread count). Cells away from the raster's edge test their neighbours without bounds
+    // checks.
+    const std::uint8_t *dir = dirs.cells().data();
+    const auto inflows_checked = [&](std::size_t c, std::size_t r) {
+        std::uint8_t n = 0;
+        for (std::uint8_t k = 1; k <= 8; ++k) {
+            const std::size_t nc = c + static_cast<std::size_t>(std::ptrdiff_t{d8::dcol[k]});
+            const std::size_t nr = r + static_cast<std::size_t>(std::ptrdiff_t{d8::drow[k]});
+            if (nc < w && nr < h && dir[nr * w + nc] == d8::opposite[k]) {
+                ++n;
             }
         }
-    }
+        return n;
+    };
+    detail::for_row_blocks(h, threads, 256, [&](std::size_t, std::size_t r0, std::size_t r1) {
+        for (std::size_t r = r0; r < r1; ++r) {
+            std::uint8_t *row_state = &state[r * w];
+            if (r == 0 || r + 1 == h || w < 3) {
+                for (std::size_t c = 0; c < w; ++c) {
+                    row_state[c] = inflows_checked(c, r);
+                }
+                continue;
+            }
+            row_state[0] = inflows_checked(0, r);
+            const std::uint8_t *up = dir + (r - 1) * w;
+            const std::uint8_t *mid = dir + r * w;
+            const std::uint8_t *down = dir + (r + 1) * w;
+            // Sixteen cells at a time: a true comparison is all ones (-1) in a lane.
+            std::size_t c = 1;
+            for (; c + 17 <= w; c += 16) {
+                const auto at = [](const std::uint8_t *p) {
+                    Bytes16 v;
+                    std::memcpy(&v, p, sizeof v);
+                    return v;
+                };
+                const Bytes16 n = (at(mid + c + 1) == 5) + (at(down + c + 1) == 6) +
+                                  (at(down + c) == 7) + (at(down + c - 1) == 8) +
+                                  (at(mid + c - 1) == 1) + (at(up + c - 1) == 2) +
+                                  (at(up + c) == 3) + (at(up + c + 1) == 4);
+                const Bytes16 count = -n;
+                std::memcpy(row_state + c, &count, sizeof count);
+            }
+            for (; c + 1 < w; ++c) {
+                row_state[c] = static_cast<std::uint8_t>(
+                    (mid[c + 1] == 5) + (down[c + 1] == 6) + (down[c] == 7) + (down[c - 1] == 8) +
+                    (mid[c - 1] == 1) + (up[c - 1] == 2) + (up[c] == 3) + (up[c + 1] == 4));
+            }
+            row_state[w - 1] = inflows_checked(w - 1, r);
+        }
+    });
     for (std::size_t start_r = 0; start_r < h; ++start_r) {
         for (std::size_t start_c = 0; start_c < w; ++start_c) {
             const std::size_t start = start_r * w + start_c;

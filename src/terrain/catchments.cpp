@@ -6,44 +6,33 @@
 #include "internal.hpp"
 
 #include <algorithm>
+#include <array>
+#include <bit>
 
 #include <limits>
 
 namespace catchpeak::terrain {
 
-Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
-                                const std::vector<std::size_t> &outlets) {
-    Catchments out;
-    detail::delineate_catchments_into(dirs, outlets, out);
-    return out;
-}
+namespace {
 
-void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
-                                       const std::vector<std::size_t> &outlets, Catchments &out) {
+/// Labels by following each unlabelled cell's path downstream to the first labelled cell:
+/// every cell is visited, a bounded number of times.
+void label_by_walks(const Grid<std::uint8_t> &dirs, const std::vector<std::size_t> &outlets,
+                    Catchments &out) {
     constexpr std::uint32_t unresolved = std::numeric_limits<std::uint32_t>::max();
-    if (outlets.size() >= unresolved) {
-        throw InternalError("delineate_catchments: too many outlets");
-    }
     const std::size_t n = dirs.size();
     const std::size_t w = dirs.width();
     const std::size_t h = dirs.height();
-    if (out.labels.width() != w || out.labels.height() != h) {
-        out.labels = Grid<std::uint32_t>(w, h, no_fill);
-    }
-    out.labels.copy_georef_from(dirs);
-    out.labels.nodata.reset();
     auto &labels = out.labels;
     for (std::size_t i = 0; i < n; ++i) {
         labels[i] = dirs[i] == d8::none ? 0 : unresolved;
     }
     const auto count = static_cast<std::uint32_t>(outlets.size());
-    out.local_cells.assign(count, 0);
     for (std::uint32_t k = 0; k < count; ++k) {
-        const std::size_t cell = outlets[k];
-        if (cell >= n || labels[cell] != unresolved) {
+        if (labels[outlets[k]] != unresolved) {
             throw InternalError("delineate_catchments: outlet on nodata, outside or repeated");
         }
-        labels[cell] = k + 1;
+        labels[outlets[k]] = k + 1;
         out.local_cells[k] = 1;
     }
     // Follow each unresolved path downstream to the first resolved cell, then label the path.
@@ -92,6 +81,122 @@ void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
             }
         }
     }
+}
+
+/// Labels by searching upstream from each outlet: only the cells that drain to an outlet are
+/// visited (the others keep 0), at a higher cost per cell than the walks.
+void label_by_search(const Grid<std::uint8_t> &dirs, const std::vector<std::size_t> &outlets,
+                     Catchments &out) {
+    const std::size_t w = dirs.width();
+    const std::size_t h = dirs.height();
+    auto &labels = out.labels;
+    std::fill(labels.cells().begin(), labels.cells().end(), 0U);
+    const auto count = static_cast<std::uint32_t>(outlets.size());
+    for (std::uint32_t k = 0; k < count; ++k) {
+        if (labels[outlets[k]] != 0) {
+            throw InternalError("delineate_catchments: outlet on nodata, outside or repeated");
+        }
+        labels[outlets[k]] = k + 1;
+    }
+    // Each outlet's local catchment is searched upstream: the cells whose code points at a
+    // labelled cell, up to the cells of other outlets (labelled first, so never entered). Only
+    // cells that drain to an outlet are visited; the others keep 0. The search tracks column
+    // and row, so that no division is needed for each cell.
+    std::array<std::ptrdiff_t, 9> offset{};
+    for (std::uint8_t k = 1; k <= 8; ++k) {
+        offset[k] =
+            static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
+    }
+    struct Cell {
+        std::size_t c;
+        std::size_t r;
+    };
+    std::vector<Cell> todo;
+    for (std::uint32_t k = 0; k < count; ++k) {
+        const std::uint32_t label = k + 1;
+        std::size_t cells = 0;
+        todo.assign(1, Cell{outlets[k] % w, outlets[k] / w});
+        while (!todo.empty()) {
+            const Cell cell = todo.back();
+            todo.pop_back();
+            ++cells;
+            const std::size_t i = cell.r * w + cell.c;
+            if (cell.c > 0 && cell.r > 0 && cell.c + 1 < w && cell.r + 1 < h) {
+                // Inflows as a bit mask without a branch per neighbour, then its set bits.
+                unsigned in = 0;
+                for (std::uint8_t q = 1; q <= 8; ++q) {
+                    const std::size_t nb =
+                        static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset[q]);
+                    in |= static_cast<unsigned>(dirs[nb] == d8::opposite[q]) << q;
+                }
+                while (in != 0) {
+                    const auto q = static_cast<std::uint8_t>(std::countr_zero(in));
+                    in &= in - 1;
+                    const std::size_t nb =
+                        static_cast<std::size_t>(static_cast<std::ptrdiff_t>(i) + offset[q]);
+                    if (labels[nb] != 0) {
+                        continue; // another outlet (or a cycle)
+                    }
+                    labels[nb] = label;
+                    todo.push_back(
+                        {cell.c + static_cast<std::size_t>(std::ptrdiff_t{d8::dcol[q]}),
+                         cell.r + static_cast<std::size_t>(std::ptrdiff_t{d8::drow[q]})});
+                }
+                continue;
+            }
+            for (std::uint8_t q = 1; q <= 8; ++q) {
+                // A step off column 0 or row 0 wraps to a huge value, caught by the bounds test.
+                const std::size_t nc =
+                    cell.c + static_cast<std::size_t>(std::ptrdiff_t{d8::dcol[q]});
+                const std::size_t nr =
+                    cell.r + static_cast<std::size_t>(std::ptrdiff_t{d8::drow[q]});
+                if (nc < w && nr < h && dirs[nr * w + nc] == d8::opposite[q] &&
+                    labels[nr * w + nc] == 0) {
+                    labels[nr * w + nc] = label;
+                    todo.push_back({nc, nr});
+                }
+            }
+        }
+        out.local_cells[k] = cells;
+    }
+}
+
+} // namespace
+
+Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
+                                const std::vector<std::size_t> &outlets, CatchmentSearch how) {
+    Catchments out;
+    detail::delineate_catchments_into(dirs, outlets, out, how);
+    return out;
+}
+
+void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
+                                       const std::vector<std::size_t> &outlets, Catchments &out,
+                                       CatchmentSearch how) {
+    if (outlets.size() >= std::numeric_limits<std::uint32_t>::max() - 1) {
+        throw InternalError("delineate_catchments: too many outlets");
+    }
+    const std::size_t n = dirs.size();
+    const std::size_t w = dirs.width();
+    const std::size_t h = dirs.height();
+    for (const std::size_t cell : outlets) {
+        if (cell >= n || dirs[cell] == d8::none) {
+            throw InternalError("delineate_catchments: outlet on nodata, outside or repeated");
+        }
+    }
+    if (out.labels.width() != w || out.labels.height() != h) {
+        out.labels = Grid<std::uint32_t>(w, h, no_fill);
+    }
+    out.labels.copy_georef_from(dirs);
+    out.labels.nodata.reset();
+    const auto count = static_cast<std::uint32_t>(outlets.size());
+    out.local_cells.assign(count, 0);
+    if (how == CatchmentSearch::from_outlets) {
+        label_by_search(dirs, outlets, out);
+    } else {
+        label_by_walks(dirs, outlets, out);
+    }
+    const auto &labels = out.labels;
     out.downstream_label.assign(count, 0);
     out.total_cells.assign(count, 0);
     out.upstream_labels.assign(count, {});

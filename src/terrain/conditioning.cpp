@@ -539,7 +539,7 @@ void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &li
                                }
                            });
     apply_breach_lines(work, lines);
-    dirs = Grid<std::uint8_t>(dem.width(), dem.height(), 0);
+    dirs = Grid<std::uint8_t>(dem.width(), dem.height(), no_fill); // fill sets every mark
     dirs.copy_georef_from(dem);
     fill_depressions(work, dirs);
     detail::d8_directions_into(work, dirs, threads);

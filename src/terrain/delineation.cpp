@@ -112,7 +112,7 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     detail::condition(dem, breach_lines, threads, al.upstream_length_m, dirs, al.accumulation);
 
     report("flow accumulation", 0.35);
-    detail::accumulation_and_length_into(dirs, al);
+    detail::accumulation_and_length_into(dirs, al, threads);
 
     report("snapping design points", 0.55);
     result.points.resize(points.size());
@@ -172,7 +172,16 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     al.longest_upstream = Grid<std::uint8_t>();
 
     report("catchments", 0.75);
-    detail::delineate_catchments_into(dirs, outlets, c);
+    // The outlets' accumulations bound the cells draining to them (nested ones counted more
+    // than once): when they are a small part of the raster, searching upstream from the
+    // outlets visits fewer cells than walking from every cell. Both give the same labels.
+    std::uint64_t draining = 0;
+    for (std::size_t k = 0; k < outlets.size(); ++k) {
+        draining += result.points[first_point_at_outlet[k]].accumulation;
+    }
+    detail::delineate_catchments_into(dirs, outlets, c,
+                                      draining <= dirs.size() / 4 ? CatchmentSearch::from_outlets
+                                                                  : CatchmentSearch::every_cell);
 
     // Local catchments touching the raster edge or nodata.
     const std::size_t w = dem.width();
@@ -200,7 +209,8 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
 
     report("slopes", 0.85);
     const auto max_label = static_cast<std::uint32_t>(outlets.size());
-    const SlopeSums sums = slope_sums_by_label(dem, c.labels, max_label, threads);
+    // Only the catchments' own cells are needed (label 0 is outside every catchment).
+    const SlopeSums sums = detail::slope_sums_by_label(dem, c.labels, max_label, threads, false);
     if (!settings.keep_directions) {
         dirs = Grid<std::uint8_t>();
     } else {

@@ -6,6 +6,7 @@
 #include "catchpeak/terrain/accumulation.hpp"
 #include "catchpeak/terrain/catchments.hpp"
 #include "catchpeak/terrain/conditioning.hpp"
+#include "catchpeak/terrain/slope.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -74,12 +75,20 @@ void resolve_flats_with(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs,
 void condition(const Grid<float> &dem, const std::vector<BreachLine> &lines, unsigned threads,
                Grid<float> &work, Grid<std::uint8_t> &dirs, Grid<std::uint32_t> &scratch);
 
-/// accumulation_and_length into the caller's grids (reused when of the right size).
-void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAndLength &out);
+/// accumulation_and_length into the caller's grids (reused when of the right size); the inflow
+/// counts are gathered over row blocks on up to `threads` threads.
+void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAndLength &out,
+                                  unsigned threads);
 
 /// delineate_catchments with the caller's grid as the label buffer (reused when of the right
 /// size).
 void delineate_catchments_into(const Grid<std::uint8_t> &dirs,
-                               const std::vector<std::size_t> &outlets, Catchments &out);
+                               const std::vector<std::size_t> &outlets, Catchments &out,
+                               CatchmentSearch how);
+
+/// slope_sums_by_label; without the unlabelled cells (index 0 left at zero) when
+/// `with_unlabelled` is false, which spares the slope of every cell outside the catchments.
+SlopeSums slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> &labels,
+                              std::uint32_t max_label, unsigned threads, bool with_unlabelled);
 
 } // namespace catchpeak::terrain::detail

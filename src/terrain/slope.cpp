@@ -42,15 +42,16 @@ inline double horn_at(const Grid<float> &dem, const detail::ValidTest &valid, do
                        dx, dy);
 }
 
-/// Calls slope(col, value) for every valid cell of row `row`: cells away from the raster's
-/// edge read their window without bounds checks, the others go through horn_at.
-template <typename Slope>
+/// Calls slope(col, value) for every valid cell of row `row` for which wanted(col) holds: cells
+/// away from the raster's edge read their window without bounds checks, the others go through
+/// horn_at.
+template <typename Slope, typename Wanted>
 inline void horn_row(const Grid<float> &dem, const detail::ValidTest &valid, double dx, double dy,
-                     std::size_t row, Slope slope) {
+                     std::size_t row, Slope slope, Wanted wanted) {
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const auto general = [&](std::size_t c) {
-        if (valid(dem[row * w + c])) {
+        if (wanted(c) && valid(dem[row * w + c])) {
             slope(c, horn_at(dem, valid, dx, dy, c, row));
         }
     };
@@ -66,7 +67,7 @@ inline void horn_row(const Grid<float> &dem, const detail::ValidTest &valid, dou
     const float *down = &dem[(row + 1) * w];
     for (std::size_t c = 1; c + 1 < w; ++c) {
         const float ze = mid[c];
-        if (!valid(ze)) {
+        if (!wanted(c) || !valid(ze)) {
             continue;
         }
         const double e = static_cast<double>(ze);
@@ -101,8 +102,10 @@ Grid<float> horn_slope_grid(const Grid<float> &dem, unsigned threads) {
     detail::for_row_blocks(
         dem.height(), thread_count(threads), 64, [&](std::size_t, std::size_t r0, std::size_t r1) {
             for (std::size_t r = r0; r < r1; ++r) {
-                horn_row(dem, valid, dx, dy, r,
-                         [&](std::size_t c, double v) { out[r * w + c] = static_cast<float>(v); });
+                horn_row(
+                    dem, valid, dx, dy, r,
+                    [&](std::size_t c, double v) { out[r * w + c] = static_cast<float>(v); },
+                    [](std::size_t) { return true; });
             }
         });
     return out;
@@ -110,6 +113,12 @@ Grid<float> horn_slope_grid(const Grid<float> &dem, unsigned threads) {
 
 SlopeSums slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> &labels,
                               std::uint32_t max_label, unsigned threads) {
+    return detail::slope_sums_by_label(dem, labels, max_label, threads, true);
+}
+
+SlopeSums detail::slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> &labels,
+                                      std::uint32_t max_label, unsigned threads,
+                                      bool with_unlabelled) {
     const detail::ValidTest valid(dem);
     const double dx = dem.transform.cell_dx();
     const double dy = dem.transform.cell_dy();
@@ -126,13 +135,17 @@ SlopeSums slope_sums_by_label(const Grid<float> &dem, const Grid<std::uint32_t> 
                                std::vector<std::uint64_t> n(slots, 0);
                                for (std::size_t r = r0; r < r1; ++r) {
                                    const std::uint32_t *row_labels = &labels[r * w];
-                                   horn_row(dem, valid, dx, dy, r, [&](std::size_t c, double v) {
-                                       const std::uint32_t lab = row_labels[c];
-                                       if (lab <= max_label) {
+                                   horn_row(
+                                       dem, valid, dx, dy, r,
+                                       [&](std::size_t c, double v) {
+                                           const std::uint32_t lab = row_labels[c];
                                            s[lab] += round_non_negative(v * fixed_scale);
                                            ++n[lab];
-                                       }
-                                   });
+                                       },
+                                       [&](std::size_t c) {
+                                           const std::uint32_t lab = row_labels[c];
+                                           return lab <= max_label && (lab != 0 || with_unlabelled);
+                                       });
                                }
                                const std::lock_guard<std::mutex> lock(merge);
                                for (std::size_t k = 0; k < slots; ++k) {

@@ -175,17 +175,22 @@ int run(const std::string &path, std::size_t n_points, unsigned threads, bool ch
     s.threads = threads;
     s.keep_directions = check; // costs a byte a cell: only when hashes are asked for
     std::vector<std::pair<std::string, double>> steps;
+    std::vector<double> step_cpu;
     auto last = Clock::now();
+    double last_cpu = cpu_seconds();
     std::string last_step;
     const auto t1 = Clock::now();
     const auto result =
         catchpeak::terrain::run_terrain(dem, pts, {}, s, [&](std::string_view step, double) {
             const auto now = Clock::now();
+            const double now_cpu = cpu_seconds();
             if (!last_step.empty()) {
                 steps.emplace_back(last_step, std::chrono::duration<double>(now - last).count());
+                step_cpu.push_back(now_cpu - last_cpu);
             }
             last_step = std::string(step);
             last = now;
+            last_cpu = now_cpu;
         });
     const double t_terrain = seconds_since(t1);
     const double cpu = cpu_seconds() - cpu0;
@@ -206,6 +211,11 @@ int run(const std::string &path, std::size_t n_points, unsigned threads, bool ch
         breakdown += fmt::format(" [{}]={:.3f}", name, secs);
     }
     fmt::print("{}\n", breakdown);
+    std::string cpu_breakdown = "STEPS_CPU";
+    for (std::size_t k = 0; k < steps.size(); ++k) {
+        cpu_breakdown += fmt::format(" [{}]={:.3f}", steps[k].first, step_cpu[k]);
+    }
+    fmt::print("{}\n", cpu_breakdown);
     if (check) {
         double slope_sum = 0.0;
         for (const auto &p : result.points) {

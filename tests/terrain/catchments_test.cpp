@@ -9,6 +9,7 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 
 using namespace catchpeak;
@@ -42,21 +43,23 @@ TEST(Catchments, VValleyAreasAreExact) {
     const auto dem = v_valley(w, h, 3.0, 1.0);
     const auto dirs = conditioned_directions(dem, {}, 1);
     const std::size_t r0 = 29;
-    const auto c = delineate_catchments(dirs, {dem.index(20, h - 1), dem.index(20, r0)});
-    EXPECT_EQ(c.local_cells[1], w * (r0 + 1));
-    EXPECT_EQ(c.total_cells[1], w * (r0 + 1));
-    EXPECT_EQ(c.total_cells[0], w * h);
-    EXPECT_EQ(c.local_cells[0], w * (h - r0 - 1));
-    EXPECT_EQ(c.downstream_label[1], 1U);
-    EXPECT_EQ(c.downstream_label[0], 0U);
-    ASSERT_EQ(c.upstream_labels[0].size(), 1U);
-    EXPECT_EQ(c.upstream_labels[0][0], 2U);
-    for (std::size_t r = 0; r < h; ++r) {
-        for (std::size_t col = 0; col < w; ++col) {
-            EXPECT_EQ(c.labels(col, r), r <= r0 ? 2U : 1U);
+    for (const auto how : {CatchmentSearch::every_cell, CatchmentSearch::from_outlets}) {
+        const auto c = delineate_catchments(dirs, {dem.index(20, h - 1), dem.index(20, r0)}, how);
+        EXPECT_EQ(c.local_cells[1], w * (r0 + 1));
+        EXPECT_EQ(c.total_cells[1], w * (r0 + 1));
+        EXPECT_EQ(c.total_cells[0], w * h);
+        EXPECT_EQ(c.local_cells[0], w * (h - r0 - 1));
+        EXPECT_EQ(c.downstream_label[1], 1U);
+        EXPECT_EQ(c.downstream_label[0], 0U);
+        ASSERT_EQ(c.upstream_labels[0].size(), 1U);
+        EXPECT_EQ(c.upstream_labels[0][0], 2U);
+        for (std::size_t r = 0; r < h; ++r) {
+            for (std::size_t col = 0; col < w; ++col) {
+                EXPECT_EQ(c.labels(col, r), r <= r0 ? 2U : 1U);
+            }
         }
+        EXPECT_EQ(total_catchment_labels(c, 1), (std::vector<std::uint32_t>{1, 2}));
     }
-    EXPECT_EQ(total_catchment_labels(c, 1), (std::vector<std::uint32_t>{1, 2}));
 }
 
 TEST(Catchments, NestedPointsAreConsistentOnRandomDems) {
@@ -72,7 +75,16 @@ TEST(Catchments, NestedPointsAreConsistentOnRandomDems) {
             }
         }
         ASSERT_GT(outlets.size(), 10U);
-        const auto c = delineate_catchments(dirs, outlets);
+        // Both ways of finding the cells give the same catchments; the checks below are on
+        // the walk from every cell.
+        const auto c = delineate_catchments(dirs, outlets, CatchmentSearch::every_cell);
+        const auto searched = delineate_catchments(dirs, outlets, CatchmentSearch::from_outlets);
+        EXPECT_TRUE(std::equal(c.labels.cells().begin(), c.labels.cells().end(),
+                               searched.labels.cells().begin()))
+            << "seed " << seed;
+        EXPECT_EQ(c.local_cells, searched.local_cells) << "seed " << seed;
+        EXPECT_EQ(c.total_cells, searched.total_cells) << "seed " << seed;
+        EXPECT_EQ(c.upstream_labels, searched.upstream_labels) << "seed " << seed;
         std::size_t nested = 0;
         for (std::size_t k = 0; k < outlets.size(); ++k) {
             // Accumulation at each outlet equals its catchment's cell count.
@@ -104,4 +116,6 @@ TEST(Catchments, RepeatedOutletIsAnInternalError) {
     const auto dem = test::random_dem(20, 20, 5, false);
     const auto dirs = conditioned_directions(dem, {}, 1);
     EXPECT_THROW((void)delineate_catchments(dirs, {3, 3}), InternalError);
+    EXPECT_THROW((void)delineate_catchments(dirs, {3, 3}, CatchmentSearch::from_outlets),
+                 InternalError);
 }

@@ -4,10 +4,12 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/terrain/accumulation.hpp"
 #include "catchpeak/terrain/flow_direction.hpp"
+#include "catchpeak/terrain/slope.hpp"
 #include "test_dems.hpp"
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 
@@ -175,4 +177,35 @@ TEST(Delineation, BadInputsAreInputErrors) {
     EXPECT_THROW((void)run_terrain(all_nodata, {}, {}, s), InputError);
     s.snap_radius_m = -1.0;
     EXPECT_THROW((void)run_terrain(dem, {}, {}, s), InputError);
+}
+
+TEST(Delineation, MeanSlopeIsTheMeanOfHornSlopeOverTheTotalCatchment) {
+    // Few points, so that most cells are outside every catchment (the chain then skips them).
+    const auto dem = test::random_dem(120, 90, 83);
+    const auto pts = grid_points(dem, 2711);
+    ASSERT_GE(pts.size(), 3U);
+    TerrainSettings s;
+    s.snap_radius_m = 40.0;
+    const auto r = run_terrain(dem, pts, {}, s);
+    const auto slope = horn_slope_grid(dem, 1);
+    for (std::size_t p = 0; p < r.points.size(); ++p) {
+        // Labels of the total catchment: the point's own and those of every point upstream.
+        std::vector<std::uint32_t> labels{r.points[p].label};
+        for (const std::size_t q : all_upstream_points(r, p)) {
+            labels.push_back(r.points[q].label);
+        }
+        double sum = 0.0;
+        std::size_t n = 0;
+        for (std::size_t i = 0; i < dem.size(); ++i) {
+            if (dem.is_valid(i) &&
+                std::find(labels.begin(), labels.end(), r.labels[i]) != labels.end()) {
+                sum += static_cast<double>(slope[i]);
+                ++n;
+            }
+        }
+        ASSERT_GT(n, 0U);
+        // The grid holds floats and the chain sums in steps of 2^-24 m/m: close, not equal.
+        EXPECT_NEAR(r.points[p].mean_slope_m_per_m, sum / static_cast<double>(n), 1e-5)
+            << "point " << p;
+    }
 }

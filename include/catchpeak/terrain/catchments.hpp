@@ -28,11 +28,22 @@ struct Catchments {
     std::vector<std::vector<std::uint32_t>> upstream_labels;
 };
 
+/// How delineate_catchments finds the cells of each outlet; both give the same result.
+enum class CatchmentSearch {
+    /// Every cell's path is followed downstream once and labelled on the way back: a bounded
+    /// number of visits per cell of the raster. Best when the catchments cover much of it.
+    every_cell,
+    /// Each outlet's catchment is searched upstream: only the cells draining to an outlet are
+    /// visited, but each costs more. Best when the catchments are a small part of the raster.
+    from_outlets,
+};
+
 /// Labels all cells with the nearest downstream outlet. `outlets` are cell indices of distinct
-/// cells (outlet k is outlets[k-1]); throws InternalError on a repeated cell. Each cell is
-/// visited a bounded number of times (paths are followed once and labelled on the way back).
+/// cells (outlet k is outlets[k-1]); throws InternalError on a repeated cell or one without a
+/// direction.
 [[nodiscard]] Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
-                                              const std::vector<std::size_t> &outlets);
+                                              const std::vector<std::size_t> &outlets,
+                                              CatchmentSearch how = CatchmentSearch::every_cell);
 
 /// All labels of the total catchment of `label` (itself first, then upstream, breadth first).
 [[nodiscard]] std::vector<std::uint32_t> total_catchment_labels(const Catchments &c,
