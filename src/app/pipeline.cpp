@@ -216,6 +216,10 @@ fs::path run_project(const fs::path &project_file, const RunOptions &options, st
     report::RunResults r = compute_project(p, err, options.quiet, &layers);
     r.stamp.run_time_utc = options.run_time_utc.empty() ? utc_now() : options.run_time_utc;
     const fs::path dir = options.out_dir ? *options.out_dir : p.output_dir;
+    r.stamp.project_file_from_output = fs::absolute(p.file)
+                                           .lexically_normal()
+                                           .lexically_relative(fs::absolute(dir).lexically_normal())
+                                           .generic_string();
     if (!options.quiet) {
         err << "catchpeak: writing results and the calculation sheet\n";
     }

@@ -68,6 +68,9 @@ fs::path find_project_file(const fs::path &output_dir, const report::Stamp &stam
     const fs::path name = fs::path(it->path).filename();
     const fs::path abs = fs::absolute(output_dir).lexically_normal();
     std::vector<fs::path> candidates;
+    if (!stamp.project_file_from_output.empty()) {
+        candidates.push_back((abs / stamp.project_file_from_output).lexically_normal());
+    }
     if (abs.has_relative_path()) {
         candidates.push_back(abs.parent_path() / name);
     }
@@ -84,9 +87,15 @@ fs::path find_project_file(const fs::path &output_dir, const report::Stamp &stam
         }
     }
     throw_input_error(record,
-                      fmt::format("the recorded project file '{}' is in neither {} nor {}",
-                                  it->path, candidates.front().parent_path().string(),
-                                  candidates.back().parent_path().string()),
+                      fmt::format("the recorded project file '{}' is found at none of: {}",
+                                  it->path,
+                                  [&] {
+                                      std::string all;
+                                      for (const auto &c : candidates) {
+                                          all += (all.empty() ? "" : ", ") + c.string();
+                                      }
+                                      return all;
+                                  }()),
                       "the project file beside the output folder, or '--project FILE'");
 }
 

@@ -459,6 +459,9 @@ std::string run_record_json(const Stamp &stamp) {
         inputs.push_back(std::move(ij));
     }
     j["inputs"] = std::move(inputs);
+    if (!stamp.project_file_from_output.empty()) {
+        j["project_file_from_output"] = stamp.project_file_from_output;
+    }
     return dump(j);
 }
 
@@ -474,6 +477,9 @@ Stamp parse_run_record_json(std::string_view text, std::string_view where) {
     for (std::size_t i = 0; i < inputs.size(); ++i) {
         const Reader ir(inputs[i], r.item("inputs", i));
         s.inputs.push_back({ir.str("role"), ir.str("path"), ir.str("sha256")});
+    }
+    if (j.contains("project_file_from_output")) {
+        s.project_file_from_output = r.str("project_file_from_output");
     }
     return s;
 }

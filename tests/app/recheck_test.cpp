@@ -234,7 +234,7 @@ TEST(Recheck, MissingInputIsReportedAndNothingReproduces) {
               std::string::npos);
 }
 
-TEST(Recheck, OutputFolderElsewhereNeedsTheProjectFile) {
+TEST(Recheck, OutputFolderElsewhereFindsTheProjectOrNeedsIt) {
     const auto dir = catchpeak::test::scratch_dir("recheck_elsewhere");
     const auto project = small_project(dir, "[2]");
     fs::create_directories(dir / "runs");
@@ -244,9 +244,14 @@ TEST(Recheck, OutputFolderElsewhereNeedsTheProjectFile) {
     options.quiet = true;
     options.out_dir = dir / "runs" / "first";
     run_project(project, options, o, e);
+    // Found by the path the run record keeps, relative to the output folder.
+    EXPECT_TRUE(recheck(dir / "runs" / "first").all_reproduced());
+    // Moved since: not found, unless given.
+    const auto moved = dir / "moved.toml";
+    fs::rename(project, moved);
     EXPECT_THROW((void)recheck(dir / "runs" / "first"), catchpeak::InputError);
     RecheckOptions ro;
-    ro.project_file = project;
+    ro.project_file = moved;
     EXPECT_TRUE(recheck(dir / "runs" / "first", ro).all_reproduced());
 }
 

@@ -84,16 +84,24 @@ TEST(CliRecheck, MissingResultsExitsTwoWithAMessage) {
     EXPECT_NE(r.err.find("results.json"), std::string::npos) << r.err;
 }
 
-TEST(CliRecheck, ProjectOptionForAnOutputFolderElsewhere) {
+TEST(CliRecheck, OutputFolderElsewhereFindsTheProjectByItsRecordedPlace) {
+    // The run record keeps the project file's path relative to the output folder, so recheck
+    // finds it wherever the output went; a project file moved since needs --project.
     const auto dir = catchpeak::test::scratch_dir("cli_recheck_project");
     (void)project_run(dir);
     const auto elsewhere = dir / "runs" / "one";
     ASSERT_EQ(
         cli({"run", (dir / "project.toml").string(), "--quiet", "--out", elsewhere.string()}).code,
         0);
-    EXPECT_EQ(cli({"recheck", elsewhere.string()}).code, static_cast<int>(ExitCode::bad_input));
-    const auto r =
-        cli({"recheck", elsewhere.string(), "--project", (dir / "project.toml").string()});
+    auto r = cli({"recheck", elsewhere.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
+
+    fs::rename(dir / "project.toml", dir / "moved.toml");
+    r = cli({"recheck", elsewhere.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
+    EXPECT_NE(r.err.find("is found at none of"), std::string::npos) << r.err;
+    EXPECT_NE(r.err.find("--project"), std::string::npos) << r.err;
+    r = cli({"recheck", elsewhere.string(), "--project", (dir / "moved.toml").string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
 }
 

@@ -42,6 +42,9 @@ struct Stamp {
     std::string git_commit;
     std::string run_time_utc; ///< ISO 8601, e.g. "2026-12-02T10:15:00Z"
     std::vector<InputRecord> inputs;
+    /// Where the project file lay, relative to the output folder (e.g.
+    /// "../../demo-data/demo-project.toml"), so that recheck finds it; "" when not recorded.
+    std::string project_file_from_output;
 };
 
 /// A ring or a line in CRS coordinates (metres).
