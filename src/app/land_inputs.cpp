@@ -53,6 +53,17 @@ std::string cells(double x, double y, const std::string &unit) {
     return fmt::format("{} x {} {}", sig(x), sig(y), u);
 }
 
+/// `source` (a file name as io gives it, resolved against the project's folder) with the file
+/// named as the project file gives it, so that the lines on the sheet and in results.json are the
+/// same whatever folder catchpeak runs from.
+std::string as_given(const std::string &source, const InputPath &in) {
+    const std::string resolved = in.resolved.string();
+    if (!resolved.empty() && source.rfind(resolved, 0) == 0) {
+        return in.given + source.substr(resolved.size());
+    }
+    return source;
+}
+
 /// A polygon layer in the DEM's CRS. A layer without a CRS is refused: C and CN of a catchment
 /// must not hang on a guess of where its polygons lie.
 io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::string &crs) {
@@ -69,6 +80,7 @@ io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::st
     }
     std::vector<std::string> notes;
     io::VectorLayer layer = io::read_vector_layer(k.input.resolved, crs, {}, &notes);
+    layer.source = as_given(layer.source, k.input);
     for (const auto &n : notes) {
         if (n.find("has no coordinate reference system") != std::string::npos) {
             throw_input_error(where, "the layer has no coordinate reference system",
@@ -184,10 +196,11 @@ io::VectorLayer read_land_input(const Project &p, LandInput which, const std::st
         r.reprojected
             ? fmt::format("{} (raster of {} cells in {}, reprojected to {} cells in the DEM's "
                           "CRS by nearest neighbour; codes to {} by {})",
-                          r.source, cells(r.file_cell_x, r.file_cell_y, r.file_unit),
-                          r.file_crs_name, size, k.names, names_from)
-            : fmt::format("{} (raster of {} cells; codes to {} by {})", r.source, size, k.names,
-                          names_from);
+                          as_given(r.source, k.input),
+                          cells(r.file_cell_x, r.file_cell_y, r.file_unit), r.file_crs_name, size,
+                          k.names, names_from)
+            : fmt::format("{} (raster of {} cells; codes to {} by {})", as_given(r.source, k.input),
+                          size, k.names, names_from);
     if (polygons) {
         for (auto &patch : io::polygonize_patches(r.labels)) {
             const std::int64_t code = r.codes[patch.label - 1];

@@ -185,3 +185,33 @@ TEST(DemProject, CoordinatesAreGivenInTheUnitOfTheDemsCrs) {
     }
     EXPECT_TRUE(seen);
 }
+
+TEST(DemProject, ResultsAreTheSameWhateverFolderItRunsFrom) {
+    // The lines name input files as the project file gives them, not as resolved from the
+    // working folder: a project run by its absolute path and by a relative one gives the same
+    // results.json bytes (and recheck, which loads the project by another path, agrees).
+    const auto dir = t::scratch_dir("dem_project_cwd");
+    const auto project = t::make_dem_project(dir);
+    catchpeak::app::RunOptions o;
+    o.quiet = true;
+    o.run_time_utc = "2026-01-01T00:00:00Z";
+    std::ostringstream out;
+    std::ostringstream err;
+    o.out_dir = dir / "by_absolute";
+    (void)catchpeak::app::run_project(fs::absolute(project), o, out, err);
+    const auto before = fs::current_path();
+    fs::current_path(dir.parent_path());
+    o.out_dir = dir / "by_relative";
+    (void)catchpeak::app::run_project(dir.filename() / project.filename(), o, out, err);
+    fs::current_path(before);
+    const auto bytes = [](const fs::path &f) {
+        std::ifstream in(f, std::ios::binary);
+        std::ostringstream s;
+        s << in.rdbuf();
+        return s.str();
+    };
+    const auto a = bytes(dir / "by_absolute" / "results.json");
+    EXPECT_FALSE(a.empty());
+    EXPECT_TRUE(a == bytes(dir / "by_relative" / "results.json"));
+    EXPECT_EQ(a.find(dir.string()), std::string::npos) << "a path of this machine in the results";
+}
