@@ -338,67 +338,94 @@ void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks) {
     }
 }
 
-void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs) {
+void resolve_flats(const Grid<float> &dem, Grid<std::uint8_t> &dirs, unsigned threads) {
     Grid<std::uint32_t> scratch;
-    detail::resolve_flats_with(dem, dirs, scratch);
+    detail::resolve_flats_with(dem, dirs, scratch, threads);
 }
 
-void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs,
-                                Grid<std::uint32_t> &mask) {
-    const std::size_t w = dem.width();
-    const std::size_t h = dem.height();
-    const detail::ValidTest valid(dem);
-    const Neighbours around(w, h);
-    constexpr std::uint8_t flat_flag = 0x40; // a flat cell (set while resolving)
-    constexpr std::uint8_t code_mask = 0x0F;
+namespace {
 
-    // Flats are handled one at a time (a flat: flat cells of one elevation, 8-connected), so
-    // that each search stays within the flat's part of the grids. Distances within a flat do
-    // not depend on the order in which flats or cells are taken, so neither do the results.
-    // While a flat is resolved, the only cells with flat_flag but without away_flag (or without
-    // visited_flag) are its own: flats done earlier have all their flags, flats not yet swept
-    // have none. So the two searches need no elevation test.
-    //
+/// Resolves the flats of a filled DEM whose cells lie in one band of rows (Barnes, Lehman and
+/// Mulla 2014, C&G 62:128-135). Flats are handled one at a time (a flat: valid cells of one
+/// elevation left at d8::none by D8, 8-connected), so that each search stays within the flat's
+/// part of the grids. Distances within a flat do not depend on the order in which flats or cells
+/// are taken, so neither do the results.
+///
+/// Bands let flats be resolved on several threads: a solver marks only cells of its band, and
+/// reads and writes only cells at most one row outside it. A flat that reaches outside the band
+/// is put off: its cells found so far get `deferred`, and it is resolved later by a solver over
+/// the whole grid. Bands at least four rows apart never touch the same cell.
+class FlatSolver {
+  public:
     // Bits of dirs on flat cells while resolving: flat_flag, seen_flag (found by the sweep
     // through the flat), away_flag (reached by the search away from higher terrain),
     // visited_flag (reached by the search toward lower terrain); the low nibble takes the code
     // at the end. On cells with a direction, low_edge_flag marks a low edge already listed for
-    // the current flat.
-    constexpr std::uint8_t seen_flag = 0x80;
-    constexpr std::uint8_t away_flag = 0x10;
-    constexpr std::uint8_t visited_flag = 0x20;
-    constexpr std::uint8_t low_edge_flag = 0x80;
-    // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away stored
-    // with a bias of 2^31 so that unsigned comparisons order it like the signed value. Only flat
-    // cells' values are read, and the sweep through each flat sets them all.
-    constexpr std::int64_t bias = std::int64_t{1} << 31;
-    if (mask.width() != w || mask.height() != h) {
-        mask = Grid<std::uint32_t>(w, h, no_fill);
+    // the current flat. `deferred` (flat_flag alone) marks the cells of a flat put off.
+    static constexpr std::uint8_t flat_flag = 0x40;
+    static constexpr std::uint8_t seen_flag = 0x80;
+    static constexpr std::uint8_t away_flag = 0x10;
+    static constexpr std::uint8_t visited_flag = 0x20;
+    static constexpr std::uint8_t low_edge_flag = 0x80;
+    static constexpr std::uint8_t deferred = flat_flag;
+    static constexpr std::uint8_t code_mask = 0x0F;
+
+    FlatSolver(const Grid<float> &dem, Grid<std::uint8_t> &dirs, Grid<std::uint32_t> &mask)
+        : dem_(dem), dirs_(dirs), mask_(mask), valid_(dem), around_(dem.width(), dem.height()) {}
+
+    /// Resolves every flat with a cell in rows [r0, r1), except those reaching outside rows
+    /// [r0, r1) when `whole` is false; their start cells go to deferred_starts(). Returns true
+    /// when any flat cell was found.
+    bool run(std::size_t r0, std::size_t r1, bool whole) {
+        const std::size_t w = dem_.width();
+        whole_ = whole;
+        first_ = whole ? 0 : r0 * w;
+        last_ = whole ? dem_.size() : r1 * w;
+        bool any = false;
+        for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+            const std::uint8_t d = dirs_[i];
+            if ((d == d8::none && valid_(dem_[i])) || (whole && d == deferred)) {
+                any = true;
+                resolve_flat(i);
+            }
+        }
+        return any;
     }
-    bool any_flat = false;
-    std::vector<std::size_t> frontier;
-    std::vector<std::size_t> next;
-    std::vector<std::size_t> high_edges;
-    std::vector<std::size_t> low_edges;
+    [[nodiscard]] const std::vector<std::size_t> &deferred_starts() const noexcept {
+        return deferred_starts_;
+    }
+    /// Resolves the flats put off by the band solvers (those not already resolved).
+    void run_deferred(const std::vector<std::size_t> &starts) {
+        whole_ = true;
+        first_ = 0;
+        last_ = dem_.size();
+        for (const std::size_t i : starts) {
+            if (dirs_[i] == deferred) {
+                resolve_flat(i);
+            }
+        }
+    }
+
+  private:
     // Direction of a flat cell: to a low edge when one is adjacent, otherwise to the flat
     // neighbour of smallest combined value below the cell's own. A cell's neighbours on the
     // flat lie at most one step nearer or farther from the low edges, so the cells at distance
     // t are given their directions once the search has reached distance t + 1.
-    const auto pick = [&](std::size_t i) {
-        const float z = dem[i];
+    void pick(std::size_t i) {
+        const float z = dem_[i];
         std::uint8_t low_edge = d8::none;
         std::uint8_t best = d8::none;
-        std::uint32_t best_mask = mask[i];
-        around.each(i, [&](std::uint8_t k, std::size_t n) {
-            if (dem[n] != z) {
+        std::uint32_t best_mask = mask_[i];
+        around_.each(i, [&](std::uint8_t k, std::size_t n) {
+            if (dem_[n] != z) {
                 return;
             }
-            if ((dirs[n] & flat_flag) == 0) {
-                if (dirs[n] != d8::none && low_edge == d8::none) {
+            if ((dirs_[n] & flat_flag) == 0) {
+                if (dirs_[n] != d8::none && low_edge == d8::none) {
                     low_edge = k;
                 }
-            } else if (mask[n] < best_mask) {
-                best_mask = mask[n];
+            } else if (mask_[n] < best_mask) {
+                best_mask = mask_[n];
                 best = k;
             }
         });
@@ -406,108 +433,195 @@ void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs
         if (code == d8::none) {
             throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
         }
-        dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
-    };
-    const auto resolve_flat = [&](std::size_t start) {
-        // Sweep through the flat: its cells, its high edges (flat cells next to higher valid
-        // terrain) and its low edges (cells with a direction next to a flat cell of the same
-        // elevation). A flat cell not yet found still has d8::none.
-        const float z = dem[start];
-        high_edges.clear();
-        low_edges.clear();
-        frontier.assign(1, start);
-        dirs[start] = flat_flag | seen_flag;
-        std::size_t flat_cells = 0;
-        while (!frontier.empty()) {
-            next.clear();
-            flat_cells += frontier.size();
-            for (const std::size_t i : frontier) {
-                bool high_edge = false;
-                around.each(i, [&](std::uint8_t, std::size_t n) {
-                    const float zn = dem[n];
-                    if (zn == z) {
-                        const std::uint8_t dn = dirs[n];
-                        if (dn == d8::none) {
-                            dirs[n] = flat_flag | seen_flag;
-                            next.push_back(n);
-                        } else if ((dn & (flat_flag | low_edge_flag)) == 0) {
-                            dirs[n] = static_cast<std::uint8_t>(dn | low_edge_flag);
-                            low_edges.push_back(n);
+        dirs_[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
+    }
+
+    /// Sweep through the flat of `start`: its cells (all_), its high edges (flat cells next to
+    /// higher valid terrain) and its low edges (cells with a direction next to a flat cell of
+    /// the same elevation). A flat cell not yet found has d8::none (or `deferred`). Returns false,
+    /// leaving the cells found `deferred`, when the flat reaches outside [first_, last_).
+    bool sweep(std::size_t start) {
+        const float z = dem_[start];
+        high_edges_.clear();
+        low_edges_.clear();
+        all_.assign(1, start);
+        dirs_[start] = flat_flag | seen_flag;
+        for (std::size_t k = 0; k < all_.size(); ++k) {
+            const std::size_t i = all_[k];
+            bool high_edge = false;
+            bool outside = false;
+            around_.each(i, [&](std::uint8_t, std::size_t n) {
+                const float zn = dem_[n];
+                if (zn == z) {
+                    const std::uint8_t dn = dirs_[n];
+                    if (dn == d8::none || dn == deferred) {
+                        // In a band, a `deferred` cell means this flat was put off before.
+                        if (n < first_ || n >= last_ || (dn == deferred && !whole_)) {
+                            outside = true;
+                            return;
                         }
-                    } else if (zn > z && valid(zn)) {
-                        high_edge = true;
+                        dirs_[n] = flat_flag | seen_flag;
+                        all_.push_back(n);
+                    } else if ((dn & (flat_flag | low_edge_flag)) == 0) {
+                        dirs_[n] = static_cast<std::uint8_t>(dn | low_edge_flag);
+                        low_edges_.push_back(n);
                     }
-                });
-                mask[i] = high_edge ? 1U : 0U;
-                if (high_edge) {
-                    dirs[i] |= away_flag;
-                    high_edges.push_back(i);
+                } else if (zn > z && valid_(zn)) {
+                    high_edge = true;
                 }
+            });
+            if (outside) {
+                for (const std::size_t f : all_) {
+                    dirs_[f] = deferred;
+                }
+                for (const std::size_t e : low_edges_) {
+                    dirs_[e] = static_cast<std::uint8_t>(dirs_[e] & ~low_edge_flag);
+                }
+                deferred_starts_.push_back(start);
+                return false;
             }
-            frontier.swap(next);
+            mask_[i] = high_edge ? 1U : 0U;
+            if (high_edge) {
+                dirs_[i] |= away_flag;
+                high_edges_.push_back(i);
+            }
+        }
+        return true;
+    }
+
+    void resolve_flat(std::size_t start) {
+        // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away
+        // stored with a bias of 2^31 so that unsigned comparisons order it like the signed value.
+        // Only flat cells' values are read, and the sweep through each flat sets them all.
+        constexpr std::int64_t bias = std::int64_t{1} << 31;
+        if (!sweep(start)) {
+            return;
         }
         // Gradient away from higher terrain: BFS distance from the high edges (1 at the edge).
-        // 0 where a flat has no higher edge.
-        frontier.swap(high_edges);
-        while (!frontier.empty()) {
-            next.clear();
-            for (const std::size_t i : frontier) {
-                const std::uint32_t away = mask[i] + 1;
-                around.each(i, [&](std::uint8_t, std::size_t n) {
-                    if (dirs[n] == (flat_flag | seen_flag)) {
-                        dirs[n] |= away_flag;
-                        mask[n] = away;
-                        next.push_back(n);
+        // 0 where a flat has no higher edge. While a flat is resolved, the only cells with
+        // seen_flag are its own (flats done earlier have lost it, flats not yet swept have no
+        // flag or are `deferred`), so the searches need no elevation test.
+        frontier_.swap(high_edges_);
+        while (!frontier_.empty()) {
+            next_.clear();
+            for (const std::size_t i : frontier_) {
+                const std::uint32_t away = mask_[i] + 1;
+                around_.each(i, [&](std::uint8_t, std::size_t n) {
+                    if (dirs_[n] == (flat_flag | seen_flag)) {
+                        dirs_[n] |= away_flag;
+                        mask_[n] = away;
+                        next_.push_back(n);
                     }
                 });
             }
-            frontier.swap(next);
+            frontier_.swap(next_);
         }
         // Gradient toward lower terrain: BFS distance t from the low edges. Combined value
         // 2 t - away; the constant "highest away value of the flat" of Barnes et al. cancels
         // when cells of one flat are compared, so it is left out.
-        for (const std::size_t i : low_edges) {
-            dirs[i] = static_cast<std::uint8_t>(dirs[i] & ~low_edge_flag);
+        for (const std::size_t i : low_edges_) {
+            dirs_[i] = static_cast<std::uint8_t>(dirs_[i] & ~low_edge_flag);
         }
-        frontier.swap(low_edges);
+        frontier_.swap(low_edges_);
         std::int64_t t = 0;
         std::size_t reached = 0;
-        while (!frontier.empty()) {
+        while (!frontier_.empty()) {
             ++t;
-            next.clear();
-            for (const std::size_t i : frontier) {
-                around.each(i, [&](std::uint8_t, std::size_t n) {
-                    if ((dirs[n] & (flat_flag | visited_flag)) == flat_flag) {
-                        dirs[n] |= visited_flag;
-                        mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
-                        next.push_back(n);
+            next_.clear();
+            for (const std::size_t i : frontier_) {
+                around_.each(i, [&](std::uint8_t, std::size_t n) {
+                    if ((dirs_[n] & (flat_flag | seen_flag | visited_flag)) ==
+                        (flat_flag | seen_flag)) {
+                        dirs_[n] |= visited_flag;
+                        mask_[n] =
+                            static_cast<std::uint32_t>(2 * t - std::int64_t{mask_[n]} + bias);
+                        next_.push_back(n);
                     }
                 });
             }
             if (t > 1) { // frontier holds the flat cells at distance t - 1 (not the low edges)
-                for (const std::size_t i : frontier) {
+                for (const std::size_t i : frontier_) {
                     pick(i);
                 }
-                reached += frontier.size();
+                reached += frontier_.size();
             }
-            frontier.swap(next);
+            frontier_.swap(next_);
         }
-        if (reached != flat_cells) {
+        if (reached != all_.size()) {
             throw InternalError("resolve_flats: a flat has no outlet (was the DEM filled?)");
         }
-    };
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        if (dirs[i] == d8::none && valid(dem[i])) {
-            any_flat = true;
-            resolve_flat(i);
+    }
+
+    const Grid<float> &dem_;
+    Grid<std::uint8_t> &dirs_;
+    Grid<std::uint32_t> &mask_;
+    detail::ValidTest valid_;
+    Neighbours around_;
+    bool whole_ = true;     ///< false in a band: flats reaching outside it are put off
+    std::size_t first_ = 0; ///< cells [first_, last_) may be marked
+    std::size_t last_ = 0;
+    std::vector<std::size_t> all_;
+    std::vector<std::size_t> frontier_;
+    std::vector<std::size_t> next_;
+    std::vector<std::size_t> high_edges_;
+    std::vector<std::size_t> low_edges_;
+    std::vector<std::size_t> deferred_starts_;
+};
+
+} // namespace
+
+void detail::resolve_flats_with(const Grid<float> &dem, Grid<std::uint8_t> &dirs,
+                                Grid<std::uint32_t> &mask, unsigned threads) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    if (mask.width() != w || mask.height() != h) {
+        mask = Grid<std::uint32_t>(w, h, no_fill);
+    }
+    // Bands of rows, one per thread, with a margin of four rows between them that no band
+    // marks (each band touches at most one row beyond the cells it marks). Flats in the
+    // margins or reaching out of their band are resolved afterwards over the whole grid.
+    constexpr std::size_t margin = 4;
+    constexpr std::size_t min_band_rows = 64;
+    const unsigned n_threads = thread_count(threads);
+    const std::size_t bands =
+        std::max<std::size_t>(1, std::min<std::size_t>(n_threads, h / min_band_rows));
+    bool any_flat = false;
+    if (bands <= 1) {
+        FlatSolver whole(dem, dirs, mask);
+        any_flat = whole.run(0, h, true);
+    } else {
+        std::vector<std::size_t> row0(bands + 1);
+        for (std::size_t b = 0; b <= bands; ++b) {
+            row0[b] = h * b / bands;
+        }
+        std::vector<FlatSolver> solvers;
+        solvers.reserve(bands);
+        for (std::size_t b = 0; b < bands; ++b) {
+            solvers.emplace_back(dem, dirs, mask);
+        }
+        std::vector<char> found(bands, 0);
+        detail::run_on_threads(bands, [&](std::size_t b) {
+            const std::size_t r0 = row0[b] + (b == 0 ? 0 : margin / 2);
+            const std::size_t r1 = row0[b + 1] - (b + 1 == bands ? 0 : margin / 2);
+            found[b] = solvers[b].run(r0, r1, false) ? 1 : 0;
+        });
+        FlatSolver rest(dem, dirs, mask);
+        for (std::size_t b = 0; b < bands; ++b) {
+            any_flat = any_flat || found[b] != 0;
+            rest.run_deferred(solvers[b].deferred_starts());
+        }
+        for (std::size_t b = 1; b < bands; ++b) {
+            any_flat = rest.run(row0[b] - margin / 2, row0[b] + margin / 2, true) || any_flat;
         }
     }
     if (!any_flat) {
         return;
     }
-    for (auto &d : dirs.cells()) {
-        d = static_cast<std::uint8_t>(d & code_mask);
-    }
+    detail::for_row_blocks(h, n_threads, 256, [&](std::size_t, std::size_t r0, std::size_t r1) {
+        for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+            dirs[i] = static_cast<std::uint8_t>(dirs[i] & FlatSolver::code_mask);
+        }
+    });
 }
 
 Grid<std::uint8_t> conditioned_directions(const Grid<float> &dem,
@@ -543,7 +657,7 @@ void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &li
     dirs.copy_georef_from(dem);
     fill_depressions(work, dirs);
     detail::d8_directions_into(work, dirs, threads);
-    detail::resolve_flats_with(work, dirs, scratch);
+    detail::resolve_flats_with(work, dirs, scratch, threads);
 }
 
 } // namespace catchpeak::terrain

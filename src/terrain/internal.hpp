@@ -12,6 +12,7 @@
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
+#include <exception>
 #include <thread>
 #include <vector>
 
@@ -62,13 +63,42 @@ void for_row_blocks(std::size_t height, unsigned threads, std::size_t block_rows
     }
 }
 
+/// Runs body(t) for t in [0, n) on n threads (the calling thread takes t = 0) and rethrows the
+/// first exception a body threw once all have finished.
+template <typename Body> void run_on_threads(std::size_t n, Body body) {
+    std::vector<std::exception_ptr> errors(n);
+    const auto guarded = [&](std::size_t t) {
+        try {
+            body(t);
+        } catch (...) {
+            errors[t] = std::current_exception();
+        }
+    };
+    std::vector<std::thread> pool;
+    pool.reserve(n);
+    for (std::size_t t = 1; t < n; ++t) {
+        pool.emplace_back(guarded, t);
+    }
+    if (n > 0) {
+        guarded(0);
+    }
+    for (auto &th : pool) {
+        th.join();
+    }
+    for (const auto &e : errors) {
+        if (e) {
+            std::rethrow_exception(e);
+        }
+    }
+}
+
 /// d8_directions writing into an existing grid of the DEM's size (every cell is overwritten).
 void d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs, unsigned threads);
 
 /// resolve_flats with a caller's scratch grid (resized when its size differs), so that the
 /// pipeline can hand the same buffer on as the accumulation grid.
 void resolve_flats_with(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs,
-                        Grid<std::uint32_t> &scratch);
+                        Grid<std::uint32_t> &scratch, unsigned threads);
 
 /// The conditioning chain with the caller's buffers: `work` ends as the filled DEM (NaN on
 /// nodata), `dirs` as the directions, `scratch` as used by resolve_flats.

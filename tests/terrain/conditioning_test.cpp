@@ -8,6 +8,8 @@
 #include <gtest/gtest.h>
 
 #include <limits>
+#include <random>
+#include <string>
 
 using namespace catchpeak;
 using namespace catchpeak::terrain;
@@ -189,6 +191,88 @@ TEST(Conditioning, TwoFlatsSharingOneOutletCellBothDrainThroughIt) {
             EXPECT_EQ(test::path_end(dirs, dirs.index(c, r)), dirs.index(4, 6))
                 << "col " << c << " row " << r;
         }
+    }
+}
+
+namespace {
+
+/// D8 directions of a DEM after the fill and flat resolution on `threads` threads.
+Grid<std::uint8_t> directions_on_threads(const Grid<float> &dem, unsigned threads) {
+    auto filled = dem;
+    fill_depressions(filled);
+    auto dirs = d8_directions(filled);
+    resolve_flats(filled, dirs, threads);
+    return dirs;
+}
+
+void expect_every_valid_cell_drains(const Grid<float> &dem, const Grid<std::uint8_t> &dirs,
+                                    const std::string &what) {
+    for (std::size_t i = 0; i < dem.size(); ++i) {
+        if (is_data(dem[i])) {
+            ASSERT_NE(test::path_end(dirs, i), no_cell) << what << " cell " << i;
+        }
+    }
+}
+
+} // namespace
+
+TEST(Conditioning, FlatsResolvedOnSeveralThreadsGiveTheSameDirections) {
+    // Flats are resolved in bands of rows, one per thread; a flat reaching out of its band is
+    // resolved afterwards over the whole grid. The directions must not depend on the thread
+    // count. Wide flats (whole metres over a gentle trend) cross the band boundaries.
+    for (const unsigned seed : {21U, 22U}) {
+        auto dem = test::random_dem(70, 420, seed);
+        std::mt19937 rng(seed);
+        for (std::size_t r = 0; r < dem.height(); ++r) {
+            for (std::size_t c = 0; c < dem.width(); ++c) {
+                if (is_data(dem(c, r))) {
+                    const double z = 0.01 * static_cast<double>(r) +
+                                     0.005 * static_cast<double>(c) +
+                                     static_cast<double>(rng() % 100U) / 100.0 * 1.5;
+                    dem(c, r) = static_cast<float>(std::floor(z));
+                }
+            }
+        }
+        const auto one = directions_on_threads(dem, 1);
+        expect_every_valid_cell_drains(dem, one, "seed " + std::to_string(seed));
+        for (const unsigned threads : {2U, 3U, 4U, 7U}) {
+            ASSERT_EQ(directions_on_threads(dem, threads).cells(), one.cells())
+                << "seed " << seed << ", " << threads << " threads";
+        }
+    }
+}
+
+TEST(Conditioning, FlatPutOffByItsBandDoesNotTakeANeighbouringFlatsSearch) {
+    // Two flats of 10 m (columns 1-3, rows 95-150, and columns 5-7, rows 110-150) inside 20 m
+    // walls, sharing one outlet cell (4, 151) that touches a corner of each; below it a channel
+    // falls to the south edge. With two threads the lower band starts at row 102: the west flat
+    // reaches out of it (it is found first and put off), the east flat lies inside it. The east
+    // flat's search from the shared outlet must not run into the west flat's cells.
+    auto dem = test::blank_dem(9, 200);
+    for (std::size_t r = 0; r < dem.height(); ++r) {
+        for (std::size_t c = 0; c < dem.width(); ++c) {
+            const bool west = c >= 1 && c <= 3 && r >= 95 && r <= 150;
+            const bool east = c >= 5 && c <= 7 && r >= 110 && r <= 150;
+            dem(c, r) = west || east ? 10.0F : 20.0F;
+        }
+    }
+    dem(4, 151) = 10.0F;
+    for (std::size_t r = 152; r < dem.height(); ++r) {
+        dem(4, r) = static_cast<float>(5.0 - 0.01 * static_cast<double>(r - 152));
+    }
+    const std::size_t south = dem.index(4, dem.height() - 1);
+    for (const unsigned threads : {1U, 2U, 3U}) {
+        const auto dirs = directions_on_threads(dem, threads);
+        for (std::size_t r = 95; r <= 150; ++r) {
+            for (const std::size_t c : {1U, 2U, 3U, 5U, 6U, 7U}) {
+                if (c >= 5 && r < 110) {
+                    continue;
+                }
+                ASSERT_EQ(test::path_end(dirs, dirs.index(c, r)), south)
+                    << threads << " threads, col " << c << " row " << r;
+            }
+        }
+        expect_every_valid_cell_drains(dem, dirs, std::to_string(threads) + " threads");
     }
 }
 

@@ -54,7 +54,9 @@ void fill_depressions(Grid<float> &dem);
 /// gradient away from higher terrain and (with twice the weight) toward lower terrain, computed
 /// by breadth-first searches over each flat. Uses an int32 scratch grid (4 bytes a cell).
 /// Throws InternalError if a flat has no way out (the DEM was not filled).
-void resolve_flats(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs);
+/// Flats in different bands of rows are resolved on up to `threads` threads (0: all cores); the
+/// result does not depend on the thread count.
+void resolve_flats(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs, unsigned threads = 1);
 
 /// The whole conditioning chain on a copy of the DEM: breach lines, fill, D8, flats. Returns D8
 /// directions that drain every valid cell. Peak extra memory about 9 bytes a cell plus queues.
