@@ -10,43 +10,41 @@
 #include <bit>
 #include <cmath>
 #include <cstddef>
+#include <functional>
 #include <limits>
+#include <queue>
+#include <utility>
+#include <vector>
 
 namespace catchpeak::terrain {
 
 namespace {
 
 constexpr std::uint8_t closed_flag = 1;
+/// In a banded fill: a cell whose local fill drains to the raster edge or nodata (label 0,
+/// kept in the marks so that the label grid is touched only by the other cells), and nodata.
+constexpr std::uint8_t outlet_flag = 4;
 
-/// Index of the neighbour k of cell (c, r), or no_cell when off the grid.
-inline std::size_t neighbour(std::size_t w, std::size_t h, std::size_t c, std::size_t r,
-                             std::uint8_t k) noexcept {
-    const long long nc = static_cast<long long>(c) + d8::dcol[k];
-    const long long nr = static_cast<long long>(r) + d8::drow[k];
-    if (nc < 0 || nr < 0 || static_cast<std::size_t>(nc) >= w ||
-        static_cast<std::size_t>(nr) >= h) {
-        return no_cell;
-    }
-    return static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc);
-}
-
-/// The eight neighbours of the cells of a w x h grid: index offsets for a cell inside the
-/// raster, bounds checks for one on its outer ring, decided once per cell.
+/// The eight neighbours of the cells of rows [r_lo, r_hi) of a grid w cells wide (a band of
+/// rows, or the whole grid): index offsets for a cell inside the band, bounds checks for one on
+/// its outer ring (neighbours outside the band are left out), decided once per cell.
 class Neighbours {
   public:
-    Neighbours(std::size_t w, std::size_t h) : w_(w), h_(h) {
+    Neighbours(std::size_t w, std::size_t h) : Neighbours(w, 0, h, true) {}
+    Neighbours(std::size_t w, std::size_t r_lo, std::size_t r_hi, bool)
+        : w_(w), r_lo_(r_lo), r_hi_(r_hi) {
         for (std::uint8_t k = 1; k <= 8; ++k) {
             offset_[k] = static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) +
                          d8::dcol[k];
         }
     }
-    /// True when cell i lies on the raster's outer ring.
+    /// True when cell i lies on the band's outer ring.
     [[nodiscard]] bool on_ring(std::size_t i) const noexcept {
         const std::size_t r = i / w_;
         const std::size_t c = i - r * w_;
-        return c == 0 || r == 0 || c + 1 == w_ || r + 1 == h_;
+        return c == 0 || r == r_lo_ || c + 1 == w_ || r + 1 == r_hi_;
     }
-    /// Calls body(k, n) for each neighbour n (code k, ascending) of cell i that is on the grid.
+    /// Calls body(k, n) for each neighbour n (code k, ascending) of cell i that is in the band.
     template <typename Body> void each(std::size_t i, bool ring, Body body) const {
         if (!ring) {
             for (std::uint8_t k = 1; k <= 8; ++k) {
@@ -57,9 +55,11 @@ class Neighbours {
         const std::size_t r = i / w_;
         const std::size_t c = i - r * w_;
         for (std::uint8_t k = 1; k <= 8; ++k) {
-            const std::size_t n = neighbour(w_, h_, c, r, k);
-            if (n != no_cell) {
-                body(k, n);
+            // A step off column 0 or row 0 wraps to a huge value.
+            const std::size_t nc = c + static_cast<std::size_t>(std::ptrdiff_t{d8::dcol[k]});
+            const std::size_t nr = r + static_cast<std::size_t>(std::ptrdiff_t{d8::drow[k]});
+            if (nc < w_ && nr >= r_lo_ && nr < r_hi_) {
+                body(k, nr * w_ + nc);
             }
         }
     }
@@ -69,7 +69,8 @@ class Neighbours {
 
   private:
     std::size_t w_;
-    std::size_t h_;
+    std::size_t r_lo_;
+    std::size_t r_hi_;
     std::array<std::ptrdiff_t, 9> offset_{};
 };
 
@@ -167,6 +168,72 @@ template <typename Index> class RadixHeap {
     std::size_t size_ = 0;
 };
 
+/// Label of the cells whose local fill drains to the raster edge or to nodata.
+constexpr std::uint32_t outlet_label = 0;
+/// Labels of the shared rows must stay below this.
+constexpr std::uint32_t max_labels = std::numeric_limits<std::uint32_t>::max();
+
+/// A band of rows filled on its own, in the parallel fill of Barnes (2016, "Parallel
+/// Priority-Flood depression filling for trillion cell digital elevation models on desktops or
+/// clusters", C&G 96:56-68; reference from memory, not checked). Its cells on a row shared with
+/// another band are outlets too, each with a label of its own; every other cell takes the label of
+/// the outlet its local fill drains to. Outlet cells (label 0) carry outlet_flag in the marks and
+/// leave the label grid alone.
+struct Band {
+    std::size_t r_lo = 0;
+    std::size_t r_hi = 0;
+    /// Label of the first cell of the band's top (bottom) row when that row borders another
+    /// band, else 0.
+    std::uint32_t top_labels = 0;
+    std::uint32_t bottom_labels = 0;
+    /// For the top (bottom) row: 1 where a cell touches nodata in the band beyond (may be null).
+    const std::uint8_t *top_touches_nodata = nullptr;
+    const std::uint8_t *bottom_touches_nodata = nullptr;
+};
+
+/// The lowest elevation at which water crosses between the areas of two labels.
+struct Spill {
+    std::uint64_t key; ///< smaller label in the high half
+    float z;
+};
+
+/// Spill elevations gathered while flooding a band: a small table keeps the lowest level of the
+/// pairs met most recently (the same pair is met many times in a row along a divide), and hands
+/// an entry on to a list when another pair takes its slot.
+class SpillList {
+  public:
+    void add(std::uint32_t a, std::uint32_t b, float z) {
+        const std::uint64_t key =
+            a < b ? (std::uint64_t{a} << 32) | b : (std::uint64_t{b} << 32) | a;
+        Spill &slot = table_[(key * 0x9E3779B97F4A7C15ULL) >> (64 - table_bits)];
+        if (slot.key == key) {
+            slot.z = std::min(slot.z, z);
+            return;
+        }
+        if (slot.key != empty) {
+            list_.push_back(slot);
+        }
+        slot = {key, z};
+    }
+    /// All spills gathered (a pair may appear more than once).
+    std::vector<Spill> take() {
+        for (Spill &slot : table_) {
+            if (slot.key != empty) {
+                list_.push_back(slot);
+                slot.key = empty;
+            }
+        }
+        return std::move(list_);
+    }
+
+  private:
+    static constexpr int table_bits = 12;
+    static constexpr std::uint64_t empty = std::numeric_limits<std::uint64_t>::max();
+    std::vector<Spill> table_ =
+        std::vector<Spill>(std::size_t{1} << table_bits, Spill{empty, 0.0F});
+    std::vector<Spill> list_;
+};
+
 /// Priority-Flood (Barnes, Lehman and Mulla 2014) with two plain FIFO queues beside the priority
 /// queue:
 /// - `pit`: cells raised to the level of the cell that found them (inside a depression), as in
@@ -178,42 +245,62 @@ template <typename Index> class RadixHeap {
 ///   must wait for its turn in elevation order.
 /// The priority queue is popped only when both plain queues are empty, so every closed cell
 /// with unprocessed neighbours is then in the priority queue, as Priority-Flood requires.
-template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &marks) {
-    const std::size_t w = dem.width();
-    const std::size_t h = dem.height();
-    const detail::ValidTest valid(dem);
+///
+/// Fills the cells of `band` looking at no cell outside it. With `Labelled` (a band of a
+/// parallel fill), cells take labels as described at Band and the spill elevations between
+/// labels go to `spills`; without, the band is the whole grid.
+template <typename Index, bool Labelled>
+void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
+                Grid<std::uint32_t> *label_grid, const Band &band, SpillList *spills) {
+    // Plain pointers: a write through a byte pointer could alias a grid's own members, which
+    // would make the compiler reload them after every write to the marks.
+    float *const dem = dem_grid.cells().data();
+    std::uint8_t *const marks = marks_grid.cells().data();
+    std::uint32_t *const labels = Labelled ? label_grid->cells().data() : nullptr;
+    const std::size_t w = dem_grid.width();
+    const std::size_t h = dem_grid.height();
+    const std::size_t first = band.r_lo * w;
+    const std::size_t last = band.r_hi * w;
+    const detail::ValidTest valid(dem_grid);
     RadixHeap<Index> open;
     Fifo<Index> pit;
     Fifo<Index> trace;
 
-    // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the raster's
+    // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the band's
     // outer ring, whose neighbours need bounds checks; the others use index offsets.
     constexpr std::uint8_t edge_flag = 2;
-    for (std::size_t i = 0; i < dem.size(); ++i) {
-        marks[i] = valid(dem[i]) ? 0 : closed_flag;
+    constexpr std::uint8_t nodata_marks = Labelled ? closed_flag | outlet_flag : closed_flag;
+    for (std::size_t i = first; i < last; ++i) {
+        marks[i] = valid(dem[i]) ? 0 : nodata_marks;
     }
     for (std::size_t c = 0; c < w; ++c) {
-        marks[c] |= edge_flag;
-        marks[(h - 1) * w + c] |= edge_flag;
+        marks[first + c] |= edge_flag;
+        marks[last - w + c] |= edge_flag;
     }
-    for (std::size_t r = 0; r < h; ++r) {
+    for (std::size_t r = band.r_lo; r < band.r_hi; ++r) {
         marks[r * w] |= edge_flag;
         marks[r * w + w - 1] |= edge_flag;
     }
-    const Neighbours around(w, h);
+    const Neighbours around(w, band.r_lo, band.r_hi, true);
 
     // Seeds: valid cells on the raster edge or next to a nodata cell, found from the edge ring
     // and from the nodata cells (a byte test for every other cell). The priority queue orders
-    // by (elevation, index), so the order of the pushes does not matter.
+    // by elevation, so the order of the pushes does not matter.
+    constexpr std::uint8_t outlet_marks = Labelled ? closed_flag | outlet_flag : closed_flag;
     const auto seed = [&](std::size_t i) {
         if ((marks[i] & closed_flag) == 0) {
-            marks[i] |= closed_flag;
+            marks[i] |= outlet_marks;
             open.push(ordered_key(dem[i]), static_cast<Index>(i));
         }
     };
-    for (std::size_t i = 0; i < dem.size(); ++i) {
+    const auto on_raster_edge = [&](std::size_t i) {
+        const std::size_t r = i / w;
+        const std::size_t c = i - r * w;
+        return c == 0 || r == 0 || c + 1 == w || r + 1 == h;
+    };
+    for (std::size_t i = first; i < last; ++i) {
         if ((marks[i] & closed_flag) == 0) {
-            if ((marks[i] & edge_flag) != 0) {
+            if ((marks[i] & edge_flag) != 0 && (!Labelled || on_raster_edge(i))) {
                 seed(i);
             }
             continue;
@@ -222,6 +309,33 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
             continue; // a seed already
         }
         around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) { seed(n); });
+    }
+    if constexpr (Labelled) {
+        // Cells touching nodata in the next band are outlets; the other cells of a row shared
+        // with another band get labels of their own.
+        for (std::size_t c = 0; c < w; ++c) {
+            if (band.top_touches_nodata != nullptr && band.top_touches_nodata[c] != 0) {
+                seed(first + c);
+            }
+            if (band.bottom_touches_nodata != nullptr && band.bottom_touches_nodata[c] != 0) {
+                seed(last - w + c);
+            }
+        }
+        const auto seed_labelled = [&](std::size_t i, std::uint32_t label) {
+            if ((marks[i] & closed_flag) == 0) {
+                marks[i] |= closed_flag;
+                labels[i] = label;
+                open.push(ordered_key(dem[i]), static_cast<Index>(i));
+            }
+        };
+        for (std::size_t c = 0; c < w; ++c) {
+            if (band.top_labels != 0) {
+                seed_labelled(first + c, band.top_labels + static_cast<std::uint32_t>(c));
+            }
+            if (band.bottom_labels != 0) {
+                seed_labelled(last - w + c, band.bottom_labels + static_cast<std::uint32_t>(c));
+            }
+        }
     }
     while (true) {
         std::size_t i = 0;
@@ -237,25 +351,171 @@ template <typename Index> void fill_with(Grid<float> &dem, Grid<std::uint8_t> &m
             break;
         }
         const float z = dem[i];
+        const std::uint8_t mi = marks[i];
+        // Labelled: what a cell closed from this one gets, and this cell's label.
+        const std::uint8_t close_marks = mi & (closed_flag | outlet_flag);
+        [[maybe_unused]] std::uint32_t label = outlet_label;
+        if constexpr (Labelled) {
+            label = (mi & outlet_flag) != 0 ? outlet_label : labels[i];
+        }
         bool waits = false;
-        around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) {
-            if ((marks[n] & closed_flag) != 0) {
+        // Forced inline: GCC left the labelled version a call per neighbour, a third slower.
+        const auto visit = [&](std::uint8_t, std::size_t n) __attribute__((always_inline)) {
+            const std::uint8_t mn = marks[n];
+            if ((mn & closed_flag) != 0) {
+                if constexpr (Labelled) {
+                    // Two areas meet: water crosses at the higher of the two cells. Outlet
+                    // cells share label 0, and nodata cells carry outlet_flag too (their valid
+                    // neighbours are all outlets), so two outlet marks need no test.
+                    if ((mn & close_marks & outlet_flag) == 0) {
+                        const std::uint32_t other =
+                            (mn & outlet_flag) != 0 ? outlet_label : labels[n];
+                        if (other != label && valid(dem[n])) {
+                            spills->add(label, other, std::max(z, dem[n]));
+                        }
+                    }
+                }
                 return;
             }
             if (dem[n] > z) {
-                marks[n] |= closed_flag;
+                marks[n] = mn | close_marks;
                 trace.push(static_cast<Index>(n));
             } else if (traced) {
                 waits = true; // leave it for the priority queue
+                return;
             } else {
-                marks[n] |= closed_flag;
+                marks[n] = mn | close_marks;
                 dem[n] = z;
                 pit.push(static_cast<Index>(n));
             }
-        });
+            if constexpr (Labelled) {
+                if ((close_marks & outlet_flag) == 0) {
+                    labels[n] = label;
+                }
+            }
+        };
+        around.each(i, (mi & edge_flag) != 0, visit);
         if (waits) {
             open.push(ordered_key(z), static_cast<Index>(i));
         }
+    }
+}
+
+/// The parallel fill of Barnes (2016): each band is flooded on its own thread with its shared
+/// rows as outlets (flood_band); the lowest level at which each label's area drains to the
+/// raster edge or nodata follows from a Priority-Flood over the graph of labels and their
+/// spill elevations (within bands, and between facing cells of two bands); each cell then
+/// rises to its label's level where that is higher than its own fill. The filled elevations
+/// are the same as one flood of the whole grid (they depend only on the DEM).
+template <typename Index>
+void fill_in_bands(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32_t> &labels,
+                   std::size_t bands, unsigned threads) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    const detail::ValidTest valid(dem);
+    if (labels.width() != w || labels.height() != h) {
+        labels = Grid<std::uint32_t>(w, h, no_fill);
+    }
+    // Shared rows: boundary j (between bands j and j + 1) has its upper row labelled from
+    // 1 + 2 j w and its lower row from 1 + (2 j + 1) w.
+    std::vector<Band> band(bands);
+    std::vector<std::uint8_t> touches(2 * (bands - 1) * w, 0);
+    for (std::size_t b = 0; b < bands; ++b) {
+        band[b].r_lo = h * b / bands;
+        band[b].r_hi = h * (b + 1) / bands;
+    }
+    for (std::size_t j = 0; j + 1 < bands; ++j) {
+        const std::size_t upper = band[j].r_hi - 1;
+        const auto base = static_cast<std::uint32_t>(1 + 2 * j * w);
+        band[j].bottom_labels = base;
+        band[j + 1].top_labels = base + static_cast<std::uint32_t>(w);
+        std::uint8_t *up_touch = &touches[2 * j * w];
+        std::uint8_t *down_touch = up_touch + w;
+        band[j].bottom_touches_nodata = up_touch;
+        band[j + 1].top_touches_nodata = down_touch;
+        for (std::size_t c = 0; c < w; ++c) {
+            for (std::size_t k = c == 0 ? 0 : c - 1; k <= c + 1 && k < w; ++k) {
+                if (!valid(dem[(upper + 1) * w + k])) {
+                    up_touch[c] = 1;
+                }
+                if (!valid(dem[upper * w + k])) {
+                    down_touch[c] = 1;
+                }
+            }
+        }
+    }
+    std::vector<std::vector<Spill>> spills(bands);
+    detail::run_on_threads(bands, [&](std::size_t b) {
+        SpillList list;
+        flood_band<Index, true>(dem, marks, &labels, band[b], &list);
+        spills[b] = list.take();
+    });
+    // Spills between facing cells of two bands.
+    const auto label_of = [&](std::size_t i) {
+        return (marks[i] & outlet_flag) != 0 ? outlet_label : labels[i];
+    };
+    SpillList facing;
+    for (std::size_t j = 0; j + 1 < bands; ++j) {
+        const std::size_t upper = band[j].r_hi - 1;
+        for (std::size_t c = 0; c < w; ++c) {
+            const std::size_t a = upper * w + c;
+            if (!valid(dem[a])) {
+                continue;
+            }
+            for (std::size_t k = c == 0 ? 0 : c - 1; k <= c + 1 && k < w; ++k) {
+                const std::size_t b = (upper + 1) * w + k;
+                if (valid(dem[b]) && label_of(a) != label_of(b)) {
+                    facing.add(label_of(a), label_of(b), std::max(dem[a], dem[b]));
+                }
+            }
+        }
+    }
+    spills.push_back(facing.take());
+    // Priority-Flood over the labels (a minimax search from the outlet label).
+    const std::size_t n_labels = 1 + 2 * (bands - 1) * w;
+    std::vector<std::vector<std::pair<std::uint32_t, float>>> graph(n_labels);
+    for (const auto &list : spills) {
+        for (const Spill &s : list) {
+            const auto a = static_cast<std::uint32_t>(s.key >> 32);
+            const auto b = static_cast<std::uint32_t>(s.key & 0xFFFFFFFFU);
+            graph[a].emplace_back(b, s.z);
+            graph[b].emplace_back(a, s.z);
+        }
+    }
+    const float infinite = std::numeric_limits<float>::infinity();
+    std::vector<float> level(n_labels, infinite);
+    level[outlet_label] = -infinite;
+    using Entry = std::pair<float, std::uint32_t>;
+    std::priority_queue<Entry, std::vector<Entry>, std::greater<>> queue;
+    queue.emplace(-infinite, outlet_label);
+    while (!queue.empty()) {
+        const auto [z, a] = queue.top();
+        queue.pop();
+        if (z > level[a]) {
+            continue;
+        }
+        for (const auto &[b, spill] : graph[a]) {
+            const float through = std::max(z, spill);
+            if (through < level[b]) {
+                level[b] = through;
+                queue.emplace(through, b);
+            }
+        }
+    }
+    std::vector<char> stranded(bands, 0);
+    detail::for_row_blocks(h, threads, 256, [&](std::size_t b, std::size_t r0, std::size_t r1) {
+        for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+            if ((marks[i] & outlet_flag) == 0) {
+                const std::uint32_t l = labels[i];
+                if (level[l] == infinite) {
+                    stranded[b % bands] = 1;
+                }
+                dem[i] = std::max(dem[i], level[l]);
+            }
+        }
+    });
+    if (std::find(stranded.begin(), stranded.end(), 1) != stranded.end()) {
+        throw InternalError("parallel fill: an area of the DEM found no way out");
     }
 }
 
@@ -321,20 +581,46 @@ void apply_breach_lines(Grid<float> &dem, const std::vector<BreachLine> &lines) 
     }
 }
 
-void fill_depressions(Grid<float> &dem) {
-    Grid<std::uint8_t> marks(dem.width(), dem.height(), 0);
-    fill_depressions(dem, marks);
+void fill_depressions(Grid<float> &dem, unsigned threads) {
+    Grid<std::uint8_t> marks(dem.width(), dem.height(), no_fill);
+    Grid<std::uint32_t> labels;
+    detail::fill_depressions_with(dem, marks, labels, threads);
 }
 
 void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks) {
+    Grid<std::uint32_t> labels;
+    detail::fill_depressions_with(dem, marks, labels, 1);
+}
+
+void detail::fill_depressions_with(Grid<float> &dem, Grid<std::uint8_t> &marks,
+                                   Grid<std::uint32_t> &labels, unsigned threads) {
     if (marks.width() != dem.width() || marks.height() != dem.height()) {
         throw InternalError("fill_depressions: scratch grid size differs from the DEM");
     }
-    // fill_with sets every cell of marks before reading any.
-    if (dem.size() < (std::size_t{1} << 32)) {
-        fill_with<std::uint32_t>(dem, marks);
+    // Bands of at least 64 rows, one per thread, while the labels of their shared rows fit in
+    // 32 bits. The flood sets every cell of marks (and labels) before reading any.
+    constexpr std::size_t min_band_rows = 64;
+    const unsigned n_threads = thread_count(threads);
+    const std::size_t w = dem.width();
+    std::size_t bands =
+        std::max<std::size_t>(1, std::min<std::size_t>(n_threads, dem.height() / min_band_rows));
+    if (bands > 1 && 2 * (bands - 1) * w >= max_labels) {
+        bands = 1;
+    }
+    const bool small = dem.size() < (std::size_t{1} << 32);
+    if (bands > 1) {
+        if (small) {
+            fill_in_bands<std::uint32_t>(dem, marks, labels, bands, n_threads);
+        } else {
+            fill_in_bands<std::size_t>(dem, marks, labels, bands, n_threads);
+        }
+        return;
+    }
+    const Band whole{0, dem.height()};
+    if (small) {
+        flood_band<std::uint32_t, false>(dem, marks, nullptr, whole, nullptr);
     } else {
-        fill_with<std::size_t>(dem, marks);
+        flood_band<std::size_t, false>(dem, marks, nullptr, whole, nullptr);
     }
 }
 
@@ -371,16 +657,17 @@ class FlatSolver {
     static constexpr std::uint8_t code_mask = 0x0F;
 
     FlatSolver(const Grid<float> &dem, Grid<std::uint8_t> &dirs, Grid<std::uint32_t> &mask)
-        : dem_(dem), dirs_(dirs), mask_(mask), valid_(dem), around_(dem.width(), dem.height()) {}
+        : dem_(dem.cells().data()), dirs_(dirs.cells().data()), mask_(mask.cells().data()),
+          width_(dem.width()), size_(dem.size()), valid_(dem), around_(dem.width(), dem.height()) {}
 
     /// Resolves every flat with a cell in rows [r0, r1), except those reaching outside rows
     /// [r0, r1) when `whole` is false; their start cells go to deferred_starts(). Returns true
     /// when any flat cell was found.
     bool run(std::size_t r0, std::size_t r1, bool whole) {
-        const std::size_t w = dem_.width();
+        const std::size_t w = width_;
         whole_ = whole;
         first_ = whole ? 0 : r0 * w;
-        last_ = whole ? dem_.size() : r1 * w;
+        last_ = whole ? size_ : r1 * w;
         bool any = false;
         for (std::size_t i = r0 * w; i < r1 * w; ++i) {
             const std::uint8_t d = dirs_[i];
@@ -398,7 +685,7 @@ class FlatSolver {
     void run_deferred(const std::vector<std::size_t> &starts) {
         whole_ = true;
         first_ = 0;
-        last_ = dem_.size();
+        last_ = size_;
         for (const std::size_t i : starts) {
             if (dirs_[i] == deferred) {
                 resolve_flat(i);
@@ -412,20 +699,24 @@ class FlatSolver {
     // flat lie at most one step nearer or farther from the low edges, so the cells at distance
     // t are given their directions once the search has reached distance t + 1.
     void pick(std::size_t i) {
-        const float z = dem_[i];
+        const float *const dem = dem_;
+        std::uint8_t *const dirs = dirs_;
+        std::uint32_t *const mask = mask_;
+        const Neighbours around = around_;
+        const float z = dem[i];
         std::uint8_t low_edge = d8::none;
         std::uint8_t best = d8::none;
-        std::uint32_t best_mask = mask_[i];
-        around_.each(i, [&](std::uint8_t k, std::size_t n) {
-            if (dem_[n] != z) {
+        std::uint32_t best_mask = mask[i];
+        around.each(i, [&](std::uint8_t k, std::size_t n) {
+            if (dem[n] != z) {
                 return;
             }
-            if ((dirs_[n] & flat_flag) == 0) {
-                if (dirs_[n] != d8::none && low_edge == d8::none) {
+            if ((dirs[n] & flat_flag) == 0) {
+                if (dirs[n] != d8::none && low_edge == d8::none) {
                     low_edge = k;
                 }
-            } else if (mask_[n] < best_mask) {
-                best_mask = mask_[n];
+            } else if (mask[n] < best_mask) {
+                best_mask = mask[n];
                 best = k;
             }
         });
@@ -433,7 +724,7 @@ class FlatSolver {
         if (code == d8::none) {
             throw InternalError("resolve_flats: no lower neighbour on a flat gradient");
         }
-        dirs_[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
+        dirs[i] = static_cast<std::uint8_t>(flat_flag | visited_flag | code);
     }
 
     /// Sweep through the flat of `start`: its cells (all_), its high edges (flat cells next to
@@ -441,29 +732,33 @@ class FlatSolver {
     /// the same elevation). A flat cell not yet found has d8::none (or `deferred`). Returns false,
     /// leaving the cells found `deferred`, when the flat reaches outside [first_, last_).
     bool sweep(std::size_t start) {
-        const float z = dem_[start];
+        const float *const dem = dem_;
+        std::uint8_t *const dirs = dirs_;
+        std::uint32_t *const mask = mask_;
+        const Neighbours around = around_;
+        const float z = dem[start];
         high_edges_.clear();
         low_edges_.clear();
         all_.assign(1, start);
-        dirs_[start] = flat_flag | seen_flag;
+        dirs[start] = flat_flag | seen_flag;
         for (std::size_t k = 0; k < all_.size(); ++k) {
             const std::size_t i = all_[k];
             bool high_edge = false;
             bool outside = false;
-            around_.each(i, [&](std::uint8_t, std::size_t n) {
-                const float zn = dem_[n];
+            around.each(i, [&](std::uint8_t, std::size_t n) {
+                const float zn = dem[n];
                 if (zn == z) {
-                    const std::uint8_t dn = dirs_[n];
+                    const std::uint8_t dn = dirs[n];
                     if (dn == d8::none || dn == deferred) {
                         // In a band, a `deferred` cell means this flat was put off before.
                         if (n < first_ || n >= last_ || (dn == deferred && !whole_)) {
                             outside = true;
                             return;
                         }
-                        dirs_[n] = flat_flag | seen_flag;
+                        dirs[n] = flat_flag | seen_flag;
                         all_.push_back(n);
                     } else if ((dn & (flat_flag | low_edge_flag)) == 0) {
-                        dirs_[n] = static_cast<std::uint8_t>(dn | low_edge_flag);
+                        dirs[n] = static_cast<std::uint8_t>(dn | low_edge_flag);
                         low_edges_.push_back(n);
                     }
                 } else if (zn > z && valid_(zn)) {
@@ -472,17 +767,17 @@ class FlatSolver {
             });
             if (outside) {
                 for (const std::size_t f : all_) {
-                    dirs_[f] = deferred;
+                    dirs[f] = deferred;
                 }
                 for (const std::size_t e : low_edges_) {
-                    dirs_[e] = static_cast<std::uint8_t>(dirs_[e] & ~low_edge_flag);
+                    dirs[e] = static_cast<std::uint8_t>(dirs[e] & ~low_edge_flag);
                 }
                 deferred_starts_.push_back(start);
                 return false;
             }
-            mask_[i] = high_edge ? 1U : 0U;
+            mask[i] = high_edge ? 1U : 0U;
             if (high_edge) {
-                dirs_[i] |= away_flag;
+                dirs[i] |= away_flag;
                 high_edges_.push_back(i);
             }
         }
@@ -490,6 +785,9 @@ class FlatSolver {
     }
 
     void resolve_flat(std::size_t start) {
+        std::uint8_t *const dirs = dirs_;
+        std::uint32_t *const mask = mask_;
+        const Neighbours around = around_;
         // Scratch values: the away distance (>= 0) first, then the combined value 2 t - away
         // stored with a bias of 2^31 so that unsigned comparisons order it like the signed value.
         // Only flat cells' values are read, and the sweep through each flat sets them all.
@@ -505,11 +803,11 @@ class FlatSolver {
         while (!frontier_.empty()) {
             next_.clear();
             for (const std::size_t i : frontier_) {
-                const std::uint32_t away = mask_[i] + 1;
-                around_.each(i, [&](std::uint8_t, std::size_t n) {
-                    if (dirs_[n] == (flat_flag | seen_flag)) {
-                        dirs_[n] |= away_flag;
-                        mask_[n] = away;
+                const std::uint32_t away = mask[i] + 1;
+                around.each(i, [&](std::uint8_t, std::size_t n) {
+                    if (dirs[n] == (flat_flag | seen_flag)) {
+                        dirs[n] |= away_flag;
+                        mask[n] = away;
                         next_.push_back(n);
                     }
                 });
@@ -520,7 +818,7 @@ class FlatSolver {
         // 2 t - away; the constant "highest away value of the flat" of Barnes et al. cancels
         // when cells of one flat are compared, so it is left out.
         for (const std::size_t i : low_edges_) {
-            dirs_[i] = static_cast<std::uint8_t>(dirs_[i] & ~low_edge_flag);
+            dirs[i] = static_cast<std::uint8_t>(dirs[i] & ~low_edge_flag);
         }
         frontier_.swap(low_edges_);
         std::int64_t t = 0;
@@ -529,12 +827,11 @@ class FlatSolver {
             ++t;
             next_.clear();
             for (const std::size_t i : frontier_) {
-                around_.each(i, [&](std::uint8_t, std::size_t n) {
-                    if ((dirs_[n] & (flat_flag | seen_flag | visited_flag)) ==
+                around.each(i, [&](std::uint8_t, std::size_t n) {
+                    if ((dirs[n] & (flat_flag | seen_flag | visited_flag)) ==
                         (flat_flag | seen_flag)) {
-                        dirs_[n] |= visited_flag;
-                        mask_[n] =
-                            static_cast<std::uint32_t>(2 * t - std::int64_t{mask_[n]} + bias);
+                        dirs[n] |= visited_flag;
+                        mask[n] = static_cast<std::uint32_t>(2 * t - std::int64_t{mask[n]} + bias);
                         next_.push_back(n);
                     }
                 });
@@ -552,9 +849,13 @@ class FlatSolver {
         }
     }
 
-    const Grid<float> &dem_;
-    Grid<std::uint8_t> &dirs_;
-    Grid<std::uint32_t> &mask_;
+    // Plain pointers, copied to locals in the searches: a write through a byte pointer could
+    // alias the solver's members, which would make the compiler reload them after every write.
+    const float *dem_;
+    std::uint8_t *dirs_;
+    std::uint32_t *mask_;
+    std::size_t width_;
+    std::size_t size_;
     detail::ValidTest valid_;
     Neighbours around_;
     bool whole_ = true;     ///< false in a band: flats reaching outside it are put off
@@ -655,7 +956,7 @@ void detail::condition(const Grid<float> &dem, const std::vector<BreachLine> &li
     apply_breach_lines(work, lines);
     dirs = Grid<std::uint8_t>(dem.width(), dem.height(), no_fill); // fill sets every mark
     dirs.copy_georef_from(dem);
-    fill_depressions(work, dirs);
+    detail::fill_depressions_with(work, dirs, scratch, threads);
     detail::d8_directions_into(work, dirs, threads);
     detail::resolve_flats_with(work, dirs, scratch, threads);
 }

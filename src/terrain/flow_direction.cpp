@@ -55,15 +55,19 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
             static_cast<std::ptrdiff_t>(d8::drow[k]) * static_cast<std::ptrdiff_t>(w) + d8::dcol[k];
     }
     const detail::ValidTest valid(dem);
+    // Plain pointers: a write through a byte pointer could alias the grids' own members, which
+    // would make the compiler reload them after every write to the directions.
+    const float *const z_at = dem.cells().data();
+    std::uint8_t *const dir_at = dirs.cells().data();
     detail::for_row_blocks(
         h, thread_count(threads), 64, [&](std::size_t, std::size_t r0, std::size_t r1) {
             for (std::size_t r = r0; r < r1; ++r) {
                 const bool inner_row = r > 0 && r + 1 < h;
                 for (std::size_t c = 0; c < w; ++c) {
                     const std::size_t i = r * w + c;
-                    const float z = dem[i];
+                    const float z = z_at[i];
                     if (!valid(z)) {
-                        dirs[i] = d8::none;
+                        dir_at[i] = d8::none;
                         continue;
                     }
                     if (inner_row && c > 0 && c + 1 < w) {
@@ -77,7 +81,7 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                         std::uint8_t best_in_k = d8::none;
                         bool all_valid = true;
                         for (std::uint8_t k = 1; k <= 8; ++k) {
-                            const float zn = dem[static_cast<std::size_t>(
+                            const float zn = z_at[static_cast<std::size_t>(
                                 static_cast<std::ptrdiff_t>(i) + offset[k])];
                             all_valid &= valid(zn);
                             const double s =
@@ -87,7 +91,7 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                             best_in_k = steeper ? k : best_in_k;
                         }
                         if (all_valid) {
-                            dirs[i] = best_in_k;
+                            dir_at[i] = best_in_k;
                             continue;
                         }
                     }
@@ -103,8 +107,8 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                         const long long orow = static_cast<long long>(r) - d8::drow[k];
                         float score = -std::numeric_limits<float>::infinity();
                         if (dem.in_bounds(oc, orow)) {
-                            const float zo = dem[static_cast<std::size_t>(orow) * w +
-                                                 static_cast<std::size_t>(oc)];
+                            const float zo = z_at[static_cast<std::size_t>(orow) * w +
+                                                  static_cast<std::size_t>(oc)];
                             if (valid(zo)) {
                                 score = zo;
                             }
@@ -125,7 +129,7 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                             continue;
                         }
                         const float zn =
-                            dem[static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc)];
+                            z_at[static_cast<std::size_t>(nr) * w + static_cast<std::size_t>(nc)];
                         if (!valid(zn)) {
                             consider_out(k);
                             continue;
@@ -139,7 +143,7 @@ void detail::d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs
                             }
                         }
                     }
-                    dirs[i] = best_k != d8::none ? best_k : out_k;
+                    dir_at[i] = best_k != d8::none ? best_k : out_k;
                 }
             }
         });

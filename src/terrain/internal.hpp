@@ -95,6 +95,11 @@ template <typename Body> void run_on_threads(std::size_t n, Body body) {
 /// d8_directions writing into an existing grid of the DEM's size (every cell is overwritten).
 void d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs, unsigned threads);
 
+/// fill_depressions on up to `threads` threads with the caller's scratch grids: `marks` of the
+/// DEM's size, `labels` resized when its size differs (used when the fill runs in bands).
+void fill_depressions_with(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32_t> &labels,
+                           unsigned threads);
+
 /// resolve_flats with a caller's scratch grid (resized when its size differs), so that the
 /// pipeline can hand the same buffer on as the accumulation grid.
 void resolve_flats_with(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs,

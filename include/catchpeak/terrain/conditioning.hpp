@@ -46,8 +46,10 @@ void apply_breach_lines(Grid<float> &dem, const std::vector<BreachLine> &lines);
 /// of the grid's size (used as "closed" flags; contents on return are unspecified); passing the
 /// directions grid that will be computed next saves memory.
 void fill_depressions(Grid<float> &dem, Grid<std::uint8_t> &marks);
-/// Same, with its own scratch space.
-void fill_depressions(Grid<float> &dem);
+/// Same, with its own scratch space, on up to `threads` threads (0: all cores): bands of rows
+/// are flooded on their own and joined as in Barnes (2016, C&G 96:56-68; reference from memory,
+/// not checked). The filled elevations do not depend on the thread count.
+void fill_depressions(Grid<float> &dem, unsigned threads = 1);
 
 /// Flat resolution (Barnes, Lehman and Mulla 2014, C&G 62:128-135): gives a direction to every
 /// valid cell of a filled DEM that `d8_directions` left at d8::none, using the combined
