@@ -7,80 +7,115 @@
 
 #include <algorithm>
 #include <array>
+#include <atomic>
 #include <bit>
-
 #include <limits>
+#include <mutex>
 
 namespace catchpeak::terrain {
 
 namespace {
 
 /// Labels by following each unlabelled cell's path downstream to the first labelled cell:
-/// every cell is visited, a bounded number of times.
+/// every cell is visited a bounded number of times. Start cells are taken in blocks of rows on
+/// up to `threads` threads. Two walks may cross the same unlabelled cells at the same time;
+/// both then write the same label (the one where the path first meets a labelled cell), so the
+/// labels do not depend on the thread count. The labels are accessed as relaxed atomics for
+/// that reason (plain moves on common processors). The cells of each label are counted
+/// afterwards.
 void label_by_walks(const Grid<std::uint8_t> &dirs, const std::vector<std::size_t> &outlets,
-                    Catchments &out) {
+                    Catchments &out, unsigned threads) {
     constexpr std::uint32_t unresolved = std::numeric_limits<std::uint32_t>::max();
     const std::size_t n = dirs.size();
     const std::size_t w = dirs.width();
     const std::size_t h = dirs.height();
-    auto &labels = out.labels;
-    for (std::size_t i = 0; i < n; ++i) {
-        labels[i] = dirs[i] == d8::none ? 0 : unresolved;
-    }
+    const std::uint8_t *const dir = dirs.cells().data();
+    std::uint32_t *const labels = out.labels.cells().data();
+    detail::for_row_blocks(h, threads, 256, [&](std::size_t, std::size_t r0, std::size_t r1) {
+        for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+            labels[i] = dir[i] == d8::none ? 0 : unresolved;
+        }
+    });
     const auto count = static_cast<std::uint32_t>(outlets.size());
     for (std::uint32_t k = 0; k < count; ++k) {
         if (labels[outlets[k]] != unresolved) {
             throw InternalError("delineate_catchments: outlet on nodata, outside or repeated");
         }
         labels[outlets[k]] = k + 1;
-        out.local_cells[k] = 1;
     }
+    const auto load = [&](std::size_t i) {
+        return std::atomic_ref<std::uint32_t>(labels[i]).load(std::memory_order_relaxed);
+    };
+    const auto store = [&](std::size_t i, std::uint32_t v) {
+        std::atomic_ref<std::uint32_t>(labels[i]).store(v, std::memory_order_relaxed);
+    };
     // Follow each unresolved path downstream to the first resolved cell, then label the path.
     // The walk tracks the column and row, so that no division is needed for each step.
-    std::vector<std::size_t> path;
-    for (std::size_t start_r = 0; start_r < h; ++start_r) {
-        for (std::size_t start_c = 0; start_c < w; ++start_c) {
-            const std::size_t start = start_r * w + start_c;
-            if (labels[start] != unresolved) {
-                continue;
-            }
-            path.clear();
-            std::size_t i = start;
-            std::size_t r = start_r;
-            std::size_t c = start_c;
-            std::uint32_t label = 0;
-            while (true) {
-                path.push_back(i);
-                const std::uint8_t k = dirs[i];
-                if (k > 8) {
-                    label = 0;
-                    break;
+    constexpr std::size_t block_rows = 64;
+    const std::size_t blocks = (h + block_rows - 1) / block_rows;
+    const std::size_t workers = std::max<std::size_t>(1, std::min<std::size_t>(threads, blocks));
+    detail::run_on_threads(workers, [&](std::size_t t) {
+        std::vector<std::size_t> path;
+        for (std::size_t b = t; b < blocks; b += workers) {
+            for (std::size_t start_r = b * block_rows; start_r < std::min(h, (b + 1) * block_rows);
+                 ++start_r) {
+                for (std::size_t start_c = 0; start_c < w; ++start_c) {
+                    const std::size_t start = start_r * w + start_c;
+                    if (load(start) != unresolved) {
+                        continue;
+                    }
+                    path.clear();
+                    std::size_t i = start;
+                    std::size_t r = start_r;
+                    std::size_t c = start_c;
+                    std::uint32_t label = 0;
+                    while (true) {
+                        path.push_back(i);
+                        const std::uint8_t k = dir[i];
+                        if (k > 8) {
+                            label = 0;
+                            break;
+                        }
+                        // A step off column 0 or row 0 wraps to a huge value, caught by the
+                        // bounds test.
+                        c += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::dcol[k]));
+                        r += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::drow[k]));
+                        if (c >= w || r >= h) {
+                            label = 0;
+                            break;
+                        }
+                        const std::size_t d = r * w + c;
+                        const std::uint32_t ld = load(d);
+                        if (ld != unresolved) {
+                            label = ld; // 0 on a cell without direction
+                            break;
+                        }
+                        if (path.size() > n) {
+                            throw InternalError(
+                                "delineate_catchments: the directions contain a cycle");
+                        }
+                        i = d;
+                    }
+                    for (const std::size_t p : path) {
+                        store(p, label);
+                    }
                 }
-                // A step off column 0 or row 0 wraps to a huge value, caught by the bounds test.
-                c += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::dcol[k]));
-                r += static_cast<std::size_t>(static_cast<std::ptrdiff_t>(d8::drow[k]));
-                if (c >= w || r >= h) {
-                    label = 0;
-                    break;
-                }
-                const std::size_t d = r * w + c;
-                if (labels[d] != unresolved) {
-                    label = labels[d]; // 0 on a cell without direction
-                    break;
-                }
-                if (path.size() > n) {
-                    throw InternalError("delineate_catchments: the directions contain a cycle");
-                }
-                i = d;
-            }
-            for (const std::size_t p : path) {
-                labels[p] = label;
-            }
-            if (label != 0) {
-                out.local_cells[label - 1] += path.size();
             }
         }
-    }
+    });
+    // Cells of each label (integer counts: the merge order does not matter).
+    std::mutex merge;
+    detail::for_row_blocks(h, threads, (h + workers - 1) / workers,
+                           [&](std::size_t, std::size_t r0, std::size_t r1) {
+                               std::vector<std::uint64_t> cells(count + std::size_t{1}, 0);
+                               for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+                                   ++cells[labels[i]];
+                               }
+                               const std::lock_guard<std::mutex> lock(merge);
+                               for (std::uint32_t k = 0; k < count; ++k) {
+                                   out.local_cells[k] += cells[k + 1];
+                               }
+                           });
 }
 
 /// Labels by searching upstream from each outlet: only the cells that drain to an outlet are
@@ -164,15 +199,16 @@ void label_by_search(const Grid<std::uint8_t> &dirs, const std::vector<std::size
 } // namespace
 
 Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
-                                const std::vector<std::size_t> &outlets, CatchmentSearch how) {
+                                const std::vector<std::size_t> &outlets, CatchmentSearch how,
+                                unsigned threads) {
     Catchments out;
-    detail::delineate_catchments_into(dirs, outlets, out, how);
+    detail::delineate_catchments_into(dirs, outlets, out, how, threads);
     return out;
 }
 
 void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
                                        const std::vector<std::size_t> &outlets, Catchments &out,
-                                       CatchmentSearch how) {
+                                       CatchmentSearch how, unsigned threads) {
     if (outlets.size() >= std::numeric_limits<std::uint32_t>::max() - 1) {
         throw InternalError("delineate_catchments: too many outlets");
     }
@@ -194,7 +230,7 @@ void detail::delineate_catchments_into(const Grid<std::uint8_t> &dirs,
     if (how == CatchmentSearch::from_outlets) {
         label_by_search(dirs, outlets, out);
     } else {
-        label_by_walks(dirs, outlets, out);
+        label_by_walks(dirs, outlets, out, thread_count(threads));
     }
     const auto &labels = out.labels;
     out.downstream_label.assign(count, 0);

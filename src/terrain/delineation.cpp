@@ -181,7 +181,8 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     }
     detail::delineate_catchments_into(dirs, outlets, c,
                                       draining <= dirs.size() / 4 ? CatchmentSearch::from_outlets
-                                                                  : CatchmentSearch::every_cell);
+                                                                  : CatchmentSearch::every_cell,
+                                      threads);
 
     // Local catchments touching the raster edge or nodata.
     const std::size_t w = dem.width();

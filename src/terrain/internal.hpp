@@ -119,7 +119,7 @@ void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAn
 /// size).
 void delineate_catchments_into(const Grid<std::uint8_t> &dirs,
                                const std::vector<std::size_t> &outlets, Catchments &out,
-                               CatchmentSearch how);
+                               CatchmentSearch how, unsigned threads);
 
 /// slope_sums_by_label; without the unlabelled cells (index 0 left at zero) when
 /// `with_unlabelled` is false, which spares the slope of every cell outside the catchments.

@@ -64,7 +64,7 @@ TEST(Catchments, VValleyAreasAreExact) {
 
 TEST(Catchments, NestedPointsAreConsistentOnRandomDems) {
     for (const unsigned seed : {41U, 42U, 43U}) {
-        const auto dem = test::random_dem(100, 80, seed);
+        const auto dem = test::random_dem(100, 150, seed);
         const auto dirs = conditioned_directions(dem, {}, 2);
         const auto acc = flow_accumulation(dirs);
         // Outlets: every 37th valid cell with some accumulation (many nest).
@@ -85,6 +85,16 @@ TEST(Catchments, NestedPointsAreConsistentOnRandomDems) {
         EXPECT_EQ(c.local_cells, searched.local_cells) << "seed " << seed;
         EXPECT_EQ(c.total_cells, searched.total_cells) << "seed " << seed;
         EXPECT_EQ(c.upstream_labels, searched.upstream_labels) << "seed " << seed;
+        // The walks on several threads (blocks of 64 rows) give the same catchments.
+        for (const unsigned threads : {2U, 3U, 5U}) {
+            const auto parallel =
+                delineate_catchments(dirs, outlets, CatchmentSearch::every_cell, threads);
+            EXPECT_TRUE(std::equal(c.labels.cells().begin(), c.labels.cells().end(),
+                                   parallel.labels.cells().begin()))
+                << "seed " << seed << ", " << threads << " threads";
+            EXPECT_EQ(c.local_cells, parallel.local_cells) << "seed " << seed;
+            EXPECT_EQ(c.total_cells, parallel.total_cells) << "seed " << seed;
+        }
         std::size_t nested = 0;
         for (std::size_t k = 0; k < outlets.size(); ++k) {
             // Accumulation at each outlet equals its catchment's cell count.

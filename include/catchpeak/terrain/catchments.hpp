@@ -40,10 +40,12 @@ enum class CatchmentSearch {
 
 /// Labels all cells with the nearest downstream outlet. `outlets` are cell indices of distinct
 /// cells (outlet k is outlets[k-1]); throws InternalError on a repeated cell or one without a
-/// direction.
+/// direction. The walk from every cell runs on up to `threads` threads (0: all cores); the result
+/// does not depend on the thread count.
 [[nodiscard]] Catchments delineate_catchments(const Grid<std::uint8_t> &dirs,
                                               const std::vector<std::size_t> &outlets,
-                                              CatchmentSearch how = CatchmentSearch::every_cell);
+                                              CatchmentSearch how = CatchmentSearch::every_cell,
+                                              unsigned threads = 1);
 
 /// All labels of the total catchment of `label` (itself first, then upstream, breadth first).
 [[nodiscard]] std::vector<std::uint32_t> total_catchment_labels(const Catchments &c,
