@@ -12,6 +12,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <mutex>
 #include <unordered_map>
 
 // Memory plan (bytes per cell, besides the caller's DEM of 4): conditioning holds a float copy
@@ -165,9 +166,14 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
 
     report("longest flow paths", 0.65);
     std::vector<FlowPath> paths(outlets.size());
-    for (std::size_t k = 0; k < outlets.size(); ++k) {
-        paths[k] = longest_flow_path(dirs, al.longest_upstream, dem, outlets[k]);
-    }
+    // Paths are independent (each reads the grids and writes its own entry).
+    const std::size_t path_workers = std::max<std::size_t>(
+        1, std::min<std::size_t>(threads, outlets.size() / 64)); // a thread pays from 64 paths
+    detail::run_on_threads(path_workers, [&](std::size_t t) {
+        for (std::size_t k = t; k < outlets.size(); k += path_workers) {
+            paths[k] = longest_flow_path(dirs, al.longest_upstream, dem, outlets[k]);
+        }
+    });
     al.upstream_length_m = Grid<float>();
     al.longest_upstream = Grid<std::uint8_t>();
 
@@ -188,25 +194,31 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     std::vector<char> edge_local(outlets.size() + 1, 0);
-    for (std::size_t i = 0, row = 0, col = 0; i < dirs.size(); ++i) {
-        if (col == w) { // row and column tracked, not divided out for each cell
-            col = 0;
-            ++row;
-        }
-        if (dirs[i] == d8::none) {
-            for (std::uint8_t k = 1; k <= 8; ++k) {
-                const long long nc = static_cast<long long>(col) + d8::dcol[k];
-                const long long nr = static_cast<long long>(row) + d8::drow[k];
-                if (dirs.in_bounds(nc, nr)) {
-                    edge_local[c.labels(static_cast<std::size_t>(nc),
-                                        static_cast<std::size_t>(nr))] = 1;
+    std::mutex merge_edges;
+    detail::for_row_blocks(
+        h, threads, (h + threads - 1) / threads, [&](std::size_t, std::size_t r0, std::size_t r1) {
+            std::vector<char> touched(outlets.size() + 1, 0);
+            for (std::size_t row = r0; row < r1; ++row) {
+                for (std::size_t col = 0, i = row * w; col < w; ++col, ++i) {
+                    if (dirs[i] == d8::none) {
+                        for (std::uint8_t k = 1; k <= 8; ++k) {
+                            const long long nc = static_cast<long long>(col) + d8::dcol[k];
+                            const long long nr = static_cast<long long>(row) + d8::drow[k];
+                            if (dirs.in_bounds(nc, nr)) {
+                                touched[c.labels(static_cast<std::size_t>(nc),
+                                                 static_cast<std::size_t>(nr))] = 1;
+                            }
+                        }
+                    } else if (row == 0 || col == 0 || row + 1 == h || col + 1 == w) {
+                        touched[c.labels[i]] = 1;
+                    }
                 }
             }
-        } else if (row == 0 || col == 0 || row + 1 == h || col + 1 == w) {
-            edge_local[c.labels[i]] = 1;
-        }
-        ++col;
-    }
+            const std::lock_guard<std::mutex> lock(merge_edges);
+            for (std::size_t k = 0; k < touched.size(); ++k) {
+                edge_local[k] = static_cast<char>(edge_local[k] | touched[k]);
+            }
+        });
 
     report("slopes", 0.85);
     const auto max_label = static_cast<std::uint32_t>(outlets.size());
