@@ -9,6 +9,9 @@
 #include <cstddef>
 #include <cstring>
 #include <type_traits>
+#include <unordered_map>
+#include <utility>
+#include <vector>
 
 namespace catchpeak::terrain {
 
@@ -81,18 +84,18 @@ AccumulationAndLength accumulation_and_length(const Grid<std::uint8_t> &dirs) {
 }
 
 void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
-                                          AccumulationAndLength &out, unsigned threads) {
-    const auto reset = [&](auto &g, auto zero) {
+                                          AccumulationAndLength &out, unsigned threads,
+                                          AccumulationWalkStats *stats) {
+    // Sized here, zeroed by the strip walks below (each its own rows, on its own thread).
+    const auto reshape = [&](auto &g) {
         if (g.width() != dirs.width() || g.height() != dirs.height()) {
-            g = std::remove_reference_t<decltype(g)>(dirs.width(), dirs.height(), zero);
-        } else {
-            std::fill(g.cells().begin(), g.cells().end(), zero);
+            g = std::remove_reference_t<decltype(g)>(dirs.width(), dirs.height(), no_fill);
         }
         g.copy_georef_from(dirs);
         g.nodata.reset();
     };
-    reset(out.accumulation, std::uint32_t{0});
-    reset(out.upstream_length_m, 0.0F);
+    reshape(out.accumulation);
+    reshape(out.upstream_length_m);
     auto &acc = out.accumulation;
     auto &len = out.upstream_length_m;
     const double dx = dirs.transform.cell_dx();
@@ -177,51 +180,223 @@ void detail::accumulation_and_length_into(const Grid<std::uint8_t> &dirs,
             row_state[w - 1] = inflows_checked(w - 1, r);
         }
     });
-    for (std::size_t start_r = 0; start_r < h; ++start_r) {
-        for (std::size_t start_c = 0; start_c < w; ++start_c) {
-            const std::size_t start = start_r * w + start_c;
-            if ((state[start] & count_mask) != 0) {
+    // The upstream neighbour on the longest path: (cand, up) wins over the cell's (len, code)
+    // when longer, or as long with a lower code. Taking the maximum this way does not depend on
+    // the order in which a cell's inflows arrive.
+    const auto take_longer = [&](std::size_t d, float cand, std::uint8_t up) {
+        const auto current = static_cast<std::uint8_t>(state[d] >> 4);
+        if (cand > len[d] || current == d8::none || (cand == len[d] && up < current)) {
+            len[d] = std::max(len[d], cand);
+            state[d] = static_cast<std::uint8_t>((up << 4) | (state[d] & count_mask));
+        }
+    };
+    // The walk runs on strips of rows, one a thread. A strip counts only the inflows from its
+    // own rows, so its walk needs nothing from the others; a cell that drains into another
+    // strip is recorded as leaving it, and what it carries is added after all strips are done
+    // (add_leaving_flow below).
+    const std::size_t strip_rows =
+        std::max<std::size_t>(1, (h + std::max(threads, 1U) - 1) / std::max(threads, 1U));
+    const std::size_t strips = (h + strip_rows - 1) / strip_rows;
+    if (stats != nullptr) {
+        *stats = AccumulationWalkStats{strips, 0, 0};
+    }
+    for (std::size_t s = 1; s < strips; ++s) {
+        const std::size_t b = s * strip_rows; // first row of strip s
+        for (std::size_t c = 0; c < w; ++c) {
+            for (const std::size_t r : {b - 1, b}) {
+                const std::uint8_t k = dir[r * w + c];
+                if (k == d8::none || k > 8) {
+                    continue;
+                }
+                const std::size_t tc = c + static_cast<std::size_t>(std::ptrdiff_t{d8::dcol[k]});
+                const std::size_t tr = r + static_cast<std::size_t>(std::ptrdiff_t{d8::drow[k]});
+                if (tc < w && (tr < b) != (r < b)) { // the inflow gathered above crosses b
+                    --state[tr * w + tc];
+                }
+            }
+        }
+    }
+    // What left the strips, added after their walks. Each leaving cell i passes acc[i] and the
+    // length candidate len[i] + step to its downstream cell d (an entry). The counts must then
+    // be added to every cell below d down to the path's end, crossing strips as often as the
+    // path does, and a longer length carried down as far as it wins. Paths from many entries
+    // merge, so instead of following each one to its end, the cells below the entries (the
+    // affected cells) are walked once in topological order: first each affected cell counts
+    // its affected upstream neighbours in the low nibble of `state` (free again: every cell
+    // reads `visited` after the strip walks), then walks start from the affected cells that
+    // have none, each carrying the sum of what arrived, and go on into a cell once its last
+    // affected inflow has arrived. A cell where paths join keeps its partial sum in `waiting`
+    // meanwhile, so the cost is about the number of affected cells (each walked once). With a
+    // cycle in the directions (which neither d8_directions nor conditioning makes) no cell of
+    // the cycle ever has all its inflows: every walk stops there and ends, but what the cells
+    // below the cycle hold may then differ from one thread count to another.
+    const auto add_leaving_flow = [&](const std::vector<std::vector<std::size_t>> &from) {
+        struct Entry {
+            std::size_t cell;
+            std::uint32_t acc;
+        };
+        std::vector<Entry> entries;
+        std::vector<std::pair<float, std::uint8_t>> lengths; // read before any is taken
+        for (const auto &cells : from) {
+            for (const std::size_t i : cells) {
+                const std::uint8_t k = dirs[i];
+                std::size_t dc = 0;
+                std::size_t dr = 0;
+                entries.push_back({downstream(i % w, i / w, dc, dr), acc[i]});
+                lengths.emplace_back(len[i] + step[k], d8::opposite[k]);
+            }
+        }
+        if (stats != nullptr) {
+            stats->leaving_cells = entries.size();
+        }
+        for (std::size_t e = 0; e < entries.size(); ++e) {
+            take_longer(entries[e].cell, lengths[e].first, lengths[e].second);
+        }
+        std::sort(entries.begin(), entries.end(),
+                  [](const Entry &a, const Entry &b) { return a.cell < b.cell; });
+        std::size_t unique = 0; // entries into one cell summed
+        for (const Entry &e : entries) {
+            if (unique > 0 && entries[unique - 1].cell == e.cell) {
+                entries[unique - 1].acc += e.acc;
+            } else {
+                entries[unique++] = e;
+            }
+        }
+        entries.resize(unique);
+        const auto count = [&](std::size_t i) { return state[i] & count_mask; };
+        constexpr std::uint8_t unmarked = visited;
+        constexpr std::uint8_t max_count = 14; // only a cycle could go past 8
+        for (const Entry &e : entries) {
+            if (count(e.cell) != unmarked) {
                 continue;
             }
-            std::size_t i = start;
-            std::size_t r = start_r;
-            std::size_t c = start_c;
+            state[e.cell] = static_cast<std::uint8_t>(state[e.cell] & ~count_mask);
+            std::size_t c = e.cell % w;
+            std::size_t r = e.cell / w;
+            std::size_t dc = 0;
+            std::size_t dr = 0;
+            for (std::size_t d = downstream(c, r, dc, dr); d != no_cell && dirs[d] != d8::none;
+                 d = downstream(c, r, dc, dr)) {
+                if (count(d) != unmarked) {
+                    if (count(d) < max_count) {
+                        ++state[d];
+                    }
+                    break;
+                }
+                state[d] = static_cast<std::uint8_t>((state[d] & ~count_mask) | 1U);
+                c = dc;
+                r = dr;
+            }
+        }
+        std::unordered_map<std::size_t, std::uint32_t> waiting;
+        for (const Entry &e : entries) {
+            if (count(e.cell) != 0) {
+                waiting[e.cell] += e.acc;
+            }
+        }
+        std::size_t walked = 0;
+        for (const Entry &e : entries) {
+            if (count(e.cell) != 0) {
+                continue; // walked into from above, or still waiting for its inflows
+            }
+            std::size_t i = e.cell;
+            std::uint32_t add = e.acc;
+            std::size_t c = i % w;
+            std::size_t r = i / w;
             while (true) {
+                acc[i] += add;
                 state[i] = static_cast<std::uint8_t>(state[i] | visited);
+                ++walked;
                 std::size_t dc = 0;
                 std::size_t dr = 0;
                 const std::size_t d = downstream(c, r, dc, dr);
+                if (d == no_cell || dirs[d] == d8::none) {
+                    break;
+                }
                 const std::uint8_t k = dirs[i];
-                if (k != d8::none) {
-                    acc[i] += 1;
-                    if (d != no_cell && dirs[d] != d8::none) {
-                        acc[d] += acc[i];
-                        const float cand = len[i] + step[k];
-                        const std::uint8_t up = d8::opposite[k]; // from d toward i
-                        const auto current = static_cast<std::uint8_t>(state[d] >> 4);
-                        if (cand > len[d] || current == d8::none ||
-                            (cand == len[d] && up < current)) {
-                            len[d] = std::max(len[d], cand);
-                            state[d] =
-                                static_cast<std::uint8_t>((up << 4) | (state[d] & count_mask));
-                        }
+                take_longer(d, len[i] + step[k], d8::opposite[k]);
+                const auto n = count(d);
+                if (n == unmarked || n == 0) {
+                    break; // only with a cycle in the directions
+                }
+                --state[d];
+                const auto it = waiting.find(d);
+                if (n > 1) {
+                    if (it != waiting.end()) {
+                        it->second += add;
+                    } else {
+                        waiting.emplace(d, add);
                     }
-                }
-                if (d == no_cell || (state[d] & count_mask) == visited) {
                     break;
                 }
-                if ((--state[d] & count_mask) != 0) {
-                    break;
+                if (it != waiting.end()) {
+                    add += it->second;
+                    waiting.erase(it);
                 }
                 i = d;
                 c = dc;
                 r = dr;
             }
         }
+        if (stats != nullptr) {
+            stats->affected_cells = walked;
+        }
+    };
+    std::vector<std::vector<std::size_t>> leaving(strips);
+    detail::for_row_blocks(
+        h, threads, strip_rows, [&](std::size_t s, std::size_t r0, std::size_t r1) {
+            std::fill(acc.cells().begin() + static_cast<std::ptrdiff_t>(r0 * w),
+                      acc.cells().begin() + static_cast<std::ptrdiff_t>(r1 * w), 0U);
+            std::fill(len.cells().begin() + static_cast<std::ptrdiff_t>(r0 * w),
+                      len.cells().begin() + static_cast<std::ptrdiff_t>(r1 * w), 0.0F);
+            for (std::size_t start_r = r0; start_r < r1; ++start_r) {
+                for (std::size_t start_c = 0; start_c < w; ++start_c) {
+                    const std::size_t start = start_r * w + start_c;
+                    if ((state[start] & count_mask) != 0) {
+                        continue;
+                    }
+                    std::size_t i = start;
+                    std::size_t r = start_r;
+                    std::size_t c = start_c;
+                    while (true) {
+                        state[i] = static_cast<std::uint8_t>(state[i] | visited);
+                        std::size_t dc = 0;
+                        std::size_t dr = 0;
+                        const std::size_t d = downstream(c, r, dc, dr);
+                        const bool in_strip = d != no_cell && dr >= r0 && dr < r1;
+                        const std::uint8_t k = dirs[i];
+                        if (k != d8::none) {
+                            acc[i] += 1;
+                            if (d != no_cell && dirs[d] != d8::none) {
+                                if (in_strip) {
+                                    acc[d] += acc[i];
+                                    take_longer(d, len[i] + step[k], d8::opposite[k]);
+                                } else {
+                                    leaving[s].push_back(i);
+                                }
+                            }
+                        }
+                        if (!in_strip || (state[d] & count_mask) == visited) {
+                            break;
+                        }
+                        if ((--state[d] & count_mask) != 0) {
+                            break;
+                        }
+                        i = d;
+                        c = dc;
+                        r = dr;
+                    }
+                }
+            }
+        });
+    if (strips > 1) {
+        add_leaving_flow(leaving);
     }
-    for (auto &b : state) {
-        b = static_cast<std::uint8_t>(b >> 4);
-    }
+    detail::for_row_blocks(h, threads, 256, [&](std::size_t, std::size_t r0, std::size_t r1) {
+        for (std::size_t i = r0 * w; i < r1 * w; ++i) {
+            state[i] = static_cast<std::uint8_t>(state[i] >> 4);
+        }
+    });
 }
 
 } // namespace catchpeak::terrain

@@ -110,10 +110,18 @@ void resolve_flats_with(const Grid<float> &filled_dem, Grid<std::uint8_t> &dirs,
 void condition(const Grid<float> &dem, const std::vector<BreachLine> &lines, unsigned threads,
                Grid<float> &work, Grid<std::uint8_t> &dirs, Grid<std::uint32_t> &scratch);
 
-/// accumulation_and_length into the caller's grids (reused when of the right size); the inflow
-/// counts are gathered over row blocks on up to `threads` threads.
+/// What the accumulation walk did, to check that its cost stays near the number of cells.
+struct AccumulationWalkStats {
+    std::size_t strips = 1;         ///< strips of rows walked on their own threads
+    std::size_t leaving_cells = 0;  ///< cells draining into another strip
+    std::size_t affected_cells = 0; ///< cells walked again below them (each once)
+};
+
+/// accumulation_and_length into the caller's grids (reused when of the right size). The inflow
+/// counts are gathered over row blocks and the walk runs on strips of rows, on up to `threads`
+/// threads; the result is the same for any thread count. `stats`, when given, is filled.
 void accumulation_and_length_into(const Grid<std::uint8_t> &dirs, AccumulationAndLength &out,
-                                  unsigned threads);
+                                  unsigned threads, AccumulationWalkStats *stats = nullptr);
 
 /// delineate_catchments with the caller's grid as the label buffer (reused when of the right
 /// size).
