@@ -195,6 +195,9 @@ Dem read_dem(const std::filesystem::path &path) {
                 file, errors.describe(fmt::format("cannot read rows {} to {}", r0, r0 + rows - 1)),
                 "a readable raster");
         }
+        // Drop the strip's blocks from GDAL's block cache (up to 5 % of the memory by default):
+        // they are in the grid now, and a large DEM would otherwise be held twice.
+        band->FlushCache(false);
     };
     const bool as_stored = band->GetRasterDataType() == GDT_Float32 &&
                            (has_scale == 0 || scale == 1.0) && (has_offset == 0 || offset == 0.0) &&

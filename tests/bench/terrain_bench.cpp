@@ -11,11 +11,14 @@
 // Each command is meant to run in a fresh process (run_terrain_bench.sh does that), so the peak
 // resident memory it prints (VmHWM) belongs to that case alone.
 #include "catchpeak/core/grid.hpp"
+#include "catchpeak/io/raster.hpp"
 #include "catchpeak/terrain/delineation.hpp"
 
+#include <cpl_conv.h>
 #include <fmt/format.h>
 #include <gdal.h>
 #include <gdal_utils.h>
+#include <ogr_srs_api.h>
 
 #include <sys/resource.h>
 
@@ -72,6 +75,15 @@ int generate(const std::string &path, std::size_t cells) {
     }
     double gt[6] = {500000.0, cell_m, 0.0, 4000000.0, 0.0, -cell_m};
     GDALSetGeoTransform(ds, gt);
+    // A projected CRS in metres (UTM zone 32N), as catchpeak's DEM reader requires.
+    OGRSpatialReferenceH srs = OSRNewSpatialReference(nullptr);
+    char *wkt = nullptr;
+    if (OSRImportFromEPSG(srs, 32632) != OGRERR_NONE || OSRExportToWkt(srs, &wkt) != OGRERR_NONE ||
+        GDALSetProjection(ds, wkt) != CE_None) {
+        throw std::runtime_error("cannot set the CRS of " + path);
+    }
+    CPLFree(wkt);
+    OSRDestroySpatialReference(srs);
     GDALRasterBandH band = GDALGetRasterBand(ds, 1);
     GDALSetRasterNoDataValue(band, static_cast<double>(nodata));
     std::mt19937 rng(12345);
@@ -113,32 +125,9 @@ int generate(const std::string &path, std::size_t cells) {
     return 0;
 }
 
+/// The DEM through catchpeak's own reader (as `catchpeak delineate` reads it).
 catchpeak::Grid<float> read_dem(const std::string &path) {
-    GDALAllRegister();
-    GDALSetCacheMax64(std::int64_t{64} << 20); // a small block cache, as a reader should use
-    GDALDatasetH ds = GDALOpen(path.c_str(), GA_ReadOnly);
-    if (ds == nullptr) {
-        throw std::runtime_error("cannot open " + path);
-    }
-    const auto w = static_cast<std::size_t>(GDALGetRasterXSize(ds));
-    const auto h = static_cast<std::size_t>(GDALGetRasterYSize(ds));
-    catchpeak::Grid<float> dem(w, h, catchpeak::no_fill);
-    double gt[6];
-    GDALGetGeoTransform(ds, gt);
-    dem.transform = {gt[0], gt[1], gt[2], gt[3], gt[4], gt[5]};
-    GDALRasterBandH band = GDALGetRasterBand(ds, 1);
-    int has = 0;
-    const double nd = GDALGetRasterNoDataValue(band, &has);
-    if (has != 0) {
-        dem.nodata = static_cast<float>(nd);
-    }
-    if (GDALRasterIO(band, GF_Read, 0, 0, static_cast<int>(w), static_cast<int>(h),
-                     dem.cells().data(), static_cast<int>(w), static_cast<int>(h), GDT_Float32, 0,
-                     0) != CE_None) {
-        throw std::runtime_error("read failed");
-    }
-    GDALClose(ds);
-    return dem;
+    return catchpeak::io::read_dem(path).elevation_m;
 }
 
 /// FNV-1a hash of a grid's bytes, to compare results between builds or thread counts.
@@ -229,7 +218,7 @@ int run(const std::string &path, std::size_t n_points, unsigned threads, bool ch
 
 int gdal_slope(const std::string &in, const std::string &out) {
     GDALAllRegister();
-    GDALSetCacheMax64(std::int64_t{64} << 20); // same block cache as the chain's reader
+    GDALSetCacheMax64(std::int64_t{64} << 20); // a block cache of 64 MiB for GDAL's own tool
     const auto t0 = Clock::now();
     const double cpu0 = cpu_seconds();
     GDALDatasetH src = GDALOpen(in.c_str(), GA_ReadOnly);
