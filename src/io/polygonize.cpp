@@ -12,6 +12,7 @@
 #include <limits>
 #include <map>
 #include <memory>
+#include <vector>
 
 namespace catchpeak::io {
 
@@ -67,14 +68,16 @@ std::map<std::uint32_t, std::uint64_t> label_counts(const Grid<std::uint32_t> &l
     return counts;
 }
 
-/// GDALPolygonize of the labels (0 = none) on an in-memory copy: an in-memory dataset whose
-/// only layer holds one polygon per patch of 4-connected cells, with the label in field 0.
+/// GDALPolygonize of the labels (0 = none): an in-memory dataset whose only layer holds one
+/// polygon per patch of 4-connected cells, with the label in field 0. The labels are handed to
+/// GDAL in place (an in-memory band over the grid's own cells, which GDALPolygonize only reads);
+/// the mask takes a byte a cell.
 detail::DatasetPtr polygonize_to_layer(const Grid<std::uint32_t> &labels) {
     GdalErrorScope errors;
     GDALDriver *mem = GetGDALDriverManager()->GetDriverByName("MEM");
     const int w = static_cast<int>(labels.width());
     const int h = static_cast<int>(labels.height());
-    detail::DatasetPtr raster(mem->Create("", w, h, 2, GDT_UInt32, nullptr));
+    detail::DatasetPtr raster(mem->Create("", w, h, 0, GDT_UInt32, nullptr));
     if (!raster) {
         throw InternalError(errors.describe("cannot create an in-memory raster"));
     }
@@ -82,22 +85,22 @@ detail::DatasetPtr polygonize_to_layer(const Grid<std::uint32_t> &labels) {
     double gt[6] = {t.origin_x, t.pixel_width,  t.row_rotation,
                     t.origin_y, t.col_rotation, t.pixel_height};
     raster->SetGeoTransform(gt);
+    // Mask: 1 on labelled cells. Both bands are GDAL views of memory held here.
+    std::vector<std::uint8_t> inside(labels.size());
+    for (std::size_t i = 0; i < labels.size(); ++i) {
+        inside[i] = labels[i] != 0 ? 1 : 0;
+    }
+    const auto view = [](const void *data) { return fmt::format("DATAPOINTER={}", data); };
+    const std::string label_view = view(labels.cells().data());
+    const std::string mask_view = view(inside.data());
+    const char *label_options[] = {label_view.c_str(), nullptr};
+    const char *mask_options[] = {mask_view.c_str(), nullptr};
+    if (raster->AddBand(GDT_UInt32, const_cast<char **>(label_options)) != CE_None ||
+        raster->AddBand(GDT_Byte, const_cast<char **>(mask_options)) != CE_None) {
+        throw InternalError(errors.describe("cannot add bands to an in-memory raster"));
+    }
     GDALRasterBand *band = raster->GetRasterBand(1);
     GDALRasterBand *mask = raster->GetRasterBand(2);
-    if (band->RasterIO(GF_Write, 0, 0, w, h, const_cast<std::uint32_t *>(labels.cells().data()), w,
-                       h, GDT_UInt32, 0, 0, nullptr) != CE_None) {
-        throw InternalError(errors.describe("cannot fill an in-memory raster"));
-    }
-    {
-        std::vector<std::uint32_t> m(labels.size());
-        for (std::size_t i = 0; i < labels.size(); ++i) {
-            m[i] = labels[i] != 0 ? 1u : 0u;
-        }
-        if (mask->RasterIO(GF_Write, 0, 0, w, h, m.data(), w, h, GDT_UInt32, 0, 0, nullptr) !=
-            CE_None) {
-            throw InternalError(errors.describe("cannot fill an in-memory mask"));
-        }
-    }
 
     GDALDriver *memv = GetGDALDriverManager()->GetDriverByName("Memory");
     detail::DatasetPtr vec(memv->Create("", 0, 0, 0, GDT_Unknown, nullptr));

@@ -97,6 +97,9 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
         }
     };
     check_inputs(dem, settings);
+    for (const DesignPoint &p : points) {
+        check_design_point(dem, p, where); // before the long steps, not after them
+    }
     const detail::ValidTest valid(dem);
     if (std::none_of(dem.cells().begin(), dem.cells().end(), valid)) {
         throw_input_error("DEM", "every cell is nodata", "a DEM with elevation data");

@@ -7,6 +7,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 namespace catchpeak::terrain {
 
@@ -21,30 +22,45 @@ std::string extent_text(const GeoTransform &t, std::size_t w, std::size_t h) {
                        std::min(y0, y1), std::max(y0, y1));
 }
 
+/// The cell holding a design point; throws InputError when the point lies outside the grid or
+/// on a cell where has_data(cell) is false. The message names the point id, its coordinates
+/// and the DEM extent.
+std::pair<std::size_t, std::size_t> cell_of(const GeoTransform &t, std::size_t w, std::size_t h,
+                                            const DesignPoint &point, const std::string &where,
+                                            const auto &has_data) {
+    const double fc = (point.x - t.origin_x) / t.pixel_width;
+    const double fr = (point.y - t.origin_y) / t.pixel_height;
+    // Formatted only for a message: thousands of points are checked in one run.
+    const auto at = [&] {
+        return fmt::format("design point '{}' at ({:.3f}, {:.3f})", point.id, point.x, point.y);
+    };
+    if (!(fc >= 0.0 && fr >= 0.0 && fc < static_cast<double>(w) && fr < static_cast<double>(h))) {
+        throw_input_error(where, at() + " lies outside the DEM extent",
+                          "points inside the DEM extent, " + extent_text(t, w, h));
+    }
+    const auto c = static_cast<std::size_t>(fc);
+    const auto r = static_cast<std::size_t>(fr);
+    if (!has_data(r * w + c)) {
+        throw_input_error(where, at() + " lies on a nodata cell of the DEM",
+                          "points on cells with elevation data (DEM extent " +
+                              extent_text(t, w, h) + ")");
+    }
+    return {c, r};
+}
+
 } // namespace
+
+void check_design_point(const Grid<float> &dem, const DesignPoint &point,
+                        const std::string &where) {
+    (void)cell_of(dem.transform, dem.width(), dem.height(), point, where,
+                  [&](std::size_t i) { return dem.is_valid(i); });
+}
 
 SnappedPoint snap_point(const Grid<std::uint32_t> &acc, const DesignPoint &point, double radius_m,
                         const std::string &where) {
     const GeoTransform &t = acc.transform;
-    const double fc = (point.x - t.origin_x) / t.pixel_width;
-    const double fr = (point.y - t.origin_y) / t.pixel_height;
-    // Formatted only for a message: thousands of points are snapped in one run.
-    const auto at = [&] {
-        return fmt::format("design point '{}' at ({:.3f}, {:.3f})", point.id, point.x, point.y);
-    };
-    if (!(fc >= 0.0 && fr >= 0.0 && fc < static_cast<double>(acc.width()) &&
-          fr < static_cast<double>(acc.height()))) {
-        throw_input_error(where, at() + " lies outside the DEM extent",
-                          "points inside the DEM extent, " +
-                              extent_text(t, acc.width(), acc.height()));
-    }
-    const auto c0 = static_cast<std::size_t>(fc);
-    const auto r0 = static_cast<std::size_t>(fr);
-    if (acc(c0, r0) == 0) {
-        throw_input_error(where, at() + " lies on a nodata cell of the DEM",
-                          "points on cells with elevation data (DEM extent " +
-                              extent_text(t, acc.width(), acc.height()) + ")");
-    }
+    const auto [c0, r0] = cell_of(t, acc.width(), acc.height(), point, where,
+                                  [&](std::size_t i) { return acc[i] != 0; });
     const double dx = t.cell_dx();
     const double dy = t.cell_dy();
     const double radius = std::max(0.0, radius_m);

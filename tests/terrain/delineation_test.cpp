@@ -179,6 +179,24 @@ TEST(Delineation, BadInputsAreInputErrors) {
     EXPECT_THROW((void)run_terrain(dem, {}, {}, s), InputError);
 }
 
+TEST(Delineation, DesignPointOnNodataIsRefusedBeforeTheTerrainSteps) {
+    // A bad point is reported at once, not after the conditioning of a large DEM.
+    auto dem = test::random_dem(30, 30, 92, false);
+    dem(10, 10) = test::nodata_value;
+    const auto [x, y] = dem.transform.cell_centre(10, 10);
+    const auto [gx, gy] = dem.transform.cell_centre(20, 20);
+    std::vector<std::string> steps;
+    const ProgressFn record = [&](std::string_view step, double) { steps.emplace_back(step); };
+    try {
+        (void)run_terrain(dem, {{"GOOD", gx, gy}, {"ON-NODATA", x, y}}, {}, {}, record, "pts.gpkg");
+        FAIL() << "a point on nodata must be refused";
+    } catch (const InputError &e) {
+        EXPECT_NE(std::string(e.what()).find("'ON-NODATA'"), std::string::npos) << e.what();
+        EXPECT_NE(std::string(e.what()).find("nodata cell"), std::string::npos) << e.what();
+    }
+    EXPECT_TRUE(steps.empty()) << "first step started: " << steps.front();
+}
+
 TEST(Delineation, MeanSlopeIsTheMeanOfHornSlopeOverTheTotalCatchment) {
     // Few points, so that most cells are outside every catchment (the chain then skips them).
     const auto dem = test::random_dem(120, 90, 83);

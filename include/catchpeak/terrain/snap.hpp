@@ -28,6 +28,11 @@ struct SnappedPoint {
     double accumulation_m2 = 0.0;   ///< accumulation x cell area
 };
 
+/// Throws InputError, as snap_point does, when the point lies outside the DEM or on a nodata
+/// cell: the check before the terrain steps, so that a bad point is reported at once.
+void check_design_point(const Grid<float> &dem, const DesignPoint &point,
+                        const std::string &where = "design points");
+
 /// Snaps a design point to the cell of largest accumulation whose centre lies within
 /// `radius_m` of the point. Ties go to the nearest cell centre, then to the lowest index. The
 /// cell containing the point is always a candidate, even when radius_m is smaller than half a
