@@ -3,17 +3,20 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/core/threads.hpp"
 #include "catchpeak/io/gpkg.hpp"
 #include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
 #include "catchpeak/terrain/delineation.hpp"
+#include "catchpeak/terrain/flow_direction.hpp"
 #include "progress_bar.hpp"
 
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
 #include <algorithm>
+#include <atomic>
 #include <cmath>
 #include <cstring>
 #include <map>
@@ -163,24 +166,70 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
         polygon_of_label[p.label] = &p;
     }
     const std::size_t n = result.points.size();
-    std::vector<std::vector<unsigned char>> total_wkb(n);
+    // Total catchments label by label, leaves of the nesting tree first: a label's total is the
+    // union of its own local polygon and the totals of the labels just upstream. Each piece is
+    // merged once per level of nesting, not again for every design point below it.
+    const std::size_t n_labels = result.downstream_label.size();
+    std::vector<std::vector<std::uint32_t>> upstream_of(n_labels + 1);
+    std::vector<std::size_t> waiting(n_labels + 1, 0);
+    for (std::uint32_t k = 1; k <= n_labels; ++k) {
+        if (const std::uint32_t d = result.downstream_label[k - 1]; d != 0) {
+            upstream_of[d].push_back(k);
+            ++waiting[d];
+        }
+    }
+    std::vector<std::uint32_t> order;
+    for (std::uint32_t k = 1; k <= n_labels; ++k) {
+        if (waiting[k] == 0) {
+            order.push_back(k);
+        }
+    }
+    // Labels of one height in the tree (the longest chain of labels upstream) do not depend on
+    // each other: each height is merged on all threads, labels handed out one at a time.
+    std::vector<std::uint32_t> height(n_labels + 1, 0);
+    for (std::size_t head = 0; head < order.size(); ++head) {
+        const std::uint32_t k = order[head];
+        if (const std::uint32_t d = result.downstream_label[k - 1]; d != 0) {
+            height[d] = std::max(height[d], height[k] + 1);
+            if (--waiting[d] == 0) {
+                order.push_back(d);
+            }
+        }
+    }
+    if (order.size() != n_labels) {
+        throw InternalError("delineate: the nesting of the catchments has a cycle");
+    }
+    std::vector<std::vector<std::uint32_t>> by_height;
+    for (const std::uint32_t k : order) {
+        by_height.resize(std::max<std::size_t>(by_height.size(), height[k] + 1));
+        by_height[height[k]].push_back(k);
+    }
+    std::vector<std::vector<unsigned char>> total_of_label(n_labels + 1);
+    const auto merge = [&](std::uint32_t k) {
+        std::vector<const std::vector<unsigned char> *> parts;
+        if (auto it = polygon_of_label.find(k); it != polygon_of_label.end()) {
+            parts.push_back(&it->second->wkb);
+        }
+        for (const std::uint32_t up : upstream_of[k]) {
+            parts.push_back(&total_of_label[up]);
+        }
+        total_of_label[k] = parts.size() == 1 ? *parts.front() : io::union_polygons(parts);
+    };
+    const unsigned workers = terrain::thread_count(options.threads);
+    std::size_t merged = 0;
+    for (const auto &level : by_height) {
+        std::atomic<std::size_t> next{0};
+        run_on_threads(std::min<std::size_t>(workers, level.size()), [&](std::size_t) {
+            for (std::size_t j = next++; j < level.size(); j = next++) {
+                merge(level[j]);
+            }
+        });
+        merged += level.size();
+        bar.update(static_cast<double>(merged) / static_cast<double>(n_labels));
+    }
     std::vector<std::vector<std::size_t>> all_up(n);
     for (std::size_t i = 0; i < n; ++i) {
         all_up[i] = terrain::all_upstream_points(result, i);
-        std::vector<std::uint32_t> labels{result.points[i].label};
-        for (auto j : all_up[i]) {
-            labels.push_back(result.points[j].label);
-        }
-        std::sort(labels.begin(), labels.end());
-        labels.erase(std::unique(labels.begin(), labels.end()), labels.end());
-        std::vector<const std::vector<unsigned char> *> parts;
-        for (auto l : labels) {
-            if (auto it = polygon_of_label.find(l); it != polygon_of_label.end()) {
-                parts.push_back(&it->second->wkb);
-            }
-        }
-        total_wkb[i] = parts.size() == 1 ? *parts.front() : io::union_polygons(parts);
-        bar.update(static_cast<double>(i + 1) / static_cast<double>(n));
     }
 
     // catchments.gpkg
@@ -249,7 +298,7 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
         const auto &p = result.points[i];
         const auto &fp = p.longest_flow_path;
         catchments.features.push_back(
-            {total_wkb[i],
+            {total_of_label[p.label],
              {p.id, p.area_m2, p.local_area_m2, static_cast<std::int64_t>(p.accumulation),
               fp.length_m, fp.slope_10_85_m_per_m, p.mean_slope_m_per_m, join_ids(all_up[i]),
               std::int64_t{p.touches_dem_edge ? 1 : 0}}});
@@ -282,7 +331,11 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
               static_cast<std::int64_t>(s.accumulation_end), s.accumulation_end_m2}});
     }
 
-    out.total_wkb = std::move(total_wkb);
+    out.total_wkb.resize(n);
+    for (std::size_t i = 0; i < n; ++i) {
+        out.total_wkb[i] = total_of_label[result.points[i].label];
+    }
+    total_of_label.clear();
     out.local_wkb.resize(n);
     for (std::size_t i = 0; i < n; ++i) {
         out.local_wkb[i] = locals.features[i].wkb;

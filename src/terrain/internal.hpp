@@ -3,6 +3,7 @@
 #pragma once
 
 #include "catchpeak/core/grid.hpp"
+#include "catchpeak/core/threads.hpp"
 #include "catchpeak/terrain/accumulation.hpp"
 #include "catchpeak/terrain/catchments.hpp"
 #include "catchpeak/terrain/conditioning.hpp"
@@ -12,7 +13,6 @@
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
-#include <exception>
 #include <thread>
 #include <vector>
 
@@ -63,34 +63,7 @@ void for_row_blocks(std::size_t height, unsigned threads, std::size_t block_rows
     }
 }
 
-/// Runs body(t) for t in [0, n) on n threads (the calling thread takes t = 0) and rethrows the
-/// first exception a body threw once all have finished.
-template <typename Body> void run_on_threads(std::size_t n, Body body) {
-    std::vector<std::exception_ptr> errors(n);
-    const auto guarded = [&](std::size_t t) {
-        try {
-            body(t);
-        } catch (...) {
-            errors[t] = std::current_exception();
-        }
-    };
-    std::vector<std::thread> pool;
-    pool.reserve(n);
-    for (std::size_t t = 1; t < n; ++t) {
-        pool.emplace_back(guarded, t);
-    }
-    if (n > 0) {
-        guarded(0);
-    }
-    for (auto &th : pool) {
-        th.join();
-    }
-    for (const auto &e : errors) {
-        if (e) {
-            std::rethrow_exception(e);
-        }
-    }
-}
+using catchpeak::run_on_threads;
 
 /// d8_directions writing into an existing grid of the DEM's size (every cell is overwritten).
 void d8_directions_into(const Grid<float> &dem, Grid<std::uint8_t> &dirs, unsigned threads);
