@@ -16,10 +16,11 @@
 #include <unordered_map>
 
 // Memory plan (bytes per cell, besides the caller's DEM of 4): conditioning holds a float copy
-// (4), the directions (1) and a flat scratch grid (4) = 9; the copy then serves as the upstream
-// flow length (4) and the scratch as the accumulation (4), with an in-degree byte (1) during
-// the accumulation pass = 10; after snapping, streams and flow paths the flow length is freed
-// and the accumulation buffer becomes the labels (4) = 5.
+// (4), the directions (1) and a scratch grid (4: the banded fill's labels, then the flats'
+// distances) = 9; the copy then serves as the upstream flow length (4) and the scratch as the
+// accumulation (4), with an in-degree byte (1) during the accumulation pass = 10; after
+// snapping, streams and flow paths the flow length is freed and the accumulation buffer becomes
+// the labels (4) = 5.
 
 namespace catchpeak::terrain {
 
