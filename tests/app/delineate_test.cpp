@@ -413,7 +413,8 @@ TEST_F(RealTerrain, ResultsAreByteIdenticalWhateverTheThreadCount) {
         d.elevation_m.transform.cell_centre(d.elevation_m.width() / 2, d.elevation_m.height() / 2);
     t::make_points(dir / "centre.gpkg", {{x, y, "centre"}}, "EPSG:" + std::to_string(dem.epsg));
     std::vector<std::string> texts;
-    for (const unsigned threads : {1u, 2u}) {
+    // 2 and 3 threads: the fill, flats, accumulation and catchment walks run in 2 or 3 bands.
+    for (const unsigned threads : {1u, 2u, 3u}) {
         catchpeak::app::DelineateOptions o;
         o.dem = dem.utm;
         o.points = dir / "centre.gpkg";
@@ -426,4 +427,11 @@ TEST_F(RealTerrain, ResultsAreByteIdenticalWhateverTheThreadCount) {
     }
     EXPECT_FALSE(texts[0].empty());
     EXPECT_EQ(texts[0], texts[1]);
+    EXPECT_EQ(texts[0], texts[2]);
+    // The directions themselves, cell by cell.
+    const auto one = terrain::conditioned_directions(d.elevation_m, {}, 1);
+    for (const unsigned threads : {2u, 3u}) {
+        EXPECT_EQ(terrain::conditioned_directions(d.elevation_m, {}, threads).cells(), one.cells())
+            << threads << " threads";
+    }
 }
