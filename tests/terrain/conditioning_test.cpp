@@ -321,6 +321,34 @@ TEST(Conditioning, FlatPutOffByItsBandDoesNotTakeANeighbouringFlatsSearch) {
     }
 }
 
+TEST(Conditioning, NarrowTallDemsGiveTheSameFillAndDirectionsOnSeveralThreads) {
+    // One and two columns, 300 rows: every cell of a band lies on its edge, and bands meet
+    // across a row of one or two cells. Also 129 rows (two bands of 64 and 65 rows).
+    for (const auto &[w, h] : {std::pair<std::size_t, std::size_t>{1, 300}, {2, 300}, {3, 129}}) {
+        auto dem = test::random_dem(w, h, 51, false);
+        std::mt19937 rng(52);
+        for (auto &v : dem.cells()) {
+            v = static_cast<float>(std::floor(static_cast<double>(rng() % 1000U) / 100.0));
+        }
+        dem(0, h / 2) = test::nodata_value;
+        const auto reference = planchon_darboux_fill(dem);
+        const auto one = directions_on_threads(dem, 1);
+        expect_every_valid_cell_drains(dem, one, std::to_string(w) + " columns");
+        for (const unsigned threads : {2U, 3U, 4U}) {
+            auto filled = dem;
+            fill_depressions(filled, threads);
+            for (std::size_t i = 0; i < dem.size(); ++i) {
+                if (is_data(dem[i])) {
+                    ASSERT_EQ(filled[i], reference[i])
+                        << w << " columns, " << threads << " threads";
+                }
+            }
+            EXPECT_EQ(directions_on_threads(dem, threads).cells(), one.cells())
+                << w << " columns, " << threads << " threads";
+        }
+    }
+}
+
 TEST(Conditioning, RasterizedPolylineIsAnEightConnectedChain) {
     const auto dem = test::blank_dem(40, 30);
     // A polyline with a shallow and a steep leg, in CRS metres (cells 10 m, origin 1000, 5000).
