@@ -3,6 +3,7 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
+#include "support/calc_lines.hpp"
 
 #include <gtest/gtest.h>
 
@@ -16,6 +17,7 @@ using catchpeak::LineKind;
 using catchpeak::units::System;
 namespace u = catchpeak::units;
 namespace h = catchpeak::hydro;
+using catchpeak::test::line_starting_with;
 
 // Invented coefficients: simple numbers so that interpolation is checked by hand.
 h::PeakCoefficientTable coefficients() {
@@ -41,23 +43,13 @@ catchpeak::WithLines<h::Tr55Peak> run(double tc_h, double p_in, double ia_in, do
                         u::in_to_mm(p_in), u::in_to_mm(ia_in), u::in_to_mm(1.0), pond, s);
 }
 
-const catchpeak::CalcLine &line_labelled(const catchpeak::CalcLines &lines,
-                                         const std::string &start) {
-    for (const auto &l : lines.lines()) {
-        if (l.label.rfind(start, 0) == 0) {
-            return l;
-        }
-    }
-    throw std::runtime_error("no line " + start);
-}
-
 TEST(Tr55Peak, InterpolatesCoefficientsBetweenRows) {
     // Ia/P = 0.3, midway: C0 1.8, C1 -0.3, C2 0.1; tc = 1 h so log10 tc = 0 and qu = 10^1.8.
     const auto r = run(1.0, 4.0, 1.2, 0.0, System::us_customary);
     EXPECT_NEAR(r.value.ia_over_p, 0.3, 1e-12);
-    EXPECT_NEAR(line_labelled(r.lines, "Coefficient C0").value, 1.8, 1e-12);
-    EXPECT_NEAR(line_labelled(r.lines, "Coefficient C1").value, -0.3, 1e-12);
-    EXPECT_NEAR(line_labelled(r.lines, "Coefficient C2").value, 0.1, 1e-12);
+    EXPECT_NEAR(line_starting_with(r.lines, "Coefficient C0").value, 1.8, 1e-12);
+    EXPECT_NEAR(line_starting_with(r.lines, "Coefficient C1").value, -0.3, 1e-12);
+    EXPECT_NEAR(line_starting_with(r.lines, "Coefficient C2").value, 0.1, 1e-12);
     EXPECT_NEAR(r.value.unit_peak_csm_per_in, std::pow(10.0, 1.8), 1e-9);
     // qp = qu Am Q Fp with Am = 1 mi2, Q = 1 in, Fp = 1.
     EXPECT_NEAR(u::m3s_to_cfs(r.value.peak_m3_s), std::pow(10.0, 1.8), 1e-9);

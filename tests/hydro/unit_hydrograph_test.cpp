@@ -3,6 +3,7 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
+#include "support/calc_lines.hpp"
 
 #include <gtest/gtest.h>
 
@@ -17,6 +18,7 @@ using catchpeak::rain::Hyetograph;
 using catchpeak::units::System;
 namespace u = catchpeak::units;
 namespace h = catchpeak::hydro;
+using catchpeak::test::line_starting_with;
 
 // An invented triangular dimensionless hydrograph: peak 1 at t/tp = 1, zero at 0 and 2.
 // Its area is 1, so the volume checks below are exact up to the sampling.
@@ -27,16 +29,6 @@ h::DimensionlessUnitHydrograph triangle() {
     t.origin.source = "invented";
     t.origin.status = "for a test";
     return t;
-}
-
-const catchpeak::CalcLine &line_labelled(const catchpeak::CalcLines &lines,
-                                         const std::string &start) {
-    for (const auto &l : lines.lines()) {
-        if (l.label.rfind(start, 0) == 0) {
-            return l;
-        }
-    }
-    throw std::runtime_error("no line " + start);
 }
 
 TEST(ExcessHyetograph, CumulativeRunoffOfCumulativeRainfall) {
@@ -67,7 +59,7 @@ TEST(UnitHydrograph, AggregatesFineStepsToD) {
     EXPECT_NEAR(r.value.runoff_mm, 30.0, 1e-12);
     // tp = D/2 + 0.6 tc, in h.
     EXPECT_NEAR(r.value.tp_h, 420.0 / 7200.0 + 0.6, 1e-12);
-    EXPECT_NEAR(line_labelled(r.lines, "Time to peak of the unit").value, r.value.tp_h, 1e-12);
+    EXPECT_NEAR(line_starting_with(r.lines, "Time to peak of the unit").value, r.value.tp_h, 1e-12);
 }
 
 TEST(UnitHydrograph, VolumeOfATriangleSampledAtItsCorners) {
@@ -83,7 +75,7 @@ TEST(UnitHydrograph, VolumeOfATriangleSampledAtItsCorners) {
     EXPECT_DOUBLE_EQ(r.value.step_s, 480.0);
     const double expected = 0.208 * 3.6 * 30.0 / 1000.0 * 1e6;
     EXPECT_NEAR(r.value.volume_m3, expected, 1e-9 * expected);
-    EXPECT_NEAR(line_labelled(r.lines, "Hydrograph volume").value, r.value.volume_m3, 1e-6);
+    EXPECT_NEAR(line_starting_with(r.lines, "Hydrograph volume").value, r.value.volume_m3, 1e-6);
 }
 
 TEST(UnitHydrograph, SplitsCoarseStepsEvenly) {
@@ -94,7 +86,7 @@ TEST(UnitHydrograph, SplitsCoarseStepsEvenly) {
     const auto r = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si);
     EXPECT_DOUBLE_EQ(r.value.step_s, 450.0);
     EXPECT_NEAR(r.value.runoff_mm, 30.0, 1e-12);
-    EXPECT_NE(line_labelled(r.lines, "Unit hydrograph duration").label.find("split"),
+    EXPECT_NE(line_starting_with(r.lines, "Unit hydrograph duration").label.find("split"),
               std::string::npos);
 }
 

@@ -6,6 +6,7 @@
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "catchpeak/land/weighting.hpp"
+#include "support/calc_lines.hpp"
 #include "support/input_error.hpp"
 #include "support/wkb.hpp"
 
@@ -18,6 +19,7 @@
 using catchpeak::LineKind;
 using catchpeak::io::parse_csv;
 using namespace catchpeak::land;
+using catchpeak::test::line_labelled;
 namespace units = catchpeak::units;
 
 namespace {
@@ -61,16 +63,6 @@ PartsContext context(double area_m2) {
     c.slope_source = "project input";
     c.units = units::System::us_customary;
     return c;
-}
-
-const catchpeak::CalcLine *line_labelled(const catchpeak::CalcLines &lines,
-                                         const std::string &label) {
-    for (const auto &l : lines.lines()) {
-        if (l.label == label) {
-            return &l;
-        }
-    }
-    return nullptr;
 }
 
 } // namespace

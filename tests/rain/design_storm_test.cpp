@@ -3,6 +3,7 @@
 #include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "support/calc_lines.hpp"
 
 #include <gtest/gtest.h>
 
@@ -11,6 +12,7 @@
 #include <vector>
 
 using catchpeak::InputError;
+using catchpeak::test::line_labelled;
 using catchpeak::units::System;
 namespace rain = catchpeak::rain;
 
@@ -217,16 +219,6 @@ rain::Idf round_depth_idf() {
     t.return_periods_yr = {10.0};
     t.intensity_mm_per_h = {{120.0, 84.0, 66.0, 54.0, 45.6}};
     return rain::Idf(t);
-}
-
-const catchpeak::CalcLine *line_labelled(const catchpeak::CalcLines &lines,
-                                         const std::string &label) {
-    for (const auto &l : lines.lines()) {
-        if (l.label == label) {
-            return &l;
-        }
-    }
-    return nullptr;
 }
 
 } // namespace
