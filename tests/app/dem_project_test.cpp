@@ -9,6 +9,7 @@
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "support/results_json.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
@@ -25,21 +26,10 @@ namespace t = catchpeak::test;
 // Under LeakSanitizer (asan preset): fontconfig's process-lifetime caches (the sheet is rendered).
 extern "C" const char *__lsan_default_suppressions() { return "leak:libfontconfig.so\n"; }
 
+using catchpeak::test::point;
+using catchpeak::test::read_json;
+
 namespace {
-
-nlohmann::json read_json(const fs::path &p) {
-    std::ifstream in(p);
-    return nlohmann::json::parse(in);
-}
-
-const nlohmann::json &point(const nlohmann::json &doc, const std::string &id) {
-    for (const auto &p : doc.at("design_points")) {
-        if (p.at("id") == id) {
-            return p;
-        }
-    }
-    throw std::runtime_error("no design point " + id);
-}
 
 /// Runs `project` quietly at a fixed run time; returns the output folder.
 fs::path run_quiet(const fs::path &project, std::optional<fs::path> out_dir = {}) {

@@ -5,6 +5,7 @@
 #include "catchpeak/app/pipeline.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "support/results_json.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
@@ -21,6 +22,8 @@ namespace fs = std::filesystem;
 // its font configuration in memory for the life of the process. Only leaks from libfontconfig
 // itself are suppressed.
 extern "C" const char *__lsan_default_suppressions() { return "leak:libfontconfig.so\n"; }
+
+using catchpeak::test::point;
 
 namespace {
 
@@ -69,15 +72,6 @@ folder = "out"
                            "15,75,100\n"
                            "60,30,40\n");
     return dir / "project.toml";
-}
-
-const nlohmann::json &point(const nlohmann::json &j, const std::string &id) {
-    for (const auto &p : j.at("design_points")) {
-        if (p.at("id") == id) {
-            return p;
-        }
-    }
-    throw std::runtime_error("no design point " + id);
 }
 
 double q(const nlohmann::json &p, double rp) {

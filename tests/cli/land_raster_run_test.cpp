@@ -5,6 +5,7 @@
 #include "catchpeak/cli/run.hpp"
 #include "catchpeak/core/error.hpp"
 #include "io/class_raster_data.hpp"
+#include "support/results_json.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
@@ -20,6 +21,9 @@
 using catchpeak::ExitCode;
 namespace fs = std::filesystem;
 namespace t = catchpeak::test;
+
+using catchpeak::test::point;
+using catchpeak::test::read_json;
 
 namespace {
 
@@ -72,20 +76,6 @@ fs::path make_raster_project(const fs::path &dir, const RasterOptions &o,
     replace("soils = \"soils.gpkg\"", "soils = \"soils.tif\"");
     std::ofstream(project) << toml;
     return project;
-}
-
-nlohmann::json read_json(const fs::path &p) {
-    std::ifstream in(p);
-    return nlohmann::json::parse(in);
-}
-
-const nlohmann::json &point(const nlohmann::json &doc, const std::string &id) {
-    for (const auto &p : doc.at("design_points")) {
-        if (p.at("id") == id) {
-            return p;
-        }
-    }
-    throw std::runtime_error("no design point " + id);
 }
 
 int run_cli(const std::vector<std::string> &args, std::string &err_text) {
