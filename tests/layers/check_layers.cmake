@@ -1,0 +1,56 @@
+# SPDX-License-Identifier: MIT
+# Run by CTest (tests/layers/CMakeLists.txt). Fails with a message for every broken layer rule.
+cmake_policy(SET CMP0057 NEW)
+set(failures "")
+
+# 1. Every guarded probe must fail to compile with the layer guard's message.
+foreach(probe IN LISTS PROBES)
+    execute_process(COMMAND ${CMAKE_COMMAND} --build ${BUILD_DIR} --target ${probe}
+                    RESULT_VARIABLE rc OUTPUT_VARIABLE out ERROR_VARIABLE err)
+    if(rc EQUAL 0)
+        list(APPEND failures "${probe} compiled: a pure module can include that header")
+    elseif(NOT "${out}${err}" MATCHES "catchpeak layer rule")
+        list(APPEND failures "${probe} failed without the layer guard's message:\n${out}${err}")
+    endif()
+endforeach()
+list(LENGTH PROBES n_probes)
+if(n_probes LESS 30)
+    list(APPEND failures "only ${n_probes} probes: the pure modules are not all declared PURE")
+endif()
+execute_process(COMMAND ${CMAKE_COMMAND} --build ${BUILD_DIR} --target layer_probe_allowed
+                RESULT_VARIABLE rc OUTPUT_VARIABLE out ERROR_VARIABLE err)
+if(NOT rc EQUAL 0)
+    list(APPEND failures "the allowed probe does not compile:\n${out}${err}")
+endif()
+
+# 2. The arrows: each module may include the headers of these modules (and its own).
+set(uses_core "")
+set(uses_rain core)
+set(uses_hydro core rain)
+set(uses_terrain core)
+set(uses_io core rain hydro)
+set(uses_report core)
+set(uses_land core io report)
+set(uses_project core report rain hydro land)
+set(uses_app core project io terrain land rain hydro report)
+set(uses_cli core app)
+foreach(module core rain hydro terrain io report land project app cli)
+    file(GLOB_RECURSE files ${SOURCE_DIR}/src/${module}/*.cpp ${SOURCE_DIR}/src/${module}/*.hpp
+                            ${SOURCE_DIR}/include/catchpeak/${module}/*.hpp)
+    foreach(f IN LISTS files)
+        file(STRINGS ${f} includes REGEX "^#include \"catchpeak/[a-z_]+/")
+        foreach(line IN LISTS includes)
+            string(REGEX REPLACE "^#include \"catchpeak/([a-z_]+)/.*" "\\1" used "${line}")
+            if(NOT used STREQUAL module AND NOT used IN_LIST uses_${module})
+                file(RELATIVE_PATH rel ${SOURCE_DIR} ${f})
+                list(APPEND failures "${rel}: module '${module}' may not use '${used}' (${line})")
+            endif()
+        endforeach()
+    endforeach()
+endforeach()
+
+if(failures)
+    list(JOIN failures "\n" text)
+    message(FATAL_ERROR "layer rules broken:\n${text}")
+endif()
+message(STATUS "layer rules hold: ${n_probes} guarded probes refused, every include follows the arrows")
