@@ -8,7 +8,7 @@
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/vector.hpp"
-#include "catchpeak/io/wkb_rings.hpp"
+#include "catchpeak/io/wkb.hpp"
 #include "catchpeak/land/tables.hpp"
 
 #include <fmt/format.h>
