@@ -8,6 +8,7 @@
 #include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
+#include "catchpeak/io/wkb.hpp"
 #include "catchpeak/terrain/delineation.hpp"
 #include "catchpeak/terrain/flow_direction.hpp"
 #include "progress_bar.hpp"
@@ -18,7 +19,6 @@
 #include <algorithm>
 #include <atomic>
 #include <cmath>
-#include <cstring>
 #include <map>
 
 namespace catchpeak::app {
@@ -66,38 +66,7 @@ std::string crs_name_of(const std::string &wkt) {
     return b == std::string::npos ? std::string{} : wkt.substr(a + 1, b - a - 1);
 }
 
-/// A point or a line as ISO WKB (little-endian), written by hand: no GDAL needed for these.
-void put_u32(std::vector<unsigned char> &b, std::uint32_t v) {
-    for (int i = 0; i < 4; ++i) {
-        b.push_back(static_cast<unsigned char>((v >> (8 * i)) & 0xffu));
-    }
-}
-void put_f64(std::vector<unsigned char> &b, double v) {
-    std::uint64_t u = 0;
-    std::memcpy(&u, &v, sizeof u);
-    for (int i = 0; i < 8; ++i) {
-        b.push_back(static_cast<unsigned char>((u >> (8 * i)) & 0xffu));
-    }
-}
 } // namespace
-
-std::vector<unsigned char> point_wkb(double x, double y) {
-    std::vector<unsigned char> b{1};
-    put_u32(b, 1); // Point
-    put_f64(b, x);
-    put_f64(b, y);
-    return b;
-}
-std::vector<unsigned char> line_wkb(const std::vector<std::pair<double, double>> &xy) {
-    std::vector<unsigned char> b{1};
-    put_u32(b, 2); // LineString
-    put_u32(b, static_cast<std::uint32_t>(xy.size()));
-    for (const auto &[x, y] : xy) {
-        put_f64(b, x);
-        put_f64(b, y);
-    }
-    return b;
-}
 
 Delineation delineate_catchments(const DelineateOptions &options, std::ostream *progress) {
     check_options(options);
@@ -308,16 +277,16 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
              {p.id, p.local_area_m2, static_cast<std::int64_t>(p.local_cells),
               p.downstream_point ? FieldValue(result.points[*p.downstream_point].id)
                                  : FieldValue(std::monostate{})}});
-        paths.features.push_back(
-            {fp.vertices_xy.size() >= 2 ? line_wkb(fp.vertices_xy) : std::vector<unsigned char>{},
-             {p.id, fp.length_m, fp.elevation_top_m, fp.elevation_outlet_m, fp.slope_m_per_m,
-              fp.slope_10_85_m_per_m}});
+        paths.features.push_back({fp.vertices_xy.size() >= 2 ? io::line_wkb(fp.vertices_xy)
+                                                             : std::vector<unsigned char>{},
+                                  {p.id, fp.length_m, fp.elevation_top_m, fp.elevation_outlet_m,
+                                   fp.slope_m_per_m, fp.slope_10_85_m_per_m}});
         std::string warnings;
         for (const auto &w : p.warnings) {
             warnings += (warnings.empty() ? "" : "; ") + w;
         }
         dps.features.push_back(
-            {point_wkb(p.snapped_x, p.snapped_y),
+            {io::point_wkb(p.snapped_x, p.snapped_y),
              {p.id, p.given_x, p.given_y, p.snapped_x, p.snapped_y, p.snap_distance_m,
               static_cast<std::int64_t>(p.accumulation), warnings}});
     }
@@ -326,7 +295,7 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
             continue;
         }
         streams.features.push_back(
-            {line_wkb(s.vertices_xy),
+            {io::line_wkb(s.vertices_xy),
              {std::int64_t{s.strahler_order}, s.length_m,
               static_cast<std::int64_t>(s.accumulation_end), s.accumulation_end_m2}});
     }

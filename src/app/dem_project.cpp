@@ -9,7 +9,7 @@
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
-#include "catchpeak/io/wkb_rings.hpp"
+#include "catchpeak/io/wkb.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "catchpeak/land/tables.hpp"
 

@@ -3,9 +3,9 @@
 
 #include "catchpeak/app/catchment_land.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/rain/frequency.hpp"
 #include "catchpeak/rain/idf.hpp"
@@ -27,7 +27,7 @@ namespace {
 
 /// The one column of `t` among `names` (with its index), or nullopt; two present is an error.
 std::optional<std::pair<std::string, std::size_t>>
-one_of(const io::CsvTable &t, const std::vector<std::string> &names, const std::string &what) {
+one_of(const CsvTable &t, const std::vector<std::string> &names, const std::string &what) {
     std::optional<std::pair<std::string, std::size_t>> found;
     for (const auto &n : names) {
         if (auto c = t.find_column(n)) {
@@ -44,9 +44,8 @@ one_of(const io::CsvTable &t, const std::vector<std::string> &names, const std::
     return found;
 }
 
-std::pair<std::string, std::size_t> required_one_of(const io::CsvTable &t,
-                                                    const std::vector<std::string> &names,
-                                                    const std::string &what) {
+std::pair<std::string, std::size_t>
+required_one_of(const CsvTable &t, const std::vector<std::string> &names, const std::string &what) {
     auto c = one_of(t, names, what);
     if (!c) {
         throw_input_error(
@@ -57,7 +56,7 @@ std::pair<std::string, std::size_t> required_one_of(const io::CsvTable &t,
     return *c;
 }
 
-double positive(const io::CsvTable &t, const io::CsvTable::Row &row, std::size_t col) {
+double positive(const CsvTable &t, const CsvTable::Row &row, std::size_t col) {
     const double v = t.number(row, col);
     if (!(v > 0.0) || !std::isfinite(v)) {
         throw_input_error(t.where(row, col), fmt::format("{} is not positive", v), "a number > 0");
@@ -66,7 +65,7 @@ double positive(const io::CsvTable &t, const io::CsvTable::Row &row, std::size_t
 }
 
 /// The area column of a table: one of the columns with the unit in the name.
-std::pair<std::string, std::size_t> area_column(const io::CsvTable &t) {
+std::pair<std::string, std::size_t> area_column(const CsvTable &t) {
     return required_one_of(t, {"area_m2", "area_ha", "area_km2", "area_ac", "area_ft2", "area_mi2"},
                            "the area");
 }
@@ -92,7 +91,7 @@ std::filesystem::path config_dir() {
 }
 
 std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
-    const io::CsvTable t = io::read_csv(path);
+    const CsvTable t = read_csv(path);
     const std::size_t id_col = t.column("id");
     const auto area = area_column(t);
     const auto length = required_one_of(t, {"length_m", "length_ft"}, "the longest flow path");
@@ -163,7 +162,7 @@ std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
 }
 
 std::vector<TableLandPart> read_catchment_land_table(const fs::path &path, bool drained) {
-    const io::CsvTable t = io::read_csv(path);
+    const CsvTable t = read_csv(path);
     const std::size_t id_col = t.column("id");
     const std::size_t class_col = t.column("class");
     const std::size_t group_col = t.column("soil_group");
@@ -198,7 +197,7 @@ std::vector<TableLandPart> read_catchment_land_table(const fs::path &path, bool 
 }
 
 AnnualMaximumSeries read_annual_maximum_series(const fs::path &path, const std::string &given) {
-    const io::CsvTable t = io::read_csv(path);
+    const CsvTable t = read_csv(path);
     AnnualMaximumSeries s;
     s.source = given;
     const std::size_t year_col = t.column("year");

@@ -4,11 +4,11 @@
 #include "catchpeak/app/inputs.hpp"
 
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/vector.hpp"
-#include "catchpeak/io/wkb_rings.hpp"
+#include "catchpeak/io/wkb.hpp"
 #include "catchpeak/land/tables.hpp"
 
 #include <fmt/format.h>
@@ -111,7 +111,7 @@ io::Extent extent_of(const std::vector<std::vector<unsigned char>> &polygons) {
 
 std::map<std::int64_t, std::string> read_code_table(const InputPath &table,
                                                     const std::string &name_column) {
-    const io::CsvTable t = io::read_csv(table.resolved);
+    const CsvTable t = read_csv(table.resolved);
     const std::size_t code_col = t.column("code");
     const std::size_t name_col = t.column(name_column);
     std::map<std::int64_t, std::string> names;

@@ -11,7 +11,6 @@
 #include "catchpeak/core/version.hpp"
 #include "catchpeak/hydro/rational.hpp"
 #include "catchpeak/hydro/tc.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/report/outputs.hpp"

@@ -1,9 +1,9 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/project.hpp"
 
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
-#include "catchpeak/io/csv.hpp"
 
 #include <fmt/format.h>
 #include <toml++/toml.h>
@@ -463,7 +463,7 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
         for (auto &&[k, v] : *tab) {
             double rp = 0.0;
             try {
-                rp = io::parse_number(k.str(), "return period");
+                rp = parse_number(k.str(), "return period");
             } catch (const InputError &) {
                 t.problem(v, key, fmt::format("'{}' is not a return period", k.str()), accepted);
                 continue;

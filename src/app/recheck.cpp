@@ -216,6 +216,13 @@ bool RecheckReport::all_reproduced() const {
            recompute_error.empty();
 }
 
+ExitCode RecheckReport::exit_code() const {
+    if (inputs_not_unchanged() != 0) {
+        return ExitCode::inputs_changed;
+    }
+    return all_reproduced() ? ExitCode::success : ExitCode::not_reproduced;
+}
+
 RecheckReport recheck(const fs::path &output_dir, const RecheckOptions &options) {
     std::error_code ec;
     if (!fs::is_directory(output_dir, ec)) {

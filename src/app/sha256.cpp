@@ -1,113 +1,54 @@
 // SPDX-License-Identifier: MIT
+// SHA-256 from nettle (Debian's nettle-dev): the hashing itself is the library's; this file only
+// streams bytes into it and writes the digest as hex.
 #include "catchpeak/app/sha256.hpp"
 
 #include "catchpeak/core/error.hpp"
 
-#include <fmt/format.h>
+#include <nettle/sha2.h>
 
 #include <array>
 #include <cstdint>
 #include <fstream>
+#include <string>
 #include <vector>
 
 namespace catchpeak::app {
 
 namespace {
 
-// FIPS 180-4 section 4.2.2: the first 32 bits of the fractional parts of the cube roots of the
-// first 64 primes.
-constexpr std::array<std::uint32_t, 64> k_round = {
-    0x428a2f98, 0x71374491, 0xb5c0fbcf, 0xe9b5dba5, 0x3956c25b, 0x59f111f1, 0x923f82a4, 0xab1c5ed5,
-    0xd807aa98, 0x12835b01, 0x243185be, 0x550c7dc3, 0x72be5d74, 0x80deb1fe, 0x9bdc06a7, 0xc19bf174,
-    0xe49b69c1, 0xefbe4786, 0x0fc19dc6, 0x240ca1cc, 0x2de92c6f, 0x4a7484aa, 0x5cb0a9dc, 0x76f988da,
-    0x983e5152, 0xa831c66d, 0xb00327c8, 0xbf597fc7, 0xc6e00bf3, 0xd5a79147, 0x06ca6351, 0x14292967,
-    0x27b70a85, 0x2e1b2138, 0x4d2c6dfc, 0x53380d13, 0x650a7354, 0x766a0abb, 0x81c2c92e, 0x92722c85,
-    0xa2bfe8a1, 0xa81a664b, 0xc24b8b70, 0xc76c51a3, 0xd192e819, 0xd6990624, 0xf40e3585, 0x106aa070,
-    0x19a4c116, 0x1e376c08, 0x2748774c, 0x34b0bcb5, 0x391c0cb3, 0x4ed8aa4a, 0x5b9cca4f, 0x682e6ff3,
-    0x748f82ee, 0x78a5636f, 0x84c87814, 0x8cc70208, 0x90befffa, 0xa4506ceb, 0xbef9a3f7, 0xc67178f2};
-
-constexpr std::uint32_t rotr(std::uint32_t x, int n) noexcept { return (x >> n) | (x << (32 - n)); }
-
+/// A running SHA-256 (nettle's context is a plain struct: nothing to free).
 class Sha256 {
   public:
-    void update(const unsigned char *data, std::size_t n) {
-        for (std::size_t i = 0; i < n; ++i) {
-            block_[fill_++] = data[i];
-            if (fill_ == 64) {
-                compress();
-                fill_ = 0;
-            }
-        }
-        length_bytes_ += n;
+    Sha256() { sha256_init(&ctx_); }
+
+    void update(const char *data, std::size_t n) {
+        sha256_update(&ctx_, n, reinterpret_cast<const std::uint8_t *>(data));
     }
 
+    /// The digest as 64 lower-case hex digits. The context is reset afterwards.
     std::string finish() {
-        const std::uint64_t bits = length_bytes_ * 8U;
-        const unsigned char one = 0x80;
-        const unsigned char zero = 0;
-        update(&one, 1);
-        while (fill_ != 56) {
-            update(&zero, 1);
-        }
-        for (int i = 7; i >= 0; --i) {
-            const auto b = static_cast<unsigned char>((bits >> (8 * i)) & 0xffU);
-            update(&b, 1);
-        }
+        std::array<std::uint8_t, SHA256_DIGEST_SIZE> digest{};
+        sha256_digest(&ctx_, digest.size(), digest.data());
+        constexpr char hex_digits[] = "0123456789abcdef";
         std::string hex;
-        for (std::uint32_t v : h_) {
-            hex += fmt::format("{:08x}", v);
+        hex.reserve(2 * digest.size());
+        for (const std::uint8_t b : digest) {
+            hex += hex_digits[b >> 4U];
+            hex += hex_digits[b & 0x0fU];
         }
         return hex;
     }
 
   private:
-    void compress() {
-        std::array<std::uint32_t, 64> w{};
-        for (std::size_t t = 0; t < 16; ++t) {
-            w[t] = (std::uint32_t{block_[4 * t]} << 24) | (std::uint32_t{block_[4 * t + 1]} << 16) |
-                   (std::uint32_t{block_[4 * t + 2]} << 8) | std::uint32_t{block_[4 * t + 3]};
-        }
-        for (std::size_t t = 16; t < 64; ++t) {
-            const std::uint32_t s0 = rotr(w[t - 15], 7) ^ rotr(w[t - 15], 18) ^ (w[t - 15] >> 3);
-            const std::uint32_t s1 = rotr(w[t - 2], 17) ^ rotr(w[t - 2], 19) ^ (w[t - 2] >> 10);
-            w[t] = w[t - 16] + s0 + w[t - 7] + s1;
-        }
-        auto [a, b, c, d, e, f, g, h] = h_;
-        for (std::size_t t = 0; t < 64; ++t) {
-            const std::uint32_t s1 = rotr(e, 6) ^ rotr(e, 11) ^ rotr(e, 25);
-            const std::uint32_t ch = (e & f) ^ (~e & g);
-            const std::uint32_t t1 = h + s1 + ch + k_round[t] + w[t];
-            const std::uint32_t s0 = rotr(a, 2) ^ rotr(a, 13) ^ rotr(a, 22);
-            const std::uint32_t maj = (a & b) ^ (a & c) ^ (b & c);
-            const std::uint32_t t2 = s0 + maj;
-            h = g;
-            g = f;
-            f = e;
-            e = d + t1;
-            d = c;
-            c = b;
-            b = a;
-            a = t1 + t2;
-        }
-        const std::array<std::uint32_t, 8> add = {a, b, c, d, e, f, g, h};
-        for (std::size_t i = 0; i < 8; ++i) {
-            h_[i] += add[i];
-        }
-    }
-
-    // FIPS 180-4 section 5.3.3: initial hash value.
-    std::array<std::uint32_t, 8> h_ = {0x6a09e667, 0xbb67ae85, 0x3c6ef372, 0xa54ff53a,
-                                       0x510e527f, 0x9b05688c, 0x1f83d9ab, 0x5be0cd19};
-    std::array<unsigned char, 64> block_{};
-    std::size_t fill_ = 0;
-    std::uint64_t length_bytes_ = 0;
+    sha256_ctx ctx_{};
 };
 
 } // namespace
 
 std::string sha256_hex(std::string_view bytes) {
     Sha256 s;
-    s.update(reinterpret_cast<const unsigned char *>(bytes.data()), bytes.size());
+    s.update(bytes.data(), bytes.size());
     return s.finish();
 }
 
@@ -117,11 +58,14 @@ std::string sha256_file(const std::filesystem::path &path) {
         throw_input_error(path.string(), "cannot be opened to compute its SHA-256");
     }
     Sha256 s;
-    std::vector<char> buf(1 << 16);
+    // Blocks of 1 MiB: a large DEM is streamed, never held whole.
+    std::vector<char> buf(std::size_t{1} << 20U);
     while (in) {
         in.read(buf.data(), static_cast<std::streamsize>(buf.size()));
-        const auto got = static_cast<std::size_t>(in.gcount());
-        s.update(reinterpret_cast<const unsigned char *>(buf.data()), got);
+        s.update(buf.data(), static_cast<std::size_t>(in.gcount()));
+    }
+    if (in.bad()) {
+        throw_input_error(path.string(), "cannot be read to compute its SHA-256");
     }
     return s.finish();
 }

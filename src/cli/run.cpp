@@ -98,7 +98,8 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
     std::string recheck_project;
     auto *recheckc = app.add_subcommand(
         "recheck", "Verify the inputs of a run, recompute it in memory and compare every "
-                   "calculation line; exit 0 only when everything is reproduced");
+                   "calculation line; exit 0 when everything is reproduced, 3 when a line "
+                   "differs from unchanged inputs, 4 when an input changed since the run");
     recheckc->add_option("OUTPUT_DIR", recheck_dir, "Output folder of a 'catchpeak run'")
         ->required();
     recheckc->add_option("--project", recheck_project,
@@ -111,7 +112,7 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
             }
             const auto report = app::recheck(recheck_dir, options);
             out << app::format_recheck(report);
-            return to_int(report.all_reproduced() ? ExitCode::success : ExitCode::bad_input);
+            return to_int(report.exit_code());
         };
     });
 

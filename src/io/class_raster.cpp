@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/class_raster.hpp"
 
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "gdal_handles.hpp"
 
 #include <gdal_alg.h>

@@ -2,8 +2,8 @@
 #include "catchpeak/io/hydro_tables.hpp"
 
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 
 #include <map>
 #include <string>

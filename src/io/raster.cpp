@@ -1,9 +1,9 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/raster.hpp"
 
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>

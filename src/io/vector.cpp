@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/vector.hpp"
 
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>

@@ -42,7 +42,7 @@ std::optional<SoilGroup> single_group(std::string_view t) {
     return std::nullopt;
 }
 
-TableInfo table_info(const io::CsvTable &csv) {
+TableInfo table_info(const CsvTable &csv) {
     TableInfo info;
     const std::string file = std::filesystem::path(csv.source).filename().string();
     const auto name = csv.metadata.find("name");
@@ -57,16 +57,14 @@ TableInfo table_info(const io::CsvTable &csv) {
 }
 
 /// A cell that is blank gives `fallback`, otherwise the number.
-double number_or(const io::CsvTable &csv, const io::CsvTable::Row &row, std::size_t col,
-                 double fallback) {
+double number_or(const CsvTable &csv, const CsvTable::Row &row, std::size_t col, double fallback) {
     if (col >= row.cells.size() || row.cells[col].empty()) {
         return fallback;
     }
     return csv.number(row, col);
 }
 
-const std::string &class_cell(const io::CsvTable &csv, const io::CsvTable::Row &row,
-                              std::size_t col) {
+const std::string &class_cell(const CsvTable &csv, const CsvTable::Row &row, std::size_t col) {
     const std::string &cls = csv.text(row, col);
     if (cls.empty()) {
         throw_input_error(csv.where(row, col), "the class name is empty",
@@ -115,7 +113,7 @@ SoilGroupReading read_soil_group(std::string_view text, bool drained, std::strin
 
 // ---- runoff coefficients -------------------------------------------------------------------
 
-RunoffCoefficientTable RunoffCoefficientTable::from_csv(const io::CsvTable &csv) {
+RunoffCoefficientTable RunoffCoefficientTable::from_csv(const CsvTable &csv) {
     RunoffCoefficientTable table;
     table.info_ = table_info(csv);
     const auto col_class = csv.column("class");
@@ -220,7 +218,7 @@ RunoffCoefficientTable::lookup(std::string_view land_class, SoilGroup group,
 
 // ---- curve numbers -------------------------------------------------------------------------
 
-CurveNumberTable CurveNumberTable::from_csv(const io::CsvTable &csv) {
+CurveNumberTable CurveNumberTable::from_csv(const CsvTable &csv) {
     CurveNumberTable table;
     table.info_ = table_info(csv);
     const auto col_class = csv.column("class");
@@ -266,7 +264,7 @@ double CurveNumberTable::cn(std::string_view land_class, SoilGroup group) const 
 
 // ---- impervious shares ---------------------------------------------------------------------
 
-ImperviousShareTable ImperviousShareTable::from_csv(const io::CsvTable &csv) {
+ImperviousShareTable ImperviousShareTable::from_csv(const CsvTable &csv) {
     ImperviousShareTable table;
     table.info_ = table_info(csv);
     const auto col_class = csv.column("class");
@@ -309,9 +307,9 @@ const ImperviousShareTable::Row &ImperviousShareTable::lookup(std::string_view l
 LandTables read_land_tables(const std::filesystem::path &c_csv, const std::filesystem::path &cn_csv,
                             const std::filesystem::path &impervious_csv) {
     LandTables tables;
-    tables.c = RunoffCoefficientTable::from_csv(io::read_csv(c_csv));
-    tables.cn = CurveNumberTable::from_csv(io::read_csv(cn_csv));
-    tables.impervious = ImperviousShareTable::from_csv(io::read_csv(impervious_csv));
+    tables.c = RunoffCoefficientTable::from_csv(read_csv(c_csv));
+    tables.cn = CurveNumberTable::from_csv(read_csv(cn_csv));
+    tables.impervious = ImperviousShareTable::from_csv(read_csv(impervious_csv));
     return tables;
 }
 

@@ -2,6 +2,7 @@
 #include "catchpeak/report/summary_csv.hpp"
 
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/files.hpp"
 #include "catchpeak/report/sheet_units.hpp"
 
@@ -9,42 +10,35 @@
 
 namespace catchpeak::report {
 
-namespace {
-
-/// A CSV field, quoted (RFC 4180) when it holds a comma, a quote or a line break.
-std::string field(std::string_view text) {
-    if (text.find_first_of(",\"\r\n") == std::string_view::npos) {
-        return std::string(text);
-    }
-    std::string out = "\"";
-    for (char c : text) {
-        if (c == '"') {
-            out += '"';
-        }
-        out += c;
-    }
-    out += '"';
-    return out;
-}
-
-} // namespace
-
 std::string summary_csv(const RunResults &results) {
     const auto system = results.project.units;
-    std::string out = fmt::format("design_point,return_period_yr,method,area_{},tc_min,q_{},"
-                                  "peak_line_id,warning_count\n",
-                                  area_key_unit(system), flow_key_unit(system));
+    CsvWriter csv;
+    csv.field("design_point")
+        .field("return_period_yr")
+        .field("method")
+        .field(fmt::format("area_{}", area_key_unit(system)))
+        .field("tc_min")
+        .field(fmt::format("q_{}", flow_key_unit(system)))
+        .field("peak_line_id")
+        .field("warning_count")
+        .end_row();
     for (const auto &p : results.points) {
         const auto area = sheet_area(p.catchment.area_m2, system);
         const auto warnings = p.lines.warning_count();
         for (const auto &pk : p.peaks) {
-            out +=
-                fmt::format("{},{:g},{},{},{},{},{},{}\n", field(p.id), pk.return_period_yr,
-                            field(pk.method), sig(area.value), sig(p.tc_min),
-                            sig(sheet_flow(pk.q_m3_s, system).value), field(pk.line_id), warnings);
+            // Numbers as the sheet prints them (4 significant figures), not at full precision.
+            csv.field(p.id)
+                .field(fmt::format("{:g}", pk.return_period_yr))
+                .field(pk.method)
+                .field(sig(area.value))
+                .field(sig(p.tc_min))
+                .field(sig(sheet_flow(pk.q_m3_s, system).value))
+                .field(pk.line_id)
+                .count(warnings)
+                .end_row();
         }
     }
-    return out;
+    return csv.text();
 }
 
 void write_summary_csv(const RunResults &results, const std::filesystem::path &dir) {

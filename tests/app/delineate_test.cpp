@@ -14,7 +14,6 @@
 #include "catchpeak/core/files.hpp"
 
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/terrain/accumulation.hpp"
 #include "catchpeak/terrain/conditioning.hpp"

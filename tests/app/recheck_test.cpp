@@ -8,6 +8,7 @@
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
 
 #include <algorithm>
 #include <cstdlib>
@@ -18,6 +19,7 @@
 #include <string>
 
 using namespace catchpeak::app;
+using catchpeak::ExitCode;
 namespace fs = std::filesystem;
 
 // The LeakSanitizer suppression for fontconfig (the run renders the sheet) is defined once for
@@ -143,6 +145,7 @@ TEST(Recheck, UnchangedRunIsReproducedAndTheFolderIsNotTouched) {
     const auto r = recheck(out);
     EXPECT_EQ(snapshot(out), before);
     EXPECT_TRUE(r.all_reproduced()) << format_recheck(r);
+    EXPECT_EQ(r.exit_code(), ExitCode::success);
     // project file, catchment table, IDF, frequency factor table
     ASSERT_EQ(r.inputs.size(), 4u);
     EXPECT_EQ(r.inputs_not_unchanged(), 0u);
@@ -163,6 +166,8 @@ TEST(Recheck, ChangedCatchmentTableIsNamedWithTheLinesThatDiffer) {
     replace_in_file(dir / "catchments.csv", "OUT-1,3.0,500,5,0.45,", "OUT-1,3.0,500,5,0.5,");
     const auto r = recheck(out);
     EXPECT_FALSE(r.all_reproduced());
+    // Lines differ too, but a changed input is the reason: that code wins.
+    EXPECT_EQ(r.exit_code(), ExitCode::inputs_changed);
     const auto *t = input(r, "catchment table");
     ASSERT_NE(t, nullptr);
     EXPECT_EQ(t->status, InputCheck::Status::changed);
@@ -226,12 +231,45 @@ TEST(Recheck, MissingInputIsReportedAndNothingReproduces) {
     fs::remove(dir / "idf.csv");
     const auto r = recheck(out);
     EXPECT_FALSE(r.all_reproduced());
+    EXPECT_EQ(r.exit_code(), ExitCode::inputs_changed);
     EXPECT_EQ(input(r, "IDF")->status, InputCheck::Status::missing);
     EXPECT_FALSE(r.recompute_error.empty());
     EXPECT_EQ(r.lines_reproduced, 0u);
     EXPECT_EQ(r.line_differences.size(), recorded_line_count(out));
     EXPECT_NE(format_recheck(r).find("input missing since the run: IDF 'idf.csv'"),
               std::string::npos);
+}
+
+TEST(Recheck, ChangedInputWhoseLinesStillAgreeIsStillAChangedInput) {
+    // A comment added to the IDF table changes its SHA-256 but no number: every line is
+    // reproduced, yet the run record no longer verifies the file, so the run is not confirmed.
+    const auto dir = catchpeak::test::scratch_dir("recheck_comment");
+    const auto out = run(small_project(dir));
+    replace_in_file(dir / "idf.csv", "# unit: mm/h\n", "# unit: mm/h\n# a comment added later\n");
+    const auto r = recheck(out);
+    EXPECT_EQ(input(r, "IDF")->status, InputCheck::Status::changed);
+    EXPECT_TRUE(r.line_differences.empty()) << format_recheck(r);
+    EXPECT_TRUE(r.peak_differences.empty());
+    EXPECT_FALSE(r.all_reproduced());
+    EXPECT_EQ(r.exit_code(), ExitCode::inputs_changed);
+}
+
+TEST(Recheck, AlteredNumbersWithUnchangedInputsAreNotReproduced) {
+    // Every input is as recorded; a line value of results.json was altered after the run.
+    const auto dir = catchpeak::test::scratch_dir("recheck_altered");
+    const auto out = run(small_project(dir));
+    nlohmann::ordered_json results = nlohmann::ordered_json::parse(read(out / "results.json"));
+    auto &line = results.at("design_points").at(1).at("lines").at(0);
+    const std::string id = line.at("id").get<std::string>();
+    line["value"] = line.at("value").get<double>() * 1.001;
+    write(out / "results.json", results.dump(2));
+    const auto r = recheck(out);
+    EXPECT_EQ(r.inputs_not_unchanged(), 0u);
+    ASSERT_EQ(r.line_differences.size(), 1u) << format_recheck(r);
+    EXPECT_EQ(r.line_differences[0].id, id);
+    EXPECT_TRUE(r.peak_differences.empty());
+    EXPECT_FALSE(r.all_reproduced());
+    EXPECT_EQ(r.exit_code(), ExitCode::not_reproduced);
 }
 
 TEST(Recheck, OutputFolderElsewhereFindsTheProjectOrNeedsIt) {

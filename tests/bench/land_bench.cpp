@@ -7,7 +7,7 @@
 // Usage: land_bench [catchments_x catchments_y land_x land_y soil_x soil_y [exact]]
 // With `exact`, the union of the land-cover pieces is computed for every catchment
 // (OverlaySettings::exact_coverage_check).
-#include "catchpeak/io/csv.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "support/wkb.hpp"
 
@@ -88,18 +88,18 @@ int main(int argc, char **argv) {
     const double gen_s = seconds_since(t_gen);
 
     LandTables tables;
-    tables.c = RunoffCoefficientTable::from_csv(catchpeak::io::parse_csv(
+    tables.c = RunoffCoefficientTable::from_csv(catchpeak::parse_csv(
         "class,soil_group,slope_min_percent,slope_max_percent,c\n"
         "roof,any,,,0.9\ngrass,any,,,0.2\nwood,any,,,0.15\nstreet,any,,,0.85\nfield,any,,,0.3\n",
         "bench_c.csv"));
     tables.cn = CurveNumberTable::from_csv(
-        catchpeak::io::parse_csv("class,A,B,C,D\nroof,98,98,98,98\ngrass,39,61,74,80\n"
-                                 "wood,30,55,70,77\nstreet,98,98,98,98\nfield,67,78,85,89\n",
-                                 "bench_cn.csv"));
+        catchpeak::parse_csv("class,A,B,C,D\nroof,98,98,98,98\ngrass,39,61,74,80\n"
+                             "wood,30,55,70,77\nstreet,98,98,98,98\nfield,67,78,85,89\n",
+                             "bench_cn.csv"));
     tables.impervious = ImperviousShareTable::from_csv(
-        catchpeak::io::parse_csv("class,impervious_percent\nroof,100\ngrass,0\nwood,0\n"
-                                 "street,100\nfield,0\n",
-                                 "bench_imp.csv"));
+        catchpeak::parse_csv("class,impervious_percent\nroof,100\ngrass,0\nwood,0\n"
+                             "street,100\nfield,0\n",
+                             "bench_imp.csv"));
 
     const auto t_load = Clock::now();
     OverlaySettings settings;

@@ -5,6 +5,7 @@
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
+#include <nlohmann/json.hpp>
 
 #include <fstream>
 #include <sstream>
@@ -57,15 +58,50 @@ TEST(CliRecheck, UnchangedRunExitsZero) {
     EXPECT_NE(r.out.find("4 of 4 inputs unchanged"), std::string::npos) << r.out;
 }
 
-TEST(CliRecheck, ChangedInputExitsTwoAndNamesTheFile) {
+TEST(CliRecheck, ChangedInputExitsWithInputsChangedAndNamesTheFile) {
     const auto dir = catchpeak::test::scratch_dir("cli_recheck_changed");
     const auto out = project_run(dir);
     write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\nA-1,1.2,100,2,0.6,10\n");
     const auto r = cli({"recheck", out.string()});
-    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::inputs_changed)) << r.out << r.err;
     EXPECT_NE(r.out.find("catchment table 'catchments.csv'"), std::string::npos) << r.out;
     EXPECT_NE(r.out.find("line A-1-L1 differs"), std::string::npos) << r.out;
     EXPECT_EQ(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+}
+
+TEST(CliRecheck, MissingInputExitsWithInputsChanged) {
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_input_gone");
+    const auto out = project_run(dir);
+    fs::remove(dir / "idf.csv");
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::inputs_changed)) << r.out << r.err;
+    EXPECT_NE(r.out.find("input missing since the run: IDF 'idf.csv'"), std::string::npos) << r.out;
+}
+
+TEST(CliRecheck, NumbersThatDoNotFollowFromUnchangedInputsExitNotReproduced) {
+    // The inputs are those of the run, but the recorded peak flow and its line were altered in
+    // results.json: recheck recomputes other numbers and says the run is not reproduced.
+    const auto dir = catchpeak::test::scratch_dir("cli_recheck_altered");
+    const auto out = project_run(dir);
+    nlohmann::ordered_json results;
+    {
+        std::ifstream in(out / "results.json");
+        in >> results;
+    }
+    auto &peak = results.at("design_points").at(0).at("peaks").at(0);
+    const std::string line_id = peak.at("line_id").get<std::string>();
+    peak["q_m3_s"] = peak.at("q_m3_s").get<double>() * 1.01;
+    for (auto &line : results.at("design_points").at(0).at("lines")) {
+        if (line.at("id") == line_id) {
+            line["value"] = line.at("value").get<double>() * 1.01;
+        }
+    }
+    write(out / "results.json", results.dump(2));
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::not_reproduced)) << r.out << r.err;
+    EXPECT_NE(r.out.find("4 of 4 inputs unchanged"), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find("line " + line_id + " differs"), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find(" peaks reproduced, 1 differ\n"), std::string::npos) << r.out;
 }
 
 TEST(CliRecheck, MissingFolderExitsTwoWithAMessage) {
@@ -163,7 +199,7 @@ TEST(CliRecheck, ALandTableIsRecordedAndReproduced) {
                                       "A-1,paved_parking_roofs,C,1.0\n"
                                       "A-1,open_space_good,B/D,1.0\n");
     r = cli({"recheck", out.string()});
-    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::inputs_changed)) << r.out << r.err;
     EXPECT_NE(r.out.find("catchment land table 'catchment-land.csv'"), std::string::npos) << r.out;
     EXPECT_EQ(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
 }

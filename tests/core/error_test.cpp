@@ -6,10 +6,13 @@
 using catchpeak::ExitCode;
 
 TEST(Error, ExitCodesAreTheDocumentedNumbers) {
-    // README "Exit codes": 0 success, 1 internal error, 2 bad input.
+    // README "Exit codes": 0 success, 1 internal error, 2 bad input, and for recheck alone
+    // 3 not reproduced, 4 inputs changed. A checker's script relies on these numbers.
     EXPECT_EQ(static_cast<int>(ExitCode::success), 0);
     EXPECT_EQ(static_cast<int>(ExitCode::internal_error), 1);
     EXPECT_EQ(static_cast<int>(ExitCode::bad_input), 2);
+    EXPECT_EQ(static_cast<int>(ExitCode::not_reproduced), 3);
+    EXPECT_EQ(static_cast<int>(ExitCode::inputs_changed), 4);
 }
 
 TEST(Error, InputErrorMapsToBadInput) {

@@ -12,8 +12,8 @@
 #include <string>
 
 using catchpeak::InputError;
+using catchpeak::parse_csv;
 using catchpeak::io::idf_from_csv;
-using catchpeak::io::parse_csv;
 using catchpeak::units::System;
 
 namespace {

@@ -11,7 +11,7 @@
 #include <string>
 
 using catchpeak::InputError;
-using catchpeak::io::parse_csv;
+using catchpeak::parse_csv;
 using catchpeak::io::storm_from_csv;
 
 namespace {

@@ -1,6 +1,6 @@
 // SPDX-License-Identifier: MIT
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "support/input_error.hpp"
 #include "support/wkb.hpp"
@@ -14,7 +14,7 @@
 
 using catchpeak::InputError;
 using catchpeak::LineKind;
-using catchpeak::io::parse_csv;
+using catchpeak::parse_csv;
 using catchpeak::io::VectorLayer;
 using namespace catchpeak::land;
 using catchpeak::test::feature;

@@ -1,6 +1,6 @@
 // SPDX-License-Identifier: MIT
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/land/tables.hpp"
 #include "support/input_error.hpp"
 #include "support/test_env.hpp"
@@ -13,7 +13,7 @@
 #include <utility>
 
 using catchpeak::InputError;
-using catchpeak::io::parse_csv;
+using catchpeak::parse_csv;
 using namespace catchpeak::land;
 
 namespace {
@@ -112,7 +112,7 @@ TEST(RunoffCoefficientTable, ShippedValuesLieInThePublishedRanges) {
         {"unimproved areas", {0.10, 0.30}},
     };
     const auto csv =
-        catchpeak::io::read_csv(catchpeak::test::config_dir() / "land" / "runoff_coefficients.csv");
+        catchpeak::read_csv(catchpeak::test::config_dir() / "land" / "runoff_coefficients.csv");
     const auto col_cat = csv.column("asce_category");
     const auto col_c = csv.column("c");
     ASSERT_FALSE(csv.rows.empty());

@@ -1,9 +1,9 @@
 // SPDX-License-Identifier: MIT
 // land::weight_parts: the weighting of parts with areas. Every expected value below is computed
 // by hand in the test from the small tables of our own (test_tables), not taken from a run.
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
-#include "catchpeak/io/csv.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "catchpeak/land/weighting.hpp"
 #include "support/calc_lines.hpp"
@@ -17,7 +17,7 @@
 #include <vector>
 
 using catchpeak::LineKind;
-using catchpeak::io::parse_csv;
+using catchpeak::parse_csv;
 using namespace catchpeak::land;
 using catchpeak::test::line_labelled;
 namespace units = catchpeak::units;

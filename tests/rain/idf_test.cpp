@@ -2,8 +2,8 @@
 #include "catchpeak/rain/idf.hpp"
 #include "support/input_error.hpp"
 
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
-#include "catchpeak/io/csv.hpp"
 
 #include <gtest/gtest.h>
 
@@ -77,8 +77,8 @@ TEST(IdfTable, InterpolationLineShowsBracketingValuesInSheetUnits) {
     EXPECT_NE(line.source.find("between 10.00 and 30.00 min"), std::string::npos) << line.source;
     // A checker reproduces the value from the numbers shown: i1 (t/t1)^(ln(i2/i1)/ln(t2/t1))
     // with the 4-figure numbers agrees to 4 figures (rounding of the shown values).
-    const double i1s = catchpeak::io::parse_number(catchpeak::sig(i1_in), "i1");
-    const double i2s = catchpeak::io::parse_number(catchpeak::sig(i2_in), "i2");
+    const double i1s = catchpeak::parse_number(catchpeak::sig(i1_in), "i1");
+    const double i2s = catchpeak::parse_number(catchpeak::sig(i2_in), "i2");
     const double rechecked = i1s * std::pow(20.0 / 10.0, std::log(i2s / i1s) / std::log(3.0));
     EXPECT_NEAR(rechecked, line.value, line.value * 1e-3);
 }

@@ -58,10 +58,6 @@ struct Delineation {
 [[nodiscard]] Delineation delineate_catchments(const DelineateOptions &options,
                                                std::ostream *progress);
 
-/// ISO WKB of a point and of a line string (little-endian), for the gpkg layers.
-[[nodiscard]] std::vector<unsigned char> point_wkb(double x, double y);
-[[nodiscard]] std::vector<unsigned char> line_wkb(const std::vector<std::pair<double, double>> &xy);
-
 /// Delineates the catchment above every design point and writes out_dir/catchments.json and
 /// out_dir/catchments.gpkg (layers catchments, local_catchments, flow_paths, design_points,
 /// streams). Both are written under temporary names and renamed when both are complete.

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/error.hpp"
 
 #include <cstddef>
 #include <filesystem>
@@ -67,6 +68,11 @@ struct RecheckReport {
     [[nodiscard]] std::size_t inputs_not_unchanged() const;
     /// True when every input is unchanged and every line and peak is reproduced.
     [[nodiscard]] bool all_reproduced() const;
+    /// The exit code of `catchpeak recheck` for this report: success when all_reproduced();
+    /// inputs_changed when an input changed or is missing (whatever the lines then show: they
+    /// are expected to differ); not_reproduced when every input is unchanged but a line or peak
+    /// differs or the project cannot be recomputed.
+    [[nodiscard]] ExitCode exit_code() const;
 };
 
 struct RecheckOptions {

@@ -11,6 +11,12 @@ enum class ExitCode : int {
     success = 0,
     internal_error = 1, ///< a bug or an unexpected failure of a library
     bad_input = 2,      ///< the user's input is wrong; the message says where and what is accepted
+    /// `recheck`: every recorded input is unchanged, but a calculation line or peak of the run
+    /// is not reproduced by recomputing it (or the project no longer computes).
+    not_reproduced = 3,
+    /// `recheck`: a recorded input changed or is missing since the run (its SHA-256 differs or
+    /// the file is gone), so the run cannot be verified from the inputs at hand.
+    inputs_changed = 4,
 };
 
 /// Base of every exception catchpeak throws on purpose.

@@ -6,7 +6,7 @@
 #include <filesystem>
 
 /// Readers of the hydrology method tables in config/. Each reads a CSV with
-/// catchpeak::io::read_csv, checks every value and returns the plain table with its `source`
+/// catchpeak::read_csv, checks every value and returns the plain table with its `source`
 /// and `status` metadata ("# source: ...", "# status: ..." comment lines). Bad values throw
 /// InputError naming the file, the line, the column, the value and what is accepted.
 namespace catchpeak::io {

@@ -1,12 +1,12 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
-#include "catchpeak/io/csv.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/rain/idf.hpp"
 
 #include <filesystem>
 
-/// Reading an IDF from a CSV file (read with catchpeak::io::read_csv).
+/// Reading an IDF from a CSV file (read with catchpeak::read_csv).
 ///
 /// Two forms, told apart by the first column of the header.
 ///

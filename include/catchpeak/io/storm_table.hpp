@@ -1,7 +1,7 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
-#include "catchpeak/io/csv.hpp"
+#include "catchpeak/core/csv.hpp"
 #include "catchpeak/rain/design_storm.hpp"
 
 #include <filesystem>

@@ -1,7 +1,7 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
-#include "catchpeak/io/csv.hpp"
+#include "catchpeak/core/csv.hpp"
 
 #include <array>
 #include <cstddef>
@@ -61,11 +61,11 @@ class RunoffCoefficientTable {
         }
     };
 
-    /// Builds the table from a CSV read with io::read_csv / io::parse_csv. Columns: class,
+    /// Builds the table from a CSV read with read_csv / parse_csv. Columns: class,
     /// soil_group, slope_min_percent, slope_max_percent, c (others ignored). Throws InputError
     /// naming the file, line and column for a bad cell (C outside 0..1, an unknown soil group,
     /// a band with min >= max).
-    [[nodiscard]] static RunoffCoefficientTable from_csv(const io::CsvTable &csv);
+    [[nodiscard]] static RunoffCoefficientTable from_csv(const CsvTable &csv);
 
     [[nodiscard]] const TableInfo &info() const noexcept { return info_; }
     [[nodiscard]] bool has_class(std::string_view land_class) const;
@@ -96,7 +96,7 @@ class CurveNumberTable {
     /// Columns: class, A, B, C, D, optional reference (others ignored). CN from 30 to 100
     /// (TR-55 Tables 2-2a to 2-2d print CN 30 as the lowest value used). Throws InputError
     /// for a bad cell or a class listed twice.
-    [[nodiscard]] static CurveNumberTable from_csv(const io::CsvTable &csv);
+    [[nodiscard]] static CurveNumberTable from_csv(const CsvTable &csv);
 
     [[nodiscard]] const TableInfo &info() const noexcept { return info_; }
     [[nodiscard]] bool has_class(std::string_view land_class) const;
@@ -119,7 +119,7 @@ class ImperviousShareTable {
 
     /// Columns: class, impervious_percent (0..100), optional reference. Throws InputError for a
     /// bad cell or a class listed twice.
-    [[nodiscard]] static ImperviousShareTable from_csv(const io::CsvTable &csv);
+    [[nodiscard]] static ImperviousShareTable from_csv(const CsvTable &csv);
 
     [[nodiscard]] const TableInfo &info() const noexcept { return info_; }
     [[nodiscard]] bool has_class(std::string_view land_class) const;
