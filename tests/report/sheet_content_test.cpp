@@ -1,0 +1,193 @@
+// SPDX-License-Identifier: MIT
+#include "../../src/report/internal/sheet_content.hpp"
+
+#include "catchpeak/report/sheet.hpp"
+#include "catchpeak/report/sheet_units.hpp"
+#include "report/sample_results.hpp"
+
+#include <gtest/gtest.h>
+
+#include <string>
+#include <vector>
+
+namespace catchpeak::report {
+namespace {
+
+template <class B> std::vector<const B *> blocks_of(const SheetSection &s) {
+    std::vector<const B *> out;
+    for (const auto &b : s.blocks) {
+        if (const auto *p = std::get_if<B>(&b)) {
+            out.push_back(p);
+        }
+    }
+    return out;
+}
+
+std::vector<std::string> headings(const SheetSection &s) {
+    std::vector<std::string> out;
+    for (const auto *h : blocks_of<HeadingBlock>(s)) {
+        out.push_back(h->text);
+    }
+    for (const auto *c : blocks_of<ChartBlock>(s)) {
+        out.push_back(c->title);
+    }
+    return out;
+}
+
+bool contains(const std::string &text, const std::string &part) {
+    return text.find(part) != std::string::npos;
+}
+
+TEST(SheetContent, SectionsInOrderCoverSummaryPointsReferences) {
+    const auto r = test::sample_results(3, units::System::si, {5, 25});
+    const auto doc = sheet_content(r);
+    std::vector<std::string> titles;
+    for (const auto &s : doc.sections) {
+        titles.push_back(s.title);
+    }
+    EXPECT_EQ(titles,
+              (std::vector<std::string>{"Cover", "Summary", "Design point DP1", "Design point DP2",
+                                        "Design point DP3", "References"}));
+    EXPECT_EQ(doc.system, units::System::si);
+    EXPECT_EQ(doc.frame.project, "Sample business park, stage 2 (P-0417)");
+    EXPECT_EQ(doc.frame.stamp, "catchpeak 0.1.0 · commit 0123456789ab · run 2026-12-02T10:15:00Z");
+    EXPECT_EQ(doc.pdf.create_date, "2026-12-02T10:15:00Z");
+}
+
+TEST(SheetContent, CoverHasProjectStampInputsAndNumberedCautions) {
+    const auto r = test::sample_results(1, units::System::us_customary);
+    const auto cover = sheet_content(r).sections.front();
+    const auto info = blocks_of<InfoWithSealBlock>(cover);
+    ASSERT_EQ(info.size(), 1u);
+    EXPECT_EQ(info[0]->items.front(),
+              (std::pair<std::string, std::string>{"Project", r.project.name}));
+    EXPECT_EQ(info[0]->items[7],
+              (std::pair<std::string, std::string>{"Date of the run", "2026-12-02"}));
+    const auto tables = blocks_of<TableBlock>(cover);
+    ASSERT_EQ(tables.size(), 1u);
+    ASSERT_EQ(tables[0]->rows.size(), r.stamp.inputs.size());
+    EXPECT_EQ(tables[0]->rows[1].cells[2].markup, r.stamp.inputs[1].sha256);
+    EXPECT_EQ(tables[0]->rows[1].cells[2].style, style::Style::mono);
+    const auto lists = blocks_of<ListBlock>(cover);
+    ASSERT_EQ(lists.size(), 1u);
+    EXPECT_TRUE(lists[0]->numbered);
+    EXPECT_EQ(lists[0]->items.size(), default_caution_notes().size());
+    EXPECT_EQ(headings(cover), (std::vector<std::string>{"Stamp of the run", "Cautions"}));
+}
+
+TEST(SheetContent, SummaryHasOneRowPerPeakAndShadesPointsWithWarnings) {
+    const auto r = test::sample_results(2, units::System::us_customary, {10, 100});
+    const auto summary = sheet_content(r).sections[1];
+    const auto tables = blocks_of<TableBlock>(summary);
+    ASSERT_EQ(tables.size(), 1u);
+    const auto &t = *tables[0];
+    EXPECT_TRUE(contains(t.columns[1].title, "(acre)"));
+    EXPECT_TRUE(contains(t.columns[5].title, "(cfs)"));
+    std::size_t peaks = 0;
+    for (const auto &p : r.points) {
+        peaks += p.peaks.size();
+    }
+    ASSERT_EQ(t.rows.size(), peaks);
+    // DP1 (3 peaks: two Rational, one hydrograph) has no warning; DP2 has one.
+    const auto &first = t.rows[0];
+    EXPECT_EQ(first.cells[0].markup, "<b>DP1</b>");
+    EXPECT_EQ(first.cells[3].markup, "10-yr");
+    EXPECT_EQ(first.cells[4].markup, "Rational Method");
+    EXPECT_EQ(first.cells[5].markup,
+              "<b>" +
+                  sig(sheet_flow(r.points[0].peaks[0].q_m3_s, units::System::us_customary).value) +
+                  "</b>");
+    EXPECT_EQ(first.cells[6].markup, r.points[0].peaks[0].line_id);
+    EXPECT_FALSE(first.fill.has_value());
+    EXPECT_TRUE(contains(t.rows[1].cells[0].markup, "#888888")) << "repeated id in grey";
+    EXPECT_EQ(t.rows[1].cells[1].markup, "");
+    const auto &dp2 = t.rows[3];
+    EXPECT_EQ(dp2.cells[0].markup, "<b>DP2</b>");
+    ASSERT_TRUE(dp2.fill.has_value());
+    EXPECT_TRUE(contains(dp2.cells[7].markup, "DP2-L3")); // the warning line
+    EXPECT_TRUE(t.rows[4].fill.has_value());
+}
+
+TEST(SheetContent, DesignPointSectionGivesItsPartsInOrder) {
+    const auto r = test::sample_results(2, units::System::si, {5, 25});
+    const auto doc = sheet_content(r);
+    // DP1: map, no warnings, a hydrograph for the last return period.
+    const auto &dp1 = doc.sections[2];
+    EXPECT_EQ(headings(dp1), (std::vector<std::string>{"Design point DP1", "Catchment",
+                                                       "Land cover and soils", "Calculation",
+                                                       "Hyetograph and hydrograph, 25-yr, SCS unit "
+                                                       "hydrograph"}));
+    EXPECT_TRUE(blocks_of<WarningsBlock>(dp1).empty());
+    ASSERT_EQ(blocks_of<MapBlock>(dp1).size(), 1u);
+    EXPECT_EQ(blocks_of<MapBlock>(dp1)[0]->map, &*r.points[0].map);
+    // The map comes before the catchment's figures.
+    std::size_t map_at = 0, catchment_at = 0;
+    for (std::size_t i = 0; i < dp1.blocks.size(); ++i) {
+        if (std::holds_alternative<MapBlock>(dp1.blocks[i])) {
+            map_at = i;
+        }
+        if (const auto *h = std::get_if<HeadingBlock>(&dp1.blocks[i]);
+            h != nullptr && h->text == "Catchment") {
+            catchment_at = i;
+        }
+    }
+    EXPECT_LT(map_at, catchment_at);
+    // DP2: its warning in the box, before everything else but the heading and note.
+    const auto &dp2 = doc.sections[3];
+    const auto warnings = blocks_of<WarningsBlock>(dp2);
+    ASSERT_EQ(warnings.size(), 1u);
+    ASSERT_EQ(warnings[0]->items.size(), 1u);
+    EXPECT_TRUE(contains(warnings[0]->items[0], "DP2-L3"));
+    EXPECT_TRUE(contains(warnings[0]->title, "(1)"));
+    EXPECT_TRUE(std::holds_alternative<WarningsBlock>(dp2.blocks[3]));
+    // Figures: area in hectares, and the weighted land row shaded.
+    const auto tables = blocks_of<TableBlock>(dp2);
+    ASSERT_EQ(tables.size(), 3u); // figures, land, calculation lines
+    EXPECT_EQ(tables[0]->rows[0].cells[0].markup, "Catchment area, A");
+    EXPECT_TRUE(contains(tables[0]->rows[0].cells[1].markup, " ha"));
+    EXPECT_EQ(tables[1]->rows.back().cells[0].markup, "<b>Area-weighted</b>");
+    EXPECT_TRUE(tables[1]->rows.back().fill.has_value());
+    EXPECT_EQ(tables[2]->rows.size(), r.points[1].lines.size());
+}
+
+TEST(SheetContent, CalculationRowShowsTheLinesFields) {
+    CalcLines lines;
+    lines.calc("Peak flow", "Q = C i A / 360", "Q = 0.45 x 80 x 12", 1.2, "m3/s",
+               "Rational Method");
+    lines.warn("Catchment above the limit", "A = 250 ha is above 80 ha", "common practice");
+    lines.note("Catchment area", "from the DEM", "project input");
+    number_lines(lines, "DP9");
+    const auto calc = calc_line_row(lines.lines()[0]);
+    EXPECT_EQ(calc.cells[0].markup, "<b>DP9-L1</b>");
+    EXPECT_EQ(calc.cells[1].markup, "<b>Peak flow</b>\nQ = C i A / 360\nQ = 0.45 x 80 x 12");
+    EXPECT_EQ(calc.cells[2].markup, "<b>1.200</b> m3/s");
+    EXPECT_EQ(calc.cells[3].markup, "Rational Method");
+    EXPECT_FALSE(calc.fill.has_value());
+    const auto warn = calc_line_row(lines.lines()[1]);
+    EXPECT_EQ(warn.cells[1].markup,
+              "<b>\u26a0 WARNING: Catchment above the limit</b>\nA = 250 ha is above 80 ha");
+    EXPECT_EQ(warn.cells[2].markup, "");
+    ASSERT_TRUE(warn.fill.has_value());
+    const auto note = calc_line_row(lines.lines()[2]);
+    EXPECT_EQ(note.cells[1].markup, "<i><b>Catchment area</b>\nfrom the DEM</i>");
+    EXPECT_EQ(note.cells[2].markup, ""); // no value
+}
+
+TEST(SheetContent, ReferencesOrAWordThatNoneWasUsed) {
+    auto r = test::sample_results(1, units::System::si, {10});
+    auto refs = sheet_content(r).sections.back();
+    const auto lists = blocks_of<ListBlock>(refs);
+    ASSERT_EQ(lists.size(), 1u);
+    EXPECT_FALSE(lists[0]->numbered);
+    ASSERT_EQ(lists[0]->items.size(), r.references.size());
+    EXPECT_TRUE(contains(lists[0]->items[0], "<b>Kirpich (1940)</b>\n"));
+    r.references.clear();
+    refs = sheet_content(r).sections.back();
+    EXPECT_TRUE(blocks_of<ListBlock>(refs).empty());
+    ASSERT_EQ(blocks_of<ParagraphBlock>(refs).size(), 1u);
+    EXPECT_EQ(blocks_of<ParagraphBlock>(refs)[0]->markup,
+              "No published source was used by this run.");
+}
+
+} // namespace
+} // namespace catchpeak::report
