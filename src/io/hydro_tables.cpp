@@ -7,6 +7,8 @@
 
 #include <map>
 #include <string>
+#include <utility>
+#include <vector>
 
 namespace catchpeak::io {
 
@@ -57,23 +59,47 @@ void require_ascending(const CsvTable &t, const CsvTable::Row &row, std::size_t 
     }
 }
 
+/// A numeric column of a table and the values it accepts.
+struct ColumnRule {
+    const char *name;
+    double lo;
+    bool lo_open;
+    double hi;
+    bool hi_open;
+    const char *accepted;
+};
+
+/// The rows of a two-column table (at least one), each value within its column's rule, the
+/// first column strictly ascending.
+std::vector<std::pair<double, double>> ascending_pairs(const CsvTable &t, const ColumnRule &key,
+                                                       const ColumnRule &value) {
+    require_rows(t, 1);
+    const auto c_key = t.column(key.name);
+    const auto c_value = t.column(value.name);
+    std::vector<std::pair<double, double>> out;
+    for (const auto &row : t.rows) {
+        const double k =
+            number_in(t, row, c_key, key.lo, key.lo_open, key.hi, key.hi_open, key.accepted);
+        const double v = number_in(t, row, c_value, value.lo, value.lo_open, value.hi,
+                                   value.hi_open, value.accepted);
+        if (!out.empty()) {
+            require_ascending(t, row, c_key, out.back().first, k);
+        }
+        out.emplace_back(k, v);
+    }
+    return out;
+}
+
 } // namespace
 
 hydro::FrequencyFactorTable read_frequency_factor_table(const std::filesystem::path &path) {
     const CsvTable t = read_csv(path);
     hydro::FrequencyFactorTable out;
     out.origin = origin_of(t);
-    require_rows(t, 1);
-    const auto c_t = t.column("return_period_yr");
-    const auto c_cf = t.column("cf");
-    for (const auto &row : t.rows) {
-        hydro::FrequencyFactorTable::Row r;
-        r.return_period_yr = number_in(t, row, c_t, 0.0, true, 1.0e6, false, "0 < T <= 1e6 years");
-        r.cf = number_in(t, row, c_cf, 1.0, false, 2.0, false, "1 <= Cf <= 2");
-        if (!out.rows.empty()) {
-            require_ascending(t, row, c_t, out.rows.back().return_period_yr, r.return_period_yr);
-        }
-        out.rows.push_back(r);
+    for (const auto &[rp, cf] :
+         ascending_pairs(t, {"return_period_yr", 0.0, true, 1.0e6, false, "0 < T <= 1e6 years"},
+                         {"cf", 1.0, false, 2.0, false, "1 <= Cf <= 2"})) {
+        out.rows.push_back({rp, cf});
     }
     return out;
 }
@@ -110,17 +136,10 @@ hydro::PondFactorTable read_pond_factor_table(const std::filesystem::path &path)
     const CsvTable t = read_csv(path);
     hydro::PondFactorTable out;
     out.origin = origin_of(t);
-    require_rows(t, 1);
-    const auto c_p = t.column("pond_percent");
-    const auto c_fp = t.column("fp");
-    for (const auto &row : t.rows) {
-        hydro::PondFactorTable::Row r;
-        r.pond_percent = number_in(t, row, c_p, 0.0, false, 100.0, false, "0-100 %");
-        r.fp = number_in(t, row, c_fp, 0.0, true, 1.0, false, "0 < Fp <= 1");
-        if (!out.rows.empty()) {
-            require_ascending(t, row, c_p, out.rows.back().pond_percent, r.pond_percent);
-        }
-        out.rows.push_back(r);
+    for (const auto &[percent, fp] :
+         ascending_pairs(t, {"pond_percent", 0.0, false, 100.0, false, "0-100 %"},
+                         {"fp", 0.0, true, 1.0, false, "0 < Fp <= 1"})) {
+        out.rows.push_back({percent, fp});
     }
     return out;
 }
