@@ -21,6 +21,12 @@
 
 namespace catchpeak::app {
 
+using project::closest_match;
+using project::InputPath;
+using project::PointOverride;
+using project::Problems;
+using project::Project;
+
 namespace fs = std::filesystem;
 
 namespace {
@@ -319,7 +325,7 @@ void check_project(const Project &p, Problems &problems) {
             }
         });
     }
-    if (p.uses_method("rational")) {
+    if (p.uses_method(PeakMethod::rational)) {
         const auto cf = config_dir() / "rational_frequency_factors.csv";
         if (!fs::exists(cf)) {
             problems.add(input_message(cf.string(), "the frequency factor table is missing",
@@ -350,14 +356,14 @@ void check_project(const Project &p, Problems &problems) {
                 const auto &peaks =
                     (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
                 const bool rational =
-                    std::find(peaks.begin(), peaks.end(), "rational") != peaks.end();
-                const std::string &tc_method =
+                    std::find(peaks.begin(), peaks.end(), PeakMethod::rational) != peaks.end();
+                const TcMethod tc_method =
                     (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
                 const bool given_tc = (o != nullptr && o->tc_min && !o->tc_method) ||
                                       (c.tc_min && (o == nullptr || !o->tc_method));
                 const bool scs = std::any_of(peaks.begin(), peaks.end(),
-                                             [](const auto &m) { return m != "rational"; }) ||
-                                 (tc_method == "nrcs_lag" && !given_tc);
+                                             [](auto m) { return m != PeakMethod::rational; }) ||
+                                 (tc_method == TcMethod::nrcs_lag && !given_tc);
                 if (rational && !c.c && !land_layers) {
                     problems.add(input_message(
                         where, fmt::format("catchment '{}' has no runoff coefficient", c.id),

@@ -42,20 +42,8 @@ const std::vector<std::string> &default_caution_notes() {
 }
 
 PageSize page_size_for(const ProjectInfo &project) {
-    std::string lower = project.page_size;
-    std::transform(lower.begin(), lower.end(), lower.begin(),
-                   [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
-    if (lower.empty()) {
-        return project.units == units::System::us_customary ? PageSize::letter : PageSize::a4;
-    }
-    if (lower == "letter") {
-        return PageSize::letter;
-    }
-    if (lower == "a4") {
-        return PageSize::a4;
-    }
-    throw_input_error("project file: [project] page_size",
-                      "unknown page size '" + project.page_size + "'", "\"letter\" or \"a4\"");
+    return project.page_size.value_or(
+        project.units == units::System::us_customary ? PageSize::letter : PageSize::a4);
 }
 
 namespace {
@@ -683,7 +671,7 @@ class SheetWriter {
         }
         items.emplace_back("Time of concentration, tc",
                            sig(p.tc_min) + " min" +
-                               (p.tc_method.empty() ? "" : " (" + p.tc_method + ")"));
+                               (p.tc_method ? " (" + std::string(key_of(*p.tc_method)) + ")" : ""));
         std::vector<Row> rows;
         for (const auto &[k, v] : items) {
             rows.push_back({{{esc(k)}, {bold(v)}}, std::nullopt});

@@ -40,7 +40,7 @@ std::string summary_csv(const RunResults &results) {
         for (const auto &pk : p.peaks) {
             out +=
                 fmt::format("{},{:g},{},{},{},{},{},{}\n", field(p.id), pk.return_period_yr,
-                            field(pk.method), sig(area.value), sig(p.tc_min),
+                            field(key_of(pk.method)), sig(area.value), sig(p.tc_min),
                             sig(sheet_flow(pk.q_m3_s, system).value), field(pk.line_id), warnings);
         }
     }
