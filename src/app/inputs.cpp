@@ -4,6 +4,7 @@
 #include "catchpeak/app/catchment_land.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/limits.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/csv.hpp"
 #include "catchpeak/io/idf_csv.hpp"
@@ -143,17 +144,18 @@ std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
         }
         if (c_col && !t.text(row, *c_col).empty()) {
             c.c = t.number(row, *c_col);
-            if (!(*c.c > 0.0 && *c.c <= 1.0)) {
+            if (!limits::runoff_coefficient.contains(*c.c)) {
                 throw_input_error(t.where(row, *c_col), fmt::format("C = {} is out of range", *c.c),
-                                  "a runoff coefficient in (0, 1]");
+                                  "a runoff coefficient in " +
+                                      limits::runoff_coefficient.interval());
             }
         }
         if (cn_col && !t.text(row, *cn_col).empty()) {
             c.cn = t.number(row, *cn_col);
-            if (!(*c.cn > 30.0 && *c.cn <= 100.0)) {
+            if (!limits::curve_number.contains(*c.cn)) {
                 throw_input_error(t.where(row, *cn_col),
                                   fmt::format("CN = {} is out of range", *c.cn),
-                                  "a curve number in (30, 100]");
+                                  "a curve number in " + limits::curve_number.interval());
             }
         }
         if (tc_col && !t.text(row, *tc_col).empty()) {

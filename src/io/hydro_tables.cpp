@@ -3,6 +3,7 @@
 
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/limits.hpp"
 #include "catchpeak/io/csv.hpp"
 
 #include <map>
@@ -34,6 +35,16 @@ void require_rows(const CsvTable &t, std::size_t min_rows) {
         throw_input_error(t.source, std::to_string(t.rows.size()) + " data rows",
                           "at least " + std::to_string(min_rows));
     }
+}
+
+/// The cell as a number in `range`.
+double number_in(const CsvTable &t, const CsvTable::Row &row, std::size_t col,
+                 const limits::Range &range, const std::string &accepted) {
+    const double v = t.number(row, col);
+    if (!range.contains(v)) {
+        throw_input_error(t.where(row, col), "value " + full(v) + " is out of range", accepted);
+    }
+    return v;
 }
 
 /// The cell as a number in [lo, hi] (either bound may be open).
@@ -69,7 +80,7 @@ hydro::FrequencyFactorTable read_frequency_factor_table(const std::filesystem::p
     for (const auto &row : t.rows) {
         hydro::FrequencyFactorTable::Row r;
         r.return_period_yr = number_in(t, row, c_t, 0.0, true, 1.0e6, false, "0 < T <= 1e6 years");
-        r.cf = number_in(t, row, c_cf, 1.0, false, 2.0, false, "1 <= Cf <= 2");
+        r.cf = number_in(t, row, c_cf, limits::frequency_factor, "1 <= Cf <= 2");
         if (!out.rows.empty()) {
             require_ascending(t, row, c_t, out.rows.back().return_period_yr, r.return_period_yr);
         }

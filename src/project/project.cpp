@@ -3,6 +3,7 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/core/limits.hpp"
 #include "catchpeak/io/csv.hpp"
 
 #include <fmt/format.h>
@@ -204,6 +205,11 @@ class TableReader {
             return std::nullopt;
         }
         return number_of(*n, key, min, max, min_inclusive);
+    }
+
+    /// A number in one of the shared ranges (core/limits.hpp; their upper bounds are inclusive).
+    std::optional<double> number(std::string_view key, const limits::Range &range) {
+        return number(key, range.min, range.max, range.min_inclusive);
     }
 
     std::optional<double> number_of(const toml::node &n, std::string_view key, double min,
@@ -577,7 +583,7 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                     o.peak_methods = pk;
                 }
                 o.tc_min = pt.number("tc_min", 0.0, 10000.0, false);
-                o.pond_swamp_percent = pt.number("pond_swamp_percent", 0.0, 100.0);
+                o.pond_swamp_percent = pt.number("pond_swamp_percent", limits::percent);
                 o.tr55_segmental = m.tr55_segmental;
                 read_segmental(pt, o.tr55_segmental);
                 o.kerby_kirpich = m.kerby_kirpich;
@@ -624,7 +630,7 @@ void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {
     if (auto u = t.text("uncovered_land")) {
         s.uncovered_land = parse_uncovered_land(*u);
     }
-    s.pond_swamp_percent = t.number("pond_swamp_percent", 0.0, 100.0);
+    s.pond_swamp_percent = t.number("pond_swamp_percent", limits::percent);
     s.pond_swamp_line = t.line_of("pond_swamp_percent");
     if (auto step = t.number("storm_time_step_min", 0.0, 60.0, false)) {
         const double steps = 1440.0 / *step;
