@@ -14,6 +14,10 @@
 
 namespace catchpeak::app {
 
+using project::closest_match;
+using project::Problems;
+using project::Project;
+
 namespace {
 
 /// "lines 3, 4 and 7" / "line 3" of the parts.
@@ -141,7 +145,8 @@ LandPartsById read_land_parts(const Project &p, const std::vector<TableCatchment
     }
     try {
         const auto parts = read_catchment_land_table(p.inputs.catchment_land_table->resolved,
-                                                     p.settings.dual_soil_group == "drained");
+                                                     p.settings.dual_soil_group ==
+                                                         project::DualSoilGroup::drained);
         return check_land_parts(p, catchments, parts, project_land_tables(p), problems);
     } catch (const InputError &e) {
         problems.add(e.what());
@@ -177,7 +182,7 @@ land::PartsWeighting weight_table_catchment(const Project &p, const TableCatchme
     pc.area_check_source =
         fmt::format("project input ({}; {}, line {})", rows, table_given, c.line);
     pc.dual_groups.assign(duals.begin(), duals.end());
-    pc.drained = p.settings.dual_soil_group == "drained";
+    pc.drained = p.settings.dual_soil_group == project::DualSoilGroup::drained;
     pc.slope_percent = 100.0 * c.slope;
     pc.slope_text = "slope of the longest flow path (a catchment table gives no mean slope of "
                     "the catchment)";

@@ -25,6 +25,9 @@
 
 namespace catchpeak::app {
 
+using project::Problems;
+using project::Project;
+
 namespace {
 
 constexpr const char *d8_source = "D8 (O'Callaghan & Mark 1984) on the conditioned DEM";
@@ -201,10 +204,10 @@ land::OverlaySettings overlay_settings(const Project &p) {
     land::OverlaySettings s;
     s.class_field = p.inputs.class_field;
     s.soil_group_field = p.inputs.soil_group_field;
-    s.drained = p.settings.dual_soil_group == "drained";
-    if (p.settings.uncovered_land != "refuse") {
+    s.drained = p.settings.dual_soil_group == project::DualSoilGroup::drained;
+    if (const auto *c = std::get_if<project::UncoveredAsClass>(&p.settings.uncovered_land)) {
         s.uncovered = land::Uncovered::use_default;
-        s.default_class = p.settings.uncovered_land;
+        s.default_class = c->land_class;
     }
     s.units = p.info.units;
     return s;

@@ -5,6 +5,7 @@
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/limits.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/rain/frequency.hpp"
@@ -20,6 +21,12 @@
 #include <utility>
 
 namespace catchpeak::app {
+
+using project::closest_match;
+using project::InputPath;
+using project::PointOverride;
+using project::Problems;
+using project::Project;
 
 namespace fs = std::filesystem;
 
@@ -136,17 +143,18 @@ std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
         }
         if (c_col && !t.text(row, *c_col).empty()) {
             c.c = t.number(row, *c_col);
-            if (!(*c.c > 0.0 && *c.c <= 1.0)) {
+            if (!limits::runoff_coefficient.contains(*c.c)) {
                 throw_input_error(t.where(row, *c_col), fmt::format("C = {} is out of range", *c.c),
-                                  "a runoff coefficient in (0, 1]");
+                                  "a runoff coefficient in " +
+                                      limits::runoff_coefficient.interval());
             }
         }
         if (cn_col && !t.text(row, *cn_col).empty()) {
             c.cn = t.number(row, *cn_col);
-            if (!(*c.cn > 30.0 && *c.cn <= 100.0)) {
+            if (!limits::curve_number.contains(*c.cn)) {
                 throw_input_error(t.where(row, *cn_col),
                                   fmt::format("CN = {} is out of range", *c.cn),
-                                  "a curve number in (30, 100]");
+                                  "a curve number in " + limits::curve_number.interval());
             }
         }
         if (tc_col && !t.text(row, *tc_col).empty()) {
@@ -318,7 +326,7 @@ void check_project(const Project &p, Problems &problems) {
             }
         });
     }
-    if (p.uses_method("rational")) {
+    if (p.uses_method(PeakMethod::rational)) {
         const auto cf = config_dir() / "rational_frequency_factors.csv";
         if (!fs::exists(cf)) {
             problems.add(input_message(cf.string(), "the frequency factor table is missing",
@@ -349,14 +357,14 @@ void check_project(const Project &p, Problems &problems) {
                 const auto &peaks =
                     (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
                 const bool rational =
-                    std::find(peaks.begin(), peaks.end(), "rational") != peaks.end();
-                const std::string &tc_method =
+                    std::find(peaks.begin(), peaks.end(), PeakMethod::rational) != peaks.end();
+                const TcMethod tc_method =
                     (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
                 const bool given_tc = (o != nullptr && o->tc_min && !o->tc_method) ||
                                       (c.tc_min && (o == nullptr || !o->tc_method));
                 const bool scs = std::any_of(peaks.begin(), peaks.end(),
-                                             [](const auto &m) { return m != "rational"; }) ||
-                                 (tc_method == "nrcs_lag" && !given_tc);
+                                             [](auto m) { return m != PeakMethod::rational; }) ||
+                                 (tc_method == TcMethod::nrcs_lag && !given_tc);
                 if (rational && !c.c && !land_layers) {
                     problems.add(input_message(
                         where, fmt::format("catchment '{}' has no runoff coefficient", c.id),

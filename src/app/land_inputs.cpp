@@ -19,6 +19,9 @@
 
 namespace catchpeak::app {
 
+using project::InputPath;
+using project::Project;
+
 namespace {
 
 /// What differs between the land-cover input and the soils input.
@@ -183,7 +186,7 @@ io::VectorLayer read_land_input(const Project &p, LandInput which, const std::st
         }
         if (which == LandInput::soils) {
             (void)land::read_soil_group(
-                it->second, p.settings.dual_soil_group == "drained",
+                it->second, p.settings.dual_soil_group == project::DualSoilGroup::drained,
                 fmt::format("{}: {}, named '{}' by {}", r.source, what, it->second, names_from));
         }
     }

@@ -29,6 +29,14 @@
 
 namespace catchpeak::app {
 
+using project::InputPath;
+using project::load_project;
+using project::Methods;
+using project::parse_project;
+using project::Problems;
+using project::Project;
+using project::project_template;
+
 namespace fs = std::filesystem;
 
 namespace {

@@ -23,6 +23,13 @@
 
 namespace catchpeak::app {
 
+using project::KerbyParameters;
+using project::PointOverride;
+using project::Problems;
+using project::Project;
+using project::Rainfall;
+using project::SegmentalParameters;
+
 namespace {
 
 const PointOverride *override_for(const Project &p, const std::string &id) {
@@ -164,7 +171,7 @@ double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, doub
                           ams.column),
               fmt::format("project input ({})", ams.source),
               static_cast<double>(ams.depth_mm.size()), "years");
-    const bool gev = p.rainfall.ams_distribution == "gev";
+    const bool gev = p.rainfall.ams_distribution == project::AmsDistribution::gev;
     WithLines<double> fit{0.0, {}};
     try {
         fit = gev ? rain::gev_depth(ams.depth_mm, rp, p.info.units)
@@ -316,11 +323,7 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
     }
     if (l2 > 0.0) {
         const double s2 = segment_slope(in, us, "shallow concentrated flow", l1, l1 + l2, lines);
-        auto t = hydro::shallow_flow_tt_min(l2, s2,
-                                            sp.shallow_surface == "paved"
-                                                ? hydro::ShallowSurface::paved
-                                                : hydro::ShallowSurface::unpaved,
-                                            p.info.units);
+        auto t = hydro::shallow_flow_tt_min(l2, s2, sp.shallow_surface, p.info.units);
         lines.append(t.lines);
         times.push_back(t.value);
     }
@@ -428,20 +431,20 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     // Time of concentration.
     std::set<std::string> ams_shown; // frequency-analysis lines already on this sheet
     const PointOverride *o = override_for(p, dp.id);
-    std::string tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
+    TcMethod tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
     double tc = 0.0;
-    if (o != nullptr && o->tc_min && (!o->tc_method || *o->tc_method == "given")) {
-        tc_method = "given";
+    if (o != nullptr && o->tc_min && (!o->tc_method || *o->tc_method == TcMethod::given)) {
+        tc_method = TcMethod::given;
         tc = *o->tc_min;
         lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)),
                    fmt::format("project input ({}, line {})", p.file.filename().string(), o->line),
                    tc, "min");
     } else if (in.tc_min && (o == nullptr || !o->tc_method)) {
-        tc_method = "given";
+        tc_method = TcMethod::given;
         tc = *in.tc_min;
         lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)), src, tc,
                    "min");
-    } else if (tc_method == "nrcs_lag") {
+    } else if (tc_method == TcMethod::nrcs_lag) {
         if (!in.cn) {
             throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
                               "a CN for the NRCS lag method (column 'cn')");
@@ -464,11 +467,11 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                                         p.info.units);
         lines.append(k.lines);
         tc = k.value;
-    } else if (tc_method == "tr55_segmental") {
+    } else if (tc_method == TcMethod::tr55_segmental) {
         tc = tr55_segmental_tc_min(p, in,
                                    o != nullptr ? o->tr55_segmental : p.methods.tr55_segmental,
                                    tables, lines, ams_shown);
-    } else if (tc_method == "kerby_kirpich") {
+    } else if (tc_method == TcMethod::kerby_kirpich) {
         tc = kerby_kirpich_tc_min(p, in, o != nullptr ? o->kerby_kirpich : p.methods.kerby_kirpich,
                                   lines);
     } else {
@@ -486,7 +489,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
 
     const auto &peaks =
         (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
-    auto uses = [&](std::string_view m) {
+    auto uses = [&](PeakMethod m) {
         return std::find(peaks.begin(), peaks.end(), m) != peaks.end();
     };
     std::vector<std::size_t> q_line_index; // per peak, filled with its line id below
@@ -497,12 +500,12 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     for (const auto &lp : in.land_parts) {
         parts.push_back({lp.area_m2, lp.cn});
     }
-    const bool scs = uses("tr55_graphical") || uses("scs_unit_hydrograph");
+    const bool scs = uses(PeakMethod::tr55_graphical) || uses(PeakMethod::scs_unit_hydrograph);
     if (scs && !in.cn) {
         throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
                           "a CN for the SCS Curve Number methods (column 'cn')");
     }
-    if (uses("tr55_graphical") && ratio == hydro::IaRatio::r005) {
+    if (uses(PeakMethod::tr55_graphical) && ratio == hydro::IaRatio::r005) {
         lines.warn("Ia = 0.05 S with the TR-55 graphical method",
                    "the unit peak discharge coefficients were derived with Ia = 0.2 S; with "
                    "Ia = 0.05 S the ratio Ia/P is outside the basis of the table and the peak "
@@ -510,7 +513,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                    "TR-55 (1986) ch. 4");
     }
     double pond_percent = 0.0;
-    if (uses("tr55_graphical")) {
+    if (uses(PeakMethod::tr55_graphical)) {
         const std::string pf = p.file.filename().string();
         if (o != nullptr && o->pond_swamp_percent) {
             pond_percent = *o->pond_swamp_percent;
@@ -531,8 +534,8 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
         }
     }
     for (double rp : p.rainfall.return_periods_yr) {
-        if (uses("rational") && tables.idf != nullptr && tables.frequency_factors != nullptr &&
-            in.c) {
+        if (uses(PeakMethod::rational) && tables.idf != nullptr &&
+            tables.frequency_factors != nullptr && in.c) {
             auto i = tables.idf->intensity(tc, rp, p.info.units);
             lines.append(i.lines);
             auto cf = hydro::frequency_factor(*tables.frequency_factors, rp);
@@ -544,7 +547,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             lines.append(q.lines);
             report::Peak pk;
             pk.return_period_yr = rp;
-            pk.method = "rational";
+            pk.method = PeakMethod::rational;
             pk.q_m3_s = q.value;
             pk.intermediates = {{"c", *in.c},
                                 {"cf", cf.value},
@@ -589,22 +592,20 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             auto comp = hydro::composite_runoff(parts, p_mm, p.info.units, ratio);
             lines.append(comp.lines);
         }
-        if (uses("tr55_graphical")) {
+        if (uses(PeakMethod::tr55_graphical)) {
             if (tables.peak_coefficients == nullptr || tables.pond_factors == nullptr) {
                 throw InternalError("TR-55 tables not loaded");
             }
-            auto q = hydro::tr55_peak(
-                *tables.peak_coefficients, *tables.pond_factors,
-                hydro::parse_storm_type(p.rainfall.storm_type,
-                                        p.file.string() + ": [rainfall] storm_type"),
-                in.area_m2, tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm, pond_percent,
-                p.info.units);
+            auto q = hydro::tr55_peak(*tables.peak_coefficients, *tables.pond_factors,
+                                      p.rainfall.required_storm_type(p.file.string()), in.area_m2,
+                                      tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm,
+                                      pond_percent, p.info.units);
             // The line that gives Q: the last calculation line of the TR-55 peak's lines.
             q_line_index.push_back(last_calculation_index(lines, q.lines));
             lines.append(q.lines);
             report::Peak pk;
             pk.return_period_yr = rp;
-            pk.method = "tr55_graphical";
+            pk.method = PeakMethod::tr55_graphical;
             pk.q_m3_s = q.value.peak_m3_s;
             pk.intermediates = {{"rainfall_depth_mm", p_mm},
                                 {"runoff_depth_mm", runoff.value.runoff_mm},
@@ -616,7 +617,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                                 {"tc_min", tc}};
             dp.peaks.push_back(std::move(pk));
         }
-        if (uses("scs_unit_hydrograph")) {
+        if (uses(PeakMethod::scs_unit_hydrograph)) {
             if (tables.unit_hydrograph == nullptr || (!block_storm && tables.storm == nullptr)) {
                 throw InternalError("unit hydrograph or storm table not loaded");
             }
@@ -651,7 +652,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             const auto &hg = h.value;
             report::Peak pk;
             pk.return_period_yr = rp;
-            pk.method = "scs_unit_hydrograph";
+            pk.method = PeakMethod::scs_unit_hydrograph;
             pk.q_m3_s = hg.peak_m3_s;
             pk.intermediates = {{"rainfall_depth_mm", p_mm},
                                 {"runoff_depth_mm", hg.runoff_mm},
@@ -730,22 +731,23 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
         into = reader(config / name);
         t.config_files.emplace_back(role, std::filesystem::path(name));
     };
-    if (p.uses_method("rational")) {
+    if (p.uses_method(PeakMethod::rational)) {
         read("frequency factor table", "rational_frequency_factors.csv",
              io::read_frequency_factor_table, t.frequency_factors);
     }
-    if (p.uses_method("tr55_graphical")) {
+    if (p.uses_method(PeakMethod::tr55_graphical)) {
         read("TR-55 peak coefficients", "tr55_peak_coefficients.csv",
              io::read_peak_coefficient_table, t.peak_coefficients);
         read("TR-55 pond factors", "tr55_pond_factors.csv", io::read_pond_factor_table,
              t.pond_factors);
     }
-    if (p.uses_method("scs_unit_hydrograph")) {
+    if (p.uses_method(PeakMethod::scs_unit_hydrograph)) {
         read("dimensionless unit hydrograph", "scs_dimensionless_unit_hydrograph.csv",
              io::read_dimensionless_unit_hydrograph, t.unit_hydrograph);
     }
-    if (p.uses_method("scs_unit_hydrograph") && !p.rainfall.alternating_block()) {
-        const auto file = io::nrcs_storm_file(config, p.rainfall.storm_type);
+    if (p.uses_method(PeakMethod::scs_unit_hydrograph) && !p.rainfall.alternating_block()) {
+        const auto file =
+            io::nrcs_storm_file(config, p.rainfall.required_storm_type(p.file.string()));
         t.storm = io::read_storm_table(file);
         t.config_files.emplace_back("design storm",
                                     std::filesystem::path("storms") / file.filename());
@@ -770,19 +772,19 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
                                   "Hydrology. McGraw-Hill, New York.";
     const std::string tr55 = "USDA Soil Conservation Service (1986). Urban Hydrology for Small "
                              "Watersheds, Technical Release 55 (TR-55), 2nd ed., June 1986.";
-    if (dp.tc_method == "kirpich") {
+    if (dp.tc_method == TcMethod::kirpich) {
         add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
                               "watersheds. Civil Engineering 10(6), 362.");
         add("TxDOT Hydraulic Design Manual",
             "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
     }
-    if (dp.tc_method == "nrcs_lag") {
+    if (dp.tc_method == TcMethod::nrcs_lag) {
         add("NEH 630 ch. 15 (2010)", neh630 + "chapter 15 Time of Concentration (2010).");
     }
-    if (dp.tc_method == "tr55_segmental") {
+    if (dp.tc_method == TcMethod::tr55_segmental) {
         add("TR-55 (1986)", tr55);
     }
-    if (dp.tc_method == "kerby_kirpich") {
+    if (dp.tc_method == TcMethod::kerby_kirpich) {
         add("TxDOT Hydraulic Design Manual",
             "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
         add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
@@ -795,12 +797,12 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
             "Texas Department of Transportation (citation from memory, not checked).");
     }
     for (const auto &pk : dp.peaks) {
-        if (pk.method == "rational") {
+        if (pk.method == PeakMethod::rational) {
             add("TxDOT Hydraulic Design Manual", "Texas Department of Transportation, Hydraulic "
                                                  "Design Manual, chapter 4 Hydrology.");
-        } else if (pk.method == "tr55_graphical") {
+        } else if (pk.method == PeakMethod::tr55_graphical) {
             add("TR-55 (1986)", tr55);
-        } else if (pk.method == "scs_unit_hydrograph") {
+        } else if (pk.method == PeakMethod::scs_unit_hydrograph) {
             add("TR-55 (1986)", tr55);
             add("NEH 630 ch. 16 (2007)", neh630 + "chapter 16 Hydrographs (2007).");
             if (p.rainfall.alternating_block()) {
@@ -815,7 +817,7 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
     const bool ams = std::any_of(dp.lines.lines().begin(), dp.lines.lines().end(), [](auto &l) {
         return l.label == "Annual maximum series of 24-hour depths";
     });
-    if (ams && p.rainfall.ams_distribution == "gev") {
+    if (ams && p.rainfall.ams_distribution == project::AmsDistribution::gev) {
         add("Hosking (1990)",
             "Hosking, J.R.M. (1990). L-moments: analysis and estimation of distributions using "
             "linear combinations of order statistics. Journal of the Royal Statistical Society, "

@@ -3,9 +3,9 @@
 
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/project/project.hpp"
 #include "catchpeak/report/results_json.hpp"
 
 #include <fmt/format.h>
@@ -18,6 +18,9 @@
 #include <utility>
 
 namespace catchpeak::app {
+
+using project::load_project;
+using project::Project;
 
 namespace fs = std::filesystem;
 
@@ -165,7 +168,7 @@ void compare_lines(const report::RunResults &recorded, const report::RunResults 
 }
 
 std::string peak_key(const std::string &point, const report::Peak &pk) {
-    return fmt::format("{} {} {} yr", point, pk.method, full(pk.return_period_yr));
+    return fmt::format("{} {} {} yr", point, key_of(pk.method), full(pk.return_period_yr));
 }
 
 void compare_peaks(const report::RunResults &recorded, const report::RunResults &recomputed,

@@ -19,30 +19,16 @@ namespace catchpeak::app {
 namespace {
 
 /// Short method name for a column header.
-std::string short_method(const std::string &m) {
-    if (m == "rational") {
-        return "rational";
-    }
-    if (m == "tr55_graphical") {
+std::string short_method(PeakMethod m) {
+    switch (m) {
+    case PeakMethod::rational:
+        return std::string(key_of(m));
+    case PeakMethod::tr55_graphical:
         return "TR-55";
-    }
-    if (m == "scs_unit_hydrograph") {
+    case PeakMethod::scs_unit_hydrograph:
         return "SCS UH";
     }
-    return m;
-}
-
-int method_order(const std::string &m) {
-    if (m == "rational") {
-        return 0;
-    }
-    if (m == "tr55_graphical") {
-        return 1;
-    }
-    if (m == "scs_unit_hydrograph") {
-        return 2;
-    }
-    return 3;
+    return std::string(key_of(m));
 }
 
 } // namespace
@@ -52,7 +38,7 @@ std::string summary_table(const report::RunResults &r) {
     const std::string q_unit = us ? "ft3/s" : "m3/s";
     // The return periods and methods that any point has, in a fixed order.
     std::vector<double> periods;
-    std::vector<std::string> methods;
+    std::vector<PeakMethod> methods;
     for (const auto &dp : r.points) {
         for (const auto &pk : dp.peaks) {
             if (std::find(periods.begin(), periods.end(), pk.return_period_yr) == periods.end()) {
@@ -64,9 +50,8 @@ std::string summary_table(const report::RunResults &r) {
         }
     }
     std::sort(periods.begin(), periods.end());
-    std::sort(methods.begin(), methods.end(),
-              [](const auto &a, const auto &b) { return method_order(a) < method_order(b); });
-    const auto peak = [&](const report::DesignPointResult &dp, double rp, const std::string &m) {
+    std::sort(methods.begin(), methods.end()); // in the order of the enum
+    const auto peak = [&](const report::DesignPointResult &dp, double rp, PeakMethod m) {
         for (const auto &pk : dp.peaks) {
             if (pk.return_period_yr == rp && pk.method == m) {
                 return sig(us ? units::m3s_to_cfs(pk.q_m3_s) : pk.q_m3_s);

@@ -4,6 +4,7 @@
 
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/limits.hpp"
 
 #include <cmath>
 #include <string>
@@ -27,10 +28,9 @@ inline void require_non_negative(const std::string &quantity, double value,
     }
 }
 
-/// Throws InputError unless CN is in [30, 100]. TR-55 Tables 2-2a to 2-2c list CN 30 (woods in
-/// good condition and meadow on soil group A), so 30 itself is accepted.
+/// Throws InputError unless CN is in limits::curve_number, [30, 100].
 inline void require_cn(double cn) {
-    if (!std::isfinite(cn) || cn < 30.0 || cn > 100.0) {
+    if (!limits::curve_number.contains(cn)) {
         throw_input_error("curve number CN", "value " + full(cn) + " is out of range",
                           "30 <= CN <= 100 (TR-55 tables list CN 30 to 98)");
     }

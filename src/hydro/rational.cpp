@@ -44,11 +44,11 @@ WithLines<double> frequency_factor(const FrequencyFactorTable &table, double ret
 
 WithLines<double> rational_peak_m3_s(double c, double cf, double intensity_mm_per_h, double area_m2,
                                      System system, const RationalSettings &settings) {
-    if (!std::isfinite(c) || c <= 0.0 || c > 1.0) {
+    if (!limits::runoff_coefficient.contains(c)) {
         throw_input_error("Rational Method: runoff coefficient C",
                           "value " + full(c) + " is out of range", "0 < C <= 1");
     }
-    if (!std::isfinite(cf) || cf < 1.0 || cf > 2.0) {
+    if (!limits::frequency_factor.contains(cf)) {
         throw_input_error("Rational Method: frequency factor Cf",
                           "value " + full(cf) + " is out of range", "1 <= Cf <= 2");
     }

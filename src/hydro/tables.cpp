@@ -20,19 +20,7 @@ std::string TableOrigin::cite() const {
     return text;
 }
 
-std::string to_string(StormType t) {
-    switch (t) {
-    case StormType::type_i:
-        return "I";
-    case StormType::type_ia:
-        return "IA";
-    case StormType::type_ii:
-        return "II";
-    case StormType::type_iii:
-        return "III";
-    }
-    return "II";
-}
+std::string to_string(StormType t) { return std::string(option_key(storm_type_options, t)); }
 
 StormType parse_storm_type(const std::string &text, const std::string &where) {
     std::string t;
@@ -44,19 +32,14 @@ StormType parse_storm_type(const std::string &text, const std::string &where) {
     if (t.rfind("TYPE", 0) == 0) {
         t = t.substr(4);
     }
-    if (t == "I") {
-        return StormType::type_i;
+    if (const auto v = find_option(storm_type_options, t)) {
+        return *v;
     }
-    if (t == "IA") {
-        return StormType::type_ia;
+    std::string accepted;
+    for (const auto &o : storm_type_options) {
+        accepted += (accepted.empty() ? "" : ", ") + std::string(o.key);
     }
-    if (t == "II") {
-        return StormType::type_ii;
-    }
-    if (t == "III") {
-        return StormType::type_iii;
-    }
-    throw_input_error(where, "storm type '" + text + "' is not known", "I, IA, II, III");
+    throw_input_error(where, "storm type '" + text + "' is not known", accepted);
 }
 
 double DimensionlessUnitHydrograph::ratio_at(double x) const {

@@ -34,7 +34,7 @@ WithLines<Tr55Peak> tr55_peak(const PeakCoefficientTable &coefficients,
     detail::require_positive("TR-55 peak: 24-hour rainfall P", rainfall_mm, "mm");
     detail::require_non_negative("TR-55 peak: initial abstraction Ia", ia_mm, "mm");
     detail::require_non_negative("TR-55 peak: runoff depth Q", runoff_mm, "mm");
-    if (!std::isfinite(pond_percent) || pond_percent < 0.0 || pond_percent > 100.0) {
+    if (!limits::percent.contains(pond_percent)) {
         throw_input_error("TR-55 peak: ponds and swamps share",
                           "value " + full(pond_percent) + " % is out of range", "0-100 %");
     }

@@ -4,6 +4,7 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/limits.hpp"
 
 #include <map>
 #include <string>
@@ -36,6 +37,16 @@ void require_rows(const CsvTable &t, std::size_t min_rows) {
         throw_input_error(t.source, std::to_string(t.rows.size()) + " data rows",
                           "at least " + std::to_string(min_rows));
     }
+}
+
+/// The cell as a number in `range`.
+double number_in(const CsvTable &t, const CsvTable::Row &row, std::size_t col,
+                 const limits::Range &range, const std::string &accepted) {
+    const double v = t.number(row, col);
+    if (!range.contains(v)) {
+        throw_input_error(t.where(row, col), "value " + full(v) + " is out of range", accepted);
+    }
+    return v;
 }
 
 /// The cell as a number in [lo, hi] (either bound may be open).
@@ -96,10 +107,17 @@ hydro::FrequencyFactorTable read_frequency_factor_table(const std::filesystem::p
     const CsvTable t = read_csv(path);
     hydro::FrequencyFactorTable out;
     out.origin = origin_of(t);
-    for (const auto &[rp, cf] :
-         ascending_pairs(t, {"return_period_yr", 0.0, true, 1.0e6, false, "0 < T <= 1e6 years"},
-                         {"cf", 1.0, false, 2.0, false, "1 <= Cf <= 2"})) {
-        out.rows.push_back({rp, cf});
+    require_rows(t, 1);
+    const auto c_t = t.column("return_period_yr");
+    const auto c_cf = t.column("cf");
+    for (const auto &row : t.rows) {
+        hydro::FrequencyFactorTable::Row r;
+        r.return_period_yr = number_in(t, row, c_t, 0.0, true, 1.0e6, false, "0 < T <= 1e6 years");
+        r.cf = number_in(t, row, c_cf, limits::frequency_factor, "1 <= Cf <= 2");
+        if (!out.rows.empty()) {
+            require_ascending(t, row, c_t, out.rows.back().return_period_yr, r.return_period_yr);
+        }
+        out.rows.push_back(r);
     }
     return out;
 }

@@ -82,14 +82,10 @@ rain::StormDistribution read_storm_table(const std::filesystem::path &path) {
 }
 
 std::filesystem::path nrcs_storm_file(const std::filesystem::path &config_dir,
-                                      std::string_view type) {
+                                      hydro::StormType type) {
     std::string lower;
-    for (char ch : type) {
+    for (char ch : hydro::to_string(type)) {
         lower += static_cast<char>(std::tolower(static_cast<unsigned char>(ch)));
-    }
-    constexpr std::array<std::string_view, 4> accepted{"i", "ia", "ii", "iii"};
-    if (std::find(accepted.begin(), accepted.end(), lower) == accepted.end()) {
-        throw_input_error("NRCS 24-hour storm", fmt::format("type '{}'", type), "I, IA, II or III");
     }
     return config_dir / "storms" / fmt::format("nrcs_type_{}.csv", lower);
 }

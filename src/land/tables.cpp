@@ -2,6 +2,7 @@
 #include "catchpeak/land/tables.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/limits.hpp"
 
 #include <fmt/format.h>
 
@@ -144,7 +145,7 @@ RunoffCoefficientTable RunoffCoefficientTable::from_csv(const CsvTable &csv) {
                               "slope_min_percent < slope_max_percent, or blank for no limit");
         }
         row.c = csv.number(r, col_c);
-        if (!(row.c >= 0.0 && row.c <= 1.0)) {
+        if (!limits::class_runoff_coefficient.contains(row.c)) {
             throw_input_error(csv.where(r, col_c), fmt::format("C = {} is out of range", row.c),
                               "a runoff coefficient from 0 to 1");
         }
@@ -230,7 +231,7 @@ CurveNumberTable CurveNumberTable::from_csv(const CsvTable &csv) {
         Row row;
         for (std::size_t g = 0; g < 4; ++g) {
             const double cn = csv.number(r, cols[g]);
-            if (!(cn >= 30.0 && cn <= 100.0)) {
+            if (!limits::curve_number.contains(cn)) {
                 throw_input_error(csv.where(r, cols[g]), fmt::format("CN = {} is out of range", cn),
                                   "a curve number from 30 to 100");
             }
@@ -273,7 +274,7 @@ ImperviousShareTable ImperviousShareTable::from_csv(const CsvTable &csv) {
     for (const auto &r : csv.rows) {
         const std::string &cls = class_cell(csv, r, col_class);
         const double pct = csv.number(r, col_pct);
-        if (!(pct >= 0.0 && pct <= 100.0)) {
+        if (!limits::percent.contains(pct)) {
             throw_input_error(csv.where(r, col_pct),
                               fmt::format("impervious share {} % is out of range", pct),
                               "a percentage from 0 to 100");

@@ -53,7 +53,7 @@ Json project_json(const ProjectInfo &p) {
     j["checked_by"] = p.checked_by;
     j["revision"] = p.revision;
     j["unit_system"] = p.units == units::System::si ? "SI" : "US";
-    j["page_size"] = p.page_size;
+    j["page_size"] = p.page_size ? option_key(page_size_options, *p.page_size) : std::string_view();
     return j;
 }
 
@@ -96,7 +96,7 @@ Json land_json(const LandWeighting &w) {
 Json peak_json(const Peak &p) {
     Json j;
     j["return_period_yr"] = number(p.return_period_yr);
-    j["method"] = p.method;
+    j["method"] = key_of(p.method);
     j["q_m3_s"] = number(p.q_m3_s);
     j["line_id"] = p.line_id;
     Json inter = Json::object();
@@ -142,7 +142,7 @@ Json point_json(const DesignPointResult &p) {
     j["catchment"] = catchment_json(p.catchment);
     j["land"] = land_json(p.land);
     j["tc_min"] = number(p.tc_min);
-    j["tc_method"] = p.tc_method;
+    j["tc_method"] = p.tc_method ? key_of(*p.tc_method) : std::string_view();
     Json peaks = Json::array();
     for (const auto &pk : p.peaks) {
         peaks.push_back(peak_json(pk));
@@ -184,6 +184,20 @@ class Reader {
             bad(key, "a string");
         }
         return v.get<std::string>();
+    }
+
+    /// The value of an option written by its text.
+    template <class E, std::size_t N>
+    [[nodiscard]] E option(std::string_view key, const OptionTable<E, N> &table) const {
+        const std::string text = str(key);
+        if (const auto v = find_option(table, text)) {
+            return *v;
+        }
+        std::string accepted;
+        for (const auto &o : table) {
+            accepted += (accepted.empty() ? "" : ", ") + std::string(o.key);
+        }
+        throw_input_error(sub(key), "'" + text + "' is not known", accepted);
     }
 
     [[nodiscard]] double num(std::string_view key) const { return to_number(member(key), key); }
@@ -340,14 +354,16 @@ DesignPointResult parse_point(const Reader &r) {
     }
 
     p.tc_min = r.num("tc_min");
-    p.tc_method = r.str("tc_method");
+    if (!r.str("tc_method").empty()) {
+        p.tc_method = r.option("tc_method", tc_method_options);
+    }
 
     const auto &peaks = r.array("peaks");
     for (std::size_t i = 0; i < peaks.size(); ++i) {
         const Reader kr(peaks[i], r.item("peaks", i));
         Peak pk;
         pk.return_period_yr = kr.num("return_period_yr");
-        pk.method = kr.str("method");
+        pk.method = kr.option("method", peak_method_options);
         pk.q_m3_s = kr.num("q_m3_s");
         pk.line_id = kr.str("line_id");
         const auto &inter = kr.member("intermediates");
@@ -428,7 +444,9 @@ RunResults parse_results_json(std::string_view text, std::string_view where) {
     out.project.checked_by = p.str("checked_by");
     out.project.revision = p.str("revision");
     out.project.units = units::parse_system(p.str("unit_system"), p.sub("unit_system"));
-    out.project.page_size = p.str("page_size");
+    if (!p.str("page_size").empty()) {
+        out.project.page_size = p.option("page_size", page_size_options);
+    }
 
     const auto &points = r.array("design_points");
     for (std::size_t i = 0; i < points.size(); ++i) {

@@ -30,20 +30,8 @@ const std::vector<std::string> &default_caution_notes() {
 }
 
 PageSize page_size_for(const ProjectInfo &project) {
-    std::string lower = project.page_size;
-    std::transform(lower.begin(), lower.end(), lower.begin(),
-                   [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
-    if (lower.empty()) {
-        return project.units == units::System::us_customary ? PageSize::letter : PageSize::a4;
-    }
-    if (lower == "letter") {
-        return PageSize::letter;
-    }
-    if (lower == "a4") {
-        return PageSize::a4;
-    }
-    throw_input_error("project file: [project] page_size",
-                      "unknown page size '" + project.page_size + "'", "\"letter\" or \"a4\"");
+    return project.page_size.value_or(
+        project.units == units::System::us_customary ? PageSize::letter : PageSize::a4);
 }
 
 std::size_t write_sheet_pdf(const RunResults &results, const std::filesystem::path &file) {

@@ -32,17 +32,16 @@ std::string_view flow_key_unit(units::System system) noexcept {
     return us(system) ? "cfs" : "m3_s";
 }
 
-std::string method_title(std::string_view method) {
-    if (method == "rational") {
+std::string method_title(PeakMethod method) {
+    switch (method) {
+    case PeakMethod::rational:
         return "Rational Method";
-    }
-    if (method == "tr55_graphical") {
+    case PeakMethod::tr55_graphical:
         return "TR-55 graphical peak";
-    }
-    if (method == "scs_unit_hydrograph") {
+    case PeakMethod::scs_unit_hydrograph:
         return "SCS unit hydrograph";
     }
-    return std::string(method);
+    return std::string(key_of(method));
 }
 
 std::string return_period_title(double return_period_yr) {

@@ -29,7 +29,7 @@ std::string summary_csv(const RunResults &results) {
             // Numbers as the sheet prints them (4 significant figures), not at full precision.
             csv.field(p.id)
                 .field(fmt::format("{:g}", pk.return_period_yr))
-                .field(pk.method)
+                .field(key_of(pk.method))
                 .field(sig(area.value))
                 .field(sig(p.tc_min))
                 .field(sig(sheet_flow(pk.q_m3_s, system).value))

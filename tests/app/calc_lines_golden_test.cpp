@@ -20,8 +20,8 @@
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/io/idf_csv.hpp"
+#include "catchpeak/project/project.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
@@ -105,7 +105,7 @@ TEST(CalcLinesGolden, TinyTableProjectMatchesTheHandComposedLines) {
     write(dir / "catchments.csv", "id,area_ha,length_m,slope_percent,c\nG-1,2.0,100,5,0.5\n");
     write(dir / "idf.csv", "# unit: mm/h\nduration_min,25\n5,170\n10,135\n15,112\n60,45\n");
 
-    const app::Project project = app::load_project(dir / "project.toml");
+    const project::Project project = project::load_project(dir / "project.toml");
     const auto rows = app::read_catchment_table(dir / "catchments.csv");
     const rain::Idf idf = io::read_idf_csv(dir / "idf.csv");
     hydro::FrequencyFactorTable cf;

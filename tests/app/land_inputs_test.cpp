@@ -16,6 +16,7 @@
 #include <fstream>
 
 using namespace catchpeak::app;
+using namespace catchpeak::project;
 namespace fs = std::filesystem;
 namespace t = catchpeak::test;
 namespace land = catchpeak::land;
@@ -74,9 +75,9 @@ land::OverlaySettings settings_of(const Project &p) {
     land::OverlaySettings s;
     s.class_field = p.inputs.class_field;
     s.soil_group_field = p.inputs.soil_group_field;
-    if (p.settings.uncovered_land != "refuse") {
+    if (const auto *c = std::get_if<UncoveredAsClass>(&p.settings.uncovered_land)) {
         s.uncovered = land::Uncovered::use_default;
-        s.default_class = p.settings.uncovered_land;
+        s.default_class = c->land_class;
     }
     return s;
 }
@@ -184,7 +185,7 @@ TEST(LandInputs, NodataCellsAreNotCoveredRefusedOrGivenTheDefaultWithTheirArea) 
     EXPECT_NE(m.find("25.00 m2 (2.778 % of catchment 'square') is not covered"), std::string::npos)
         << m;
 
-    f.project.settings.uncovered_land = "meadow";
+    f.project.settings.uncovered_land = UncoveredAsClass{"meadow"};
     const auto r = weigh(f.project, square());
     EXPECT_NEAR(r.uncovered_land_cover_m2, 25.0, 25.0 * overlay_rounding);
     EXPECT_NEAR(part(r, "meadow", "B").area_m2, 25.0, 25.0 * overlay_rounding);

@@ -16,6 +16,7 @@
 #include <string>
 
 using namespace catchpeak::app;
+using catchpeak::project::project_template;
 namespace fs = std::filesystem;
 
 // Under LeakSanitizer (asan preset): the run renders the calculation sheet, and fontconfig keeps

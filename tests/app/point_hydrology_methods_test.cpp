@@ -22,6 +22,7 @@
 #include <vector>
 
 using namespace catchpeak::app;
+using namespace catchpeak::project;
 namespace fs = std::filesystem;
 
 namespace {
@@ -43,7 +44,7 @@ const catchpeak::report::DesignPointResult &point(const catchpeak::report::RunRe
 const catchpeak::report::Peak &peak(const catchpeak::report::DesignPointResult &dp,
                                     const std::string &method, double rp) {
     for (const auto &p : dp.peaks) {
-        if (p.method == method && p.return_period_yr == rp) {
+        if (catchpeak::key_of(p.method) == method && p.return_period_yr == rp) {
             return p;
         }
     }
@@ -315,7 +316,7 @@ shallow_surface = "paved"
     EXPECT_NEAR(sheet_h(0.24), 0.30, 0.005);
     EXPECT_NEAR(shallow_h, 0.24, 0.005);
     const auto &br1 = point(r, "BR-1");
-    EXPECT_EQ(br1.tc_method, "tr55_segmental");
+    EXPECT_EQ(br1.tc_method, catchpeak::TcMethod::tr55_segmental);
     // Tolerance 1e-9 min: floating point only (same equations; the lengths pass through m).
     EXPECT_NEAR(br1.tc_min, 60.0 * (sheet_h(0.24) + shallow_h + channel_h), 1e-9);
     const auto &br2 = point(r, "BR-2");
@@ -371,7 +372,7 @@ retardance_n = 0.20
     // TxDOT HDM worked example (checked secondary, REFERENCES.md 3): L = 500 ft, N = 0.40,
     // S = 0.02 -> printed "about 25" min (24.5 computed). Tolerance 0.6 min: "about" 25.
     EXPECT_NEAR(0.828 * std::pow(500.0 * 0.40 / std::sqrt(0.02), 0.467), 25.0, 0.6);
-    EXPECT_EQ(point(r, "BR-1").tc_method, "kerby_kirpich");
+    EXPECT_EQ(point(r, "BR-1").tc_method, catchpeak::TcMethod::kerby_kirpich);
     // Tolerance 1e-9 min: floating point only.
     EXPECT_NEAR(point(r, "BR-1").tc_min, tov(0.40) + tch, 1e-9); // default N = 0.40
     EXPECT_NEAR(point(r, "BR-2").tc_min, tov(0.20) + tch, 1e-9);

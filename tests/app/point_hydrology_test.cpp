@@ -20,6 +20,7 @@
 #include <string>
 
 using namespace catchpeak::app;
+using namespace catchpeak::project;
 namespace fs = std::filesystem;
 
 // (The LeakSanitizer suppression of fontconfig for this test program is in pipeline_test.cpp.)
@@ -74,7 +75,7 @@ const catchpeak::report::DesignPointResult &point(const catchpeak::report::RunRe
 const catchpeak::report::Peak &peak(const catchpeak::report::DesignPointResult &dp,
                                     const std::string &method) {
     for (const auto &p : dp.peaks) {
-        if (p.method == method) {
+        if (catchpeak::key_of(p.method) == method) {
             return p;
         }
     }
@@ -99,7 +100,7 @@ TEST(PointHydrology, Tr55GraphicalComputedByHand) {
     std::ostringstream progress;
     const auto r = compute_project(p, progress, true);
     const auto &dp = point(r, "SP-1");
-    EXPECT_EQ(dp.tc_method, "given");
+    EXPECT_EQ(dp.tc_method, catchpeak::TcMethod::given);
     EXPECT_DOUBLE_EQ(dp.tc_min, 30.0);
     const auto &pk = peak(dp, "tr55_graphical");
     EXPECT_DOUBLE_EQ(pk.return_period_yr, 25.0);
@@ -185,7 +186,7 @@ TEST(PointHydrology, NrcsLagComputedByHand) {
     std::ostringstream progress;
     const auto r = compute_project(p, progress, true);
     const auto &dp = point(r, "SP-2");
-    EXPECT_EQ(dp.tc_method, "nrcs_lag");
+    EXPECT_EQ(dp.tc_method, catchpeak::TcMethod::nrcs_lag);
     // NEH 630 ch. 15: lag = l^0.8 (S + 1)^0.7 / (1900 Y^0.5) h, l = 1000 ft, S = 2.5 in,
     // Y = 4 % (no mean slope in the table: the flow-path slope, stated in a note);
     // tc = lag / 0.6.

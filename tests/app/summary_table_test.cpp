@@ -14,7 +14,7 @@ namespace {
 report::Peak peak(double rp, const std::string &method, double q) {
     report::Peak p;
     p.return_period_yr = rp;
-    p.method = method;
+    p.method = catchpeak::find_option(catchpeak::peak_method_options, method).value();
     p.q_m3_s = q;
     return p;
 }

@@ -80,10 +80,10 @@ int main(int argc, char **argv) {
     soils.categories = {"", "A", "B", "C", "D"};
     t::make_class_raster(dir / "bench_soils.tif", soils);
 
-    app::Project p;
+    project::Project p;
     p.file = dir / "project.toml";
-    p.inputs.land_cover = app::InputPath{"bench_land.tif", dir / "bench_land.tif", 1};
-    p.inputs.soils = app::InputPath{"bench_soils.tif", dir / "bench_soils.tif", 2};
+    p.inputs.land_cover = project::InputPath{"bench_land.tif", dir / "bench_land.tif", 1};
+    p.inputs.soils = project::InputPath{"bench_soils.tif", dir / "bench_soils.tif", 2};
     const std::string crs = s.crs_wkt;
 
     for (const double side_m : {20000.0, 5000.0, 1000.0}) {

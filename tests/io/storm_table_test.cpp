@@ -33,11 +33,11 @@ TEST(StormTable, ReadsATable) {
 
 TEST(StormTable, ReadsEveryNrcsTableInConfig) {
     const auto config = catchpeak::test::source_dir() / "config";
-    for (const char *type : {"I", "IA", "ii", "III"}) {
+    for (const auto &[text, type] : catchpeak::hydro::storm_type_options) {
         const auto d =
             catchpeak::io::read_storm_table(catchpeak::io::nrcs_storm_file(config, type));
-        EXPECT_DOUBLE_EQ(d.duration_h(), 24.0) << type;
-        EXPECT_FALSE(d.source.empty()) << type;
+        EXPECT_DOUBLE_EQ(d.duration_h(), 24.0) << text;
+        EXPECT_FALSE(d.source.empty()) << text;
     }
 }
 
@@ -94,8 +94,9 @@ TEST(StormTable, MessagesNameFileLineAndColumn) {
     EXPECT_NE(msg.find("no column 'cumulative_fraction'"), std::string::npos) << msg;
 }
 
-TEST(StormTable, UnknownNrcsTypeListsTheAccepted) {
-    const auto msg = catchpeak::test::input_error_of(
-        [] { (void)catchpeak::io::nrcs_storm_file("config", "IV"); });
-    EXPECT_NE(msg.find("type 'IV'; accepted: I, IA, II or III"), std::string::npos) << msg;
+TEST(StormTable, NrcsFileIsNamedByTheTypeInLowerCase) {
+    EXPECT_EQ(catchpeak::io::nrcs_storm_file("config", catchpeak::hydro::StormType::type_ia),
+              std::filesystem::path("config") / "storms" / "nrcs_type_ia.csv");
+    EXPECT_EQ(catchpeak::io::nrcs_storm_file("config", catchpeak::hydro::StormType::type_iii),
+              std::filesystem::path("config") / "storms" / "nrcs_type_iii.csv");
 }

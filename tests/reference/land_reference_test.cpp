@@ -13,9 +13,9 @@
 // 2-2c (checked secondary).
 #include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/land/overlay.hpp"
+#include "catchpeak/project/project.hpp"
 #include "io/class_raster_data.hpp"
 #include "support/test_env.hpp"
 #include "support/wkb.hpp"
@@ -119,8 +119,8 @@ TEST(Tr55Example2_2, DevelopedCompositeCn75) {
 namespace {
 
 namespace t = catchpeak::test;
-using catchpeak::app::InputPath;
 using catchpeak::app::LandInput;
+using catchpeak::project::InputPath;
 
 constexpr double x0 = 500000.0;
 constexpr double y0 = 4000000.0;
@@ -148,7 +148,7 @@ CatchmentLand weigh_rasters(const std::string &name, const std::vector<double> &
         dir / "soils.tif",
         tr55_raster(t::codes_of(10, 10, [](int col, int) { return col < 3 ? 2 : 3; }),
                     {"", "A", "B", "C", "D"}));
-    catchpeak::app::Project p;
+    catchpeak::project::Project p;
     p.file = dir / "project.toml";
     p.inputs.land_cover = InputPath{"land.tif", dir / "land.tif", 1};
     p.inputs.land_cover_codes = InputPath{"codes.csv", dir / "codes.csv", 2};
@@ -216,7 +216,7 @@ TEST(Tr55Example2_2, AsTableRowsCompositeCn75) {
     std::ofstream(dir / "idf.csv") << "# unit: in/h\nduration_min,10\n5,7.0\n60,2.5\n";
     std::ostringstream progress;
     const auto r = catchpeak::app::compute_project(
-        catchpeak::app::load_project(dir / "project.toml"), progress, true);
+        catchpeak::project::load_project(dir / "project.toml"), progress, true);
     ASSERT_EQ(r.points.size(), 1u);
     const auto &w = r.points[0].land;
     ASSERT_EQ(w.parts.size(), 3u);

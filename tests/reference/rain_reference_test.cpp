@@ -69,7 +69,8 @@ const std::vector<Point> tp149_type_ii = {{0, 0},        {2, 0.022},  {4, 0.048}
 std::filesystem::path config_dir() { return catchpeak::test::source_dir() / "config"; }
 
 rain::StormDistribution load(const char *type) {
-    return catchpeak::io::read_storm_table(catchpeak::io::nrcs_storm_file(config_dir(), type));
+    return catchpeak::io::read_storm_table(catchpeak::io::nrcs_storm_file(
+        config_dir(), catchpeak::hydro::parse_storm_type(type, "test")));
 }
 
 } // namespace

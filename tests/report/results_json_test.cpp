@@ -120,7 +120,7 @@ RunResults sample() {
     r.points[0].peaks[0].q_m3_s = 1.0 / 3.0;
     r.points[1].catchment.mean_slope = 5e-324; // smallest subnormal
     r.points[2].catchment.longest_flow_path_m = 1.7976931348623157e308;
-    r.project.page_size = "letter";
+    r.project.page_size = PageSize::letter;
     return r;
 }
 

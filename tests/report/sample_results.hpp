@@ -99,7 +99,7 @@ inline report::DesignPointResult sample_point(std::size_t i, units::System syste
     w.cn_table = "config/curve_numbers.csv";
     p.tc_min = 0.0078 * std::pow(units::m_to_ft(c.longest_flow_path_m), 0.77) *
                std::pow(c.slope_flow_path, -0.385);
-    p.tc_method = "Kirpich";
+    p.tc_method = catchpeak::TcMethod::kirpich;
 
     const bool us = system == units::System::us_customary;
     CalcLines lines;
@@ -119,7 +119,7 @@ inline report::DesignPointResult sample_point(std::size_t i, units::System syste
     for (double rp : return_periods) {
         report::Peak pk;
         pk.return_period_yr = rp;
-        pk.method = "rational";
+        pk.method = catchpeak::PeakMethod::rational;
         const double i_mm_h = 58.0 * std::pow(rp, 0.21);
         pk.q_m3_s =
             w.c_weighted * i_mm_h * c.area_m2 / 3.6e6 * (1.0 + 1e-7 * static_cast<double>(i));
@@ -141,7 +141,7 @@ inline report::DesignPointResult sample_point(std::size_t i, units::System syste
     if (with_hydrograph) {
         report::Peak pk;
         pk.return_period_yr = return_periods.back();
-        pk.method = "scs_unit_hydrograph";
+        pk.method = catchpeak::PeakMethod::scs_unit_hydrograph;
         report::Hydrograph hg;
         hg.step_s = 300.0;
         const std::size_t n = 96;

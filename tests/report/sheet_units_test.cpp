@@ -36,10 +36,9 @@ TEST(SheetUnits, Si) {
 }
 
 TEST(SheetUnits, Titles) {
-    EXPECT_EQ(method_title("rational"), "Rational Method");
-    EXPECT_EQ(method_title("tr55_graphical"), "TR-55 graphical peak");
-    EXPECT_EQ(method_title("scs_unit_hydrograph"), "SCS unit hydrograph");
-    EXPECT_EQ(method_title("other"), "other");
+    EXPECT_EQ(method_title(catchpeak::PeakMethod::rational), "Rational Method");
+    EXPECT_EQ(method_title(catchpeak::PeakMethod::tr55_graphical), "TR-55 graphical peak");
+    EXPECT_EQ(method_title(catchpeak::PeakMethod::scs_unit_hydrograph), "SCS unit hydrograph");
     EXPECT_EQ(return_period_title(10.0), "10-yr");
     EXPECT_EQ(return_period_title(2.33), "2.33-yr");
 }

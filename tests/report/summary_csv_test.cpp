@@ -21,15 +21,17 @@ RunResults two_points(units::System system) {
     a.id = "DP1";
     a.catchment.area_m2 = 40468.564224;
     a.tc_min = 12.5;
-    a.peaks.push_back({10.0, "rational", 2.8316846592, "DP1-L7", {}, std::nullopt});
-    a.peaks.push_back({100.0, "tr55_graphical", 0.28316846592, "DP1-L9", {}, std::nullopt});
+    a.peaks.push_back(
+        {10.0, catchpeak::PeakMethod::rational, 2.8316846592, "DP1-L7", {}, std::nullopt});
+    a.peaks.push_back(
+        {100.0, catchpeak::PeakMethod::tr55_graphical, 0.28316846592, "DP1-L9", {}, std::nullopt});
     a.lines.warn("Slope above the method's range", "S = 0.2", "common practice, no source");
     a.lines.warn("Area above the method's range", "A = 10 acre", "common practice, no source");
     DesignPointResult b;
     b.id = "Outfall, east"; // a comma: the field must be quoted
     b.catchment.area_m2 = 1234567.0;
     b.tc_min = 7.0;
-    b.peaks.push_back({2.0, "rational", 1.0, "", {}, std::nullopt});
+    b.peaks.push_back({2.0, catchpeak::PeakMethod::rational, 1.0, "", {}, std::nullopt});
     r.points = {a, b};
     return r;
 }

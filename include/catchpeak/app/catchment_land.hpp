@@ -2,9 +2,9 @@
 #pragma once
 
 #include "catchpeak/app/inputs.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/land/tables.hpp"
 #include "catchpeak/land/weighting.hpp"
+#include "catchpeak/project/project.hpp"
 
 #include <map>
 #include <string>
@@ -28,23 +28,24 @@ using LandPartsById = std::map<std::string, std::vector<TableLandPart>>;
 /// land_parts_area_tolerance_share (naming the id, both sums and both files and lines); a class
 /// missing from a land table, or without a row of the C table for its soil group and the
 /// catchment's slope.
-[[nodiscard]] LandPartsById check_land_parts(const Project &project,
+[[nodiscard]] LandPartsById check_land_parts(const project::Project &project,
                                              const std::vector<TableCatchment> &catchments,
                                              const std::vector<TableLandPart> &parts,
-                                             const land::LandTables &tables, Problems &problems);
+                                             const land::LandTables &tables,
+                                             project::Problems &problems);
 
 /// Reads the project's land table ([inputs] catchment_land_table) with the project's land
 /// tables and checks it (check_land_parts). Empty when the project has none. Every problem,
 /// of reading or of the checks, is added to `problems`.
-[[nodiscard]] LandPartsById read_land_parts(const Project &project,
+[[nodiscard]] LandPartsById read_land_parts(const project::Project &project,
                                             const std::vector<TableCatchment> &catchments,
-                                            Problems &problems);
+                                            project::Problems &problems);
 
 /// The land weighting of one catchment of the table from its parts (land::weight_parts: the
 /// same parts, weighted values and lines as a DEM project's overlay gives). The slope of the
 /// C table's slope bands is the slope of the longest flow path (a table has no mean slope; a
 /// note says so). The lines give no area line: the catchment's own lines restate it.
-[[nodiscard]] land::PartsWeighting weight_table_catchment(const Project &project,
+[[nodiscard]] land::PartsWeighting weight_table_catchment(const project::Project &project,
                                                           const TableCatchment &catchment,
                                                           const std::vector<TableLandPart> &parts,
                                                           const land::LandTables &tables);

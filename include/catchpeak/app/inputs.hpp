@@ -1,8 +1,8 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/land/tables.hpp"
+#include "catchpeak/project/project.hpp"
 
 #include <filesystem>
 #include <map>
@@ -81,6 +81,6 @@ struct AnnualMaximumSeries {
 /// the tables parse, every return period is in the IDF, every catchment has C for the Rational
 /// Method and CN for the SCS methods, overrides name existing design points. Adds every
 /// problem found to `problems`.
-void check_project(const Project &project, Problems &problems);
+void check_project(const project::Project &project, project::Problems &problems);
 
 } // namespace catchpeak::app

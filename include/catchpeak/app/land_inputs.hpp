@@ -2,10 +2,10 @@
 #pragma once
 
 #include "catchpeak/app/point_hydrology.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/io/class_raster.hpp"
 #include "catchpeak/io/feature.hpp"
 #include "catchpeak/land/tables.hpp"
+#include "catchpeak/project/project.hpp"
 #include "catchpeak/report/results.hpp"
 
 #include <cstdint>
@@ -25,7 +25,7 @@ enum class LandInput { land_cover, soils };
 /// A code table of the project (`land_cover_codes`, `soil_group_codes`): a CSV with columns
 /// `code` (an integer) and `name_column` ("class" or "soil_group"). Throws InputError naming the
 /// file and line for a code that is not an integer, a code listed twice or an empty name.
-[[nodiscard]] std::map<std::int64_t, std::string> read_code_table(const InputPath &table,
+[[nodiscard]] std::map<std::int64_t, std::string> read_code_table(const project::InputPath &table,
                                                                   const std::string &name_column);
 
 /// Reads the land-cover or soils input of a project, in the DEM's CRS `crs_wkt`.
@@ -41,13 +41,13 @@ enum class LandInput { land_cover, soils };
 ///   covered. Refused: a raster without CRS, a code in the window that the names do not
 ///   cover (naming the code, the raster and the table), a raster with neither a code table
 ///   nor names of its own, and (soils) a name that is not a hydrologic soil group.
-[[nodiscard]] io::VectorLayer read_land_input(const Project &project, LandInput which,
+[[nodiscard]] io::VectorLayer read_land_input(const project::Project &project, LandInput which,
                                               const std::string &crs_wkt, const io::Extent &window,
                                               bool polygons = true);
 
 /// The land tables of a project: the shipped tables (config/land/), with the project's own
 /// `c_table` and `cn_table` in their place when given.
-[[nodiscard]] land::LandTables project_land_tables(const Project &project);
+[[nodiscard]] land::LandTables project_land_tables(const project::Project &project);
 
 /// The parts of a land weighting as the area-weighted runoff alternative of the SCS methods
 /// takes them ("<class>, soil group <group>", area, CN).

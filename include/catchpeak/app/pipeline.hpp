@@ -4,9 +4,9 @@
 #include "catchpeak/app/catchment_land.hpp"
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/io/gpkg.hpp"
+#include "catchpeak/project/project.hpp"
 #include "catchpeak/rain/idf.hpp"
 #include "catchpeak/report/results.hpp"
 
@@ -31,7 +31,7 @@ struct RunOptions {
 /// (load_hydrology_tables). A catchment with land parts (`land_parts`, checked with
 /// check_land_parts) takes its C, CN and impervious share from their weighting with the
 /// project's land tables; the others take `c` and `cn` from the table.
-[[nodiscard]] report::RunResults compute_from_table(const Project &project,
+[[nodiscard]] report::RunResults compute_from_table(const project::Project &project,
                                                     const std::vector<TableCatchment> &catchments,
                                                     const HydrologyTables &tables,
                                                     const LandPartsById &land_parts = {});
@@ -39,8 +39,8 @@ struct RunOptions {
 /// Computes a whole project: checks it, reads its inputs, computes every design point.
 /// Throws InputError listing every problem found by the check.
 /// For a DEM project, `gpkg_layers` (when not null) receives the layers of catchments.gpkg.
-[[nodiscard]] report::RunResults compute_project(const Project &project, std::ostream &progress,
-                                                 bool quiet,
+[[nodiscard]] report::RunResults compute_project(const project::Project &project,
+                                                 std::ostream &progress, bool quiet,
                                                  std::vector<io::OutLayer> *gpkg_layers = nullptr);
 
 /// The table printed at the end of a run, in the sheet's units.
@@ -60,8 +60,5 @@ void check_project_file(const std::filesystem::path &project_file, std::ostream 
 /// `catchpeak init DIR`: writes the commented project template as DIR/project.toml. Refuses to
 /// overwrite an existing file (InputError). Returns the path written.
 std::filesystem::path init_project(const std::filesystem::path &dir);
-
-/// The commented project template (config/project-template.toml, built into the program).
-[[nodiscard]] std::string_view project_template();
 
 } // namespace catchpeak::app

@@ -2,9 +2,9 @@
 #pragma once
 
 #include "catchpeak/app/inputs.hpp"
-#include "catchpeak/app/project.hpp"
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/hydro/tables.hpp"
+#include "catchpeak/project/project.hpp"
 #include "catchpeak/rain/design_storm.hpp"
 #include "catchpeak/rain/idf.hpp"
 #include "catchpeak/report/results.hpp"
@@ -77,24 +77,25 @@ struct LoadedTables {
     /// Pointers into this object; valid while it lives and is not moved.
     [[nodiscard]] HydrologyTables view() const;
 };
-[[nodiscard]] LoadedTables load_hydrology_tables(const Project &project,
+[[nodiscard]] LoadedTables load_hydrology_tables(const project::Project &project,
                                                  const std::filesystem::path &config);
 
 /// Adds a problem when the project's alternating-block storm needs durations the IDF does not
 /// cover: blocks from storm_time_step_min to storm_duration_min (a table's durations, or a
 /// formula's fitted range; a formula without one is taken to hold everywhere). The IDF is not
 /// extrapolated. Nothing for the NRCS 24-hour storm.
-void check_storm_idf(const Project &project, const rain::Idf &idf, Problems &problems);
+void check_storm_idf(const project::Project &project, const rain::Idf &idf,
+                     project::Problems &problems);
 
 /// Adds the published sources the design point's methods used to `refs`, each once (by key).
-void add_method_references(const Project &project, const report::DesignPointResult &dp,
+void add_method_references(const project::Project &project, const report::DesignPointResult &dp,
                            std::vector<report::Reference> &refs);
 
 /// Computes tc and the design peaks of one design point with the project's methods (and the
 /// point's overrides in [[methods.point]]). Appends the calculation lines to dp.lines, numbers
 /// them with dp.id, and sets dp.tc_min, dp.tc_method and dp.peaks (each with the id of the line
 /// that gives its Q). Throws InputError when an input a chosen method needs is missing.
-void compute_point_hydrology(const Project &project, const PointInputs &in,
+void compute_point_hydrology(const project::Project &project, const PointInputs &in,
                              const HydrologyTables &tables, report::DesignPointResult &dp);
 
 } // namespace catchpeak::app

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/core/option_table.hpp"
+
 #include <string_view>
 
 /// Units. Everything inside catchpeak is SI: m, m2, s, mm, m3/s (and min for durations where a
@@ -13,6 +15,12 @@ namespace catchpeak::units {
 
 /// Unit system of a project's calculation sheet.
 enum class System { si, us_customary };
+
+/// The texts of [project] units.
+inline constexpr OptionTable<System, 2> system_options{{
+    {"SI", System::si},
+    {"US", System::us_customary},
+}};
 
 [[nodiscard]] std::string_view to_string(System s) noexcept;
 /// Parses "SI" or "US" (case-insensitive; also "us_customary"). Throws InputError otherwise.

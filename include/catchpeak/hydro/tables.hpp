@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/core/option_table.hpp"
+
 #include <string>
 #include <vector>
 
@@ -32,6 +34,14 @@ struct FrequencyFactorTable {
 
 /// NRCS design storm type, as used by the TR-55 graphical peak discharge method.
 enum class StormType { type_i, type_ia, type_ii, type_iii };
+
+/// The texts of the storm types: in the project file, the tables and the storm files' names.
+inline constexpr OptionTable<StormType, 4> storm_type_options{{
+    {"I", StormType::type_i},
+    {"IA", StormType::type_ia},
+    {"II", StormType::type_ii},
+    {"III", StormType::type_iii},
+}};
 
 /// "I", "IA", "II", "III".
 [[nodiscard]] std::string to_string(StormType t);

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/csv.hpp"
+#include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/rain/design_storm.hpp"
 
 #include <filesystem>
@@ -27,10 +28,9 @@ namespace catchpeak::io {
 
 [[nodiscard]] rain::StormDistribution read_storm_table(const std::filesystem::path &path);
 
-/// The file of an NRCS 24-hour distribution in the config folder: `type` is "I", "IA", "II"
-/// or "III" (case-insensitive), the file config/storms/nrcs_type_<type>.csv. Throws InputError
-/// for another type, listing the accepted ones.
+/// The file of an NRCS 24-hour distribution in the config folder:
+/// config/storms/nrcs_type_<type>.csv, the type's text in lower case ("i", "ia", "ii", "iii").
 [[nodiscard]] std::filesystem::path nrcs_storm_file(const std::filesystem::path &config_dir,
-                                                    std::string_view type);
+                                                    hydro::StormType type);
 
 } // namespace catchpeak::io

@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/methods.hpp"
 #include "catchpeak/core/units.hpp"
 
 #include <cstdint>
@@ -15,6 +16,15 @@
 /// the member names); `report` converts to the sheet's unit system when it renders.
 namespace catchpeak::report {
 
+/// Page size of the calculation sheet.
+enum class PageSize { letter, a4 };
+
+/// The texts of [project] page_size (and of results.json).
+inline constexpr OptionTable<PageSize, 2> page_size_options{{
+    {"letter", PageSize::letter},
+    {"a4", PageSize::a4},
+}};
+
 /// Project information from the project file's [project] table.
 struct ProjectInfo {
     std::string name;
@@ -25,7 +35,7 @@ struct ProjectInfo {
     std::string checked_by;
     std::string revision;
     units::System units = units::System::si;
-    std::string page_size; ///< "letter" or "a4"
+    std::optional<PageSize> page_size; ///< unset: by the unit system (page_size_for)
 };
 
 /// One input file and its SHA-256, for the stamp and for recheck.
@@ -115,7 +125,7 @@ struct Hydrograph {
 /// The peak flow of one method for one return period.
 struct Peak {
     double return_period_yr = 0.0;
-    std::string method; ///< "rational", "tr55_graphical", "scs_unit_hydrograph"
+    PeakMethod method = PeakMethod::rational;
     double q_m3_s = 0.0;
     /// Id of the calculation line that gives q (e.g. "DP3-L18"), for summary.csv and the
     /// summary page; empty when the runner did not record it.
@@ -136,7 +146,7 @@ struct DesignPointResult {
     CatchmentFigures catchment;
     LandWeighting land;
     double tc_min = 0.0;
-    std::string tc_method;
+    std::optional<TcMethod> tc_method; ///< unset until the tc is computed
     std::vector<Peak> peaks;
     /// The numbered calculation lines of this design point (ids "<id>-L<n>"), warnings
     /// included, in the order they appear on the sheet.

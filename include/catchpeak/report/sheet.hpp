@@ -20,10 +20,8 @@ namespace catchpeak::report {
 
 inline constexpr std::string_view sheet_file_name = "calculation-sheet.pdf";
 
-enum class PageSize { letter, a4 };
-
-/// The page size of a project: ProjectInfo::page_size ("letter" or "a4", any case) when set,
-/// else Letter for a US customary sheet and A4 for an SI sheet. Throws InputError otherwise.
+/// The page size of a project: ProjectInfo::page_size when set, else Letter for a US customary
+/// sheet and A4 for an SI sheet.
 [[nodiscard]] PageSize page_size_for(const ProjectInfo &project);
 
 /// The caution notes printed on the cover when RunResults::caution_notes is empty: the methods'

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/core/methods.hpp"
 #include "catchpeak/core/units.hpp"
 
 #include <string>
@@ -32,10 +33,9 @@ struct SheetValue {
 [[nodiscard]] std::string_view area_key_unit(units::System system) noexcept;
 [[nodiscard]] std::string_view flow_key_unit(units::System system) noexcept;
 
-/// Name of a peak flow method for the sheet: "rational" -> "Rational Method",
-/// "tr55_graphical" -> "TR-55 graphical peak", "scs_unit_hydrograph" -> "SCS unit hydrograph";
-/// any other name is shown as given.
-[[nodiscard]] std::string method_title(std::string_view method);
+/// Name of a peak flow method for the sheet: "Rational Method", "TR-55 graphical peak",
+/// "SCS unit hydrograph".
+[[nodiscard]] std::string method_title(PeakMethod method);
 
 /// A return period for the sheet: 10 -> "10-yr", 2.33 -> "2.33-yr".
 [[nodiscard]] std::string return_period_title(double return_period_yr);

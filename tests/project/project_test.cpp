@@ -1,14 +1,13 @@
 // SPDX-License-Identifier: MIT
-#include "catchpeak/app/project.hpp"
+#include "catchpeak/project/project.hpp"
 
-#include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
 
 #include <gtest/gtest.h>
 
 #include <string>
 
-using namespace catchpeak::app;
+using namespace catchpeak::project;
 
 namespace {
 
@@ -90,19 +89,19 @@ folder = "../out"
     EXPECT_TRUE(problems.empty()) << all(problems);
     EXPECT_EQ(p.info.number, "24-117");
     EXPECT_EQ(p.info.units, catchpeak::units::System::us_customary);
-    EXPECT_EQ(p.info.page_size, "letter");
+    EXPECT_EQ(p.info.page_size, catchpeak::report::PageSize::letter);
     EXPECT_EQ(p.inputs.id_field, "name");
     EXPECT_EQ(p.inputs.dem->line, 8u);
     EXPECT_EQ(p.rainfall.return_periods_yr, (std::vector<double>{2, 25, 100}));
     // 1 in = 25.4 mm exactly (NIST SP 811): 3.0 in = 76.2 mm.
     EXPECT_DOUBLE_EQ(p.rainfall.depth_24h_mm.at(2.0), 76.2);
-    EXPECT_EQ(p.methods.tc_method, "nrcs_lag");
+    EXPECT_EQ(p.methods.tc_method, catchpeak::TcMethod::nrcs_lag);
     ASSERT_EQ(p.methods.points.size(), 1u);
     EXPECT_EQ(p.methods.points[0].tc_min, 22.5);
     EXPECT_EQ(p.settings.snap_radius_m, 15.0);
     EXPECT_EQ(p.output_dir, std::filesystem::path("dir/../out"));
-    EXPECT_TRUE(p.uses_method("tr55_graphical"));
-    EXPECT_FALSE(p.uses_method("scs_unit_hydrograph"));
+    EXPECT_TRUE(p.uses_method(catchpeak::PeakMethod::tr55_graphical));
+    EXPECT_FALSE(p.uses_method(catchpeak::PeakMethod::scs_unit_hydrograph));
 }
 
 TEST(Project, CollectsEveryProblemWithItsLine) {

@@ -1,9 +1,10 @@
 // SPDX-License-Identifier: MIT
-#include "catchpeak/app/project.hpp"
+#include "catchpeak/project/project.hpp"
 
 #include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/core/limits.hpp"
 
 #include <fmt/format.h>
 #include <toml++/toml.h>
@@ -13,22 +14,24 @@
 #include <set>
 #include <utility>
 
-namespace catchpeak::app {
+namespace catchpeak::project {
 
 namespace fs = std::filesystem;
 
-const std::vector<std::string> &known_tc_methods() {
-    static const std::vector<std::string> m = {"kirpich", "nrcs_lag", "tr55_segmental",
-                                               "kerby_kirpich", "given"};
-    return m;
+namespace {
+
+/// "\"a\", \"b\" or \"c\"".
+std::string quoted_or_list(const std::vector<std::string> &items) {
+    std::string s;
+    for (std::size_t i = 0; i < items.size(); ++i) {
+        s += (i == 0 ? "" : (i + 1 == items.size() ? " or " : ", ")) + ("\"" + items[i] + "\"");
+    }
+    return s;
 }
 
-const std::vector<std::string> &known_peak_methods() {
-    static const std::vector<std::string> m = {"rational", "tr55_graphical", "scs_unit_hydrograph"};
-    return m;
-}
+} // namespace
 
-bool Project::uses_method(std::string_view method) const {
+bool Project::uses_method(PeakMethod method) const {
     if (std::find(methods.peak_methods.begin(), methods.peak_methods.end(), method) !=
         methods.peak_methods.end()) {
         return true;
@@ -39,10 +42,18 @@ bool Project::uses_method(std::string_view method) const {
     });
 }
 
-bool Project::uses_tc_method(std::string_view method) const {
+bool Project::uses_tc_method(TcMethod method) const {
     return methods.tc_method == method ||
            std::any_of(methods.points.begin(), methods.points.end(),
                        [&](const auto &o) { return o.tc_method && *o.tc_method == method; });
+}
+
+hydro::StormType Rainfall::required_storm_type(const std::string &file) const {
+    if (!storm_type) {
+        throw_input_error(file + ": [rainfall] storm_type", "no storm type is given",
+                          quoted_or_list(option_keys(hydro::storm_type_options)));
+    }
+    return *storm_type;
 }
 
 void Problems::throw_if_any() const {
@@ -167,21 +178,24 @@ class TableReader {
         return n->value<std::string>();
     }
 
-    std::optional<std::string> choice(std::string_view key, const std::vector<std::string> &allowed,
-                                      bool required = false) {
+    /// The value of `key` from the option's table; a text not in it is a problem.
+    template <class E, std::size_t N>
+    std::optional<E> choice(std::string_view key, const OptionTable<E, N> &table,
+                            bool required = false) {
+        const std::vector<std::string> allowed = option_keys(table);
         auto v = text(key, required, "one of " + quoted_list(allowed));
         if (!v) {
-            return v;
+            return std::nullopt;
         }
-        if (std::find(allowed.begin(), allowed.end(), *v) == allowed.end()) {
+        const auto value = find_option(table, *v);
+        if (!value) {
             const std::string hint = closest_match(*v, allowed);
             problem(*get(key), key,
                     fmt::format("'{}' is not known{}", *v,
                                 hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
                     "one of " + quoted_list(allowed));
-            return std::nullopt;
         }
-        return v;
+        return value;
     }
 
     std::optional<double> number(std::string_view key, double min, double max,
@@ -191,6 +205,11 @@ class TableReader {
             return std::nullopt;
         }
         return number_of(*n, key, min, max, min_inclusive);
+    }
+
+    /// A number in one of the shared ranges (core/limits.hpp; their upper bounds are inclusive).
+    std::optional<double> number(std::string_view key, const limits::Range &range) {
+        return number(key, range.min, range.max, range.min_inclusive);
     }
 
     std::optional<double> number_of(const toml::node &n, std::string_view key, double min,
@@ -289,9 +308,11 @@ const toml::table *sub_table(TableReader &root, std::string_view key) {
     return n->as_table();
 }
 
-std::vector<std::string> method_list(TableReader &t, std::string_view key,
-                                     const std::vector<std::string> &allowed, bool &found) {
-    std::vector<std::string> out;
+template <class E, std::size_t N>
+std::vector<E> method_list(TableReader &t, std::string_view key, const OptionTable<E, N> &table,
+                           bool &found) {
+    const std::vector<std::string> allowed = option_keys(table);
+    std::vector<E> out;
     found = false;
     const toml::node *n = t.get(key);
     if (n == nullptr) {
@@ -315,7 +336,8 @@ std::vector<std::string> method_list(TableReader &t, std::string_view key,
             continue;
         }
         const std::string v = *e.value<std::string>();
-        if (std::find(allowed.begin(), allowed.end(), v) == allowed.end()) {
+        const auto value = find_option(table, v);
+        if (!value) {
             const std::string hint = closest_match(v, allowed);
             t.problem(e, key,
                       fmt::format("'{}' is not known{}", v,
@@ -323,7 +345,7 @@ std::vector<std::string> method_list(TableReader &t, std::string_view key,
                       accepted);
             continue;
         }
-        out.push_back(v);
+        out.push_back(*value);
     }
     return out;
 }
@@ -341,11 +363,12 @@ void read_project_info(TableReader &t, report::ProjectInfo &info) {
     info.prepared_by = t.text("prepared_by").value_or("");
     info.checked_by = t.text("checked_by").value_or("");
     info.revision = t.text("revision").value_or("0");
-    if (auto u = t.choice("units", {"SI", "US"})) {
-        info.units = units::parse_system(*u, t.file());
+    if (auto u = t.choice("units", units::system_options)) {
+        info.units = *u;
     }
-    info.page_size = t.choice("page_size", {"letter", "a4"})
-                         .value_or(info.units == units::System::si ? "a4" : "letter");
+    info.page_size = t.choice("page_size", report::page_size_options)
+                         .value_or(info.units == units::System::si ? report::PageSize::a4
+                                                                   : report::PageSize::letter);
     t.finish();
 }
 
@@ -399,7 +422,7 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
 void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     r.idf = t.path("idf", dir);
     r.annual_maximum_series = t.path("annual_maximum_series", dir);
-    if (auto d = t.choice("ams_distribution", {"gumbel", "gev"})) {
+    if (auto d = t.choice("ams_distribution", ams_distribution_options)) {
         r.ams_distribution = *d;
     }
     r.ams_distribution_line = t.line_of("ams_distribution");
@@ -427,14 +450,12 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     } else {
         t.missing("return_periods_yr", "a list of return periods in years, e.g. [2, 10, 100]");
     }
-    if (auto s = t.choice("storm_type", {"I", "IA", "II", "III"})) {
-        r.storm_type = *s;
-    }
+    r.storm_type = t.choice("storm_type", hydro::storm_type_options);
     r.design_storm_line = t.line_of("design_storm");
-    if (auto d = t.choice("design_storm", {"nrcs_24h", "alternating_block"})) {
+    if (auto d = t.choice("design_storm", design_storm_options)) {
         r.design_storm = *d;
     } else if (r.design_storm_line != 0) {
-        r.design_storm.clear(); // reported; no rule of either storm applies
+        r.design_storm.reset(); // reported; no rule of either storm applies
     }
     r.storm_duration_min = t.number("storm_duration_min", 0.0, 1440.0, false).value_or(0.0);
     r.storm_duration_line = t.line_of("storm_duration_min");
@@ -500,7 +521,7 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
 void read_segmental(TableReader &t, SegmentalParameters &s) {
     s.sheet_manning_n = t.number("sheet_manning_n", 0.0, 1.0, false).value_or(s.sheet_manning_n);
     s.shallow_surface =
-        t.choice("shallow_surface", {"unpaved", "paved"}).value_or(s.shallow_surface);
+        t.choice("shallow_surface", shallow_surface_options).value_or(s.shallow_surface);
     if (auto v = t.number("shallow_length_m", 0.0, 100000.0)) {
         s.shallow_length_m = *v;
     }
@@ -517,21 +538,23 @@ void read_kerby(TableReader &t, KerbyParameters &k) {
 }
 
 void read_methods(TableReader &t, const Project &p, Methods &m, Problems &problems) {
-    if (auto v = t.choice("tc", known_tc_methods())) {
+    if (auto v = t.choice("tc", tc_method_options)) {
         m.tc_method = *v;
     }
-    if (const auto *seg = sub_table(t, "tr55_segmental")) {
-        TableReader r(*seg, "methods.tr55_segmental", t.file(), problems);
+    const std::string segmental(key_of(TcMethod::tr55_segmental));
+    const std::string kerby(key_of(TcMethod::kerby_kirpich));
+    if (const auto *seg = sub_table(t, segmental)) {
+        TableReader r(*seg, "methods." + segmental, t.file(), problems);
         read_segmental(r, m.tr55_segmental);
         r.finish();
     }
-    if (const auto *kk = sub_table(t, "kerby_kirpich")) {
-        TableReader r(*kk, "methods.kerby_kirpich", t.file(), problems);
+    if (const auto *kk = sub_table(t, kerby)) {
+        TableReader r(*kk, "methods." + kerby, t.file(), problems);
         read_kerby(r, m.kerby_kirpich);
         r.finish();
     }
     bool found = false;
-    auto peaks = method_list(t, "peak", known_peak_methods(), found);
+    auto peaks = method_list(t, "peak", peak_method_options, found);
     if (found) {
         m.peak_methods = peaks;
     }
@@ -553,20 +576,22 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                         fmt::format("design point '{}' has two [[methods.point]] tables", o.id),
                         "one table per design point");
                 }
-                o.tc_method = pt.choice("tc", known_tc_methods());
+                o.tc_method = pt.choice("tc", tc_method_options);
                 bool f = false;
-                auto pk = method_list(pt, "peak", known_peak_methods(), f);
+                auto pk = method_list(pt, "peak", peak_method_options, f);
                 if (f) {
                     o.peak_methods = pk;
                 }
                 o.tc_min = pt.number("tc_min", 0.0, 10000.0, false);
-                o.pond_swamp_percent = pt.number("pond_swamp_percent", 0.0, 100.0);
+                o.pond_swamp_percent = pt.number("pond_swamp_percent", limits::percent);
                 o.tr55_segmental = m.tr55_segmental;
                 read_segmental(pt, o.tr55_segmental);
                 o.kerby_kirpich = m.kerby_kirpich;
                 read_kerby(pt, o.kerby_kirpich);
-                if (o.tc_method == std::string("given") && !o.tc_min) {
-                    pt.missing("tc_min", "a time of concentration in minutes with tc = \"given\"");
+                if (o.tc_method == TcMethod::given && !o.tc_min) {
+                    pt.missing("tc_min", fmt::format("a time of concentration in minutes with tc = "
+                                                     "\"{}\"",
+                                                     key_of(TcMethod::given)));
                 }
                 pt.finish();
                 m.points.push_back(std::move(o));
@@ -574,11 +599,12 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
         }
     }
     t.finish();
-    if (m.tc_method == "given") {
-        t.problems().add(
-            input_message(t.where_table() + ": [methods] tc",
-                          "\"given\" needs a tc per design point and cannot be the project default",
-                          "use it in [[methods.point]] with 'tc_min'"));
+    if (m.tc_method == TcMethod::given) {
+        t.problems().add(input_message(
+            t.where_table() + ": [methods] tc",
+            fmt::format("\"{}\" needs a tc per design point and cannot be the project default",
+                        key_of(TcMethod::given)),
+            "use it in [[methods.point]] with 'tc_min'"));
     }
     (void)p;
 }
@@ -600,9 +626,11 @@ void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {
         }
     }
     s.dual_soil_group =
-        t.choice("dual_soil_group", {"drained", "undrained"}).value_or(s.dual_soil_group);
-    s.uncovered_land = t.text("uncovered_land").value_or(s.uncovered_land);
-    s.pond_swamp_percent = t.number("pond_swamp_percent", 0.0, 100.0);
+        t.choice("dual_soil_group", dual_soil_group_options).value_or(s.dual_soil_group);
+    if (auto u = t.text("uncovered_land")) {
+        s.uncovered_land = parse_uncovered_land(*u);
+    }
+    s.pond_swamp_percent = t.number("pond_swamp_percent", limits::percent);
     s.pond_swamp_line = t.line_of("pond_swamp_percent");
     if (auto step = t.number("storm_time_step_min", 0.0, 60.0, false)) {
         const double steps = 1440.0 / *step;
@@ -627,11 +655,12 @@ void check_design_storm(const Project &p, Problems &problems) {
     const std::string name = p.file.string();
     const Rainfall &r = p.rainfall;
     if (!r.alternating_block()) {
-        if (r.design_storm == "nrcs_24h" && r.storm_duration_line != 0) {
+        if (r.design_storm == DesignStorm::nrcs_24h && r.storm_duration_line != 0) {
             problems.add(input_message(
                 fmt::format("{}:{}: [rainfall] storm_duration_min", name, r.storm_duration_line),
                 "a storm duration is given but the design storm is the NRCS 24-hour storm",
-                "'storm_duration_min' only with design_storm = \"alternating_block\""));
+                fmt::format("'storm_duration_min' only with design_storm = \"{}\"",
+                            option_key(design_storm_options, DesignStorm::alternating_block))));
         }
         return;
     }
@@ -666,14 +695,17 @@ void check_design_storm(const Project &p, Problems &problems) {
                                    "is given",
                                    "idf = \"<file>.csv\" covering the storm duration"));
     }
-    if (p.uses_method("tr55_graphical")) {
+    if (p.uses_method(PeakMethod::tr55_graphical)) {
         problems.add(input_message(
             at,
             "the TR-55 graphical method cannot use the alternating-block storm: its unit peak "
             "discharge table was derived for the NRCS 24-hour rainfall distributions (Type I, "
             "IA, II, III) only (TR-55 1986, ch. 4)",
-            "design_storm = \"nrcs_24h\" with tr55_graphical, or the peak methods \"rational\" "
-            "and \"scs_unit_hydrograph\" with the alternating-block storm"));
+            fmt::format("design_storm = \"{}\" with {}, or the peak methods \"{}\" and \"{}\" with "
+                        "the alternating-block storm",
+                        option_key(design_storm_options, DesignStorm::nrcs_24h),
+                        key_of(PeakMethod::tr55_graphical), key_of(PeakMethod::rational),
+                        key_of(PeakMethod::scs_unit_hydrograph))));
     }
 }
 
@@ -752,9 +784,9 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
     // The NRCS 24-hour storm (its type and 24-hour depths) is needed by the TR-55 graphical
     // method always, and by the unit hydrograph unless the storm is the alternating block.
     const bool nrcs_storm =
-        p.uses_method("tr55_graphical") ||
-        (p.uses_method("scs_unit_hydrograph") && !p.rainfall.alternating_block());
-    if (p.uses_method("rational") && !p.rainfall.idf) {
+        p.uses_method(PeakMethod::tr55_graphical) ||
+        (p.uses_method(PeakMethod::scs_unit_hydrograph) && !p.rainfall.alternating_block());
+    if (p.uses_method(PeakMethod::rational) && !p.rainfall.idf) {
         problems.add(input_message(name + ": [rainfall] idf",
                                    "the Rational Method needs an IDF table, none is given",
                                    "idf = \"<file>.csv\""));
@@ -765,17 +797,17 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
             "the SCS Curve Number methods need 24-hour depths, none are given",
             "depths_24h_mm or depths_24h_in, one per return period, or annual_maximum_series"));
     }
-    if (p.uses_tc_method("tr55_segmental") && !p.rainfall.annual_maximum_series &&
+    if (p.uses_tc_method(TcMethod::tr55_segmental) && !p.rainfall.annual_maximum_series &&
         p.rainfall.depth_24h_mm.count(2.0) == 0) {
         problems.add(input_message(
-            name + ": [methods] tc = \"tr55_segmental\"",
+            fmt::format("{}: [methods] tc = \"{}\"", name, key_of(TcMethod::tr55_segmental)),
             "TR-55 sheet flow needs the 2-year 24-hour rainfall depth P2, none is given",
             "a \"2\" entry in depths_24h_mm or depths_24h_in, or annual_maximum_series"));
     }
-    if (nrcs_storm && p.rainfall.storm_type.empty()) {
+    if (nrcs_storm && !p.rainfall.storm_type) {
         problems.add(input_message(name + ": [rainfall] storm_type",
                                    "the SCS Curve Number methods need a storm type",
-                                   "\"I\", \"IA\", \"II\" or \"III\""));
+                                   quoted_or_list(option_keys(hydro::storm_type_options))));
     }
     if (nrcs_storm && !p.rainfall.depth_24h_mm.empty()) {
         for (double rp : p.rainfall.return_periods_yr) {
@@ -801,4 +833,4 @@ Project load_project(const fs::path &file) {
     return p;
 }
 
-} // namespace catchpeak::app
+} // namespace catchpeak::project

@@ -1,6 +1,10 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/core/methods.hpp"
+#include "catchpeak/hydro/tables.hpp"
+#include "catchpeak/hydro/tc.hpp"
+#include "catchpeak/project/options.hpp"
 #include "catchpeak/report/results.hpp"
 
 #include <filesystem>
@@ -12,7 +16,7 @@
 
 /// The project file (TOML): what a run computes, from which inputs, with which methods and
 /// settings. config/project-template.toml documents every key.
-namespace catchpeak::app {
+namespace catchpeak::project {
 
 /// One input file: the path as written in the project file, and resolved against the project
 /// file's folder.
@@ -49,7 +53,7 @@ struct Inputs {
 struct Rainfall {
     std::optional<InputPath> idf;
     std::vector<double> return_periods_yr;
-    std::string storm_type; ///< "I", "IA", "II", "III"; empty when no SCS method is used
+    std::optional<hydro::StormType> storm_type; ///< unset when not given
     /// 24-hour design depth per return period, mm (given in mm or in inches in the file).
     std::map<double, double> depth_24h_mm;
     std::string depth_24h_key;      ///< "depths_24h_mm" or "depths_24h_in" as written; "" if none
@@ -57,29 +61,32 @@ struct Rainfall {
     /// Annual maximum 24-hour depths (CSV: year, depth_24h_mm or depth_24h_in); when given,
     /// the 24-hour design depth of every return period is fitted to it.
     std::optional<InputPath> annual_maximum_series;
-    std::string ams_distribution = "gumbel"; ///< "gumbel" (moments) or "gev" (L-moments)
-    std::size_t ams_distribution_line = 0;   ///< line of the key, 0 when not given
-    /// Design storm of the SCS unit hydrograph: "nrcs_24h" (the NRCS 24-hour distribution of
-    /// storm_type with the 24-hour depth) or "alternating_block" (from the IDF, lasting
-    /// storm_duration_min, in blocks of [settings] storm_time_step_min).
-    std::string design_storm = "nrcs_24h";
+    AmsDistribution ams_distribution = AmsDistribution::gumbel;
+    std::size_t ams_distribution_line = 0; ///< line of the key, 0 when not given
+    /// Design storm of the SCS unit hydrograph (the alternating block in blocks of [settings]
+    /// storm_time_step_min); unset when the key names no known storm (reported already).
+    std::optional<DesignStorm> design_storm = DesignStorm::nrcs_24h;
     std::size_t design_storm_line = 0;   ///< line of the key, 0 when not given
     double storm_duration_min = 0.0;     ///< alternating_block only; 0 when not given
     std::size_t storm_duration_line = 0; ///< line of the key, 0 when not given
 
+    /// The storm type; throws InputError naming `file` when none is given (the project's
+    /// checks refuse that already when a method needs it).
+    [[nodiscard]] hydro::StormType required_storm_type(const std::string &file) const;
+
     [[nodiscard]] bool alternating_block() const noexcept {
-        return design_storm == "alternating_block";
+        return design_storm == DesignStorm::alternating_block;
     }
 };
 
-/// Choices of the engineer for tc = "tr55_segmental" ([methods.tr55_segmental], and per point
+/// Choices of the engineer for the TR-55 segmental tc ([methods.tr55_segmental], and per point
 /// in [[methods.point]]). The longest flow path is split: the first sheet_flow_max_length_m is
 /// sheet flow, the next shallow_length_m shallow concentrated flow, the rest channel flow.
 /// Defaults: sheet n 0.24, dense grasses (TR-55 Table 3-1); channel n 0.05 and the channel
 /// section a = 27 ft2, pw = 28.2 ft of TR-55 Example 3-1.
 struct SegmentalParameters {
     double sheet_manning_n = 0.24;
-    std::string shallow_surface = "unpaved"; ///< "unpaved" or "paved"
+    hydro::ShallowSurface shallow_surface = hydro::ShallowSurface::unpaved;
     /// Length of shallow concentrated flow after the sheet flow, m; unset: the whole rest of
     /// the flow path (a warning line says so).
     std::optional<double> shallow_length_m;
@@ -88,7 +95,7 @@ struct SegmentalParameters {
     double channel_wetted_perimeter_m = 28.2 * 0.3048;    ///< 28.2 ft
 };
 
-/// Choices for tc = "kerby_kirpich" ([methods.kerby_kirpich], and per point): Kerby overland
+/// Choices for the Kerby-Kirpich tc ([methods.kerby_kirpich], and per point): Kerby overland
 /// flow over the first sheet_flow_max_length_m of the flow path, Kirpich for the rest.
 /// Default retardance N 0.40, average grass (Kerby's table as given in the TxDOT Hydraulic
 /// Design Manual ch. 4).
@@ -100,8 +107,8 @@ struct KerbyParameters {
 struct PointOverride {
     std::string id;
     std::size_t line = 0;
-    std::optional<std::string> tc_method;
-    std::optional<std::vector<std::string>> peak_methods;
+    std::optional<TcMethod> tc_method;
+    std::optional<std::vector<PeakMethod>> peak_methods;
     std::optional<double> tc_min;             ///< a tc given by the engineer instead of computed
     std::optional<double> pond_swamp_percent; ///< overrides [settings] pond_swamp_percent
     SegmentalParameters tr55_segmental;       ///< the project's, with this point's keys over them
@@ -110,8 +117,8 @@ struct PointOverride {
 
 /// [methods]
 struct Methods {
-    std::string tc_method = "kirpich";
-    std::vector<std::string> peak_methods{"rational"};
+    TcMethod tc_method = TcMethod::kirpich;
+    std::vector<PeakMethod> peak_methods{PeakMethod::rational};
     SegmentalParameters tr55_segmental;
     KerbyParameters kerby_kirpich;
     std::vector<PointOverride> points;
@@ -124,8 +131,8 @@ struct Settings {
     double rational_area_limit_ha = 80.0;   ///< common practice, no source (REFERENCES.md 4)
     double sheet_flow_max_length_m = 30.48; ///< 100 ft, NEH 630 ch. 15 (REFERENCES.md 9)
     double initial_abstraction_ratio = 0.2; ///< Ia/S: 0.2 (TR-55) or 0.05 (Hawkins 2002)
-    std::string dual_soil_group = "undrained";
-    std::string uncovered_land = "refuse"; ///< "refuse" or the name of a land-cover class
+    DualSoilGroup dual_soil_group = DualSoilGroup::undrained;
+    UncoveredLand uncovered_land = RefuseUncovered{};
     /// Share of the catchment in ponds and swamps, %, for the TR-55 graphical method's Fp;
     /// unset: 0 % (Fp = 1), said in a note.
     std::optional<double> pond_swamp_percent;
@@ -147,14 +154,11 @@ struct Project {
     std::filesystem::path output_dir; ///< resolved against the project file's folder
 
     [[nodiscard]] bool uses_table() const noexcept { return inputs.catchment_table.has_value(); }
-    [[nodiscard]] bool uses_method(std::string_view method) const;
+    /// True when the project's peak methods or a point's include `method`.
+    [[nodiscard]] bool uses_method(PeakMethod method) const;
     /// True when the project's tc method or a point's is `method`.
-    [[nodiscard]] bool uses_tc_method(std::string_view method) const;
+    [[nodiscard]] bool uses_tc_method(TcMethod method) const;
 };
-
-/// The tc and peak methods a project may name.
-[[nodiscard]] const std::vector<std::string> &known_tc_methods();
-[[nodiscard]] const std::vector<std::string> &known_peak_methods();
 
 /// A list of problems found in the inputs, each "<file>:<line>: <what>; accepted: <...>".
 /// Commands collect every problem first and report them all at once.
@@ -177,6 +181,9 @@ class Problems {
 [[nodiscard]] Project parse_project(std::string_view text, const std::filesystem::path &file,
                                     Problems &problems);
 
+/// The commented project template (config/project-template.toml, built into the program).
+[[nodiscard]] std::string_view project_template();
+
 /// Reads and parses a project file; throws InputError listing every problem.
 [[nodiscard]] Project load_project(const std::filesystem::path &file);
 
@@ -187,4 +194,4 @@ class Problems {
 [[nodiscard]] std::string closest_match(std::string_view word,
                                         const std::vector<std::string> &candidates);
 
-} // namespace catchpeak::app
+} // namespace catchpeak::project
