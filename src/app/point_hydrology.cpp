@@ -52,14 +52,13 @@ std::size_t last_calculation_index(const CalcLines &lines, const CalcLines &part
     return at;
 }
 
-/// Index of the last calculation line of `part` whose label starts with `label_start`, once
-/// appended to `lines`; lines.size() + part.size() when there is none.
-std::size_t calculation_index(const CalcLines &lines, const CalcLines &part,
-                              std::string_view label_start) {
+/// Index of the last calculation line of `part` with key `key`, once appended to `lines`;
+/// lines.size() + part.size() when there is none.
+std::size_t calculation_index(const CalcLines &lines, const CalcLines &part, std::string_view key) {
     std::size_t at = lines.size() + part.size();
     for (std::size_t k = 0; k < part.size(); ++k) {
         const auto &l = part.lines()[k];
-        if (l.kind == LineKind::calculation && l.label.rfind(label_start, 0) == 0) {
+        if (l.kind == LineKind::calculation && l.key == key) {
             at = lines.size() + k;
         }
     }
@@ -77,10 +76,8 @@ void drop_repeated_warnings(CalcLines &lines, std::vector<std::size_t> &indices)
     for (std::size_t k = 0; k < all.size(); ++k) {
         const auto &l = all[k];
         const bool repeated = l.kind == LineKind::warning &&
-                              std::any_of(kept.begin(), kept.end(), [&](const CalcLine &e) {
-                                  return e.kind == LineKind::warning && e.label == l.label &&
-                                         e.numbers == l.numbers && e.source == l.source;
-                              });
+                              std::any_of(kept.begin(), kept.end(),
+                                          [&](const CalcLine &e) { return same_content(e, l); });
         new_index[k] = kept.size();
         if (!repeated) {
             kept.push_back(l);
@@ -122,6 +119,9 @@ std::vector<double> rebin(const rain::Hyetograph &h, double step_s, std::size_t 
     return out;
 }
 
+/// The note that lists the annual maximum series a design depth is fitted to.
+constexpr std::string_view ams_series_key = "rain.ams_series";
+
 constexpr const char *txdot_kk =
     "TxDOT Hydraulic Design Manual ch. 4, Kerby-Kirpich (Roussel et al. 2005)";
 
@@ -129,12 +129,15 @@ std::string depth_text(double mm, bool us) {
     return us ? fmt::format("{} in", sig(units::mm_to_in(mm))) : fmt::format("{} mm", sig(mm));
 }
 
-/// Appends the lines of `part` to `lines`, leaving out every line already shown (same label,
-/// numbers and source in `shown`): the fit of the annual maximum series repeats its mean,
-/// moments and warnings for every return period, and the sheet shows them once.
-void append_once(CalcLines &lines, const CalcLines &part, std::set<std::string> &shown) {
+/// Appends the lines of `part` to `lines`, leaving out every line already shown (the same
+/// content in `shown`): the fit of the annual maximum series repeats its mean, moments and
+/// warnings for every return period, and the sheet shows them once.
+void append_once(CalcLines &lines, const CalcLines &part, CalcLines &shown) {
     for (const auto &l : part.lines()) {
-        if (shown.insert(l.label + '\n' + l.numbers + '\n' + l.source).second) {
+        const bool seen = std::any_of(shown.lines().begin(), shown.lines().end(),
+                                      [&](const CalcLine &e) { return same_content(e, l); });
+        if (!seen) {
+            shown.add(l);
             lines.add(l);
         }
     }
@@ -144,8 +147,7 @@ void append_once(CalcLines &lines, const CalcLines &part, std::set<std::string> 
 /// [rainfall] depths_24h, or the depth fitted to the annual maximum series by the project's
 /// distribution. `shown` holds the frequency-analysis lines already on this point's sheet.
 double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, double rp,
-                           CalcLines &lines, std::set<std::string> &shown,
-                           std::string_view purpose = {}) {
+                           CalcLines &lines, CalcLines &shown, std::string_view purpose = {}) {
     const bool us = p.info.units == units::System::us_customary;
     const std::string pf = p.file.filename().string();
     const auto depth = p.rainfall.depth_24h_mm.find(rp);
@@ -170,7 +172,8 @@ double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, doub
               fmt::format("n = {} years, {} to {} (column {})", ams.depth_mm.size(), *first, *last,
                           ams.column),
               fmt::format("project input ({})", ams.source),
-              static_cast<double>(ams.depth_mm.size()), "years");
+              static_cast<double>(ams.depth_mm.size()), "years")
+        .key = ams_series_key;
     const bool gev = p.rainfall.ams_distribution == project::AmsDistribution::gev;
     WithLines<double> fit{0.0, {}};
     try {
@@ -268,8 +271,7 @@ double segment_slope(const PointInputs &in, bool us, const std::string &segment,
 /// TR-55 segmental tc (TR-55 ch. 3): sheet, shallow concentrated and channel flow along the
 /// longest flow path, split by the settings; P2 from the rainfall inputs.
 double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const SegmentalParameters &sp,
-                             const HydrologyTables &tables, CalcLines &lines,
-                             std::set<std::string> &shown) {
+                             const HydrologyTables &tables, CalcLines &lines, CalcLines &shown) {
     const bool us = p.info.units == units::System::us_customary;
     const char *lu = us ? "ft" : "m";
     const std::string params =
@@ -429,7 +431,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     }
 
     // Time of concentration.
-    std::set<std::string> ams_shown; // frequency-analysis lines already on this sheet
+    CalcLines ams_shown; // frequency-analysis lines already on this sheet
     const PointOverride *o = override_for(p, dp.id);
     TcMethod tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
     double tc = 0.0;
@@ -633,10 +635,8 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
             // Where the storm table itself is coarser than the step around the peak, its own
             // warning says so, and a shorter step would not help.
             const bool table_coarser = std::any_of(
-                rain.lines.lines().begin(), rain.lines.lines().end(), [](const CalcLine &l) {
-                    return l.kind == LineKind::warning &&
-                           l.label.rfind("Peak averaged over a table interval", 0) == 0;
-                });
+                rain.lines.lines().begin(), rain.lines.lines().end(),
+                [](const CalcLine &l) { return l.kind == LineKind::warning && l.flags.averaged; });
             if (step_min > 0.2 * tp_min && !table_coarser) {
                 h.lines.warn("Storm time step long for the unit hydrograph",
                              fmt::format("storm time step {} min exceeds 0.2 tp = 0.2 x {} min = "
@@ -647,7 +647,7 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
                              "NRCS NEH 630 ch. 16: a time step of no more than about 0.2 tp "
                              "(from memory, not checked)");
             }
-            q_line_index.push_back(calculation_index(lines, h.lines, "Peak flow"));
+            q_line_index.push_back(calculation_index(lines, h.lines, hydro::keys::uh_peak));
             lines.append(h.lines);
             const auto &hg = h.value;
             report::Peak pk;
@@ -814,9 +814,7 @@ void add_method_references(const Project &p, const report::DesignPointResult &dp
             }
         }
     }
-    const bool ams = std::any_of(dp.lines.lines().begin(), dp.lines.lines().end(), [](auto &l) {
-        return l.label == "Annual maximum series of 24-hour depths";
-    });
+    const bool ams = dp.lines.has(ams_series_key);
     if (ams && p.rainfall.ams_distribution == project::AmsDistribution::gev) {
         add("Hosking (1990)",
             "Hosking, J.R.M. (1990). L-moments: analysis and estimation of distributions using "

@@ -6,6 +6,7 @@
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/project/project.hpp"
+#include "catchpeak/report/line_text.hpp"
 #include "catchpeak/report/results_json.hpp"
 
 #include <fmt/format.h>
@@ -103,13 +104,16 @@ fs::path find_project_file(const fs::path &output_dir, const report::Stamp &stam
 }
 
 std::string line_text(const CalcLine &l) {
-    return fmt::format("{} | {} | {} | {} {} | {}", l.label, l.symbols, l.numbers, full(l.value),
-                       l.unit, l.source);
+    const LineText t = report::text_of(l);
+    return fmt::format("{} | {} | {} | {} {} | {}", t.label, t.symbols, t.numbers, full(l.value()),
+                       t.unit, t.source);
 }
 
-std::vector<std::string> differing_fields(const CalcLine &a, const CalcLine &b) {
+std::vector<std::string> differing_fields(const CalcLine &line_a, const CalcLine &line_b) {
+    const LineText a = report::text_of(line_a);
+    const LineText b = report::text_of(line_b);
     std::vector<std::string> f;
-    if (a.kind != b.kind) {
+    if (line_a.kind != line_b.kind) {
         f.emplace_back("kind");
     }
     if (a.label != b.label) {
@@ -121,7 +125,7 @@ std::vector<std::string> differing_fields(const CalcLine &a, const CalcLine &b) 
     if (a.numbers != b.numbers) {
         f.emplace_back("numbers");
     }
-    if (!same_value(a.value, b.value)) {
+    if (!same_value(line_a.value(), line_b.value())) {
         f.emplace_back("value");
     }
     if (a.unit != b.unit) {

@@ -21,40 +21,153 @@ std::string_view to_string(LineKind k) noexcept {
     return "calculation";
 }
 
-const CalcLine &CalcLines::calc(std::string label, std::string symbols, std::string numbers,
-                                double value, std::string unit, std::string source) {
+std::string_view symbol(Unit u) noexcept {
+    switch (u) {
+    case Unit::none:
+        return "";
+    case Unit::percent:
+        return "%";
+    case Unit::mm:
+        return "mm";
+    case Unit::in:
+        return "in";
+    case Unit::m:
+        return "m";
+    case Unit::ft:
+        return "ft";
+    case Unit::km:
+        return "km";
+    case Unit::mi:
+        return "mi";
+    case Unit::m2:
+        return "m2";
+    case Unit::ft2:
+        return "ft2";
+    case Unit::ha:
+        return "ha";
+    case Unit::ac:
+        return "ac";
+    case Unit::km2:
+        return "km2";
+    case Unit::mi2:
+        return "mi2";
+    case Unit::s:
+        return "s";
+    case Unit::min:
+        return "min";
+    case Unit::h:
+        return "h";
+    case Unit::yr:
+        return "yr";
+    case Unit::mm_per_h:
+        return "mm/h";
+    case Unit::in_per_h:
+        return "in/h";
+    case Unit::m_per_s:
+        return "m/s";
+    case Unit::ft_per_s:
+        return "ft/s";
+    case Unit::m3_per_s:
+        return "m3/s";
+    case Unit::ft3_per_s:
+        return "ft3/s";
+    case Unit::m_per_m:
+        return "m/m";
+    case Unit::ft_per_ft:
+        return "ft/ft";
+    case Unit::m3:
+        return "m3";
+    case Unit::ft3:
+        return "ft3";
+    case Unit::per_yr:
+        return "1/yr";
+    }
+    return "";
+}
+
+Quantity qty(std::string symbol, double value, Unit unit, Shown shown) {
+    Quantity q;
+    q.symbol = std::move(symbol);
+    q.value = value;
+    q.unit = unit;
+    q.shown = shown;
+    return q;
+}
+
+Quantity word(std::string symbol, std::string text) {
+    Quantity q;
+    q.symbol = std::move(symbol);
+    q.text = std::move(text);
+    return q;
+}
+
+bool operator==(const Quantity &a, const Quantity &b) noexcept {
+    const bool same_value = a.value == b.value || (std::isnan(a.value) && std::isnan(b.value));
+    return same_value && a.symbol == b.symbol && a.unit == b.unit && a.shown == b.shown &&
+           a.text == b.text;
+}
+
+namespace {
+
+CalcLine from_formula(const Formula &f, LineKind kind, std::vector<Quantity> inputs,
+                      Quantity result) {
     CalcLine line;
-    line.label = std::move(label);
-    line.symbols = std::move(symbols);
-    line.numbers = std::move(numbers);
-    line.value = value;
-    line.unit = std::move(unit);
-    line.source = std::move(source);
-    line.kind = LineKind::calculation;
-    lines_.push_back(std::move(line));
+    line.key = std::string(f.key);
+    line.kind = kind;
+    line.pattern = {std::string(f.label), std::string(f.symbols), std::string(f.numbers),
+                    std::string(f.where)};
+    line.inputs = std::move(inputs);
+    line.result = std::move(result);
+    line.ref = f.ref;
+    return line;
+}
+
+CalcLine from_text(LineKind kind, LineText text, double value) {
+    CalcLine line;
+    line.kind = kind;
+    line.result.value = value;
+    line.text = std::move(text);
+    return line;
+}
+
+} // namespace
+
+CalcLine &CalcLines::calc(const Formula &f, std::vector<Quantity> inputs, Quantity result) {
+    lines_.push_back(from_formula(f, LineKind::calculation, std::move(inputs), std::move(result)));
     return lines_.back();
 }
 
-const CalcLine &CalcLines::warn(std::string label, std::string message, std::string source) {
-    CalcLine line;
-    line.label = std::move(label);
-    line.numbers = std::move(message);
-    line.source = std::move(source);
-    line.kind = LineKind::warning;
-    lines_.push_back(std::move(line));
+CalcLine &CalcLines::warn(const Formula &f, std::vector<Quantity> inputs) {
+    lines_.push_back(from_formula(f, LineKind::warning, std::move(inputs), {}));
     return lines_.back();
 }
 
-const CalcLine &CalcLines::note(std::string label, std::string text, std::string source,
-                                double value, std::string unit) {
-    CalcLine line;
-    line.label = std::move(label);
-    line.numbers = std::move(text);
-    line.source = std::move(source);
-    line.value = value;
-    line.unit = std::move(unit);
-    line.kind = LineKind::note;
-    lines_.push_back(std::move(line));
+CalcLine &CalcLines::note(const Formula &f, std::vector<Quantity> inputs, Quantity result) {
+    lines_.push_back(from_formula(f, LineKind::note, std::move(inputs), std::move(result)));
+    return lines_.back();
+}
+
+CalcLine &CalcLines::calc(std::string label, std::string symbols, std::string numbers, double value,
+                          std::string unit, std::string source) {
+    lines_.push_back(from_text(LineKind::calculation,
+                               {std::move(label), std::move(symbols), std::move(numbers),
+                                std::move(unit), std::move(source)},
+                               value));
+    return lines_.back();
+}
+
+CalcLine &CalcLines::warn(std::string label, std::string message, std::string source) {
+    lines_.push_back(from_text(LineKind::warning,
+                               {std::move(label), {}, std::move(message), {}, std::move(source)},
+                               std::numeric_limits<double>::quiet_NaN()));
+    return lines_.back();
+}
+
+CalcLine &CalcLines::note(std::string label, std::string text, std::string source, double value,
+                          std::string unit) {
+    lines_.push_back(from_text(
+        LineKind::note, {std::move(label), {}, std::move(text), std::move(unit), std::move(source)},
+        value));
     return lines_.back();
 }
 
@@ -67,6 +180,23 @@ void CalcLines::append(const CalcLines &other) {
 std::size_t CalcLines::warning_count() const noexcept {
     return static_cast<std::size_t>(std::count_if(
         lines_.begin(), lines_.end(), [](const auto &l) { return l.kind == LineKind::warning; }));
+}
+
+const CalcLine *CalcLines::find_last(std::string_view key) const noexcept {
+    for (auto it = lines_.rbegin(); it != lines_.rend(); ++it) {
+        if (it->key == key) {
+            return &*it;
+        }
+    }
+    return nullptr;
+}
+
+bool CalcLines::has(std::string_view key) const noexcept { return find_last(key) != nullptr; }
+
+bool same_content(const CalcLine &a, const CalcLine &b) noexcept {
+    return a.key == b.key && a.kind == b.kind && a.pattern == b.pattern && a.inputs == b.inputs &&
+           a.rows == b.rows && a.result == b.result && a.ref == b.ref && a.flags == b.flags &&
+           a.text == b.text;
 }
 
 std::size_t number_lines(CalcLines &lines, std::string_view prefix, std::size_t first) {

@@ -184,8 +184,10 @@ WithLines<Hydrograph> unit_hydrograph_from_excess(const DimensionlessUnitHydrogr
     out.lines.calc("Runoff depth (sum of excess)", "Q = sum of excess", "Q = " + q_total,
                    us ? units::mm_to_in(h.runoff_mm) : h.runoff_mm, us ? "in" : "mm",
                    "TR-55 (1986) eq. 2-1 on the cumulative rainfall");
-    out.lines.calc("Peak flow, SCS unit hydrograph", "qp = max over t of sum_k Qk U(t - k D)", conv,
-                   sheet_peak, us ? "ft3/s" : "m3/s", table_src);
+    out.lines
+        .calc("Peak flow, SCS unit hydrograph", "qp = max over t of sum_k Qk U(t - k D)", conv,
+              sheet_peak, us ? "ft3/s" : "m3/s", table_src)
+        .key = keys::uh_peak;
     out.lines.calc("Time to peak of the hydrograph", "t at the largest ordinate",
                    fmt::format("t = {} x {} h", i_peak, sig(d_h)),
                    h.time_to_peak_s / units::s_per_h, "h", "computed from the hydrograph");

@@ -192,14 +192,16 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
         const double h1 = d.hours[hi];
         const double interval_min = units::h_to_min(h1 - h0);
         if (peak_end_h <= h1 * (1.0 + 1e-12) && interval_min > step_min * (1.0 + 1e-9)) {
-            lines.warn("Peak averaged over a table interval",
-                       fmt::format("the largest step lies between the table's points at {} h "
-                                   "and {} h ({} min apart, {} min steps): the rain of that "
-                                   "interval is spread evenly over its steps, so the peak "
-                                   "intensity is the interval's average; a table with more "
-                                   "points near the peak would give a higher peak",
-                                   sig(h0), sig(h1), sig(interval_min), sig(step_min)),
-                       "linear interpolation of the storm table (property of the method)");
+            lines
+                .warn("Peak averaged over a table interval",
+                      fmt::format("the largest step lies between the table's points at {} h "
+                                  "and {} h ({} min apart, {} min steps): the rain of that "
+                                  "interval is spread evenly over its steps, so the peak "
+                                  "intensity is the interval's average; a table with more "
+                                  "points near the peak would give a higher peak",
+                                  sig(h0), sig(h1), sig(interval_min), sig(step_min)),
+                      "linear interpolation of the storm table (property of the method)")
+                .flags.averaged = true;
         }
     }
     return out;

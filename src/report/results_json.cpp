@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/results_json.hpp"
 
+#include "catchpeak/report/line_text.hpp"
+
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
 
@@ -118,15 +120,16 @@ Json peak_json(const Peak &p) {
 }
 
 Json line_json(const CalcLine &l) {
+    const LineText t = text_of(l);
     Json j;
     j["id"] = l.id;
     j["kind"] = std::string(to_string(l.kind));
-    j["label"] = l.label;
-    j["symbols"] = l.symbols;
-    j["numbers"] = l.numbers;
-    j["value"] = number(l.value);
-    j["unit"] = l.unit;
-    j["source"] = l.source;
+    j["label"] = t.label;
+    j["symbols"] = t.symbols;
+    j["numbers"] = t.numbers;
+    j["value"] = number(l.value());
+    j["unit"] = t.unit;
+    j["source"] = t.source;
     return j;
 }
 
@@ -392,12 +395,9 @@ DesignPointResult parse_point(const Reader &r) {
         CalcLine l;
         l.id = lr.str("id");
         l.kind = parse_kind(lr);
-        l.label = lr.str("label");
-        l.symbols = lr.str("symbols");
-        l.numbers = lr.str("numbers");
-        l.value = lr.num("value");
-        l.unit = lr.str("unit");
-        l.source = lr.str("source");
+        l.text = LineText{lr.str("label"), lr.str("symbols"), lr.str("numbers"), lr.str("unit"),
+                          lr.str("source")};
+        l.result.value = lr.num("value");
         p.lines.add(std::move(l));
     }
     return p;

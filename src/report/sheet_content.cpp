@@ -2,6 +2,7 @@
 #include "internal/sheet_content.hpp"
 
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/report/line_text.hpp"
 #include "catchpeak/report/sheet.hpp"
 #include "catchpeak/report/sheet_units.hpp"
 
@@ -189,7 +190,8 @@ void warnings(const DesignPointResult &p, std::vector<SheetBlock> &out) {
     WarningsBlock w;
     for (const auto &l : p.lines.lines()) {
         if (l.kind == LineKind::warning) {
-            w.items.push_back("<b>" + esc(l.id) + "  " + esc(l.label) + ":</b> " + esc(l.numbers));
+            const LineText t = text_of(l);
+            w.items.push_back("<b>" + esc(l.id) + "  " + esc(t.label) + ":</b> " + esc(t.numbers));
         }
     }
     w.title =
@@ -365,27 +367,28 @@ std::string warning_flag(const DesignPointResult &p) {
 }
 
 Row calc_line_row(const CalcLine &l) {
-    std::string main = bold(l.label);
+    const LineText t = text_of(l);
+    std::string main = bold(t.label);
     std::string result;
     std::optional<Rgb> fill;
     if (l.kind == LineKind::warning) {
-        main = "<b>\u26a0 WARNING: " + esc(l.label) + "</b>\n" + esc(l.numbers);
+        main = "<b>\u26a0 WARNING: " + esc(t.label) + "</b>\n" + esc(t.numbers);
         fill = style::warn_fill;
     } else {
-        if (!l.symbols.empty()) {
-            main += "\n" + esc(l.symbols);
+        if (!t.symbols.empty()) {
+            main += "\n" + esc(t.symbols);
         }
-        if (!l.numbers.empty()) {
-            main += "\n" + esc(l.numbers);
+        if (!t.numbers.empty()) {
+            main += "\n" + esc(t.numbers);
         }
-        if (std::isfinite(l.value)) {
-            result = bold(sig(l.value)) + (l.unit.empty() ? "" : " " + esc(l.unit));
+        if (std::isfinite(l.value())) {
+            result = bold(sig(l.value())) + (t.unit.empty() ? "" : " " + esc(t.unit));
         }
         if (l.kind == LineKind::note) {
             main = "<i>" + main + "</i>";
         }
     }
-    return {{{bold(l.id), Style::small}, {main}, {result}, {esc(l.source), Style::tiny}}, fill};
+    return {{{bold(l.id), Style::small}, {main}, {result}, {esc(t.source), Style::tiny}}, fill};
 }
 
 SheetDocument sheet_content(const RunResults &r) {

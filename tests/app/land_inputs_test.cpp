@@ -2,6 +2,7 @@
 // Land cover and soils given as rasters of class codes, read for the overlay and weighted over
 // catchments whose parts can be computed by hand.
 #include "catchpeak/app/land_inputs.hpp"
+#include "support/calc_lines.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/land/overlay.hpp"
@@ -127,10 +128,12 @@ TEST(LandInputs, FourByFourRastersUnderASquareGiveTheHandComputedPartsCAndCn) {
     // The lines say that the weighting came from rasters of 10 m cells, and how codes were named.
     bool raster_source = false;
     for (const auto &l : r.lines.lines()) {
-        if (l.source.find("land.tif (raster of 10.00 x 10.00 m cells; codes to classes by the code "
-                          "table 'codes.csv'") != std::string::npos &&
-            l.source.find("soils.tif (raster of 10.00 x 10.00 m cells; codes to soil groups by its "
-                          "category names)") != std::string::npos) {
+        if (catchpeak::test::text(l).source.find(
+                "land.tif (raster of 10.00 x 10.00 m cells; codes to classes by the code "
+                "table 'codes.csv'") != std::string::npos &&
+            catchpeak::test::text(l).source.find(
+                "soils.tif (raster of 10.00 x 10.00 m cells; codes to soil groups by its "
+                "category names)") != std::string::npos) {
             raster_source = true;
         }
     }
@@ -193,7 +196,7 @@ TEST(LandInputs, NodataCellsAreNotCoveredRefusedOrGivenTheDefaultWithTheirArea) 
     bool warned = false;
     for (const auto &l : r.lines.lines()) {
         if (l.kind == catchpeak::LineKind::warning &&
-            l.numbers.find("25.00 m2") != std::string::npos) {
+            catchpeak::test::text(l).numbers.find("25.00 m2") != std::string::npos) {
             warned = true;
         }
     }

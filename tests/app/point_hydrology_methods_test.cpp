@@ -8,6 +8,7 @@
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/app/recheck.hpp"
 #include "catchpeak/core/error.hpp"
+#include "support/calc_lines.hpp"
 #include "support/test_env.hpp"
 
 #include <fmt/format.h>
@@ -55,7 +56,8 @@ std::size_t count_label(const catchpeak::report::DesignPointResult &dp, const st
                         catchpeak::LineKind kind) {
     return static_cast<std::size_t>(
         std::count_if(dp.lines.lines().begin(), dp.lines.lines().end(), [&](const auto &l) {
-            return l.kind == kind && l.label.find(label) != std::string::npos;
+            return l.kind == kind &&
+                   catchpeak::test::text(l).label.find(label) != std::string::npos;
         }));
 }
 
@@ -487,9 +489,9 @@ TEST(StormTimeStep, TheSettingIsUsedAndALongStepWarns) {
         const auto &dp = point(r, "PS-1");
         bool step_line = false;
         for (const auto &l : dp.lines.lines()) {
-            if (l.label == "Time step" && l.value == step &&
-                l.numbers.find(fmt::format("{} steps", static_cast<int>(1440.0 / step))) !=
-                    std::string::npos) {
+            if (catchpeak::test::text(l).label == "Time step" && l.value() == step &&
+                catchpeak::test::text(l).numbers.find(fmt::format(
+                    "{} steps", static_cast<int>(1440.0 / step))) != std::string::npos) {
                 step_line = true;
             }
         }
@@ -555,6 +557,6 @@ folder = "out"
         ASSERT_NE(it, all.end()) << pk.line_id;
         EXPECT_EQ(it->kind, catchpeak::LineKind::calculation);
         // The sheet is SI: the line's value is the peak in m3/s.
-        EXPECT_DOUBLE_EQ(it->value, pk.q_m3_s) << pk.line_id;
+        EXPECT_DOUBLE_EQ(it->value(), pk.q_m3_s) << pk.line_id;
     }
 }

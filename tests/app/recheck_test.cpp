@@ -2,6 +2,7 @@
 // recheck: an unchanged run is reproduced; a changed catchment table, IDF table or built-in
 // coefficient table is reported by role and file, with the lines that no longer reproduce.
 #include "catchpeak/app/recheck.hpp"
+#include "support/calc_lines.hpp"
 
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
@@ -107,7 +108,8 @@ const InputCheck *input(const RecheckReport &r, const std::string &role) {
 bool has_differing_line(const RecheckReport &r, const std::string &id_prefix,
                         const std::string &label, const std::string &field) {
     return std::any_of(r.line_differences.begin(), r.line_differences.end(), [&](const auto &d) {
-        return d.id.rfind(id_prefix, 0) == 0 && d.recorded && d.recorded->label == label &&
+        return d.id.rfind(id_prefix, 0) == 0 && d.recorded &&
+               catchpeak::test::text(*d.recorded).label == label &&
                std::find(d.fields.begin(), d.fields.end(), field) != d.fields.end();
     });
 }

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/core/calc_line.hpp"
+#include "support/calc_lines.hpp"
 
 #include <gtest/gtest.h>
 
@@ -39,7 +40,7 @@ TEST(CalcLines, NumberedWithPrefix) {
     EXPECT_EQ(lines.lines()[2].id, "DP3-L3");
     EXPECT_EQ(lines.warning_count(), 1u);
     EXPECT_EQ(lines.lines()[1].kind, catchpeak::LineKind::warning);
-    EXPECT_TRUE(std::isnan(lines.lines()[1].value));
+    EXPECT_TRUE(std::isnan(lines.lines()[1].value()));
 
     CalcLines more;
     more.calc("Q", "Q = C i A", "Q = ...", 1.5, "m3/s", "x");

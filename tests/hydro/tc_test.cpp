@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/hydro/tc.hpp"
+#include "support/calc_lines.hpp"
 #include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
@@ -22,7 +23,8 @@ namespace h = catchpeak::hydro;
 
 bool has_warning_containing(const catchpeak::CalcLines &lines, const std::string &text) {
     for (const auto &l : lines.lines()) {
-        if (l.kind == LineKind::warning && l.numbers.find(text) != std::string::npos) {
+        if (l.kind == LineKind::warning &&
+            catchpeak::test::text(l).numbers.find(text) != std::string::npos) {
             return true;
         }
     }
@@ -34,9 +36,9 @@ TEST(Kirpich, UsSheetShowsThePublishedUsForm) {
         h::kirpich_tc_min(u::ft_to_m(1000.0), 0.05, u::acre_to_m2(20.0), System::us_customary);
     ASSERT_FALSE(r.lines.empty());
     const auto &l = r.lines.lines().front();
-    EXPECT_EQ(l.symbols, "tc = 0.0078 L^0.77 S^-0.385 (L ft)");
-    EXPECT_EQ(l.numbers, "tc = 0.0078 x 1000^0.77 x 0.05000^-0.385");
-    EXPECT_EQ(l.unit, "min");
+    EXPECT_EQ(catchpeak::test::text(l).symbols, "tc = 0.0078 L^0.77 S^-0.385 (L ft)");
+    EXPECT_EQ(catchpeak::test::text(l).numbers, "tc = 0.0078 x 1000^0.77 x 0.05000^-0.385");
+    EXPECT_EQ(catchpeak::test::text(l).unit, "min");
     // Computed from TxDOT HDM eq. 4-15 with the numbers shown.
     EXPECT_NEAR(r.value, 0.0078 * std::pow(1000.0, 0.77) * std::pow(0.05, -0.385), 1e-9);
     EXPECT_EQ(r.lines.warning_count(), 0u);
@@ -45,8 +47,8 @@ TEST(Kirpich, UsSheetShowsThePublishedUsForm) {
 TEST(Kirpich, SiSheetShowsThePublishedSiForm) {
     const auto r = h::kirpich_tc_min(300.0, 0.05, u::ha_to_m2(8.0), System::si);
     const auto &l = r.lines.lines().front();
-    EXPECT_EQ(l.symbols, "tc = 0.0195 L^0.77 S^-0.385 (L m)");
-    EXPECT_EQ(l.numbers, "tc = 0.0195 x 300.0^0.77 x 0.05000^-0.385");
+    EXPECT_EQ(catchpeak::test::text(l).symbols, "tc = 0.0195 L^0.77 S^-0.385 (L m)");
+    EXPECT_EQ(catchpeak::test::text(l).numbers, "tc = 0.0195 x 300.0^0.77 x 0.05000^-0.385");
     EXPECT_NEAR(r.value, 0.0195 * std::pow(300.0, 0.77) * std::pow(0.05, -0.385), 1e-9);
 }
 
@@ -82,9 +84,10 @@ TEST(NrcsLag, SiSheetShowsTheConversionAndSaysSo) {
     const auto &lines = r.lines.lines();
     ASSERT_GE(lines.size(), 2u);
     EXPECT_EQ(lines[0].kind, LineKind::note);
-    EXPECT_NE(lines[0].numbers.find("only in US customary"), std::string::npos);
-    EXPECT_EQ(lines[1].unit, "ft");
-    EXPECT_NEAR(lines[1].value, 2000.0 / 0.3048, 1e-9);
+    EXPECT_NE(catchpeak::test::text(lines[0]).numbers.find("only in US customary"),
+              std::string::npos);
+    EXPECT_EQ(catchpeak::test::text(lines[1]).unit, "ft");
+    EXPECT_NEAR(lines[1].value(), 2000.0 / 0.3048, 1e-9);
     const auto us = h::nrcs_lag_tc_min(2000.0, 80.0, 3.0, u::ha_to_m2(100.0), System::us_customary);
     EXPECT_EQ(us.lines.lines()[0].kind, LineKind::calculation); // no conversion on a US sheet
     // Hand computation of NEH 630 ch. 15 lag equation with S = 1000/80 - 10 = 2.5 in.
@@ -122,7 +125,8 @@ TEST(SheetFlow, SiSheetConvertsLengthAndRainfall) {
     EXPECT_NEAR(r.value, tt_h * 60.0, 1e-9);
     int conversions = 0;
     for (const auto &l : r.lines.lines()) {
-        conversions += l.source.find("exact conversion") != std::string::npos ? 1 : 0;
+        conversions +=
+            catchpeak::test::text(l).source.find("exact conversion") != std::string::npos ? 1 : 0;
     }
     EXPECT_EQ(conversions, 2);
 }
@@ -132,12 +136,12 @@ TEST(ShallowFlow, PavedAndUnpavedVelocities) {
         h::shallow_flow_tt_min(300.0, 0.04, h::ShallowSurface::paved, System::us_customary);
     const auto unpaved =
         h::shallow_flow_tt_min(300.0, 0.04, h::ShallowSurface::unpaved, System::us_customary);
-    EXPECT_NEAR(paved.lines.lines()[0].value, 20.3282 * 0.2, 1e-9); // ft/s
-    EXPECT_NEAR(unpaved.lines.lines()[0].value, 16.1345 * 0.2, 1e-9);
+    EXPECT_NEAR(paved.lines.lines()[0].value(), 20.3282 * 0.2, 1e-9); // ft/s
+    EXPECT_NEAR(unpaved.lines.lines()[0].value(), 16.1345 * 0.2, 1e-9);
     EXPECT_NEAR(unpaved.value / paved.value, 20.3282 / 16.1345, 1e-9);
     const auto si = h::shallow_flow_tt_min(300.0, 0.04, h::ShallowSurface::paved, System::si);
-    EXPECT_EQ(si.lines.lines()[0].unit, "m/s");
-    EXPECT_NEAR(si.lines.lines()[0].value, 20.3282 * 0.3048 * 0.2, 1e-9);
+    EXPECT_EQ(catchpeak::test::text(si.lines.lines()[0]).unit, "m/s");
+    EXPECT_NEAR(si.lines.lines()[0].value(), 20.3282 * 0.3048 * 0.2, 1e-9);
     EXPECT_NEAR(si.value, paved.value, 1e-9 * paved.value); // exact conversion both ways
 }
 
@@ -159,7 +163,8 @@ TEST(Kerby, FormsAndLengthWarning) {
     EXPECT_EQ(us.lines.warning_count(), 0u);
     const auto si = h::kerby_tov_min(100.0, 0.4, 0.01, System::si);
     EXPECT_NEAR(si.value, 1.44 * std::pow(100.0 * 0.4 / 0.1, 0.467), 1e-9);
-    EXPECT_NE(si.lines.lines()[0].source.find("from memory"), std::string::npos);
+    EXPECT_NE(catchpeak::test::text(si.lines.lines()[0]).source.find("from memory"),
+              std::string::npos);
     const auto longer = h::kerby_tov_min(u::ft_to_m(1500.0), 0.4, 0.01, System::us_customary);
     EXPECT_TRUE(has_warning_containing(longer.lines, "1200 ft"));
 }
@@ -167,11 +172,11 @@ TEST(Kerby, FormsAndLengthWarning) {
 TEST(TravelTimes, SumInHoursOnUsSheetMinutesOnSi) {
     const auto us = h::sum_travel_times_min({18.0, 12.0, 30.0}, System::us_customary);
     EXPECT_DOUBLE_EQ(us.value, 60.0);
-    EXPECT_EQ(us.lines.lines()[0].unit, "h");
-    EXPECT_DOUBLE_EQ(us.lines.lines()[0].value, 1.0);
-    EXPECT_EQ(us.lines.lines()[0].numbers, "tc = 0.3000 + 0.2000 + 0.5000");
+    EXPECT_EQ(catchpeak::test::text(us.lines.lines()[0]).unit, "h");
+    EXPECT_DOUBLE_EQ(us.lines.lines()[0].value(), 1.0);
+    EXPECT_EQ(catchpeak::test::text(us.lines.lines()[0]).numbers, "tc = 0.3000 + 0.2000 + 0.5000");
     const auto si = h::sum_travel_times_min({18.0, 12.0}, System::si);
-    EXPECT_EQ(si.lines.lines()[0].unit, "min");
+    EXPECT_EQ(catchpeak::test::text(si.lines.lines()[0]).unit, "min");
     EXPECT_THROW((void)h::sum_travel_times_min({}, System::si), InputError);
     EXPECT_THROW((void)h::sum_travel_times_min({-1.0}, System::si), InputError);
 }
@@ -179,7 +184,7 @@ TEST(TravelTimes, SumInHoursOnUsSheetMinutesOnSi) {
 TEST(MinimumTc, AppliedAsItsOwnLine) {
     const auto low = h::apply_minimum_tc(3.2, 5.0);
     EXPECT_DOUBLE_EQ(low.value, 5.0);
-    EXPECT_EQ(low.lines.lines()[0].numbers, "tc = max(3.200, 5.000)");
+    EXPECT_EQ(catchpeak::test::text(low.lines.lines()[0]).numbers, "tc = max(3.200, 5.000)");
     EXPECT_EQ(low.lines.size(), 2u); // and a note that the minimum governs
     const auto high = h::apply_minimum_tc(12.0, 5.0);
     EXPECT_DOUBLE_EQ(high.value, 12.0);

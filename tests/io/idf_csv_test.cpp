@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/io/idf_csv.hpp"
+#include "support/calc_lines.hpp"
 #include "support/input_error.hpp"
 
 #include "catchpeak/core/error.hpp"
@@ -45,7 +46,7 @@ TEST(IdfCsv, ConvertsATableInInchesPerHour) {
     EXPECT_EQ(idf.name(), "inches"); // the file name without extension
     EXPECT_NEAR(idf.intensity_mm_per_h(10.0, 25.0), 5.5 * 25.4, 1e-12); // 1 in = 25.4 mm
     const auto us = idf.intensity(30.0, 5.0, System::us_customary);
-    EXPECT_NEAR(us.lines.lines()[0].value, 2.0, 1e-12); // shown as given, in in/h
+    EXPECT_NEAR(us.lines.lines()[0].value(), 2.0, 1e-12); // shown as given, in in/h
 }
 
 TEST(IdfCsv, ReadsTheFormulaForm) {

@@ -90,16 +90,16 @@ TEST(WeightParts, RoofAndLawnByHand) {
     // The lines: the parts in acres (US sheet), then the weighted values with their terms.
     const auto *cl = line_labelled(r.lines, "Runoff coefficient, area-weighted");
     ASSERT_NE(cl, nullptr);
-    EXPECT_EQ(cl->symbols, "C = sum(Ai Ci) / sum(Ai)");
-    EXPECT_EQ(cl->numbers, "C = (1.200 x 0.1500 + 0.8000 x 0.9000) / 2.000");
+    EXPECT_EQ(catchpeak::test::text(*cl).symbols, "C = sum(Ai Ci) / sum(Ai)");
+    EXPECT_EQ(catchpeak::test::text(*cl).numbers, "C = (1.200 x 0.1500 + 0.8000 x 0.9000) / 2.000");
     const auto *cnl = line_labelled(r.lines, "Curve number, composite (area-weighted)");
     ASSERT_NE(cnl, nullptr);
-    EXPECT_EQ(cnl->numbers, "CN = (1.200 x 60.00 + 0.8000 x 98.00) / 2.000");
+    EXPECT_EQ(catchpeak::test::text(*cnl).numbers, "CN = (1.200 x 60.00 + 0.8000 x 98.00) / 2.000");
     const auto *part = line_labelled(r.lines, "Part 2: roof, soil group C");
     ASSERT_NE(part, nullptr);
-    EXPECT_EQ(part->unit, "ac");
-    EXPECT_NEAR(part->value, 0.8, 0.8 * rounding);
-    EXPECT_EQ(part->source, "project input (land.csv)");
+    EXPECT_EQ(catchpeak::test::text(*part).unit, "ac");
+    EXPECT_NEAR(part->value(), 0.8, 0.8 * rounding);
+    EXPECT_EQ(catchpeak::test::text(*part).source, "project input (land.csv)");
     // No area line asked for, and the parts add up: no warning.
     EXPECT_EQ(r.lines.warning_count(), 0u);
     EXPECT_EQ(line_labelled(r.lines, "Slope for the C slope bands"), nullptr); // no band used
@@ -120,8 +120,8 @@ TEST(WeightParts, SamePartsAddAndSlopeBandsUseTheGivenSlope) {
     EXPECT_NEAR(r.weighting.c_weighted, 0.5, 0.5 * rounding);
     const auto *slope = line_labelled(r.lines, "Slope for the C slope bands");
     ASSERT_NE(slope, nullptr);
-    EXPECT_EQ(slope->value, 2.0);
-    EXPECT_EQ(slope->numbers, "slope of the longest flow path");
+    EXPECT_EQ(slope->value(), 2.0);
+    EXPECT_EQ(catchpeak::test::text(*slope).numbers, "slope of the longest flow path");
 }
 
 // Parts that do not add up to the catchment: a warning line with both sums; the weighting
@@ -138,10 +138,11 @@ TEST(WeightParts, PartsThatDoNotAddUpGiveAWarningLine) {
     const auto *w = line_labelled(r.lines, "Parts do not add up to the catchment");
     ASSERT_NE(w, nullptr);
     EXPECT_EQ(w->kind, LineKind::warning);
-    EXPECT_NE(w->numbers.find("the parts add up to 0.9900 ha, the catchment is 1.000 ha"),
+    EXPECT_NE(catchpeak::test::text(*w).numbers.find(
+                  "the parts add up to 0.9900 ha, the catchment is 1.000 ha"),
               std::string::npos)
-        << w->numbers;
-    EXPECT_EQ(w->source, "project input (catchments.csv)");
+        << catchpeak::test::text(*w).numbers;
+    EXPECT_EQ(catchpeak::test::text(*w).source, "project input (catchments.csv)");
 }
 
 // Without a C table, C is NaN and no C lines are written; the CN is still weighted.
@@ -208,12 +209,12 @@ TEST(WeightParts, TheOverlayGivesTheSameWeightingAsItsPartsGivenAsAreas) {
         if (l.kind != LineKind::calculation) {
             continue;
         }
-        const auto *o = line_labelled(by_overlay.lines, l.label);
-        ASSERT_NE(o, nullptr) << l.label;
-        EXPECT_EQ(o->symbols, l.symbols);
-        EXPECT_EQ(o->numbers, l.numbers);
-        EXPECT_EQ(o->value, l.value);
-        EXPECT_EQ(o->unit, l.unit);
+        const auto *o = line_labelled(by_overlay.lines, catchpeak::test::text(l).label);
+        ASSERT_NE(o, nullptr) << catchpeak::test::text(l).label;
+        EXPECT_EQ(catchpeak::test::text(*o).symbols, catchpeak::test::text(l).symbols);
+        EXPECT_EQ(catchpeak::test::text(*o).numbers, catchpeak::test::text(l).numbers);
+        EXPECT_EQ(o->value(), l.value());
+        EXPECT_EQ(catchpeak::test::text(*o).unit, catchpeak::test::text(l).unit);
         ++compared;
     }
     EXPECT_EQ(compared, 5u); // two parts, C, CN, impervious share

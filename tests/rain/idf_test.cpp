@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/idf.hpp"
+#include "support/calc_lines.hpp"
 #include "support/input_error.hpp"
 
 #include "catchpeak/core/csv.hpp"
@@ -47,9 +48,10 @@ TEST(IdfTable, TableValueAtListedDuration) {
     const auto r = idf.intensity(10.0, 10.0, System::si);
     EXPECT_NEAR(r.value, 450.0 * std::pow(10.0, -0.6), 450.0 * rel_eps);
     ASSERT_EQ(r.lines.size(), 1U);
-    EXPECT_EQ(r.lines.lines()[0].unit, "mm/h");
-    EXPECT_NE(r.lines.lines()[0].source.find("project input: IDF table power law"),
-              std::string::npos);
+    EXPECT_EQ(catchpeak::test::text(r.lines.lines()[0]).unit, "mm/h");
+    EXPECT_NE(
+        catchpeak::test::text(r.lines.lines()[0]).source.find("project input: IDF table power law"),
+        std::string::npos);
 }
 
 TEST(IdfTable, LogLogInterpolationReproducesAPowerLaw) {
@@ -67,20 +69,24 @@ TEST(IdfTable, InterpolationLineShowsBracketingValuesInSheetUnits) {
     EXPECT_NEAR(us.value, si.value, si.value * rel_eps); // always mm/h
     ASSERT_EQ(us.lines.size(), 1U);
     const auto &line = us.lines.lines()[0];
-    EXPECT_EQ(line.unit, "in/h");
-    EXPECT_NEAR(line.value, si.value / 25.4, si.value / 25.4 * rel_eps);
+    EXPECT_EQ(catchpeak::test::text(line).unit, "in/h");
+    EXPECT_NEAR(line.value(), si.value / 25.4, si.value / 25.4 * rel_eps);
     // The two bracketing table values (10 and 30 min), converted to in/h, are in the line.
     const double i1_in = 300.0 * std::pow(10.0, -0.6) / 25.4;
     const double i2_in = 300.0 * std::pow(30.0, -0.6) / 25.4;
-    EXPECT_NE(line.numbers.find(catchpeak::sig(i1_in)), std::string::npos) << line.numbers;
-    EXPECT_NE(line.numbers.find(catchpeak::sig(i2_in)), std::string::npos) << line.numbers;
-    EXPECT_NE(line.source.find("between 10.00 and 30.00 min"), std::string::npos) << line.source;
+    EXPECT_NE(catchpeak::test::text(line).numbers.find(catchpeak::sig(i1_in)), std::string::npos)
+        << catchpeak::test::text(line).numbers;
+    EXPECT_NE(catchpeak::test::text(line).numbers.find(catchpeak::sig(i2_in)), std::string::npos)
+        << catchpeak::test::text(line).numbers;
+    EXPECT_NE(catchpeak::test::text(line).source.find("between 10.00 and 30.00 min"),
+              std::string::npos)
+        << catchpeak::test::text(line).source;
     // A checker reproduces the value from the numbers shown: i1 (t/t1)^(ln(i2/i1)/ln(t2/t1))
     // with the 4-figure numbers agrees to 4 figures (rounding of the shown values).
     const double i1s = catchpeak::parse_number(catchpeak::sig(i1_in), "i1");
     const double i2s = catchpeak::parse_number(catchpeak::sig(i2_in), "i2");
     const double rechecked = i1s * std::pow(20.0 / 10.0, std::log(i2s / i1s) / std::log(3.0));
-    EXPECT_NEAR(rechecked, line.value, line.value * 1e-3);
+    EXPECT_NEAR(rechecked, line.value(), line.value() * 1e-3);
 }
 
 TEST(IdfTable, RefusesDurationsOutsideTheTable) {
@@ -164,20 +170,22 @@ TEST(IdfFormula, EvaluatesInTheConstantsUnitAndConverts) {
     const auto us = idf.intensity(15.0, 10.0, System::us_customary);
     EXPECT_NEAR(us.value, in_h * 25.4, in_h * 25.4 * rel_eps);
     ASSERT_EQ(us.lines.size(), 1U); // no conversion line: sheet and constants in in/h
-    EXPECT_EQ(us.lines.lines()[0].unit, "in/h");
-    EXPECT_EQ(us.lines.lines()[0].numbers, "i = 60.00 / (15.00 + 9.000)^0.8000");
+    EXPECT_EQ(catchpeak::test::text(us.lines.lines()[0]).unit, "in/h");
+    EXPECT_EQ(catchpeak::test::text(us.lines.lines()[0]).numbers,
+              "i = 60.00 / (15.00 + 9.000)^0.8000");
 
     const auto si = idf.intensity(15.0, 10.0, System::si);
     ASSERT_EQ(si.lines.size(), 2U); // formula in in/h, then the conversion to mm/h
-    EXPECT_EQ(si.lines.lines()[1].unit, "mm/h");
-    EXPECT_NEAR(si.lines.lines()[1].value, in_h * 25.4, in_h * 25.4 * rel_eps);
+    EXPECT_EQ(catchpeak::test::text(si.lines.lines()[1]).unit, "mm/h");
+    EXPECT_NEAR(si.lines.lines()[1].value(), in_h * 25.4, in_h * 25.4 * rel_eps);
 }
 
 TEST(IdfFormula, WarnsOutsideTheFittedDurations) {
     const Idf idf(us_formula());
     const auto r = idf.intensity(2.0, 2.0, System::us_customary);
     EXPECT_EQ(r.lines.warning_count(), 1U);
-    EXPECT_NE(r.lines.lines()[0].numbers.find("outside 5.000 to 1440 min"), std::string::npos);
+    EXPECT_NE(catchpeak::test::text(r.lines.lines()[0]).numbers.find("outside 5.000 to 1440 min"),
+              std::string::npos);
     EXPECT_EQ(idf.intensity(30.0, 2.0, System::us_customary).lines.warning_count(), 0U);
 }
 
@@ -215,10 +223,10 @@ TEST(Idf, DepthIsIntensityTimesDuration) {
     const double i = 450.0 * std::pow(20.0, -0.6); // computed from the law
     const auto si = idf.depth(20.0, 10.0, System::si);
     EXPECT_NEAR(si.value, i * 20.0 / 60.0, i * rel_eps);
-    EXPECT_EQ(si.lines.lines().back().unit, "mm");
+    EXPECT_EQ(catchpeak::test::text(si.lines.lines().back()).unit, "mm");
     const auto us = idf.depth(20.0, 10.0, System::us_customary);
     EXPECT_NEAR(us.value, si.value, si.value * rel_eps);
-    EXPECT_EQ(us.lines.lines().back().unit, "in");
-    EXPECT_NEAR(us.lines.lines().back().value, si.value / 25.4, si.value * rel_eps);
+    EXPECT_EQ(catchpeak::test::text(us.lines.lines().back()).unit, "in");
+    EXPECT_NEAR(us.lines.lines().back().value(), si.value / 25.4, si.value * rel_eps);
     EXPECT_EQ(us.lines.size(), 2U); // the intensity line, then the depth line
 }

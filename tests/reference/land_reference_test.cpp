@@ -17,6 +17,7 @@
 #include "catchpeak/land/overlay.hpp"
 #include "catchpeak/project/project.hpp"
 #include "io/class_raster_data.hpp"
+#include "support/calc_lines.hpp"
 #include "support/test_env.hpp"
 #include "support/wkb.hpp"
 
@@ -233,9 +234,10 @@ TEST(Tr55Example2_2, AsTableRowsCompositeCn75) {
     // The composite CN line shows the parts in acres, as a checker writes them.
     bool found = false;
     for (const auto &l : r.points[0].lines.lines()) {
-        if (l.label == "Curve number, composite (area-weighted)") {
+        if (catchpeak::test::text(l).label == "Curve number, composite (area-weighted)") {
             found = true;
-            EXPECT_EQ(l.numbers, "CN = (75.00 x 74.00 + 75.00 x 70.00 + 100.0 x 80.00) / 250.0");
+            EXPECT_EQ(catchpeak::test::text(l).numbers,
+                      "CN = (75.00 x 74.00 + 75.00 x 70.00 + 100.0 x 80.00) / 250.0");
         }
     }
     EXPECT_TRUE(found);

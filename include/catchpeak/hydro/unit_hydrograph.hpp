@@ -12,6 +12,11 @@
 /// SCS unit hydrograph (NEH 630 ch. 16) convolved with a rainfall excess hyetograph.
 namespace catchpeak::hydro {
 
+namespace keys {
+/// The line of the hydrograph's peak flow.
+inline constexpr std::string_view uh_peak = "uh.peak";
+} // namespace keys
+
 struct UnitHydrographSettings {
     /// Unit hydrograph duration D as a fraction of tc: D is the largest step not above
     /// fraction x tc obtained by aggregating (or evenly splitting) the hyetograph's steps.
