@@ -47,3 +47,26 @@ TEST(CalcLines, NumberedWithPrefix) {
     lines.append(more);
     EXPECT_EQ(lines.size(), 4u);
 }
+
+TEST(CalcLines, FoundByKeyAndComparedByContent) {
+    constexpr catchpeak::Formula f{
+        "test.q", "Q", "Q = C i A", "Q = {C} x {i} x {A}", catchpeak::Ref::none, ""};
+    CalcLines lines;
+    lines.calc(f, {catchpeak::qty("C", 0.5)}, catchpeak::qty("Q", 1.0));
+    lines.calc(f, {catchpeak::qty("C", 0.6)}, catchpeak::qty("Q", 2.0));
+    ASSERT_NE(lines.find_last("test.q"), nullptr);
+    EXPECT_DOUBLE_EQ(lines.find_last("test.q")->value(), 2.0);
+    EXPECT_FALSE(lines.has("test.other"));
+    auto a = lines.lines()[0];
+    auto b = lines.lines()[0];
+    b.id = "DP1-L9"; // ids do not count
+    EXPECT_TRUE(catchpeak::same_content(a, b));
+    b.flags.capped = true;
+    EXPECT_FALSE(catchpeak::same_content(a, b));
+    // Two warnings without a value are the same (NaN results compare equal here).
+    CalcLines w;
+    w.warn(f);
+    w.warn(f);
+    EXPECT_TRUE(catchpeak::same_content(w.lines()[0], w.lines()[1]));
+    EXPECT_FALSE(catchpeak::same_content(lines.lines()[0], lines.lines()[1]));
+}
