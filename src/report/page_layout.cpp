@@ -143,9 +143,9 @@ void PageLayout::paragraph(const std::string &markup, Style st, Rgb color, doubl
     y_ += h;
 }
 
-void PageLayout::heading(const std::string &text, Style st) {
+void PageLayout::heading(const std::string &text, Style st, double keep_pt) {
     const double h = measure(esc(text), st, content_w_);
-    ensure(h + style::heading_keep_pt);
+    ensure(h + std::max(keep_pt + 2.0 * style::heading_pad_pt, style::heading_keep_pt));
     y_ += style::heading_pad_pt;
     draw_text(style::margin_pt, y_, esc(text), st, content_w_, style::accent);
     y_ += h + style::heading_pad_pt;
@@ -207,21 +207,27 @@ void PageLayout::draw_row(const std::vector<Column> &cols, const Row &row, doubl
          header ? style::head_rule_w_pt : style::row_rule_w_pt);
 }
 
-void PageLayout::table(const std::vector<Column> &cols, const std::vector<Row> &rows) {
+double PageLayout::table_start_h(const std::vector<Column> &cols,
+                                 const std::vector<Row> &rows) const {
     const double head_h = row_height(cols, header_row(cols));
+    // A short table is kept whole on one page; a long one starts with at least one row.
+    double total_h = head_h;
+    for (const auto &row : rows) {
+        total_h += row_height(cols, row);
+        if (total_h >= style::keep_whole_table_share * (bottom_ - top_)) {
+            return head_h + (rows.empty() ? 0.0 : row_height(cols, rows.front()));
+        }
+    }
+    return total_h;
+}
+
+void PageLayout::table(const std::vector<Column> &cols, const std::vector<Row> &rows) {
     std::vector<double> heights;
     heights.reserve(rows.size());
     for (const auto &row : rows) {
         heights.push_back(row_height(cols, row));
     }
-    // A short table is kept whole on one page; a long one starts with at least one row.
-    double total_h = head_h;
-    for (double h : heights) {
-        total_h += h;
-    }
-    ensure(total_h < style::keep_whole_table_share * (bottom_ - top_)
-               ? total_h
-               : head_h + (heights.empty() ? 0.0 : heights.front()));
+    ensure(table_start_h(cols, rows));
     table_header(cols);
     for (std::size_t i = 0; i < rows.size(); ++i) {
         if (ensure(heights[i])) {

@@ -113,12 +113,17 @@ void draw(PageLayout &page, const WarningsBlock &b) {
 
 } // namespace
 
-void render_block(PageLayout &page, const SheetBlock &block, units::System system) {
+void render_block(PageLayout &page, const SheetBlock &block, units::System system,
+                  const SheetBlock *next) {
     std::visit(
         [&](const auto &b) {
             using B = std::decay_t<decltype(b)>;
             if constexpr (std::is_same_v<B, HeadingBlock>) {
-                page.heading(b.text, b.style);
+                const auto *table = next != nullptr ? std::get_if<TableBlock>(next) : nullptr;
+                page.heading(b.text, b.style,
+                             table != nullptr
+                                 ? page.table_start_h(page.fit(table->columns), table->rows)
+                                 : 0.0);
             } else if constexpr (std::is_same_v<B, ParagraphBlock>) {
                 page.paragraph(b.markup, b.style, b.color);
             } else if constexpr (std::is_same_v<B, SpaceBlock>) {
@@ -143,8 +148,9 @@ void render_block(PageLayout &page, const SheetBlock &block, units::System syste
 void render_sections(PageLayout &page, const SheetDocument &doc) {
     for (const auto &section : doc.sections) {
         page.new_page(section.title);
-        for (const auto &block : section.blocks) {
-            render_block(page, block, doc.system);
+        for (std::size_t i = 0; i < section.blocks.size(); ++i) {
+            render_block(page, section.blocks[i], doc.system,
+                         i + 1 < section.blocks.size() ? &section.blocks[i + 1] : nullptr);
         }
     }
 }

@@ -141,6 +141,26 @@ TEST(PageLayout, HeadingIsNotLeftAloneAtTheBottomOfAPage) {
     EXPECT_EQ(page.page_count(), 2u);
 }
 
+TEST(PageLayout, HeadingGoesToTheNextPageWithTheStartOfItsTable) {
+    PageLayout page(PageSize::a4);
+    page.new_page("Section");
+    const auto cols = two_columns(page);
+    // A table of five tall rows: the whole table, kept together, is taller than the room kept
+    // below a heading, so a heading near the foot must go with it.
+    std::vector<Row> rows;
+    for (int i = 0; i < 5; ++i) {
+        rows.push_back({{{"line one\nline two\nline three\nline four"}, {"1"}}, {}});
+    }
+    const double start_h = page.table_start_h(cols, rows);
+    ASSERT_GT(start_h, style::heading_keep_pt);
+    const double h = page.measure(esc("Catchment"), Style::heading, page.content_w());
+    page.set_y(page.bottom() - h - style::heading_keep_pt - 1.0);
+    page.heading("Catchment", Style::heading, start_h);
+    EXPECT_EQ(page.page_count(), 2u); // not left alone above a table that starts overleaf
+    page.table(cols, rows);
+    EXPECT_EQ(page.page_count(), 2u); // and the table follows it on the same page
+}
+
 TEST(PageLayout, BlockTallerThanAPageIsNotPushedOnToEmptyPages) {
     PageLayout page(PageSize::a4);
     page.new_page("Section");

@@ -102,8 +102,10 @@ class PageLayout {
     /// A wrapped paragraph across the content width (less `indent_pt`) at y; moves y below it.
     void paragraph(const std::string &markup, style::Style st = style::Style::body,
                    style::Rgb color = style::black, double indent_pt = 0.0);
-    /// A heading in the accent colour, kept on one page with room for what follows.
-    void heading(const std::string &text, style::Style st = style::Style::heading);
+    /// A heading in the accent colour, kept on one page with room for what follows: at least
+    /// `style::heading_keep_pt`, or `keep_pt` when larger (the start of the table after it).
+    void heading(const std::string &text, style::Style st = style::Style::heading,
+                 double keep_pt = 0.0);
     void rule(double x0, double x1, double y, style::Rgb color, double width_pt) const;
 
     // ----- tables ----------------------------------------------------------------------------
@@ -113,6 +115,10 @@ class PageLayout {
     /// A table at y that continues across pages, repeating its header. A table shorter than
     /// `style::keep_whole_table_share` of the content height is kept whole on one page.
     void table(const std::vector<Column> &cols, const std::vector<Row> &rows);
+    /// The height `table` keeps together at its start: the whole table when it is short, else
+    /// its header and first row.
+    [[nodiscard]] double table_start_h(const std::vector<Column> &cols,
+                                       const std::vector<Row> &rows) const;
 
     // ----- output ----------------------------------------------------------------------------
     /// Writes every page, with its header and footer, to `file` (under a temporary name,

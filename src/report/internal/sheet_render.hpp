@@ -12,6 +12,9 @@ namespace catchpeak::report {
 void render_sections(PageLayout &page, const SheetDocument &doc);
 
 /// Draws one block at the layout's y and moves y below it.
-void render_block(PageLayout &page, const SheetBlock &block, units::System system);
+/// Draws one block. `next` is the block after it, if any: a heading is kept on the page of the
+/// start of the table that follows it.
+void render_block(PageLayout &page, const SheetBlock &block, units::System system,
+                  const SheetBlock *next = nullptr);
 
 } // namespace catchpeak::report
