@@ -66,14 +66,9 @@ std::string crs_name_of(const std::string &wkt) {
     return b == std::string::npos ? std::string{} : wkt.substr(a + 1, b - a - 1);
 }
 
-} // namespace
-
-Delineation delineate_catchments(const DelineateOptions &options, std::ostream *progress) {
-    check_options(options);
-    detail::ProgressBar bar(progress);
-    Delineation out;
-
-    bar.start("reading DEM");
+/// Takes the options; reads the DEM into out.dem (its notes into out.notes) and throws when the
+/// snap radius is more than half the DEM's extent.
+void read_dem_into(const DelineateOptions &options, Delineation &out) {
     out.dem = io::read_dem(options.dem);
     const io::Dem &dem = out.dem;
     out.notes.insert(out.notes.end(), dem.notes.begin(), dem.notes.end());
@@ -89,61 +84,44 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
                                       options.dem.string()),
                           fmt::format("0 to {:.1f} m; a few cells is usual", max_radius_m));
     }
+}
 
-    bar.start("reading design points");
-    const io::DesignPointLayer points =
-        io::read_design_points(options.points, options.id_field, grid.crs_wkt);
-    out.notes.insert(out.notes.end(), points.notes.begin(), points.notes.end());
-    std::vector<terrain::DesignPoint> tpoints;
-    tpoints.reserve(points.points.size());
-    for (const auto &p : points.points) {
-        tpoints.push_back(terrain::DesignPoint{p.id, p.x, p.y});
-    }
-
+/// Takes the options and the DEM's CRS; gives the breach lines read (in that CRS), their notes
+/// added to `notes`; none when the options name no file.
+std::vector<terrain::BreachLine> read_breach_lines(const DelineateOptions &options,
+                                                   const std::string &crs_wkt,
+                                                   detail::ProgressBar &bar,
+                                                   std::vector<std::string> &notes) {
     std::vector<terrain::BreachLine> breach;
     if (options.breach_lines) {
         bar.start("reading breach lines");
-        const io::LineLayer lines = io::read_lines(*options.breach_lines, grid.crs_wkt);
-        out.notes.insert(out.notes.end(), lines.notes.begin(), lines.notes.end());
+        const io::LineLayer lines = io::read_lines(*options.breach_lines, crs_wkt);
+        notes.insert(notes.end(), lines.notes.begin(), lines.notes.end());
         for (const auto &l : lines.lines) {
             breach.push_back(terrain::BreachLine{fmt::format("{}: feature {}", lines.source, l.fid),
                                                  l.vertices});
         }
     }
+    return breach;
+}
 
-    terrain::TerrainSettings settings;
-    settings.snap_radius_m = options.snap_radius_m;
-    settings.stream_threshold_m2 = options.stream_threshold_m2;
-    settings.threads = options.threads;
-    std::string current_step;
-    out.result = terrain::run_terrain(
-        grid, tpoints, breach, settings,
-        [&](std::string_view step, double) {
-            if (step != "done" && step != current_step) {
-                current_step = std::string(step);
-                bar.start(step);
-            }
-        },
-        points.source);
-    out.points_source = points.source;
-    const terrain::TerrainResult &result = out.result;
+/// The labels of the catchments' nesting tree grouped by height (the longest chain of labels
+/// upstream), leaves first, with the labels just upstream of each.
+struct NestingLevels {
+    std::vector<std::vector<std::uint32_t>> upstream_of;
+    std::vector<std::vector<std::uint32_t>> by_height;
+};
 
-    bar.start("polygonizing catchments");
-    const auto local_polygons = io::polygonize_labels(result.labels);
-    std::map<std::uint32_t, const io::LabelPolygon *> polygon_of_label;
-    for (const auto &p : local_polygons) {
-        polygon_of_label[p.label] = &p;
-    }
-    const std::size_t n = result.points.size();
-    // Total catchments label by label, leaves of the nesting tree first: a label's total is the
-    // union of its own local polygon and the totals of the labels just upstream. Each piece is
-    // merged once per level of nesting, not again for every design point below it.
-    const std::size_t n_labels = result.downstream_label.size();
-    std::vector<std::vector<std::uint32_t>> upstream_of(n_labels + 1);
+/// Takes the label downstream of each label (0: none); gives the labels by height in the
+/// nesting tree, throwing when the nesting has a cycle.
+NestingLevels nesting_levels(const std::vector<std::uint32_t> &downstream_label) {
+    const std::size_t n_labels = downstream_label.size();
+    NestingLevels out;
+    out.upstream_of.resize(n_labels + 1);
     std::vector<std::size_t> waiting(n_labels + 1, 0);
     for (std::uint32_t k = 1; k <= n_labels; ++k) {
-        if (const std::uint32_t d = result.downstream_label[k - 1]; d != 0) {
-            upstream_of[d].push_back(k);
+        if (const std::uint32_t d = downstream_label[k - 1]; d != 0) {
+            out.upstream_of[d].push_back(k);
             ++waiting[d];
         }
     }
@@ -153,12 +131,10 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
             order.push_back(k);
         }
     }
-    // Labels of one height in the tree (the longest chain of labels upstream) do not depend on
-    // each other: each height is merged on all threads, labels handed out one at a time.
     std::vector<std::uint32_t> height(n_labels + 1, 0);
     for (std::size_t head = 0; head < order.size(); ++head) {
         const std::uint32_t k = order[head];
-        if (const std::uint32_t d = result.downstream_label[k - 1]; d != 0) {
+        if (const std::uint32_t d = downstream_label[k - 1]; d != 0) {
             height[d] = std::max(height[d], height[k] + 1);
             if (--waiting[d] == 0) {
                 order.push_back(d);
@@ -168,25 +144,40 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
     if (order.size() != n_labels) {
         throw InternalError("delineate: the nesting of the catchments has a cycle");
     }
-    std::vector<std::vector<std::uint32_t>> by_height;
     for (const std::uint32_t k : order) {
-        by_height.resize(std::max<std::size_t>(by_height.size(), height[k] + 1));
-        by_height[height[k]].push_back(k);
+        out.by_height.resize(std::max<std::size_t>(out.by_height.size(), height[k] + 1));
+        out.by_height[height[k]].push_back(k);
     }
+    return out;
+}
+
+/// Local polygon of each label that has one.
+using PolygonOfLabel = std::map<std::uint32_t, const io::LabelPolygon *>;
+
+/// Takes the labels' nesting and their local polygons; gives the total catchment of each label
+/// (index = label), leaves of the nesting tree first: a label's total is the union of its own
+/// local polygon and the totals of the labels just upstream. Each piece is merged once per
+/// level of nesting, not again for every design point below it. Labels of one height do not
+/// depend on each other: each height is merged on all threads, labels handed out one at a
+/// time.
+std::vector<std::vector<unsigned char>>
+total_polygons(const std::vector<std::uint32_t> &downstream_label,
+               const PolygonOfLabel &polygon_of_label, unsigned workers, detail::ProgressBar &bar) {
+    const std::size_t n_labels = downstream_label.size();
+    const NestingLevels nesting = nesting_levels(downstream_label);
     std::vector<std::vector<unsigned char>> total_of_label(n_labels + 1);
     const auto merge = [&](std::uint32_t k) {
         std::vector<const std::vector<unsigned char> *> parts;
         if (auto it = polygon_of_label.find(k); it != polygon_of_label.end()) {
             parts.push_back(&it->second->wkb);
         }
-        for (const std::uint32_t up : upstream_of[k]) {
+        for (const std::uint32_t up : nesting.upstream_of[k]) {
             parts.push_back(&total_of_label[up]);
         }
         total_of_label[k] = parts.size() == 1 ? *parts.front() : io::union_polygons(parts);
     };
-    const unsigned workers = terrain::thread_count(options.threads);
     std::size_t merged = 0;
-    for (const auto &level : by_height) {
+    for (const auto &level : nesting.by_height) {
         std::atomic<std::size_t> next{0};
         run_on_threads(std::min<std::size_t>(workers, level.size()), [&](std::size_t) {
             for (std::size_t j = next++; j < level.size(); j = next++) {
@@ -196,66 +187,82 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
         merged += level.size();
         bar.update(static_cast<double>(merged) / static_cast<double>(n_labels));
     }
-    std::vector<std::vector<std::size_t>> all_up(n);
-    for (std::size_t i = 0; i < n; ++i) {
-        all_up[i] = terrain::all_upstream_points(result, i);
-    }
+    return total_of_label;
+}
 
-    // catchments.gpkg
+/// Takes the DEM's CRS; gives the empty layers of catchments.gpkg: catchments,
+/// local_catchments, flow_paths, design_points, streams.
+std::vector<io::OutLayer> empty_layers(const std::string &crs) {
     using io::FieldType;
-    using io::FieldValue;
-    const std::string &crs = grid.crs_wkt;
-    io::OutLayer catchments{"catchments",
-                            io::GeometryType::multi_polygon,
-                            crs,
-                            {{"id", FieldType::text},
-                             {"area_m2", FieldType::real},
-                             {"local_area_m2", FieldType::real},
-                             {"accumulation_cells", FieldType::integer},
-                             {"longest_flow_path_m", FieldType::real},
-                             {"slope_10_85_m_per_m", FieldType::real},
-                             {"mean_slope_m_per_m", FieldType::real},
-                             {"upstream_design_points", FieldType::text},
-                             {"touches_dem_edge", FieldType::integer}},
-                            {}};
-    io::OutLayer locals{"local_catchments",
-                        io::GeometryType::multi_polygon,
-                        crs,
-                        {{"id", FieldType::text},
-                         {"local_area_m2", FieldType::real},
-                         {"local_cells", FieldType::integer},
-                         {"downstream_design_point", FieldType::text}},
-                        {}};
-    io::OutLayer paths{"flow_paths",
-                       io::GeometryType::line_string,
-                       crs,
-                       {{"id", FieldType::text},
-                        {"length_m", FieldType::real},
-                        {"elevation_top_m", FieldType::real},
-                        {"elevation_outlet_m", FieldType::real},
-                        {"slope_m_per_m", FieldType::real},
-                        {"slope_10_85_m_per_m", FieldType::real}},
-                       {}};
-    io::OutLayer dps{"design_points",
-                     io::GeometryType::point,
-                     crs,
-                     {{"id", FieldType::text},
-                      {"given_x_m", FieldType::real},
-                      {"given_y_m", FieldType::real},
-                      {"snapped_x_m", FieldType::real},
-                      {"snapped_y_m", FieldType::real},
-                      {"snap_distance_m", FieldType::real},
-                      {"accumulation_cells", FieldType::integer},
-                      {"warnings", FieldType::text}},
-                     {}};
-    io::OutLayer streams{"streams",
+    return {io::OutLayer{"catchments",
+                         io::GeometryType::multi_polygon,
+                         crs,
+                         {{"id", FieldType::text},
+                          {"area_m2", FieldType::real},
+                          {"local_area_m2", FieldType::real},
+                          {"accumulation_cells", FieldType::integer},
+                          {"longest_flow_path_m", FieldType::real},
+                          {"slope_10_85_m_per_m", FieldType::real},
+                          {"mean_slope_m_per_m", FieldType::real},
+                          {"upstream_design_points", FieldType::text},
+                          {"touches_dem_edge", FieldType::integer}},
+                         {}},
+            io::OutLayer{"local_catchments",
+                         io::GeometryType::multi_polygon,
+                         crs,
+                         {{"id", FieldType::text},
+                          {"local_area_m2", FieldType::real},
+                          {"local_cells", FieldType::integer},
+                          {"downstream_design_point", FieldType::text}},
+                         {}},
+            io::OutLayer{"flow_paths",
+                         io::GeometryType::line_string,
+                         crs,
+                         {{"id", FieldType::text},
+                          {"length_m", FieldType::real},
+                          {"elevation_top_m", FieldType::real},
+                          {"elevation_outlet_m", FieldType::real},
+                          {"slope_m_per_m", FieldType::real},
+                          {"slope_10_85_m_per_m", FieldType::real}},
+                         {}},
+            io::OutLayer{"design_points",
+                         io::GeometryType::point,
+                         crs,
+                         {{"id", FieldType::text},
+                          {"given_x_m", FieldType::real},
+                          {"given_y_m", FieldType::real},
+                          {"snapped_x_m", FieldType::real},
+                          {"snapped_y_m", FieldType::real},
+                          {"snap_distance_m", FieldType::real},
+                          {"accumulation_cells", FieldType::integer},
+                          {"warnings", FieldType::text}},
+                         {}},
+            io::OutLayer{"streams",
                          io::GeometryType::line_string,
                          crs,
                          {{"strahler_order", FieldType::integer},
                           {"length_m", FieldType::real},
                           {"accumulation_end_cells", FieldType::integer},
                           {"accumulation_end_m2", FieldType::real}},
-                         {}};
+                         {}}};
+}
+
+/// Takes the terrain result, the total and local polygons by label, every design point
+/// upstream of each and the DEM's CRS; gives the layers of catchments.gpkg with their features
+/// (one a design point in each of the first four, one a stream of two vertices or more in the
+/// last).
+std::vector<io::OutLayer> layers_of(const terrain::TerrainResult &result,
+                                    const std::vector<std::vector<unsigned char>> &total_of_label,
+                                    const PolygonOfLabel &polygon_of_label,
+                                    const std::vector<std::vector<std::size_t>> &all_up,
+                                    const std::string &crs) {
+    using io::FieldValue;
+    std::vector<io::OutLayer> layers = empty_layers(crs);
+    io::OutLayer &catchments = layers[0];
+    io::OutLayer &locals = layers[1];
+    io::OutLayer &paths = layers[2];
+    io::OutLayer &dps = layers[3];
+    io::OutLayer &streams = layers[4];
     const auto join_ids = [&](const std::vector<std::size_t> &idx) {
         std::string s;
         for (auto k : idx) {
@@ -263,7 +270,7 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
         }
         return s;
     };
-    for (std::size_t i = 0; i < n; ++i) {
+    for (std::size_t i = 0; i < result.points.size(); ++i) {
         const auto &p = result.points[i];
         const auto &fp = p.longest_flow_path;
         catchments.features.push_back(
@@ -299,6 +306,63 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
              {std::int64_t{s.strahler_order}, s.length_m,
               static_cast<std::int64_t>(s.accumulation_end), s.accumulation_end_m2}});
     }
+    return layers;
+}
+
+} // namespace
+
+Delineation delineate_catchments(const DelineateOptions &options, std::ostream *progress) {
+    check_options(options);
+    detail::ProgressBar bar(progress);
+    Delineation out;
+
+    bar.start("reading DEM");
+    read_dem_into(options, out);
+    const auto &grid = out.dem.elevation_m;
+
+    bar.start("reading design points");
+    const io::DesignPointLayer points =
+        io::read_design_points(options.points, options.id_field, grid.crs_wkt);
+    out.notes.insert(out.notes.end(), points.notes.begin(), points.notes.end());
+    std::vector<terrain::DesignPoint> tpoints;
+    tpoints.reserve(points.points.size());
+    for (const auto &p : points.points) {
+        tpoints.push_back(terrain::DesignPoint{p.id, p.x, p.y});
+    }
+    const std::vector<terrain::BreachLine> breach =
+        read_breach_lines(options, grid.crs_wkt, bar, out.notes);
+
+    terrain::TerrainSettings settings;
+    settings.snap_radius_m = options.snap_radius_m;
+    settings.stream_threshold_m2 = options.stream_threshold_m2;
+    settings.threads = options.threads;
+    std::string current_step;
+    out.result = terrain::run_terrain(
+        grid, tpoints, breach, settings,
+        [&](std::string_view step, double) {
+            if (step != "done" && step != current_step) {
+                current_step = std::string(step);
+                bar.start(step);
+            }
+        },
+        points.source);
+    out.points_source = points.source;
+    const terrain::TerrainResult &result = out.result;
+
+    bar.start("polygonizing catchments");
+    const auto local_polygons = io::polygonize_labels(result.labels);
+    PolygonOfLabel polygon_of_label;
+    for (const auto &p : local_polygons) {
+        polygon_of_label[p.label] = &p;
+    }
+    std::vector<std::vector<unsigned char>> total_of_label = total_polygons(
+        result.downstream_label, polygon_of_label, terrain::thread_count(options.threads), bar);
+    const std::size_t n = result.points.size();
+    std::vector<std::vector<std::size_t>> all_up(n);
+    for (std::size_t i = 0; i < n; ++i) {
+        all_up[i] = terrain::all_upstream_points(result, i);
+    }
+    out.layers = layers_of(result, total_of_label, polygon_of_label, all_up, grid.crs_wkt);
 
     out.total_wkb.resize(n);
     for (std::size_t i = 0; i < n; ++i) {
@@ -307,11 +371,9 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
     total_of_label.clear();
     out.local_wkb.resize(n);
     for (std::size_t i = 0; i < n; ++i) {
-        out.local_wkb[i] = locals.features[i].wkb;
+        out.local_wkb[i] = out.layers[1].features[i].wkb;
     }
     out.all_upstream = std::move(all_up);
-    out.layers = {std::move(catchments), std::move(locals), std::move(paths), std::move(dps),
-                  std::move(streams)};
     bar.finish();
     return out;
 }

@@ -38,120 +38,122 @@ std::string command_list(const CLI::App &app) {
     return names.empty() ? "none yet" : names;
 }
 
-} // namespace
-
-int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &err) {
-    CLI::App app{description, "catchpeak"};
-    app.set_help_flag("-h,--help", "Print this help and exit");
-    bool show_version = false;
-    app.add_flag("--version", show_version, "Print the version and the git commit, and exit");
-    app.require_subcommand(0, 1);
-
-    // Subcommands; each one sets `action`. The logic lives in catchpeak::app.
+/// The subcommands' option values and the action the chosen one sets; they must outlive the
+/// parse and the action.
+struct Commands {
     std::function<int()> action;
-
     std::string init_dir;
+    std::string check_file;
+    std::string run_file;
+    std::string run_out;
+    bool run_quiet = false;
+    std::string recheck_dir;
+    std::string recheck_project;
+    app::DelineateOptions delineate_options;
+    bool delineate_quiet = false;
+};
+
+/// Takes the application and the commands' values; adds the subcommands "init", "check" and
+/// "run", each setting c.action.
+void add_project_commands(CLI::App &app, Commands &c, std::ostream &out, std::ostream &err) {
     auto *init = app.add_subcommand("init", "Write a commented project template as "
                                             "DIR/project.toml (never overwrites)");
-    init->add_option("DIR", init_dir, "Folder of the new project")->required();
-    init->callback([&] {
-        action = [&] {
-            const auto file = app::init_project(init_dir);
+    init->add_option("DIR", c.init_dir, "Folder of the new project")->required();
+    init->callback([&c, &out] {
+        c.action = [&c, &out] {
+            const auto file = app::init_project(c.init_dir);
             out << fmt::format("wrote {}; edit it, then run 'catchpeak check {}'\n", file.string(),
                                file.string());
             return to_int(ExitCode::success);
         };
     });
 
-    std::string check_file;
     auto *check = app.add_subcommand(
         "check", "Validate a project file and its inputs without computing; lists every problem");
-    check->add_option("PROJECT", check_file, "The project file (.toml)")->required();
-    check->callback([&] {
-        action = [&] {
-            app::check_project_file(check_file, out);
+    check->add_option("PROJECT", c.check_file, "The project file (.toml)")->required();
+    check->callback([&c, &out] {
+        c.action = [&c, &out] {
+            app::check_project_file(c.check_file, out);
             return to_int(ExitCode::success);
         };
     });
 
-    std::string run_file;
-    std::string run_out;
-    bool run_quiet = false;
     auto *runc = app.add_subcommand(
         "run", "Compute every design point and return period of a project and write the results");
-    runc->add_option("PROJECT", run_file, "The project file (.toml)")->required();
-    runc->add_option("--out", run_out, "Output folder (default: [output] folder of the project)");
-    runc->add_flag("--quiet", run_quiet, "No progress and no summary table");
-    runc->callback([&] {
-        action = [&] {
+    runc->add_option("PROJECT", c.run_file, "The project file (.toml)")->required();
+    runc->add_option("--out", c.run_out, "Output folder (default: [output] folder of the project)");
+    runc->add_flag("--quiet", c.run_quiet, "No progress and no summary table");
+    runc->callback([&c, &out, &err] {
+        c.action = [&c, &out, &err] {
             app::RunOptions options;
-            if (!run_out.empty()) {
-                options.out_dir = std::filesystem::path(run_out);
+            if (!c.run_out.empty()) {
+                options.out_dir = std::filesystem::path(c.run_out);
             }
-            options.quiet = run_quiet;
-            app::run_project(run_file, options, out, err);
+            options.quiet = c.run_quiet;
+            app::run_project(c.run_file, options, out, err);
             return to_int(ExitCode::success);
         };
     });
+}
 
-    std::string recheck_dir;
-    std::string recheck_project;
+/// Takes the application and the commands' values; adds the subcommand "recheck", setting
+/// c.action.
+void add_recheck_command(CLI::App &app, Commands &c, std::ostream &out) {
     auto *recheckc = app.add_subcommand(
         "recheck", "Verify the inputs of a run, recompute it in memory and compare every "
                    "calculation line; exit 0 when everything is reproduced, 3 when a line "
                    "differs from unchanged inputs, 4 when an input changed since the run");
-    recheckc->add_option("OUTPUT_DIR", recheck_dir, "Output folder of a 'catchpeak run'")
+    recheckc->add_option("OUTPUT_DIR", c.recheck_dir, "Output folder of a 'catchpeak run'")
         ->required();
-    recheckc->add_option("--project", recheck_project,
+    recheckc->add_option("--project", c.recheck_project,
                          "The project file (default: the recorded one, beside the output folder)");
-    recheckc->callback([&] {
-        action = [&] {
+    recheckc->callback([&c, &out] {
+        c.action = [&c, &out] {
             app::RecheckOptions options;
-            if (!recheck_project.empty()) {
-                options.project_file = std::filesystem::path(recheck_project);
+            if (!c.recheck_project.empty()) {
+                options.project_file = std::filesystem::path(c.recheck_project);
             }
-            const auto report = app::recheck(recheck_dir, options);
+            const auto report = app::recheck(c.recheck_dir, options);
             out << app::format_recheck(report);
             return to_int(report.exit_code());
         };
     });
+}
 
-    app::DelineateOptions delineate_options;
-    bool delineate_quiet = false;
+/// Takes the application and the commands' values; adds the subcommand "delineate", setting
+/// c.action.
+void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::ostream &err) {
+    app::DelineateOptions &o = c.delineate_options;
     auto *delineate = app.add_subcommand(
         "delineate", "Delineate the catchment above every design point from a DEM: area, "
                      "longest flow path, slopes; writes catchments.json and catchments.gpkg");
-    delineate
-        ->add_option("--dem", delineate_options.dem,
-                     "DEM raster in a projected CRS (metres or feet)")
+    delineate->add_option("--dem", o.dem, "DEM raster in a projected CRS (metres or feet)")
         ->required();
     delineate
-        ->add_option("--points", delineate_options.points,
+        ->add_option("--points", o.points,
                      "Design points (any vector file GDAL reads); reprojected to the DEM's "
                      "CRS if theirs differs")
         ->required();
-    delineate
-        ->add_option("--id-field", delineate_options.id_field, "Field holding the design point ids")
+    delineate->add_option("--id-field", o.id_field, "Field holding the design point ids")
         ->required();
     delineate
-        ->add_option("--snap-radius", delineate_options.snap_radius_m,
+        ->add_option("--snap-radius", o.snap_radius_m,
                      "Metres: each point moves to the cell of largest flow accumulation "
                      "within this distance")
         ->required();
-    delineate->add_option("--out", delineate_options.out_dir, "Folder to write the results to")
-        ->required();
-    delineate->add_option("--breach-lines", delineate_options.breach_lines,
+    delineate->add_option("--out", o.out_dir, "Folder to write the results to")->required();
+    delineate->add_option("--breach-lines", o.breach_lines,
                           "Lines (culverts under embankments) along which the DEM is lowered");
     delineate
-        ->add_option("--stream-threshold", delineate_options.stream_threshold_m2,
+        ->add_option("--stream-threshold", o.stream_threshold_m2,
                      "M2: cells draining at least this area are streams (0: none)")
         ->capture_default_str();
-    delineate->add_flag("--quiet", delineate_quiet, "No progress on stderr");
-    delineate->callback([&] {
-        action = [&] {
+    delineate->add_flag("--quiet", c.delineate_quiet, "No progress on stderr");
+    delineate->callback([&c, &out, &err] {
+        c.action = [&c, &out, &err] {
             const auto summary =
-                app::delineate(delineate_options, delineate_quiet ? nullptr : &err);
-            if (!delineate_quiet) {
+                app::delineate(c.delineate_options, c.delineate_quiet ? nullptr : &err);
+            if (!c.delineate_quiet) {
                 for (const auto &note : summary.notes) {
                     err << "note: " << note << '\n';
                 }
@@ -164,7 +166,13 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
             return to_int(ExitCode::success);
         };
     });
+}
 
+/// Takes the application with its commands and the arguments; parses them. Gives the exit
+/// code when the parse ends the run (help shown, or a bad argument reported on `err`),
+/// nullopt when the run goes on.
+std::optional<int> parse_arguments(CLI::App &app, const std::vector<std::string> &args,
+                                   std::ostream &out, std::ostream &err) {
     try {
         std::vector<std::string> reversed(args.rbegin(), args.rend());
         app.parse(reversed);
@@ -181,17 +189,37 @@ int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &e
         err << "catchpeak: " << e.what() << "; see 'catchpeak --help'\n";
         return to_int(ExitCode::bad_input);
     }
+    return std::nullopt;
+}
+
+} // namespace
+
+int run(const std::vector<std::string> &args, std::ostream &out, std::ostream &err) {
+    CLI::App app{description, "catchpeak"};
+    app.set_help_flag("-h,--help", "Print this help and exit");
+    bool show_version = false;
+    app.add_flag("--version", show_version, "Print the version and the git commit, and exit");
+    app.require_subcommand(0, 1);
+
+    // Subcommands; each one sets `action`. The logic lives in catchpeak::app.
+    Commands commands;
+    add_project_commands(app, commands, out, err);
+    add_recheck_command(app, commands, out);
+    add_delineate_command(app, commands, out, err);
+    if (const std::optional<int> code = parse_arguments(app, args, out, err)) {
+        return *code;
+    }
 
     if (show_version) {
         out << fmt::format("catchpeak {} (commit {})\n", version(), git_commit());
         return to_int(ExitCode::success);
     }
-    if (!action) {
+    if (!commands.action) {
         out << app.help();
         return to_int(ExitCode::success);
     }
     try {
-        return action();
+        return commands.action();
     } catch (const Error &e) {
         err << "catchpeak: " << e.what() << '\n';
         return to_int(e.exit_code());

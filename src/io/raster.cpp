@@ -45,15 +45,9 @@ std::optional<std::pair<std::string, double>> vertical_unit_of(const std::string
 constexpr const char *accepted_crs =
     "a projected CRS in metres, international feet or US survey feet";
 
-} // namespace
-
-Dem read_dem(const std::filesystem::path &path) {
-    auto ds = detail::open_raster(path);
-    const std::string file = path.string();
-    Dem dem;
-    dem.source = file;
-
-    const int bands = ds->GetRasterCount();
+/// Takes the opened raster; throws unless it has exactly one band.
+void check_single_band(GDALDataset &ds, const std::string &file) {
+    const int bands = ds.GetRasterCount();
     if (bands == 0) {
         throw_input_error(file, "has no raster band", "a single-band elevation raster");
     }
@@ -65,10 +59,13 @@ Dem read_dem(const std::filesystem::path &path) {
                           "a single-band raster; extract the elevation band with "
                           "'gdal_translate -b <band> in.tif dem.tif'");
     }
+}
 
-    // Georeferencing.
+/// Takes the opened raster; gives its geotransform in the file's units, throwing when there is
+/// none, when it is rotated or when a cell size is zero.
+GeoTransform geotransform_of(GDALDataset &ds, const std::string &file) {
     double gt[6] = {0, 1, 0, 0, 0, 1};
-    if (ds->GetGeoTransform(gt) != CE_None) {
+    if (ds.GetGeoTransform(gt) != CE_None) {
         throw_input_error(file, "has no georeferencing (no geotransform)",
                           "a georeferenced raster");
     }
@@ -81,8 +78,12 @@ Dem read_dem(const std::filesystem::path &path) {
     if (gt[1] == 0.0 || gt[5] == 0.0) {
         throw_input_error(file, "has a zero cell size", "a georeferenced raster");
     }
+    return transform;
+}
 
-    const OGRSpatialReference *srs = ds->GetSpatialRef();
+/// Takes the raster's CRS (possibly none); throws unless it is projected with an accepted
+/// linear unit; gives that unit in dem.horizontal_unit and dem.horizontal_unit_m.
+void take_horizontal_unit(const OGRSpatialReference *srs, const std::string &file, Dem &dem) {
     if (!detail::has_crs(srs)) {
         throw_input_error(file, "has no coordinate reference system (CRS)",
                           std::string(accepted_crs) +
@@ -116,33 +117,42 @@ Dem read_dem(const std::filesystem::path &path) {
                           fmt::format("the CRS's linear unit is '{}' ({} m)", unit_name, unit_m),
                           accepted_crs);
     }
+}
 
-    std::string crs_wkt;
+/// Takes the checked CRS, the DEM with its horizontal unit and the file's geotransform; gives
+/// the CRS as WKT in metres. A CRS in feet is replaced by the same CRS with metre units, the
+/// geotransform converted with it and a note added to the DEM.
+std::string metric_crs_wkt(const OGRSpatialReference *srs, const std::string &file, Dem &dem,
+                           GeoTransform &transform) {
     if (dem.horizontal_unit_m == 1.0) {
-        crs_wkt = detail::to_wkt(srs);
-    } else {
-        detail::SpatialRefPtr metric(srs->Clone());
-        GdalErrorScope errors;
-        if (metric->IsCompound()) {
-            metric->StripVertical();
-        }
-        if (metric->SetLinearUnitsAndUpdateParameters(SRS_UL_METER, 1.0) != OGRERR_NONE) {
-            throw_input_error(
-                file,
-                errors.describe("cannot convert the CRS's " + dem.horizontal_unit + " to metres"),
-                accepted_crs);
-        }
-        crs_wkt = detail::to_wkt(metric.get());
-        const double f = dem.horizontal_unit_m;
-        transform = GeoTransform{gt[0] * f, gt[1] * f, 0.0, gt[3] * f, 0.0, gt[5] * f};
-        dem.notes.push_back(fmt::format(
-            "{}: coordinates and cell size converted from {} to metres (1 {} = {} m); outputs "
-            "use the same CRS with metre units",
-            file, dem.horizontal_unit, dem.horizontal_unit, fmt::format("{:.12g}", f)));
+        return detail::to_wkt(srs);
     }
+    detail::SpatialRefPtr metric(srs->Clone());
+    GdalErrorScope errors;
+    if (metric->IsCompound()) {
+        metric->StripVertical();
+    }
+    if (metric->SetLinearUnitsAndUpdateParameters(SRS_UL_METER, 1.0) != OGRERR_NONE) {
+        throw_input_error(
+            file, errors.describe("cannot convert the CRS's " + dem.horizontal_unit + " to metres"),
+            accepted_crs);
+    }
+    const double f = dem.horizontal_unit_m;
+    const GeoTransform &t = transform;
+    transform = GeoTransform{t.origin_x * f,    t.pixel_width * f, 0.0, t.origin_y * f, 0.0,
+                             t.pixel_height * f};
+    dem.notes.push_back(fmt::format(
+        "{}: coordinates and cell size converted from {} to metres (1 {} = {} m); outputs "
+        "use the same CRS with metre units",
+        file, dem.horizontal_unit, dem.horizontal_unit, fmt::format("{:.12g}", f)));
+    return detail::to_wkt(metric.get());
+}
 
-    GDALRasterBand *band = ds->GetRasterBand(1);
-    const std::string band_unit = band->GetUnitType() != nullptr ? band->GetUnitType() : "";
+/// Takes the elevation band and the DEM with its horizontal unit; gives the elevations' unit in
+/// dem.vertical_unit and dem.vertical_unit_m (the CRS's when the band states none, with a
+/// note), throwing on an unknown unit.
+void take_vertical_unit(GDALRasterBand &band, const std::string &file, Dem &dem) {
+    const std::string band_unit = band.GetUnitType() != nullptr ? band.GetUnitType() : "";
     if (band_unit.empty()) {
         dem.vertical_unit = dem.horizontal_unit;
         dem.vertical_unit_m = dem.horizontal_unit_m;
@@ -160,58 +170,93 @@ Dem read_dem(const std::filesystem::path &path) {
         dem.notes.push_back(
             fmt::format("{}: elevations converted from {} to metres", file, dem.vertical_unit));
     }
+}
 
+/// How the band's stored values become elevations in metres.
+struct BandValues {
     int has_nodata = 0;
-    const double nodata = band->GetNoDataValue(&has_nodata);
+    double nodata = 0.0;
     int has_scale = 0;
+    double scale = 1.0;
     int has_offset = 0;
-    const double scale = band->GetScale(&has_scale);
-    const double offset = band->GetOffset(&has_offset);
+    double offset = 0.0;
+    double to_m = 1.0; ///< metres per unit of the elevations
+};
 
-    const auto width = static_cast<std::size_t>(ds->GetRasterXSize());
-    const auto height = static_cast<std::size_t>(ds->GetRasterYSize());
-    Grid<float> grid(width, height, no_fill); // every cell is written below
-    grid.transform = transform;
-    grid.crs_wkt = crs_wkt;
-    grid.nodata = std::numeric_limits<float>::quiet_NaN();
+/// Takes the band and the metres per vertical unit; gives its nodata value, scale and offset.
+BandValues band_values_of(GDALRasterBand &band, double to_m) {
+    BandValues v;
+    v.nodata = band.GetNoDataValue(&v.has_nodata);
+    v.scale = band.GetScale(&v.has_scale);
+    v.offset = band.GetOffset(&v.has_offset);
+    v.to_m = to_m;
+    return v;
+}
 
-    // Strips of whole blocks (rows of tiles), about 8 MiB of doubles each: few, large reads.
-    int block_cols = 0;
-    int block_rows = 0;
-    band->GetBlockSize(&block_cols, &block_rows);
-    const std::size_t block_h = static_cast<std::size_t>(std::max(1, block_rows));
-    const std::size_t wanted_rows = std::max<std::size_t>(
-        1, (std::size_t{8} << 20) / (std::max<std::size_t>(1, width) * sizeof(double)));
-    const std::size_t strip_rows =
-        std::min(height, block_h * std::max<std::size_t>(1, wanted_rows / block_h));
-    std::size_t valid = 0;
-    const double to_m = dem.vertical_unit_m;
-    GdalErrorScope errors;
-    const auto read_strip = [&](std::size_t r0, std::size_t rows, void *into, GDALDataType type) {
-        if (band->RasterIO(GF_Read, 0, static_cast<int>(r0), static_cast<int>(width),
-                           static_cast<int>(rows), into, static_cast<int>(width),
+/// Reads the band into a grid of its size in strips of whole blocks (rows of tiles), about
+/// 8 MiB of doubles each: few, large reads.
+class StripReader {
+  public:
+    /// Takes the band, its file name (for messages) and its size.
+    StripReader(GDALRasterBand &band, const std::string &file, std::size_t width,
+                std::size_t height)
+        : band_(band), file_(file), width_(width) {
+        int block_cols = 0;
+        int block_rows = 0;
+        band.GetBlockSize(&block_cols, &block_rows);
+        const std::size_t block_h = static_cast<std::size_t>(std::max(1, block_rows));
+        const std::size_t wanted_rows = std::max<std::size_t>(
+            1, (std::size_t{8} << 20) / (std::max<std::size_t>(1, width) * sizeof(double)));
+        rows_ = std::min(height, block_h * std::max<std::size_t>(1, wanted_rows / block_h));
+    }
+    /// Rows in a strip.
+    [[nodiscard]] std::size_t rows() const { return rows_; }
+    /// Takes the first row and the row count; reads them into `into` as `type`, throwing on a
+    /// read error.
+    void read(std::size_t r0, std::size_t rows, void *into, GDALDataType type) {
+        if (band_.RasterIO(GF_Read, 0, static_cast<int>(r0), static_cast<int>(width_),
+                           static_cast<int>(rows), into, static_cast<int>(width_),
                            static_cast<int>(rows), type, 0, 0, nullptr) != CE_None) {
             throw_input_error(
-                file, errors.describe(fmt::format("cannot read rows {} to {}", r0, r0 + rows - 1)),
+                file_,
+                errors_.describe(fmt::format("cannot read rows {} to {}", r0, r0 + rows - 1)),
                 "a readable raster");
         }
         // Drop the strip's blocks from GDAL's block cache (up to 5 % of the memory by default):
         // they are in the grid now, and a large DEM would otherwise be held twice.
-        band->FlushCache(false);
-    };
-    const bool as_stored = band->GetRasterDataType() == GDT_Float32 &&
-                           (has_scale == 0 || scale == 1.0) && (has_offset == 0 || offset == 0.0) &&
-                           to_m == 1.0;
+        band_.FlushCache(false);
+    }
+
+  private:
+    GDALRasterBand &band_;
+    const std::string &file_;
+    std::size_t width_;
+    std::size_t rows_ = 1;
+    GdalErrorScope errors_;
+};
+
+/// Takes the band, how its values become metres and the grid of its size; fills the grid with
+/// elevations in metres (NaN on nodata) and gives the number of valid cells.
+std::size_t read_elevations(GDALRasterBand &band, const std::string &file, const BandValues &b,
+                            Grid<float> &grid) {
+    const std::size_t width = grid.width();
+    const std::size_t height = grid.height();
+    StripReader reader(band, file, width, height);
+    const std::size_t strip_rows = reader.rows();
+    std::size_t valid = 0;
+    const bool as_stored = band.GetRasterDataType() == GDT_Float32 &&
+                           (b.has_scale == 0 || b.scale == 1.0) &&
+                           (b.has_offset == 0 || b.offset == 0.0) && b.to_m == 1.0;
     if (as_stored) {
         // Float32 elevations in metres: read straight into the grid, then mark nodata. Adding
         // 0 turns -0 into +0, as the conversion below does.
         for (std::size_t r0 = 0; r0 < height; r0 += strip_rows) {
             const std::size_t rows = std::min(strip_rows, height - r0);
             float *const cells = grid.cells().data() + r0 * width;
-            read_strip(r0, rows, cells, GDT_Float32);
+            reader.read(r0, rows, cells, GDT_Float32);
             for (std::size_t k = 0; k < rows * width; ++k) {
                 const float v = cells[k];
-                if (std::isnan(v) || (has_nodata != 0 && static_cast<double>(v) == nodata)) {
+                if (std::isnan(v) || (b.has_nodata != 0 && static_cast<double>(v) == b.nodata)) {
                     cells[k] = std::numeric_limits<float>::quiet_NaN();
                 } else {
                     cells[k] = v + 0.0F;
@@ -219,31 +264,58 @@ Dem read_dem(const std::filesystem::path &path) {
                 }
             }
         }
-    } else {
-        std::vector<double> strip(strip_rows * width);
-        for (std::size_t r0 = 0; r0 < height; r0 += strip_rows) {
-            const std::size_t rows = std::min(strip_rows, height - r0);
-            read_strip(r0, rows, strip.data(), GDT_Float64);
-            float *const cells = grid.cells().data() + r0 * width;
-            for (std::size_t k = 0; k < rows * width; ++k) {
-                const double v = strip[k];
-                if (std::isnan(v) || (has_nodata != 0 && v == nodata)) {
-                    cells[k] = std::numeric_limits<float>::quiet_NaN();
-                    continue;
-                }
-                const double z =
-                    (has_scale != 0 ? v * scale : v) + (has_offset != 0 ? offset : 0.0);
-                cells[k] = static_cast<float>(z * to_m);
-                ++valid;
+        return valid;
+    }
+    std::vector<double> strip(strip_rows * width);
+    for (std::size_t r0 = 0; r0 < height; r0 += strip_rows) {
+        const std::size_t rows = std::min(strip_rows, height - r0);
+        reader.read(r0, rows, strip.data(), GDT_Float64);
+        float *const cells = grid.cells().data() + r0 * width;
+        for (std::size_t k = 0; k < rows * width; ++k) {
+            const double v = strip[k];
+            if (std::isnan(v) || (b.has_nodata != 0 && v == b.nodata)) {
+                cells[k] = std::numeric_limits<float>::quiet_NaN();
+                continue;
             }
+            const double z =
+                (b.has_scale != 0 ? v * b.scale : v) + (b.has_offset != 0 ? b.offset : 0.0);
+            cells[k] = static_cast<float>(z * b.to_m);
+            ++valid;
         }
     }
+    return valid;
+}
+
+} // namespace
+
+Dem read_dem(const std::filesystem::path &path) {
+    auto ds = detail::open_raster(path);
+    const std::string file = path.string();
+    Dem dem;
+    dem.source = file;
+    check_single_band(*ds, file);
+    GeoTransform transform = geotransform_of(*ds, file);
+    const OGRSpatialReference *srs = ds->GetSpatialRef();
+    take_horizontal_unit(srs, file, dem);
+    const std::string crs_wkt = metric_crs_wkt(srs, file, dem, transform);
+    GDALRasterBand *band = ds->GetRasterBand(1);
+    take_vertical_unit(*band, file, dem);
+    const BandValues values = band_values_of(*band, dem.vertical_unit_m);
+
+    const auto width = static_cast<std::size_t>(ds->GetRasterXSize());
+    const auto height = static_cast<std::size_t>(ds->GetRasterYSize());
+    Grid<float> grid(width, height, no_fill); // every cell is written below
+    grid.transform = transform;
+    grid.crs_wkt = crs_wkt;
+    grid.nodata = std::numeric_limits<float>::quiet_NaN();
+    const std::size_t valid = read_elevations(*band, file, values, grid);
     if (valid == 0) {
-        throw_input_error(
-            file,
-            fmt::format("every cell is nodata ({} x {} cells{})", width, height,
-                        has_nodata != 0 ? fmt::format(", nodata value {}", nodata) : std::string()),
-            "a DEM with elevations");
+        throw_input_error(file,
+                          fmt::format("every cell is nodata ({} x {} cells{})", width, height,
+                                      values.has_nodata != 0
+                                          ? fmt::format(", nodata value {}", values.nodata)
+                                          : std::string()),
+                          "a DEM with elevations");
     }
     dem.valid_cells = valid;
     dem.elevation_m = std::move(grid);

@@ -709,27 +709,15 @@ void check_design_storm(const Project &p, Problems &problems) {
     }
 }
 
-} // namespace
-
-Project parse_project(std::string_view text, const fs::path &file, Problems &problems) {
-    Project p;
-    p.file = file;
-    p.dir = file.parent_path();
-    const std::string name = file.string();
-    toml::table root;
-    try {
-        root = toml::parse(text, name);
-    } catch (const toml::parse_error &e) {
-        problems.add(input_message(
-            fmt::format("{}:{}:{}", name, e.source().begin.line, e.source().begin.column),
-            fmt::format("not valid TOML: {}", e.description()),
-            "TOML (https://toml.io); see config/project-template.toml"));
-        return p;
-    }
-
-    TableReader top(root, "", name, problems);
-    const std::string section_hint = "the tables [project], [inputs], [rainfall], [methods], "
+/// What a project file's top level holds, for messages.
+constexpr const char *section_hint = "the tables [project], [inputs], [rainfall], [methods], "
                                      "[settings], [output]";
+
+/// Takes the parsed file; reads its tables into `p` (a missing [project], [inputs] or
+/// [rainfall] is a problem), the output folder defaulting to reports/latest beside the file.
+void read_sections(const toml::table &root, const std::string &name, Project &p,
+                   Problems &problems) {
+    TableReader top(root, "", name, problems);
     if (const auto *t = sub_table(top, "project")) {
         TableReader r(*t, "project", name, problems);
         read_project_info(r, p.info);
@@ -764,7 +752,10 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
         }
         r.finish();
     }
-    // Unknown top-level tables or keys.
+}
+
+/// Takes the parsed file; adds a problem for each unknown top-level table or key.
+void check_unknown_sections(const toml::table &root, const std::string &name, Problems &problems) {
     for (auto &&[k, v] : root) {
         const std::string key(k.str());
         static const std::vector<std::string> sections = {"project", "inputs",   "rainfall",
@@ -779,8 +770,11 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
                         hint.empty() ? "" : fmt::format(" (did you mean '[{}]'?)", hint)),
             section_hint));
     }
-    // Methods that need what the project does not give.
-    check_design_storm(p, problems);
+}
+
+/// Takes the project read; adds a problem for each method that needs rainfall data the project
+/// does not give (an IDF table, 24-hour depths, P2, a storm type).
+void check_rainfall_needs(const Project &p, const std::string &name, Problems &problems) {
     // The NRCS 24-hour storm (its type and 24-hour depths) is needed by the TR-55 graphical
     // method always, and by the unit hydrograph unless the storm is the alternating block.
     const bool nrcs_storm =
@@ -822,6 +816,30 @@ Project parse_project(std::string_view text, const fs::path &file, Problems &pro
             }
         }
     }
+}
+
+} // namespace
+
+Project parse_project(std::string_view text, const fs::path &file, Problems &problems) {
+    Project p;
+    p.file = file;
+    p.dir = file.parent_path();
+    const std::string name = file.string();
+    toml::table root;
+    try {
+        root = toml::parse(text, name);
+    } catch (const toml::parse_error &e) {
+        problems.add(input_message(
+            fmt::format("{}:{}:{}", name, e.source().begin.line, e.source().begin.column),
+            fmt::format("not valid TOML: {}", e.description()),
+            "TOML (https://toml.io); see config/project-template.toml"));
+        return p;
+    }
+    read_sections(root, name, p, problems);
+    check_unknown_sections(root, name, problems);
+    // Methods that need what the project does not give.
+    check_design_storm(p, problems);
+    check_rainfall_needs(p, name, problems);
     return p;
 }
 

@@ -9,7 +9,11 @@
 #include <nlohmann/json.hpp>
 
 #include <cmath>
+#include <initializer_list>
 #include <limits>
+#include <string>
+#include <string_view>
+#include <type_traits>
 #include <utility>
 
 namespace catchpeak::report {
@@ -298,6 +302,20 @@ void check_format(const Reader &r, std::string_view format) {
     }
 }
 
+/// Takes a reader of a JSON object and pairs (member name, field of `into`); reads each member,
+/// in the order given, into its field: a number into a double, a text into a string.
+template <typename V, typename T>
+void read_members(const Reader &r, T &into,
+                  std::initializer_list<std::pair<std::string_view, V T::*>> members) {
+    for (const auto &[key, field] : members) {
+        if constexpr (std::is_same_v<V, double>) {
+            into.*field = r.num(key);
+        } else {
+            into.*field = r.str(key);
+        }
+    }
+}
+
 LineKind parse_kind(const Reader &r) {
     const auto k = r.str("kind");
     if (k == "calculation") {
@@ -327,14 +345,16 @@ DesignPointResult parse_point(const Reader &r) {
     p.from_table = source == "table";
 
     const auto c = r.object("catchment");
-    p.catchment.area_m2 = c.num("area_m2");
-    p.catchment.local_area_m2 = c.num("local_area_m2");
-    p.catchment.longest_flow_path_m = c.num("longest_flow_path_m");
-    p.catchment.elevation_top_m = c.num("elevation_top_m");
-    p.catchment.elevation_outlet_m = c.num("elevation_outlet_m");
-    p.catchment.slope_flow_path = c.num("slope_flow_path_m_per_m");
-    p.catchment.slope_10_85 = c.num("slope_10_85_m_per_m");
-    p.catchment.mean_slope = c.num("mean_slope_m_per_m");
+    using C = CatchmentFigures;
+    read_members<double>(c, p.catchment,
+                         {{"area_m2", &C::area_m2},
+                          {"local_area_m2", &C::local_area_m2},
+                          {"longest_flow_path_m", &C::longest_flow_path_m},
+                          {"elevation_top_m", &C::elevation_top_m},
+                          {"elevation_outlet_m", &C::elevation_outlet_m},
+                          {"slope_flow_path_m_per_m", &C::slope_flow_path},
+                          {"slope_10_85_m_per_m", &C::slope_10_85},
+                          {"mean_slope_m_per_m", &C::mean_slope}});
     p.catchment.upstream_points = c.strs("upstream_points");
 
     const auto w = r.object("land");
@@ -436,13 +456,14 @@ RunResults parse_results_json(std::string_view text, std::string_view where) {
 
     RunResults out;
     const auto p = r.object("project");
-    out.project.name = p.str("name");
-    out.project.number = p.str("number");
-    out.project.client = p.str("client");
-    out.project.location = p.str("location");
-    out.project.prepared_by = p.str("prepared_by");
-    out.project.checked_by = p.str("checked_by");
-    out.project.revision = p.str("revision");
+    read_members<std::string>(p, out.project,
+                              {{"name", &ProjectInfo::name},
+                               {"number", &ProjectInfo::number},
+                               {"client", &ProjectInfo::client},
+                               {"location", &ProjectInfo::location},
+                               {"prepared_by", &ProjectInfo::prepared_by},
+                               {"checked_by", &ProjectInfo::checked_by},
+                               {"revision", &ProjectInfo::revision}});
     out.project.units = units::parse_system(p.str("unit_system"), p.sub("unit_system"));
     if (!p.str("page_size").empty()) {
         out.project.page_size = p.option("page_size", page_size_options);
@@ -488,9 +509,10 @@ Stamp parse_run_record_json(std::string_view text, std::string_view where) {
     const Reader r(j, std::string(where));
     check_format(r, run_record_format);
     Stamp s;
-    s.tool_version = r.str("tool_version");
-    s.git_commit = r.str("git_commit");
-    s.run_time_utc = r.str("run_time_utc");
+    read_members<std::string>(r, s,
+                              {{"tool_version", &Stamp::tool_version},
+                               {"git_commit", &Stamp::git_commit},
+                               {"run_time_utc", &Stamp::run_time_utc}});
     const auto &inputs = r.array("inputs");
     for (std::size_t i = 0; i < inputs.size(); ++i) {
         const Reader ir(inputs[i], r.item("inputs", i));

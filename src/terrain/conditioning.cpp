@@ -234,58 +234,57 @@ class SpillList {
     std::vector<Spill> list_;
 };
 
-/// Priority-Flood (Barnes, Lehman and Mulla 2014) with two plain FIFO queues beside the priority
-/// queue:
-/// - `pit`: cells raised to the level of the cell that found them (inside a depression), as in
-///   the improved variant of Barnes et al. (2014);
-/// - `trace`: cells higher than the cell that found them. They drain through it, so their
-///   final elevation is their own; their higher neighbours are closed the same way without the
-///   priority queue (the slope tracing of Zhou, Sun and Fu 2016). A traced cell goes to the
-///   priority queue only when it has an unprocessed neighbour not higher than itself, which
-///   must wait for its turn in elevation order.
-/// The priority queue is popped only when both plain queues are empty, so every closed cell
-/// with unprocessed neighbours is then in the priority queue, as Priority-Flood requires.
-///
-/// Fills the cells of `band` looking at no cell outside it. With `Labelled` (a band of a
-/// parallel fill), cells take labels as described at Band and the spill elevations between
-/// labels go to `spills`; without, the band is the whole grid.
-template <typename Index, bool Labelled>
-void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
-                Grid<std::uint32_t> *label_grid, const Band &band, SpillList *spills) {
-    // Plain pointers: a write through a byte pointer could alias a grid's own members, which
-    // would make the compiler reload them after every write to the marks.
-    float *const dem = dem_grid.cells().data();
-    std::uint8_t *const marks = marks_grid.cells().data();
-    std::uint32_t *const labels = Labelled ? label_grid->cells().data() : nullptr;
-    const std::size_t w = dem_grid.width();
-    const std::size_t h = dem_grid.height();
-    const std::size_t first = band.r_lo * w;
-    const std::size_t last = band.r_hi * w;
-    const detail::ValidTest valid(dem_grid);
-    RadixHeap<Index> open;
-    Fifo<Index> pit;
-    Fifo<Index> trace;
+/// A band's grids as plain pointers: a write through a byte pointer could alias a grid's own
+/// members, which would make the compiler reload them after every write to the marks.
+struct BandCells {
+    float *dem;
+    std::uint8_t *marks;
+    std::uint32_t *labels; ///< null without labels
+    std::size_t w;
+    std::size_t h;
+    std::size_t first; ///< the band's first cell
+    std::size_t last;  ///< one past its last cell
+};
 
-    // marks: closed_flag on closed cells (nodata counts as closed), edge_flag on the band's
-    // outer ring, whose neighbours need bounds checks; the others use index offsets.
-    constexpr std::uint8_t edge_flag = 2;
+/// In a band fill's marks: a cell on the band's outer ring, whose neighbours need bounds checks
+/// (the others use index offsets).
+constexpr std::uint8_t edge_flag = 2;
+
+/// Takes a band's cells; gives their marks: closed_flag on nodata (which counts as closed, with
+/// outlet_flag when `Labelled`), edge_flag on the band's outer ring, 0 elsewhere.
+template <bool Labelled>
+void mark_band(const BandCells &g, const Band &band, const detail::ValidTest &valid) {
+    const float *const dem = g.dem;
+    std::uint8_t *const marks = g.marks;
+    const std::size_t w = g.w;
     constexpr std::uint8_t nodata_marks = Labelled ? closed_flag | outlet_flag : closed_flag;
-    for (std::size_t i = first; i < last; ++i) {
+    for (std::size_t i = g.first; i < g.last; ++i) {
         marks[i] = valid(dem[i]) ? 0 : nodata_marks;
     }
     for (std::size_t c = 0; c < w; ++c) {
-        marks[first + c] |= edge_flag;
-        marks[last - w + c] |= edge_flag;
+        marks[g.first + c] |= edge_flag;
+        marks[g.last - w + c] |= edge_flag;
     }
     for (std::size_t r = band.r_lo; r < band.r_hi; ++r) {
         marks[r * w] |= edge_flag;
         marks[r * w + w - 1] |= edge_flag;
     }
-    const Neighbours around(w, band.r_lo, band.r_hi, true);
+}
 
-    // Seeds: valid cells on the raster edge or next to a nodata cell, found from the edge ring
-    // and from the nodata cells (a byte test for every other cell). The priority queue orders
-    // by elevation, so the order of the pushes does not matter.
+/// Takes a marked band; closes its seeds and pushes them into `open`: valid cells on the raster
+/// edge or next to a nodata cell, found from the edge ring and from the nodata cells (a byte
+/// test for every other cell). With `Labelled`, also the cells touching nodata in the next band
+/// (outlets) and the other cells of a row shared with another band (labels of their own). The
+/// priority queue orders by elevation, so the order of the pushes does not matter.
+template <typename Index, bool Labelled>
+void seed_band(const BandCells &g, const Band &band, const Neighbours &around,
+               const detail::ValidTest &valid, RadixHeap<Index> &open) {
+    const float *const dem = g.dem;
+    std::uint8_t *const marks = g.marks;
+    const std::size_t w = g.w;
+    const std::size_t h = g.h;
+    const std::size_t first = g.first;
+    const std::size_t last = g.last;
     constexpr std::uint8_t outlet_marks = Labelled ? closed_flag | outlet_flag : closed_flag;
     const auto seed = [&](std::size_t i) {
         if ((marks[i] & closed_flag) == 0) {
@@ -311,8 +310,6 @@ void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
         around.each(i, (marks[i] & edge_flag) != 0, [&](std::uint8_t, std::size_t n) { seed(n); });
     }
     if constexpr (Labelled) {
-        // Cells touching nodata in the next band are outlets; the other cells of a row shared
-        // with another band get labels of their own.
         for (std::size_t c = 0; c < w; ++c) {
             if (band.top_touches_nodata != nullptr && band.top_touches_nodata[c] != 0) {
                 seed(first + c);
@@ -321,6 +318,7 @@ void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
                 seed(last - w + c);
             }
         }
+        std::uint32_t *const labels = g.labels;
         const auto seed_labelled = [&](std::size_t i, std::uint32_t label) {
             if ((marks[i] & closed_flag) == 0) {
                 marks[i] |= closed_flag;
@@ -337,6 +335,20 @@ void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
             }
         }
     }
+}
+
+/// Takes a seeded band (its seeds closed and in `open`); floods it, raising the cells of each
+/// depression to their spill level and closing every valid cell. With `Labelled`, each cell
+/// takes the label of the area it was reached from and the spill elevations between labels go
+/// to `spills`.
+template <typename Index, bool Labelled>
+void flood_from_seeds(const BandCells &g, const Neighbours &around, const detail::ValidTest &valid,
+                      RadixHeap<Index> &open, SpillList *spills) {
+    float *const dem = g.dem;
+    std::uint8_t *const marks = g.marks;
+    std::uint32_t *const labels = g.labels;
+    Fifo<Index> pit;
+    Fifo<Index> trace;
     while (true) {
         std::size_t i = 0;
         bool traced = false;
@@ -401,25 +413,51 @@ void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
     }
 }
 
-/// The parallel fill of Barnes (2016): each band is flooded on its own thread with its shared
-/// rows as outlets (flood_band); the lowest level at which each label's area drains to the
-/// raster edge or nodata follows from a Priority-Flood over the graph of labels and their
-/// spill elevations (within bands, and between facing cells of two bands); each cell then
-/// rises to its label's level where that is higher than its own fill. The filled elevations
-/// are the same as one flood of the whole grid (they depend only on the DEM).
-template <typename Index>
-void fill_in_bands(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32_t> &labels,
-                   std::size_t bands, unsigned threads) {
+/// Priority-Flood (Barnes, Lehman and Mulla 2014) with two plain FIFO queues beside the priority
+/// queue:
+/// - `pit`: cells raised to the level of the cell that found them (inside a depression), as in
+///   the improved variant of Barnes et al. (2014);
+/// - `trace`: cells higher than the cell that found them. They drain through it, so their
+///   final elevation is their own; their higher neighbours are closed the same way without the
+///   priority queue (the slope tracing of Zhou, Sun and Fu 2016). A traced cell goes to the
+///   priority queue only when it has an unprocessed neighbour not higher than itself, which
+///   must wait for its turn in elevation order.
+/// The priority queue is popped only when both plain queues are empty, so every closed cell
+/// with unprocessed neighbours is then in the priority queue, as Priority-Flood requires.
+///
+/// Fills the cells of `band` looking at no cell outside it. With `Labelled` (a band of a
+/// parallel fill), cells take labels as described at Band and the spill elevations between
+/// labels go to `spills`; without, the band is the whole grid.
+template <typename Index, bool Labelled>
+void flood_band(Grid<float> &dem_grid, Grid<std::uint8_t> &marks_grid,
+                Grid<std::uint32_t> *label_grid, const Band &band, SpillList *spills) {
+    const std::size_t w = dem_grid.width();
+    const BandCells g{dem_grid.cells().data(),
+                      marks_grid.cells().data(),
+                      Labelled ? label_grid->cells().data() : nullptr,
+                      w,
+                      dem_grid.height(),
+                      band.r_lo * w,
+                      band.r_hi * w};
+    const detail::ValidTest valid(dem_grid);
+    mark_band<Labelled>(g, band, valid);
+    const Neighbours around(w, band.r_lo, band.r_hi, true);
+    RadixHeap<Index> open;
+    seed_band<Index, Labelled>(g, band, around, valid, open);
+    flood_from_seeds<Index, Labelled>(g, around, valid, open, spills);
+}
+
+/// Takes the DEM and the number of bands; gives the bands of rows, their shared rows labelled
+/// (boundary j, between bands j and j + 1, has its upper row labelled from 1 + 2 j w and its
+/// lower row from 1 + (2 j + 1) w), and in `touches` (which they point into) the cells of the
+/// shared rows touching nodata in the band beyond.
+std::vector<Band> plan_bands(const Grid<float> &dem, std::size_t bands,
+                             std::vector<std::uint8_t> &touches) {
     const std::size_t w = dem.width();
     const std::size_t h = dem.height();
     const detail::ValidTest valid(dem);
-    if (labels.width() != w || labels.height() != h) {
-        labels = Grid<std::uint32_t>(w, h, no_fill);
-    }
-    // Shared rows: boundary j (between bands j and j + 1) has its upper row labelled from
-    // 1 + 2 j w and its lower row from 1 + (2 j + 1) w.
     std::vector<Band> band(bands);
-    std::vector<std::uint8_t> touches(2 * (bands - 1) * w, 0);
+    touches.assign(2 * (bands - 1) * w, 0);
     for (std::size_t b = 0; b < bands; ++b) {
         band[b].r_lo = h * b / bands;
         band[b].r_hi = h * (b + 1) / bands;
@@ -444,18 +482,20 @@ void fill_in_bands(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32
             }
         }
     }
-    std::vector<std::vector<Spill>> spills(bands);
-    detail::run_on_threads(bands, [&](std::size_t b) {
-        SpillList list;
-        flood_band<Index, true>(dem, marks, &labels, band[b], &list);
-        spills[b] = list.take();
-    });
-    // Spills between facing cells of two bands.
+    return band;
+}
+
+/// Takes the flooded bands (their marks and labels); gives the spills between facing cells of
+/// two bands.
+std::vector<Spill> facing_spills(const Grid<float> &dem, const Grid<std::uint8_t> &marks,
+                                 const Grid<std::uint32_t> &labels, const std::vector<Band> &band) {
+    const std::size_t w = dem.width();
+    const detail::ValidTest valid(dem);
     const auto label_of = [&](std::size_t i) {
         return (marks[i] & outlet_flag) != 0 ? outlet_label : labels[i];
     };
     SpillList facing;
-    for (std::size_t j = 0; j + 1 < bands; ++j) {
+    for (std::size_t j = 0; j + 1 < band.size(); ++j) {
         const std::size_t upper = band[j].r_hi - 1;
         for (std::size_t c = 0; c < w; ++c) {
             const std::size_t a = upper * w + c;
@@ -470,9 +510,14 @@ void fill_in_bands(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32
             }
         }
     }
-    spills.push_back(facing.take());
-    // Priority-Flood over the labels (a minimax search from the outlet label).
-    const std::size_t n_labels = 1 + 2 * (bands - 1) * w;
+    return facing.take();
+}
+
+/// Takes the spills between labels (0..n_labels - 1); gives each label's level: the lowest
+/// elevation at which its area drains to the outlet label, from a Priority-Flood over the
+/// labels (a minimax search from the outlet label); infinite for a label with no way out.
+std::vector<float> label_levels(const std::vector<std::vector<Spill>> &spills,
+                                std::size_t n_labels) {
     std::vector<std::vector<std::pair<std::uint32_t, float>>> graph(n_labels);
     for (const auto &list : spills) {
         for (const Spill &s : list) {
@@ -502,6 +547,34 @@ void fill_in_bands(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32
             }
         }
     }
+    return level;
+}
+
+/// The parallel fill of Barnes (2016): each band is flooded on its own thread with its shared
+/// rows as outlets (flood_band); the lowest level at which each label's area drains to the
+/// raster edge or nodata follows from a Priority-Flood over the graph of labels and their
+/// spill elevations (within bands, and between facing cells of two bands); each cell then
+/// rises to its label's level where that is higher than its own fill. The filled elevations
+/// are the same as one flood of the whole grid (they depend only on the DEM).
+template <typename Index>
+void fill_in_bands(Grid<float> &dem, Grid<std::uint8_t> &marks, Grid<std::uint32_t> &labels,
+                   std::size_t bands, unsigned threads) {
+    const std::size_t w = dem.width();
+    const std::size_t h = dem.height();
+    if (labels.width() != w || labels.height() != h) {
+        labels = Grid<std::uint32_t>(w, h, no_fill);
+    }
+    std::vector<std::uint8_t> touches;
+    const std::vector<Band> band = plan_bands(dem, bands, touches);
+    std::vector<std::vector<Spill>> spills(bands);
+    detail::run_on_threads(bands, [&](std::size_t b) {
+        SpillList list;
+        flood_band<Index, true>(dem, marks, &labels, band[b], &list);
+        spills[b] = list.take();
+    });
+    spills.push_back(facing_spills(dem, marks, labels, band));
+    const std::vector<float> level = label_levels(spills, 1 + 2 * (bands - 1) * w);
+    const float infinite = std::numeric_limits<float>::infinity();
     std::vector<char> stranded(bands, 0);
     detail::for_row_blocks(h, threads, 256, [&](std::size_t b, std::size_t r0, std::size_t r1) {
         for (std::size_t i = r0 * w; i < r1 * w; ++i) {

@@ -88,15 +88,12 @@ std::vector<std::size_t> all_upstream_points(const TerrainResult &result, std::s
     return out;
 }
 
-TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint> &points,
-                          const std::vector<BreachLine> &breach_lines,
-                          const TerrainSettings &settings, const ProgressFn &progress,
-                          const std::string &where) {
-    const auto report = [&](std::string_view step, double fraction) {
-        if (progress) {
-            progress(step, fraction);
-        }
-    };
+namespace {
+
+/// Takes the DEM, the design points and the settings; throws an input error when the run cannot
+/// go on (bad settings or raster, a point off the DEM, no elevation data at all).
+void check_run(const Grid<float> &dem, const std::vector<DesignPoint> &points,
+               const TerrainSettings &settings, const std::string &where) {
     check_inputs(dem, settings);
     for (const DesignPoint &p : points) {
         check_design_point(dem, p, where); // before the long steps, not after them
@@ -105,29 +102,26 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
     if (std::none_of(dem.cells().begin(), dem.cells().end(), valid)) {
         throw_input_error("DEM", "every cell is nodata", "a DEM with elevation data");
     }
-    const unsigned threads = thread_count(settings.threads);
-    const double cell_area = dem.transform.cell_area();
-    TerrainResult result;
+}
 
-    report("conditioning", 0.0);
-    // Buffers are handed on from step to step (see the memory plan above): the filled DEM
-    // becomes the flow length grid, the flat scratch grid the accumulation, then the labels.
-    Grid<std::uint8_t> dirs;
-    AccumulationAndLength al;
-    detail::condition(dem, breach_lines, threads, al.upstream_length_m, dirs, al.accumulation);
+/// The distinct outlet cells of the snapped design points (label k is outlet k - 1).
+struct Outlets {
+    std::vector<std::size_t> cells;
+    std::vector<std::size_t> first_point; ///< the first design point snapped to each
+};
 
-    report("flow accumulation", 0.35);
-    detail::accumulation_and_length_into(dirs, al, threads);
-
-    report("snapping design points", 0.55);
-    result.points.resize(points.size());
-    std::vector<std::size_t> outlets;
-    std::vector<std::size_t> first_point_at_outlet; // the first design point snapped there
+/// Takes the accumulation grid and the design points; snaps each point, filling its entry of
+/// `out` (given and snapped location, cell, accumulation, label, snapping warnings); gives the
+/// outlets, one label per distinct cell in the order the points first reach them.
+Outlets snap_points(const Grid<std::uint32_t> &accumulation, const std::vector<DesignPoint> &points,
+                    const TerrainSettings &settings, const std::string &where,
+                    std::vector<DesignPointTerrain> &out) {
+    out.resize(points.size());
+    Outlets outlets;
     std::unordered_map<std::size_t, std::uint32_t> label_of_cell;
     for (std::size_t p = 0; p < points.size(); ++p) {
-        const SnappedPoint s =
-            snap_point(al.accumulation, points[p], settings.snap_radius_m, where);
-        DesignPointTerrain &r = result.points[p];
+        const SnappedPoint s = snap_point(accumulation, points[p], settings.snap_radius_m, where);
+        DesignPointTerrain &r = out[p];
         r.id = points[p].id;
         r.given_x = points[p].x;
         r.given_y = points[p].y;
@@ -138,14 +132,14 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
         r.accumulation = s.accumulation;
         r.accumulation_m2 = s.accumulation_m2;
         const auto [it, inserted] =
-            label_of_cell.try_emplace(s.cell, static_cast<std::uint32_t>(outlets.size() + 1));
+            label_of_cell.try_emplace(s.cell, static_cast<std::uint32_t>(outlets.cells.size() + 1));
         if (inserted) {
-            outlets.push_back(s.cell);
-            first_point_at_outlet.push_back(p);
+            outlets.cells.push_back(s.cell);
+            outlets.first_point.push_back(p);
         } else {
             r.warnings.push_back(fmt::format(
                 "snapped to the same cell as design point '{}'; both get the same catchment",
-                result.points[first_point_at_outlet[it->second - 1]].id));
+                out[outlets.first_point[it->second - 1]].id));
         }
         r.label = it->second;
         if (r.snap_distance_m > settings.far_snap_warning_m) {
@@ -155,53 +149,40 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
                 r.snap_distance_m, settings.far_snap_warning_m));
         }
     }
+    return outlets;
+}
 
-    if (settings.stream_threshold_m2 > 0.0) {
-        report("streams", 0.6);
-        result.streams = extract_streams(dirs, al.accumulation, settings.stream_threshold_m2);
-    }
-    Catchments c;
-    if (settings.keep_accumulation) {
-        result.accumulation = std::move(al.accumulation);
-    } else {
-        c.labels = std::move(al.accumulation);
-    }
-    al.accumulation = Grid<std::uint32_t>();
-
-    report("longest flow paths", 0.65);
+/// Takes the directions, the longest upstream codes, the DEM and the outlet cells; gives the
+/// longest flow path of each outlet. Paths are independent (each reads the grids and writes its
+/// own entry), so they run on up to `threads` threads.
+std::vector<FlowPath> longest_flow_paths(const Grid<std::uint8_t> &dirs,
+                                         const Grid<std::uint8_t> &longest_upstream,
+                                         const Grid<float> &dem,
+                                         const std::vector<std::size_t> &outlets,
+                                         unsigned threads) {
     std::vector<FlowPath> paths(outlets.size());
-    // Paths are independent (each reads the grids and writes its own entry).
     const std::size_t path_workers = std::max<std::size_t>(
         1, std::min<std::size_t>(threads, outlets.size() / 64)); // a thread pays from 64 paths
     detail::run_on_threads(path_workers, [&](std::size_t t) {
         for (std::size_t k = t; k < outlets.size(); k += path_workers) {
-            paths[k] = longest_flow_path(dirs, al.longest_upstream, dem, outlets[k]);
+            paths[k] = longest_flow_path(dirs, longest_upstream, dem, outlets[k]);
         }
     });
-    al.upstream_length_m = Grid<float>();
-    al.longest_upstream = Grid<std::uint8_t>();
+    return paths;
+}
 
-    report("catchments", 0.75);
-    // The outlets' accumulations bound the cells draining to them (nested ones counted more
-    // than once): when they are a small part of the raster, searching upstream from the
-    // outlets visits fewer cells than walking from every cell. Both give the same labels.
-    std::uint64_t draining = 0;
-    for (std::size_t k = 0; k < outlets.size(); ++k) {
-        draining += result.points[first_point_at_outlet[k]].accumulation;
-    }
-    detail::delineate_catchments_into(dirs, outlets, c,
-                                      draining <= dirs.size() / 4 ? CatchmentSearch::from_outlets
-                                                                  : CatchmentSearch::every_cell,
-                                      threads);
-
-    // Local catchments touching the raster edge or nodata.
-    const std::size_t w = dem.width();
-    const std::size_t h = dem.height();
-    std::vector<char> edge_local(outlets.size() + 1, 0);
+/// Takes the directions and the catchment labels (0..n_labels); gives a flag per label: 1
+/// when its local catchment touches the raster edge or a nodata cell (one without direction).
+std::vector<char> labels_touching_edge(const Grid<std::uint8_t> &dirs,
+                                       const Grid<std::uint32_t> &labels, std::size_t n_labels,
+                                       unsigned threads) {
+    const std::size_t w = dirs.width();
+    const std::size_t h = dirs.height();
+    std::vector<char> edge_local(n_labels + 1, 0);
     std::mutex merge_edges;
     detail::for_row_blocks(
         h, threads, (h + threads - 1) / threads, [&](std::size_t, std::size_t r0, std::size_t r1) {
-            std::vector<char> touched(outlets.size() + 1, 0);
+            std::vector<char> touched(n_labels + 1, 0);
             for (std::size_t row = r0; row < r1; ++row) {
                 for (std::size_t col = 0, i = row * w; col < w; ++col, ++i) {
                     if (dirs[i] == d8::none) {
@@ -209,12 +190,12 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
                             const long long nc = static_cast<long long>(col) + d8::dcol[k];
                             const long long nr = static_cast<long long>(row) + d8::drow[k];
                             if (dirs.in_bounds(nc, nr)) {
-                                touched[c.labels(static_cast<std::size_t>(nc),
-                                                 static_cast<std::size_t>(nr))] = 1;
+                                touched[labels(static_cast<std::size_t>(nc),
+                                               static_cast<std::size_t>(nr))] = 1;
                             }
                         }
                     } else if (row == 0 || col == 0 || row + 1 == h || col + 1 == w) {
-                        touched[c.labels[i]] = 1;
+                        touched[labels[i]] = 1;
                     }
                 }
             }
@@ -223,61 +204,69 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
                 edge_local[k] = static_cast<char>(edge_local[k] | touched[k]);
             }
         });
+    return edge_local;
+}
 
-    report("slopes", 0.85);
-    const auto max_label = static_cast<std::uint32_t>(outlets.size());
-    // Only the catchments' own cells are needed (label 0 is outside every catchment).
-    const SlopeSums sums = detail::slope_sums_by_label(dem, c.labels, max_label, threads, false);
-    if (!settings.keep_directions) {
-        dirs = Grid<std::uint8_t>();
-    } else {
-        result.directions = std::move(dirs);
-    }
+/// Totals per label over the nesting tree (the label's own cells and all upstream of it).
+struct NestedTotals {
+    std::vector<double> slope;
+    std::vector<std::uint64_t> count;
+    std::vector<char> edge;
+};
 
-    // Totals over the nesting tree (slope sums, edge flags), leaves first.
-    std::vector<double> slope_total(max_label + 1, 0.0);
-    std::vector<std::uint64_t> count_total(max_label + 1, 0);
-    std::vector<char> edge_total(max_label + 1, 0);
-    {
-        std::vector<std::uint32_t> order;
-        std::vector<std::size_t> pending(max_label + 1, 0);
-        for (std::uint32_t k = 1; k <= max_label; ++k) {
-            pending[k] = c.upstream_labels[k - 1].size();
-            slope_total[k] = sums.sum_m_per_m[k];
-            count_total[k] = sums.count[k];
-            edge_total[k] = edge_local[k];
-            if (pending[k] == 0) {
-                order.push_back(k);
-            }
-        }
-        for (std::size_t head = 0; head < order.size(); ++head) {
-            const std::uint32_t k = order[head];
-            const std::uint32_t d = c.downstream_label[k - 1];
-            if (d == 0) {
-                continue;
-            }
-            if (--pending[d] == 0) {
-                // Children in ascending label order, so sums are formed the same way each run.
-                for (const std::uint32_t up : c.upstream_labels[d - 1]) {
-                    slope_total[d] += slope_total[up];
-                    count_total[d] += count_total[up];
-                    edge_total[d] = static_cast<char>(edge_total[d] | edge_total[up]);
-                }
-                order.push_back(d);
-            }
+/// Takes the catchments' nesting, the local slope sums and the local edge flags; gives their
+/// totals over the nesting tree, formed leaves first (children in ascending label order, so
+/// sums are formed the same way each run).
+NestedTotals nested_totals(const Catchments &c, const SlopeSums &sums,
+                           const std::vector<char> &edge_local, std::uint32_t max_label) {
+    NestedTotals t{std::vector<double>(max_label + 1, 0.0),
+                   std::vector<std::uint64_t>(max_label + 1, 0),
+                   std::vector<char>(max_label + 1, 0)};
+    std::vector<std::uint32_t> order;
+    std::vector<std::size_t> pending(max_label + 1, 0);
+    for (std::uint32_t k = 1; k <= max_label; ++k) {
+        pending[k] = c.upstream_labels[k - 1].size();
+        t.slope[k] = sums.sum_m_per_m[k];
+        t.count[k] = sums.count[k];
+        t.edge[k] = edge_local[k];
+        if (pending[k] == 0) {
+            order.push_back(k);
         }
     }
+    for (std::size_t head = 0; head < order.size(); ++head) {
+        const std::uint32_t k = order[head];
+        const std::uint32_t d = c.downstream_label[k - 1];
+        if (d == 0) {
+            continue;
+        }
+        if (--pending[d] == 0) {
+            for (const std::uint32_t up : c.upstream_labels[d - 1]) {
+                t.slope[d] += t.slope[up];
+                t.count[d] += t.count[up];
+                t.edge[d] = static_cast<char>(t.edge[d] | t.edge[up]);
+            }
+            order.push_back(d);
+        }
+    }
+    return t;
+}
 
-    report("results", 0.95);
-    std::vector<std::size_t> first_point_of_label(max_label + 1, points.size());
-    std::vector<std::vector<std::size_t>> points_of_label(max_label + 1);
+/// Takes the catchments, the flow paths (one per label, moved out or copied), the nested totals and
+/// the cell area; fills each design point's areas, nesting (downstream and upstream points), flow
+/// path, mean slope, edge flag and warnings.
+void fill_point_results(std::vector<DesignPointTerrain> &points, const Catchments &c,
+                        std::vector<FlowPath> &paths, const NestedTotals &totals, double cell_area,
+                        const TerrainSettings &settings) {
+    const std::size_t n_labels = paths.size();
+    std::vector<std::size_t> first_point_of_label(n_labels + 1, points.size());
+    std::vector<std::vector<std::size_t>> points_of_label(n_labels + 1);
     for (std::size_t p = 0; p < points.size(); ++p) {
-        auto &f = first_point_of_label[result.points[p].label];
+        auto &f = first_point_of_label[points[p].label];
         f = std::min(f, p);
-        points_of_label[result.points[p].label].push_back(p);
+        points_of_label[points[p].label].push_back(p);
     }
     for (std::size_t p = 0; p < points.size(); ++p) {
-        DesignPointTerrain &r = result.points[p];
+        DesignPointTerrain &r = points[p];
         const std::uint32_t k = r.label;
         r.local_cells = c.local_cells[k - 1];
         r.total_cells = c.total_cells[k - 1];
@@ -298,8 +287,8 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
             r.longest_flow_path = paths[k - 1];
         }
         r.mean_slope_m_per_m =
-            count_total[k] > 0 ? slope_total[k] / static_cast<double>(count_total[k]) : 0.0;
-        r.touches_dem_edge = edge_total[k] != 0;
+            totals.count[k] > 0 ? totals.slope[k] / static_cast<double>(totals.count[k]) : 0.0;
+        r.touches_dem_edge = totals.edge[k] != 0;
         if (r.area_m2 < settings.tiny_catchment_m2) {
             r.warnings.push_back(fmt::format(
                 "the catchment is only {:.1f} m2, less than {:.1f} m2; the point may not lie on "
@@ -311,6 +300,82 @@ TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint>
                                  "it may extend beyond the DEM and be too small");
         }
     }
+}
+
+} // namespace
+
+TerrainResult run_terrain(const Grid<float> &dem, const std::vector<DesignPoint> &points,
+                          const std::vector<BreachLine> &breach_lines,
+                          const TerrainSettings &settings, const ProgressFn &progress,
+                          const std::string &where) {
+    const auto report = [&](std::string_view step, double fraction) {
+        if (progress) {
+            progress(step, fraction);
+        }
+    };
+    check_run(dem, points, settings, where);
+    const unsigned threads = thread_count(settings.threads);
+    TerrainResult result;
+
+    report("conditioning", 0.0);
+    // Buffers are handed on from step to step (see the memory plan above): the filled DEM
+    // becomes the flow length grid, the flat scratch grid the accumulation, then the labels.
+    Grid<std::uint8_t> dirs;
+    AccumulationAndLength al;
+    detail::condition(dem, breach_lines, threads, al.upstream_length_m, dirs, al.accumulation);
+
+    report("flow accumulation", 0.35);
+    detail::accumulation_and_length_into(dirs, al, threads);
+
+    report("snapping design points", 0.55);
+    const Outlets outlets = snap_points(al.accumulation, points, settings, where, result.points);
+
+    if (settings.stream_threshold_m2 > 0.0) {
+        report("streams", 0.6);
+        result.streams = extract_streams(dirs, al.accumulation, settings.stream_threshold_m2);
+    }
+    Catchments c;
+    if (settings.keep_accumulation) {
+        result.accumulation = std::move(al.accumulation);
+    } else {
+        c.labels = std::move(al.accumulation);
+    }
+    al.accumulation = Grid<std::uint32_t>();
+
+    report("longest flow paths", 0.65);
+    std::vector<FlowPath> paths =
+        longest_flow_paths(dirs, al.longest_upstream, dem, outlets.cells, threads);
+    al.upstream_length_m = Grid<float>();
+    al.longest_upstream = Grid<std::uint8_t>();
+
+    report("catchments", 0.75);
+    // The outlets' accumulations bound the cells draining to them (nested ones counted more
+    // than once): when they are a small part of the raster, searching upstream from the
+    // outlets visits fewer cells than walking from every cell. Both give the same labels.
+    std::uint64_t draining = 0;
+    for (const std::size_t p : outlets.first_point) {
+        draining += result.points[p].accumulation;
+    }
+    detail::delineate_catchments_into(dirs, outlets.cells, c,
+                                      draining <= dirs.size() / 4 ? CatchmentSearch::from_outlets
+                                                                  : CatchmentSearch::every_cell,
+                                      threads);
+    const std::vector<char> edge_local =
+        labels_touching_edge(dirs, c.labels, outlets.cells.size(), threads);
+
+    report("slopes", 0.85);
+    const auto max_label = static_cast<std::uint32_t>(outlets.cells.size());
+    // Only the catchments' own cells are needed (label 0 is outside every catchment).
+    const SlopeSums sums = detail::slope_sums_by_label(dem, c.labels, max_label, threads, false);
+    if (!settings.keep_directions) {
+        dirs = Grid<std::uint8_t>();
+    } else {
+        result.directions = std::move(dirs);
+    }
+    const NestedTotals totals = nested_totals(c, sums, edge_local, max_label);
+
+    report("results", 0.95);
+    fill_point_results(result.points, c, paths, totals, dem.transform.cell_area(), settings);
     result.downstream_label = std::move(c.downstream_label);
     result.labels = std::move(c.labels);
     report("done", 1.0);

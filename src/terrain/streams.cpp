@@ -8,6 +8,62 @@
 
 namespace catchpeak::terrain {
 
+namespace {
+
+/// Takes the stream segments (sorted by first cell, each ending at a junction, the raster's
+/// edge or a cell below the threshold); gives each its Strahler order, segments taken in
+/// topological order via the junction links.
+void set_strahler_orders(std::vector<Stream> &streams) {
+    const std::size_t count = streams.size();
+    const auto find_start = [&](std::size_t cell) {
+        const auto it =
+            std::lower_bound(streams.begin(), streams.end(), cell,
+                             [](const Stream &s, std::size_t c) { return s.first_cell < c; });
+        return (it != streams.end() && it->first_cell == cell)
+                   ? static_cast<std::size_t>(it - streams.begin())
+                   : count;
+    };
+    std::vector<std::size_t> down(count, count);
+    std::vector<int> pending(count, 0);
+    std::vector<int> max_in(count, 0);
+    std::vector<int> max_in_count(count, 0);
+    for (std::size_t k = 0; k < count; ++k) {
+        if (streams[k].last_cell != streams[k].first_cell) {
+            down[k] = find_start(streams[k].last_cell);
+        }
+        if (down[k] != count) {
+            ++pending[down[k]];
+        }
+    }
+    for (std::size_t k = 0; k < count; ++k) {
+        if (pending[k] != 0) {
+            continue;
+        }
+        std::size_t j = k;
+        while (true) {
+            pending[j] = -1;
+            streams[j].strahler_order =
+                max_in[j] == 0 ? 1 : (max_in_count[j] >= 2 ? max_in[j] + 1 : max_in[j]);
+            const std::size_t d = down[j];
+            if (d == count) {
+                break;
+            }
+            if (streams[j].strahler_order > max_in[d]) {
+                max_in[d] = streams[j].strahler_order;
+                max_in_count[d] = 1;
+            } else if (streams[j].strahler_order == max_in[d]) {
+                ++max_in_count[d];
+            }
+            if (--pending[d] != 0) {
+                break;
+            }
+            j = d;
+        }
+    }
+}
+
+} // namespace
+
 std::vector<Stream> extract_streams(const Grid<std::uint8_t> &dirs, const Grid<std::uint32_t> &acc,
                                     double threshold_m2) {
     std::vector<Stream> streams;
@@ -62,53 +118,7 @@ std::vector<Stream> extract_streams(const Grid<std::uint8_t> &dirs, const Grid<s
         s.accumulation_end_m2 = static_cast<double>(acc[cur]) * cell_area;
         streams.push_back(std::move(s));
     }
-    // Strahler order: segments in topological order via the junction links.
-    const std::size_t count = streams.size();
-    const auto find_start = [&](std::size_t cell) {
-        const auto it =
-            std::lower_bound(streams.begin(), streams.end(), cell,
-                             [](const Stream &s, std::size_t c) { return s.first_cell < c; });
-        return (it != streams.end() && it->first_cell == cell)
-                   ? static_cast<std::size_t>(it - streams.begin())
-                   : count;
-    };
-    std::vector<std::size_t> down(count, count);
-    std::vector<int> pending(count, 0);
-    std::vector<int> max_in(count, 0);
-    std::vector<int> max_in_count(count, 0);
-    for (std::size_t k = 0; k < count; ++k) {
-        if (streams[k].last_cell != streams[k].first_cell) {
-            down[k] = find_start(streams[k].last_cell);
-        }
-        if (down[k] != count) {
-            ++pending[down[k]];
-        }
-    }
-    for (std::size_t k = 0; k < count; ++k) {
-        if (pending[k] != 0) {
-            continue;
-        }
-        std::size_t j = k;
-        while (true) {
-            pending[j] = -1;
-            streams[j].strahler_order =
-                max_in[j] == 0 ? 1 : (max_in_count[j] >= 2 ? max_in[j] + 1 : max_in[j]);
-            const std::size_t d = down[j];
-            if (d == count) {
-                break;
-            }
-            if (streams[j].strahler_order > max_in[d]) {
-                max_in[d] = streams[j].strahler_order;
-                max_in_count[d] = 1;
-            } else if (streams[j].strahler_order == max_in[d]) {
-                ++max_in_count[d];
-            }
-            if (--pending[d] != 0) {
-                break;
-            }
-            j = d;
-        }
-    }
+    set_strahler_orders(streams);
     return streams;
 }
 
