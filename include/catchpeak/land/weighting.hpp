@@ -28,8 +28,8 @@ struct PartArea {
 
 /// The source a line cites, given by the caller: a reference and what follows its short form,
 /// a template filled with `inputs` (e.g. Ref::project_input, " ({file}, line {n})"). The
-/// symbols of `inputs` must differ from those of the lines it is put on (A, C, CN, I, P, i,
-/// class, group, what): name them after what they are (file, n, layer).
+/// symbols of `inputs` must differ from those of the lines it is put on (A, S, i, class,
+/// group, C, CN, I, P, sum, what): name them after what they are (file, n, layer).
 struct LineSource {
     Ref ref = Ref::none;
     std::string where;
