@@ -21,6 +21,64 @@ namespace {
 
 constexpr std::size_t no_feature = std::numeric_limits<std::size_t>::max();
 
+// ---- the formulas of the lines --------------------------------------------------------------
+
+constexpr std::string_view make_valid = "GEOS MakeValid, structure method";
+constexpr Formula feature_made_valid{
+    "land.feature_made_valid",
+    "Invalid geometry made valid",
+    "",
+    "{layer}: {noun} {fid}: the polygon was invalid ({reason}); made valid",
+    Ref::none,
+    make_valid};
+constexpr Formula catchment_made_valid{
+    "land.catchment_made_valid",
+    "Invalid catchment polygon made valid",
+    "",
+    "catchment '{catchment}': the polygon was invalid ({reason}); made valid",
+    Ref::none,
+    make_valid};
+constexpr Formula overlaid_feature_made_valid{
+    "land.overlaid_feature_made_valid",
+    "Invalid layer polygon made valid",
+    "",
+    "{layer}: feature {fid} was invalid ({reason}); made valid before the overlay",
+    Ref::none,
+    make_valid};
+constexpr Formula soils_uncovered{
+    "land.soils_uncovered",
+    "Soils layer does not cover the catchment",
+    "",
+    "{U} {U:u} ({P} % of catchment '{catchment}') is not covered by the soils layer; that part "
+    "is taken as soil group '{default}' (project setting)",
+    Ref::none,
+    "{layer}"};
+constexpr Formula land_cover_uncovered{
+    "land.land_cover_uncovered",
+    "Land-cover layer does not cover the catchment",
+    "",
+    "{U} {U:u} ({P} % of catchment '{catchment}') is not covered by the land-cover layer; that "
+    "part is taken as class '{default}' (project setting)",
+    Ref::none,
+    "{layer}"};
+constexpr Formula polygon_area{"land.polygon_area",
+                               "Catchment '{catchment}': area of the polygon",
+                               "",
+                               "A = area of the polygon",
+                               Ref::none,
+                               "GEOS polygon area"};
+constexpr Formula layers_overlaid{
+    "land.layers_overlaid",
+    "Layers overlaid",
+    "",
+    "land cover: {land} (field '{class_field}'); soils: {soils} (field '{soil_field}')",
+    Ref::project_input,
+    ""};
+
+Quantity fid_qty(std::string symbol, std::int64_t fid) {
+    return qty(std::move(symbol), static_cast<double>(fid), Unit::none, Shown::integer());
+}
+
 /// One polygon of a layer, read once.
 struct LayerFeature {
     std::int64_t fid = -1;
@@ -148,6 +206,27 @@ ReadPolygon read_polygonal(geos::Context &ctx, const geos::WkbReader &reader,
     return out;
 }
 
+/// A catchment polygon as read, cut by the soils layer.
+struct CatchmentCut {
+    ReadPolygon read; // first: the polygon outlives what is prepared from it
+    const GEOSGeometry *geom = nullptr;
+    geos::Prepared prepared;
+    double area_m2 = 0.0;
+    double tol_m2 = 0.0; ///< areas below this count as zero
+    std::vector<Piece> soil;
+    std::vector<geos::Prepared> soil_prepared;
+};
+
+/// The parts of a catchment found by the overlay: area per class and soil group.
+struct PartSums {
+    struct Sum {
+        double area_m2 = 0.0;
+        std::int64_t first_fid = -1; ///< a land-cover feature of the class, for messages
+    };
+    std::map<std::pair<std::string, SoilGroup>, Sum> sums;
+    std::set<std::size_t> land_used; ///< land-cover features found in the catchment
+};
+
 } // namespace
 
 struct LandOverlay::Impl {
@@ -200,10 +279,9 @@ struct LandOverlay::Impl {
                 GEOSGeom_getYMax_r(ctx.get(), lf.geom.get(), &lf.ymax);
             }
             if (lf.repaired) {
-                layer_warnings.warn("Invalid geometry made valid",
-                                    fmt::format("{}: {} ({}); made valid", where,
-                                                "the polygon was invalid", read.reason),
-                                    "GEOS MakeValid, structure method");
+                layer_warnings.warn(feature_made_valid,
+                                    {word("layer", in.source), word("noun", in.feature_noun),
+                                     fid_qty("fid", f.fid), word("reason", read.reason)});
             }
             layer.features.push_back(std::move(lf));
         }
@@ -322,11 +400,11 @@ struct LandOverlay::Impl {
             return uncovered_m2;
         }
         const bool soil = &layer == &soils;
-        const std::string what =
-            fmt::format("{} m2 ({} % of catchment '{}') is not covered by the {}",
-                        sig(uncovered_m2), sig(100.0 * uncovered_m2 / area_m2), label, layer.kind);
         if (settings.uncovered == Uncovered::refuse) {
-            throw_input_error(layer.source, what,
+            throw_input_error(layer.source,
+                              fmt::format("{} m2 ({} % of catchment '{}') is not covered by the {}",
+                                          sig(uncovered_m2), sig(100.0 * uncovered_m2 / area_m2),
+                                          label, layer.kind),
                               "a layer that covers every catchment, or the setting that gives the "
                               "uncovered part a default class and soil group");
         }
@@ -343,13 +421,239 @@ struct LandOverlay::Impl {
         p.area_m2 = area_of(ctx, p.geom);
         set_envelope(p);
         pieces.push_back(std::move(p));
-        lines.warn(soil ? "Soils layer does not cover the catchment"
-                        : "Land-cover layer does not cover the catchment",
-                   fmt::format("{}; that part is taken as {} '{}' (project setting)", what,
-                               soil ? "soil group" : "class",
-                               soil ? settings.default_soil_group : settings.default_class),
-                   layer.source);
+        lines.warn(soil ? soils_uncovered : land_cover_uncovered,
+                   {qty("U", uncovered_m2, Unit::m2), qty("P", 100.0 * uncovered_m2 / area_m2),
+                    word("catchment", std::string(label)),
+                    word("default", soil ? settings.default_soil_group : settings.default_class),
+                    word("layer", layer.source)});
         return uncovered_m2;
+    }
+
+    /// Reads the catchment polygon (made valid, with a warning, when invalid) and cuts it by
+    /// the soils layer. Soils first: few pieces, so their union (exact coverage and overlap
+    /// check) is cheap.
+    CatchmentCut cut_catchment(const std::vector<unsigned char> &catchment_wkb,
+                               std::string_view label, CatchmentLand &out, CalcLines &warnings) {
+        CatchmentCut catchment;
+        const geos::WkbReader reader(ctx);
+        catchment.read =
+            read_polygonal(ctx, reader, catchment_wkb, fmt::format("catchment '{}'", label));
+        if (catchment.read.repaired) {
+            warnings.warn(catchment_made_valid, {word("catchment", std::string(label)),
+                                                 word("reason", catchment.read.reason)});
+        }
+        catchment.geom = catchment.read.geom.get();
+        out.area_m2 = area_of(ctx, catchment.geom);
+        if (!(out.area_m2 > 0.0)) {
+            throw_input_error(fmt::format("catchment '{}'", label), "the polygon has no area",
+                              "a polygon with a positive area");
+        }
+        catchment.area_m2 = out.area_m2;
+        catchment.tol_m2 = settings.area_tolerance_share * out.area_m2;
+        catchment.prepared = geos::prepare(ctx, catchment.geom);
+        catchment.soil = cut(soils, catchment.geom, catchment.prepared.get());
+        out.uncovered_soils_m2 = settle_coverage(soils, catchment.soil, catchment.geom, out.area_m2,
+                                                 catchment.tol_m2, label, warnings);
+        catchment.soil_prepared.reserve(catchment.soil.size());
+        for (const auto &sp : catchment.soil) {
+            catchment.soil_prepared.push_back(geos::prepare(ctx, sp.geom));
+        }
+        return catchment;
+    }
+
+    void add_part(PartSums &parts, std::size_t land_feature, SoilGroup g, double a) const {
+        const bool is_default = land_feature == no_feature;
+        const std::string &cls =
+            is_default ? settings.default_class : land.features[land_feature].value;
+        auto &sum = parts.sums[{cls, g}];
+        sum.area_m2 += a;
+        if (sum.first_fid < 0 && !is_default) {
+            sum.first_fid = land.features[land_feature].fid;
+        }
+        if (!is_default) {
+            parts.land_used.insert(land_feature);
+        }
+    }
+
+    SoilGroup group_of(const Piece &sp) const {
+        return sp.feature == no_feature ? default_soil.group
+                                        : soils.features[sp.feature].soil.group;
+    }
+
+    /// Adds the parts of land-cover feature `i` (fast path) and their areas to `sum_m2`;
+    /// `crossing` is scratch space.
+    void overlay_feature(const CatchmentCut &catchment, std::size_t i, PartSums &parts,
+                         std::vector<std::size_t> &crossing, double &sum_m2) const {
+        const auto &f = land.features[i];
+        const GEOSGeometry *fg = f.geom.get();
+        if (f.area_m2 <= 0.0 ||
+            GEOSPreparedIntersects_r(ctx.get(), catchment.prepared.get(), fg) != 1) {
+            return;
+        }
+        const bool inside =
+            GEOSPreparedContainsProperly_r(ctx.get(), catchment.prepared.get(), fg) == 1;
+        crossing.clear(); // soil pieces the land-cover polygon reaches into
+        for (std::size_t k = 0; k < catchment.soil.size(); ++k) {
+            const Piece &sp = catchment.soil[k];
+            if (f.xmax < sp.xmin || sp.xmax < f.xmin || f.ymax < sp.ymin || sp.ymax < f.ymin) {
+                continue;
+            }
+            if (GEOSPreparedContainsProperly_r(ctx.get(), catchment.soil_prepared[k].get(), fg) ==
+                1) {
+                add_part(parts, i, group_of(sp), f.area_m2);
+                sum_m2 += f.area_m2;
+                return;
+            }
+            if (GEOSPreparedIntersects_r(ctx.get(), catchment.soil_prepared[k].get(), fg) == 1) {
+                crossing.push_back(k);
+            }
+        }
+        double done_m2 = 0.0;
+        for (std::size_t j = 0; j < crossing.size(); ++j) {
+            const std::size_t k = crossing[j];
+            double a = 0.0;
+            if (inside && j + 1 == crossing.size()) {
+                // A polygon inside the catchment is covered once by the soil pieces (their
+                // coverage was settled above): the last piece holds the rest of its area.
+                // A rest within the rounding of the subtraction (1e-12 of the polygon's
+                // area) is a piece that only touches the polygon.
+                a = f.area_m2 - done_m2;
+                if (a <= std::max(catchment.tol_m2, 1e-12 * f.area_m2)) {
+                    a = 0.0;
+                }
+            } else {
+                auto inter =
+                    geos::own(ctx, GEOSIntersection_r(ctx.get(), catchment.soil[k].geom, fg),
+                              "cannot intersect land cover with soils");
+                a = area_of(ctx, inter.get());
+            }
+            if (a > 0.0) {
+                add_part(parts, i, group_of(catchment.soil[k]), a);
+                sum_m2 += a;
+                done_m2 += a;
+            }
+        }
+    }
+
+    /// Fast path: every land-cover polygon against every soil piece (already cut to the
+    /// catchment). If the land-cover layer covers the catchment once, the parts add up to the
+    /// catchment's area; returns false (and no parts) on any difference (a gap or an overlap).
+    bool overlay_fast(const CatchmentCut &catchment, PartSums &parts) const {
+        double sum_m2 = 0.0;
+        std::vector<std::size_t> crossing;
+        for (const std::size_t i : land.tree->query(catchment.geom)) {
+            overlay_feature(catchment, i, parts, crossing, sum_m2);
+        }
+        if (std::abs(sum_m2 - catchment.area_m2) > catchment.tol_m2) {
+            parts = {};
+            return false;
+        }
+        return true;
+    }
+
+    /// Area of a land-cover piece inside soil piece k.
+    double area_in_soil(const CatchmentCut &catchment, std::size_t k, const GEOSGeometry *g,
+                        double g_area_m2) const {
+        const GEOSPreparedGeometry *soil_k = catchment.soil_prepared[k].get();
+        if (GEOSPreparedContains_r(ctx.get(), soil_k, g) == 1) {
+            return g_area_m2;
+        }
+        if (GEOSPreparedIntersects_r(ctx.get(), soil_k, g) != 1) {
+            return 0.0;
+        }
+        auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), catchment.soil[k].geom, g),
+                               "cannot intersect land cover with soils");
+        return area_of(ctx, inter.get());
+    }
+
+    /// Exact path: cut the catchment by the land-cover layer, check coverage and overlaps with
+    /// the union of the pieces (refusing, or giving the uncovered part the default class), then
+    /// intersect the land pieces with the soil pieces.
+    void overlay_exact(const CatchmentCut &catchment, std::string_view label, PartSums &parts,
+                       CatchmentLand &out, CalcLines &warnings) const {
+        auto pieces = cut(land, catchment.geom, catchment.prepared.get());
+        out.uncovered_land_cover_m2 = settle_coverage(
+            land, pieces, catchment.geom, catchment.area_m2, catchment.tol_m2, label, warnings);
+        for (const auto &lp : pieces) {
+            for (std::size_t k = 0; k < catchment.soil.size(); ++k) {
+                const Piece &sp = catchment.soil[k];
+                if (lp.xmax < sp.xmin || sp.xmax < lp.xmin || lp.ymax < sp.ymin ||
+                    sp.ymax < lp.ymin) {
+                    continue;
+                }
+                const double a = area_in_soil(catchment, k, lp.geom, lp.area_m2);
+                if (a > 0.0) {
+                    add_part(parts, lp.feature, group_of(sp), a);
+                }
+            }
+        }
+    }
+
+    static void warn_if_repaired(const Layer &layer, const LayerFeature &f, CalcLines &warnings) {
+        if (f.repaired) {
+            warnings.warn(overlaid_feature_made_valid,
+                          {word("layer", layer.source), fid_qty("fid", f.fid),
+                           word("reason", f.repair_reason)});
+        }
+    }
+
+    /// Warnings for repaired polygons that reach into the catchment; returns the dual soil
+    /// groups found in it, as "B/D -> D", each once.
+    std::vector<std::string> check_features(const CatchmentCut &catchment, const PartSums &parts,
+                                            CalcLines &warnings) const {
+        std::set<std::string> duals;
+        for (const auto &sp : catchment.soil) {
+            if (sp.feature == no_feature) {
+                continue;
+            }
+            const auto &sf = soils.features[sp.feature];
+            if (sf.soil.dual) {
+                duals.insert(fmt::format("{} -> {}", sf.value, to_string(sf.soil.group)));
+            }
+            warn_if_repaired(soils, sf, warnings);
+        }
+        for (const std::size_t i : parts.land_used) {
+            warn_if_repaired(land, land.features[i], warnings);
+        }
+        return {duals.begin(), duals.end()};
+    }
+
+    /// The parts as weight_parts takes them, named by their first land-cover feature.
+    std::vector<PartArea> part_areas(const PartSums &parts) const {
+        std::vector<PartArea> out;
+        out.reserve(parts.sums.size());
+        for (const auto &[key, sum] : parts.sums) {
+            out.push_back({key.first, key.second, sum.area_m2,
+                           sum.first_fid < 0 ? std::string("the default class of the project "
+                                                           "settings")
+                                             : fmt::format("{}, {} {}", land.source,
+                                                           land.feature_noun, sum.first_fid)});
+        }
+        return out;
+    }
+
+    /// What the lines say about the catchment: its area, the layers, the sources.
+    PartsContext parts_context(std::string_view label, double area_m2,
+                               std::optional<double> mean_slope) const {
+        const auto &s = settings;
+        PartsContext pc;
+        pc.label = std::string(label);
+        pc.catchment_area_m2 = area_m2;
+        pc.input_notes.note(polygon_area, {word("catchment", std::string(label))},
+                            sheet_area("A", area_m2, s.units));
+        pc.input_notes.note(layers_overlaid,
+                            {word("land", land.source), word("class_field", s.class_field),
+                             word("soils", soils.source), word("soil_field", s.soil_group_field)});
+        pc.parts_source = {Ref::none,
+                           "overlay of the catchment with {land_layer} and {soils_layer}",
+                           {word("land_layer", land.source), word("soils_layer", soils.source)}};
+        pc.area_check_source = {Ref::none, "GEOS overlay"};
+        pc.drained = s.drained;
+        if (mean_slope) {
+            pc.slope_percent = *mean_slope * 100.0;
+        }
+        pc.units = s.units;
+        return pc;
     }
 };
 
@@ -386,221 +690,17 @@ const CalcLines &LandOverlay::layer_warnings() const noexcept { return impl_->la
 CatchmentLand LandOverlay::weight(const std::vector<unsigned char> &catchment_wkb,
                                   std::string_view label, std::optional<double> mean_slope) const {
     Impl &im = *impl_;
-    const auto &ctx = im.ctx;
-    const auto &s = im.settings;
     CatchmentLand out;
     CalcLines warnings;
-
-    const geos::WkbReader reader(im.ctx);
-    auto read = read_polygonal(im.ctx, reader, catchment_wkb, fmt::format("catchment '{}'", label));
-    if (read.repaired) {
-        warnings.warn("Invalid catchment polygon made valid",
-                      fmt::format("catchment '{}': the polygon was invalid ({}); made valid", label,
-                                  read.reason),
-                      "GEOS MakeValid, structure method");
+    const auto catchment = im.cut_catchment(catchment_wkb, label, out, warnings);
+    PartSums parts;
+    if (im.settings.exact_coverage_check || !im.overlay_fast(catchment, parts)) {
+        im.overlay_exact(catchment, label, parts, out, warnings);
     }
-    const GEOSGeometry *catchment = read.geom.get();
-    out.area_m2 = area_of(ctx, catchment);
-    if (!(out.area_m2 > 0.0)) {
-        throw_input_error(fmt::format("catchment '{}'", label), "the polygon has no area",
-                          "a polygon with a positive area");
-    }
-    const double tol_m2 = s.area_tolerance_share * out.area_m2;
-    const auto prepared = geos::prepare(ctx, catchment);
-
-    // Soils first: few pieces, so their union (exact coverage and overlap check) is cheap.
-    auto soil = im.cut(im.soils, catchment, prepared.get());
-    out.uncovered_soils_m2 =
-        im.settle_coverage(im.soils, soil, catchment, out.area_m2, tol_m2, label, warnings);
-    std::vector<geos::Prepared> soil_prepared;
-    soil_prepared.reserve(soil.size());
-    for (const auto &sp : soil) {
-        soil_prepared.push_back(geos::prepare(ctx, sp.geom));
-    }
-
-    struct PartSum {
-        double area_m2 = 0.0;
-        std::int64_t first_fid = -1; ///< a land-cover feature of the class, for messages
-    };
-    std::map<std::pair<std::string, SoilGroup>, PartSum> sums;
-    std::set<std::size_t> land_used; ///< land-cover features found in the catchment
-    const auto add_part = [&](std::size_t land_feature, SoilGroup g, double a) {
-        const bool is_default = land_feature == no_feature;
-        const std::string &cls =
-            is_default ? s.default_class : im.land.features[land_feature].value;
-        auto &sum = sums[{cls, g}];
-        sum.area_m2 += a;
-        if (sum.first_fid < 0 && !is_default) {
-            sum.first_fid = im.land.features[land_feature].fid;
-        }
-        if (!is_default) {
-            land_used.insert(land_feature);
-        }
-    };
-    const auto group_of = [&](const Piece &sp) {
-        return sp.feature == no_feature ? im.default_soil.group
-                                        : im.soils.features[sp.feature].soil.group;
-    };
-    /// Area of a land-cover piece inside soil piece k.
-    const auto area_in_soil = [&](std::size_t k, const GEOSGeometry *g, double g_area_m2) {
-        const bool inside = GEOSPreparedContains_r(ctx.get(), soil_prepared[k].get(), g) == 1;
-        if (inside) {
-            return g_area_m2;
-        }
-        if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), g) != 1) {
-            return 0.0;
-        }
-        auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), soil[k].geom, g),
-                               "cannot intersect land cover with soils");
-        return area_of(ctx, inter.get());
-    };
-
-    // Fast path: every land-cover polygon against every soil piece (already cut to the
-    // catchment). If the land-cover layer covers the catchment once, the parts add up to the
-    // catchment's area; any difference (a gap or an overlap) sends us to the exact path.
-    bool exact = s.exact_coverage_check;
-    if (!exact) {
-        double sum_m2 = 0.0;
-        std::vector<std::size_t> crossing; // soil pieces a land-cover polygon reaches into
-        for (const std::size_t i : im.land.tree->query(catchment)) {
-            const auto &f = im.land.features[i];
-            const GEOSGeometry *fg = f.geom.get();
-            if (f.area_m2 <= 0.0 || GEOSPreparedIntersects_r(ctx.get(), prepared.get(), fg) != 1) {
-                continue;
-            }
-            const bool inside = GEOSPreparedContainsProperly_r(ctx.get(), prepared.get(), fg) == 1;
-            crossing.clear();
-            bool whole = false;
-            for (std::size_t k = 0; k < soil.size() && !whole; ++k) {
-                const Piece &sp = soil[k];
-                if (f.xmax < sp.xmin || sp.xmax < f.xmin || f.ymax < sp.ymin || sp.ymax < f.ymin) {
-                    continue;
-                }
-                if (GEOSPreparedContainsProperly_r(ctx.get(), soil_prepared[k].get(), fg) == 1) {
-                    add_part(i, group_of(sp), f.area_m2);
-                    sum_m2 += f.area_m2;
-                    whole = true;
-                } else if (GEOSPreparedIntersects_r(ctx.get(), soil_prepared[k].get(), fg) == 1) {
-                    crossing.push_back(k);
-                }
-            }
-            if (whole) {
-                continue;
-            }
-            double done_m2 = 0.0;
-            for (std::size_t j = 0; j < crossing.size(); ++j) {
-                const std::size_t k = crossing[j];
-                double a = 0.0;
-                if (inside && j + 1 == crossing.size()) {
-                    // A polygon inside the catchment is covered once by the soil pieces (their
-                    // coverage was settled above): the last piece holds the rest of its area.
-                    // A rest within the rounding of the subtraction (1e-12 of the polygon's
-                    // area) is a piece that only touches the polygon.
-                    a = f.area_m2 - done_m2;
-                    if (a <= std::max(tol_m2, 1e-12 * f.area_m2)) {
-                        a = 0.0;
-                    }
-                } else {
-                    auto inter = geos::own(ctx, GEOSIntersection_r(ctx.get(), soil[k].geom, fg),
-                                           "cannot intersect land cover with soils");
-                    a = area_of(ctx, inter.get());
-                }
-                if (a > 0.0) {
-                    add_part(i, group_of(soil[k]), a);
-                    sum_m2 += a;
-                    done_m2 += a;
-                }
-            }
-        }
-        exact = std::abs(sum_m2 - out.area_m2) > tol_m2;
-        if (exact) {
-            sums.clear();
-            land_used.clear();
-        }
-    }
-    // Exact path: cut the catchment by the land-cover layer, check coverage and overlaps with
-    // the union of the pieces (refusing, or giving the uncovered part the default class), then
-    // intersect the land pieces with the soil pieces.
-    if (exact) {
-        auto land = im.cut(im.land, catchment, prepared.get());
-        out.uncovered_land_cover_m2 =
-            im.settle_coverage(im.land, land, catchment, out.area_m2, tol_m2, label, warnings);
-        for (const auto &lp : land) {
-            for (std::size_t k = 0; k < soil.size(); ++k) {
-                const Piece &sp = soil[k];
-                if (lp.xmax < sp.xmin || sp.xmax < lp.xmin || lp.ymax < sp.ymin ||
-                    sp.ymax < lp.ymin) {
-                    continue;
-                }
-                const double a = area_in_soil(k, lp.geom, lp.area_m2);
-                if (a > 0.0) {
-                    add_part(lp.feature, group_of(sp), a);
-                }
-            }
-        }
-    }
-
-    // Dual soil groups and repaired polygons that reach into this catchment.
-    std::set<std::string> duals;
-    for (const auto &sp : soil) {
-        if (sp.feature == no_feature) {
-            continue;
-        }
-        const auto &sf = im.soils.features[sp.feature];
-        if (sf.soil.dual) {
-            duals.insert(fmt::format("{} -> {}", sf.value, to_string(sf.soil.group)));
-        }
-        if (sf.repaired) {
-            warnings.warn("Invalid layer polygon made valid",
-                          fmt::format("{}: feature {} was invalid ({}); made valid before the "
-                                      "overlay",
-                                      im.soils.source, sf.fid, sf.repair_reason),
-                          "GEOS MakeValid, structure method");
-        }
-    }
-    for (const std::size_t i : land_used) {
-        const auto &f = im.land.features[i];
-        if (f.repaired) {
-            warnings.warn("Invalid layer polygon made valid",
-                          fmt::format("{}: feature {} was invalid ({}); made valid before the "
-                                      "overlay",
-                                      im.land.source, f.fid, f.repair_reason),
-                          "GEOS MakeValid, structure method");
-        }
-    }
-
-    // C, CN and impervious share per part, the weighted values and the lines.
-    std::vector<PartArea> parts;
-    parts.reserve(sums.size());
-    for (const auto &[key, sum] : sums) {
-        parts.push_back(
-            {key.first, key.second, sum.area_m2,
-             sum.first_fid < 0
-                 ? std::string("the default class of the project settings")
-                 : fmt::format("{}, {} {}", im.land.source, im.land.feature_noun, sum.first_fid)});
-    }
-    PartsContext pc;
-    pc.label = std::string(label);
-    pc.catchment_area_m2 = out.area_m2;
-    pc.area_label = fmt::format("Catchment '{}': area of the polygon", label);
-    pc.area_text = "A = area of the polygon";
-    pc.area_source = "GEOS polygon area";
-    pc.input_notes.note("Layers overlaid",
-                        fmt::format("land cover: {} (field '{}'); soils: {} (field '{}')",
-                                    im.land.source, s.class_field, im.soils.source,
-                                    s.soil_group_field),
-                        "project input");
-    pc.parts_source =
-        fmt::format("overlay of the catchment with {} and {}", im.land.source, im.soils.source);
-    pc.area_check_source = "GEOS overlay";
-    pc.dual_groups.assign(duals.begin(), duals.end());
-    pc.drained = s.drained;
-    if (mean_slope) {
-        pc.slope_percent = *mean_slope * 100.0;
-    }
+    auto pc = im.parts_context(label, out.area_m2, mean_slope);
+    pc.dual_groups = im.check_features(catchment, parts, warnings);
     pc.warnings = std::move(warnings);
-    pc.units = s.units;
-    auto weighted = weight_parts(parts, im.tables, pc);
+    auto weighted = weight_parts(im.part_areas(parts), im.tables, pc);
     out.weighting = std::move(weighted.weighting);
     out.lines = std::move(weighted.lines);
     return out;

@@ -82,6 +82,40 @@ const std::string &class_cell(const CsvTable &csv, const CsvTable::Row &row, std
         "point to its own table)");
 }
 
+template <typename Row> using RowsByClass = std::map<std::string, Row, std::less<>>;
+
+/// The rows of a table by class: `make_row` reads one CSV row; its reference is the row's
+/// `reference` cell, or the table's source. Throws InputError for a class listed twice.
+template <typename MakeRow>
+auto class_rows(const CsvTable &csv, std::size_t col_class, const TableInfo &info,
+                const MakeRow &make_row) {
+    using Row = decltype(make_row(csv.rows.front()));
+    RowsByClass<Row> rows;
+    const auto col_ref = csv.find_column("reference");
+    for (const auto &r : csv.rows) {
+        const std::string &cls = class_cell(csv, r, col_class);
+        Row row = make_row(r);
+        row.reference =
+            col_ref && !csv.text(r, *col_ref).empty() ? csv.text(r, *col_ref) : info.source;
+        if (!rows.emplace(cls, std::move(row)).second) {
+            throw_input_error(csv.where(r, col_class),
+                              fmt::format("class '{}' is listed twice", cls), "each class once");
+        }
+    }
+    return rows;
+}
+
+/// The row of a class; throws InputError naming the class and the `what` table when missing.
+template <typename Row>
+const Row &class_row(const RowsByClass<Row> &rows, std::string_view land_class,
+                     const TableInfo &info, std::string_view what) {
+    const auto it = rows.find(land_class);
+    if (it == rows.end()) {
+        missing_class(land_class, info, what);
+    }
+    return it->second;
+}
+
 } // namespace
 
 std::string_view to_string(SoilGroup g) noexcept {
@@ -225,9 +259,7 @@ CurveNumberTable CurveNumberTable::from_csv(const CsvTable &csv) {
     const auto col_class = csv.column("class");
     const std::array<std::size_t, 4> cols = {csv.column("A"), csv.column("B"), csv.column("C"),
                                              csv.column("D")};
-    const auto col_ref = csv.find_column("reference");
-    for (const auto &r : csv.rows) {
-        const std::string &cls = class_cell(csv, r, col_class);
+    table.rows_ = class_rows(csv, col_class, table.info_, [&](const CsvTable::Row &r) {
         Row row;
         for (std::size_t g = 0; g < 4; ++g) {
             const double cn = csv.number(r, cols[g]);
@@ -237,13 +269,8 @@ CurveNumberTable CurveNumberTable::from_csv(const CsvTable &csv) {
             }
             row.cn[g] = cn;
         }
-        row.reference =
-            col_ref && !csv.text(r, *col_ref).empty() ? csv.text(r, *col_ref) : table.info_.source;
-        if (!table.rows_.emplace(cls, std::move(row)).second) {
-            throw_input_error(csv.where(r, col_class),
-                              fmt::format("class '{}' is listed twice", cls), "each class once");
-        }
-    }
+        return row;
+    });
     return table;
 }
 
@@ -252,11 +279,7 @@ bool CurveNumberTable::has_class(std::string_view land_class) const {
 }
 
 const CurveNumberTable::Row &CurveNumberTable::lookup(std::string_view land_class) const {
-    const auto it = rows_.find(land_class);
-    if (it == rows_.end()) {
-        missing_class(land_class, info_, "curve number");
-    }
-    return it->second;
+    return class_row(rows_, land_class, info_, "curve number");
 }
 
 double CurveNumberTable::cn(std::string_view land_class, SoilGroup group) const {
@@ -270,9 +293,7 @@ ImperviousShareTable ImperviousShareTable::from_csv(const CsvTable &csv) {
     table.info_ = table_info(csv);
     const auto col_class = csv.column("class");
     const auto col_pct = csv.column("impervious_percent");
-    const auto col_ref = csv.find_column("reference");
-    for (const auto &r : csv.rows) {
-        const std::string &cls = class_cell(csv, r, col_class);
+    table.rows_ = class_rows(csv, col_class, table.info_, [&](const CsvTable::Row &r) {
         const double pct = csv.number(r, col_pct);
         if (!limits::percent.contains(pct)) {
             throw_input_error(csv.where(r, col_pct),
@@ -281,13 +302,8 @@ ImperviousShareTable ImperviousShareTable::from_csv(const CsvTable &csv) {
         }
         Row row;
         row.share = pct / 100.0;
-        row.reference =
-            col_ref && !csv.text(r, *col_ref).empty() ? csv.text(r, *col_ref) : table.info_.source;
-        if (!table.rows_.emplace(cls, std::move(row)).second) {
-            throw_input_error(csv.where(r, col_class),
-                              fmt::format("class '{}' is listed twice", cls), "each class once");
-        }
-    }
+        return row;
+    });
     return table;
 }
 
@@ -296,11 +312,7 @@ bool ImperviousShareTable::has_class(std::string_view land_class) const {
 }
 
 const ImperviousShareTable::Row &ImperviousShareTable::lookup(std::string_view land_class) const {
-    const auto it = rows_.find(land_class);
-    if (it == rows_.end()) {
-        missing_class(land_class, info_, "impervious share");
-    }
-    return it->second;
+    return class_row(rows_, land_class, info_, "impervious share");
 }
 
 // ---- reading ---------------------------------------------------------------------------------

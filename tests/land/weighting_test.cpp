@@ -13,12 +13,14 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <set>
 #include <string>
 #include <vector>
 
 using catchpeak::LineKind;
 using catchpeak::parse_csv;
 using namespace catchpeak::land;
+using catchpeak::test::line_keyed;
 using catchpeak::test::line_labelled;
 namespace units = catchpeak::units;
 
@@ -88,13 +90,13 @@ TEST(WeightParts, RoofAndLawnByHand) {
     EXPECT_EQ(w.parts[1].cn, 98.0);
     EXPECT_EQ(w.c_table, "c_test.csv (test C)");
     // The lines: the parts in acres (US sheet), then the weighted values with their terms.
-    const auto *cl = line_labelled(r.lines, "Runoff coefficient, area-weighted");
-    ASSERT_NE(cl, nullptr);
-    EXPECT_EQ(catchpeak::test::text(*cl).symbols, "C = sum(Ai Ci) / sum(Ai)");
-    EXPECT_EQ(catchpeak::test::text(*cl).numbers, "C = (1.200 x 0.1500 + 0.8000 x 0.9000) / 2.000");
-    const auto *cnl = line_labelled(r.lines, "Curve number, composite (area-weighted)");
-    ASSERT_NE(cnl, nullptr);
-    EXPECT_EQ(catchpeak::test::text(*cnl).numbers, "CN = (1.200 x 60.00 + 0.8000 x 98.00) / 2.000");
+    const auto &cl = line_keyed(r.lines, "land.c_weighted");
+    EXPECT_EQ(catchpeak::test::text(cl).label, "Runoff coefficient, area-weighted");
+    EXPECT_EQ(catchpeak::test::text(cl).symbols, "C = sum(Ai Ci) / sum(Ai)");
+    EXPECT_EQ(catchpeak::test::text(cl).numbers, "C = (1.200 x 0.1500 + 0.8000 x 0.9000) / 2.000");
+    const auto &cnl = line_keyed(r.lines, "land.cn_composite");
+    EXPECT_EQ(catchpeak::test::text(cnl).label, "Curve number, composite (area-weighted)");
+    EXPECT_EQ(catchpeak::test::text(cnl).numbers, "CN = (1.200 x 60.00 + 0.8000 x 98.00) / 2.000");
     const auto *part = line_labelled(r.lines, "Part 2: roof, soil group C");
     ASSERT_NE(part, nullptr);
     EXPECT_EQ(catchpeak::test::text(*part).unit, "ac");
@@ -102,7 +104,7 @@ TEST(WeightParts, RoofAndLawnByHand) {
     EXPECT_EQ(catchpeak::test::text(*part).source, "project input (land.csv)");
     // No area line asked for, and the parts add up: no warning.
     EXPECT_EQ(r.lines.warning_count(), 0u);
-    EXPECT_EQ(line_labelled(r.lines, "Slope for the C slope bands"), nullptr); // no band used
+    EXPECT_FALSE(r.lines.has("land.slope")); // no band used
 }
 
 // Two parts of one class and group add into one part; a lawn on soil A uses the slope band.
@@ -118,10 +120,10 @@ TEST(WeightParts, SamePartsAddAndSlopeBandsUseTheGivenSlope) {
     ASSERT_EQ(r.weighting.parts.size(), 2u);
     EXPECT_EQ(r.weighting.parts[0].area_m2, 4000.0);
     EXPECT_NEAR(r.weighting.c_weighted, 0.5, 0.5 * rounding);
-    const auto *slope = line_labelled(r.lines, "Slope for the C slope bands");
-    ASSERT_NE(slope, nullptr);
-    EXPECT_EQ(slope->value(), 2.0);
-    EXPECT_EQ(catchpeak::test::text(*slope).numbers, "slope of the longest flow path");
+    const auto &slope = line_keyed(r.lines, "land.slope");
+    EXPECT_EQ(catchpeak::test::text(slope).label, "Slope for the C slope bands");
+    EXPECT_EQ(slope.value(), 2.0);
+    EXPECT_EQ(catchpeak::test::text(slope).numbers, "slope of the longest flow path");
 }
 
 // Parts that do not add up to the catchment: a warning line with both sums; the weighting
@@ -135,14 +137,14 @@ TEST(WeightParts, PartsThatDoNotAddUpGiveAWarningLine) {
                      test_tables(), ctx);
     EXPECT_NEAR(r.weighting.c_weighted, 0.3735 / 0.99, 0.38 * rounding);
     ASSERT_EQ(r.lines.warning_count(), 1u);
-    const auto *w = line_labelled(r.lines, "Parts do not add up to the catchment");
-    ASSERT_NE(w, nullptr);
-    EXPECT_EQ(w->kind, LineKind::warning);
-    EXPECT_NE(catchpeak::test::text(*w).numbers.find(
+    const auto &w = line_keyed(r.lines, "land.area_check");
+    EXPECT_EQ(catchpeak::test::text(w).label, "Parts do not add up to the catchment");
+    EXPECT_EQ(w.kind, LineKind::warning);
+    EXPECT_NE(catchpeak::test::text(w).numbers.find(
                   "the parts add up to 0.9900 ha, the catchment is 1.000 ha"),
               std::string::npos)
-        << catchpeak::test::text(*w).numbers;
-    EXPECT_EQ(catchpeak::test::text(*w).source, "project input (catchments.csv)");
+        << catchpeak::test::text(w).numbers;
+    EXPECT_EQ(catchpeak::test::text(w).source, "project input (catchments.csv)");
 }
 
 // Without a C table, C is NaN and no C lines are written; the CN is still weighted.
@@ -152,7 +154,9 @@ TEST(WeightParts, ATableNotGivenLeavesItsValueOut) {
     const auto r = weight_parts({{"roof", SoilGroup::b, 100.0, "a"}}, tables, context(100.0));
     EXPECT_TRUE(std::isnan(r.weighting.c_weighted));
     EXPECT_EQ(r.weighting.cn_weighted, 98.0);
-    EXPECT_EQ(line_labelled(r.lines, "Runoff coefficient, area-weighted"), nullptr);
+    EXPECT_FALSE(r.lines.has("land.c_weighted"));
+    EXPECT_FALSE(r.lines.has("land.c_table"));
+    EXPECT_TRUE(r.lines.has("land.cn_composite"));
 }
 
 TEST(WeightParts, AClassMissingFromATableNamesTheTableThePartAndTheCatchment) {
@@ -218,4 +222,84 @@ TEST(WeightParts, TheOverlayGivesTheSameWeightingAsItsPartsGivenAsAreas) {
         ++compared;
     }
     EXPECT_EQ(compared, 5u); // two parts, C, CN, impervious share
+}
+
+// Every line a weighting writes, on both sheets, renders without a template error
+// (report::text_of throws std::logic_error on a placeholder the line does not fill) and leaves
+// no brace in its text. Together the cases below write every kind of line of the module: the
+// parts given as areas (a slope band, dual groups both ways, parts that do not add up, a source
+// with placeholders) and an overlay (invalid polygons made valid, both layers short of the
+// catchment).
+TEST(WeightParts, EveryLineRendersInBothUnitSystems) {
+    using catchpeak::test::polygon_wkb;
+    const std::set<std::string> every_key{"land.c_table",
+                                          "land.cn_table",
+                                          "land.impervious_table",
+                                          "land.dual_groups_drained",
+                                          "land.dual_groups_undrained",
+                                          "land.slope",
+                                          "land.area_check",
+                                          "land.part",
+                                          "land.c_weighted",
+                                          "land.cn_composite",
+                                          "land.impervious_weighted",
+                                          "land.polygon_area",
+                                          "land.layers_overlaid",
+                                          "land.feature_made_valid",
+                                          "land.catchment_made_valid",
+                                          "land.overlaid_feature_made_valid",
+                                          "land.soils_uncovered",
+                                          "land.land_cover_uncovered"};
+    for (const auto system : {units::System::si, units::System::us_customary}) {
+        std::vector<catchpeak::CalcLines> all;
+        for (const bool drained : {false, true}) {
+            auto ctx = context(10000.0);
+            ctx.units = system;
+            ctx.dual_groups = {"B/D -> B", "C/D -> C"};
+            ctx.drained = drained;
+            ctx.parts_source = LineSource{
+                catchpeak::Ref::project_input,
+                " ({file}, lines {first} to {last})",
+                {catchpeak::word("file", "land.csv"),
+                 catchpeak::qty("first", 2.0, catchpeak::Unit::none, catchpeak::Shown::integer()),
+                 catchpeak::qty("last", 3.0, catchpeak::Unit::none, catchpeak::Shown::integer())}};
+            all.push_back(weight_parts({{"lawn", SoilGroup::a, 3000.0, "a"},
+                                        {"roof", SoilGroup::d, 6900.0, "b"}},
+                                       test_tables(), ctx)
+                              .lines);
+        }
+        OverlaySettings s;
+        s.units = system;
+        s.uncovered = Uncovered::use_default;
+        s.default_class = "lawn";
+        // Bow ties (two triangles meeting at their centre) are invalid and made valid.
+        const LandOverlay overlay(
+            {"land.gpkg",
+             "",
+             {catchpeak::test::feature(3, polygon_wkb({{{0, 0}, {50, 50}, {50, 0}, {0, 50}}}),
+                                       "class", "roof")}},
+            {"soils.gpkg",
+             "",
+             {catchpeak::test::feature(1, catchpeak::test::rect_wkb(-10, -10, 110, 60), "hsg",
+                                       "C/D")}},
+            test_tables(), s);
+        all.push_back(overlay.layer_warnings());
+        all.push_back(
+            overlay.weight(polygon_wkb({{{0, 0}, {100, 100}, {100, 0}, {0, 100}}}), "DP1", 0.01)
+                .lines);
+        std::set<std::string> keys;
+        for (const auto &lines : all) {
+            for (const auto &l : lines.lines()) {
+                keys.insert(l.key);
+                catchpeak::LineText t;
+                ASSERT_NO_THROW(t = catchpeak::test::text(l)) << l.key;
+                for (const std::string *part : {&t.label, &t.symbols, &t.numbers, &t.source}) {
+                    EXPECT_EQ(part->find_first_of("{}"), std::string::npos)
+                        << l.key << ": " << *part;
+                }
+                EXPECT_FALSE(t.label.empty()) << l.key;
+            }
+        }
+        EXPECT_EQ(keys, every_key);
+    }
 }

@@ -234,7 +234,7 @@ TEST(Tr55Example2_2, AsTableRowsCompositeCn75) {
     // The composite CN line shows the parts in acres, as a checker writes them.
     bool found = false;
     for (const auto &l : r.points[0].lines.lines()) {
-        if (catchpeak::test::text(l).label == "Curve number, composite (area-weighted)") {
+        if (l.key == "land.cn_composite") {
             found = true;
             EXPECT_EQ(catchpeak::test::text(l).numbers,
                       "CN = (75.00 x 74.00 + 75.00 x 70.00 + 100.0 x 80.00) / 250.0");

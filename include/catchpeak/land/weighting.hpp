@@ -26,21 +26,33 @@ struct PartArea {
     std::string origin;
 };
 
+/// The source a line cites, given by the caller: a reference and what follows its short form,
+/// a template filled with `inputs` (e.g. Ref::project_input, " ({file}, line {n})"). The
+/// symbols of `inputs` must differ from those of the lines it is put on (A, S, i, class,
+/// group, C, CN, I, P, sum, what): name them after what they are (file, n, layer).
+struct LineSource {
+    Ref ref = Ref::none;
+    std::string where;
+    std::vector<Quantity> inputs;
+
+    LineSource() = default;
+    LineSource(Ref r, std::string where_template, std::vector<Quantity> where_inputs = {});
+    /// A source given as finished text, printed as it stands.
+    LineSource(std::string text); // NOLINT: implicit, a finished text is a source
+    LineSource(const char *text); // NOLINT: implicit, as above
+};
+
 /// What the lines say about the catchment and where its parts come from.
 struct PartsContext {
-    std::string label;              ///< the catchment, in messages and lines ("DP3", "DP3 local")
+    std::string label;              ///< the catchment, in messages ("DP3", "DP3 local")
     double catchment_area_m2 = 0.0; ///< the area the parts should add up to
-    /// The first line, a note of the catchment's area (label and what A is, with its source);
-    /// no such line when `area_label` is empty (the caller's lines give the area already).
-    std::string area_label;
-    std::string area_text;
-    std::string area_source;
-    /// Notes after the area (where the parts come from, e.g. the layers overlaid).
+    /// Notes that open the lines (the catchment's area, where the parts come from, e.g. the
+    /// layers overlaid).
     CalcLines input_notes;
     /// Source of the part lines ("overlay of the catchment with land.gpkg and soils.gpkg").
-    std::string parts_source;
+    LineSource parts_source;
     /// Source of the warning when the parts do not add up to the catchment ("GEOS overlay").
-    std::string area_check_source;
+    LineSource area_check_source;
     /// Dual soil groups found, as "B/D -> D", each once; a note states their resolution.
     std::vector<std::string> dual_groups;
     bool drained = false; ///< the setting that resolved them
@@ -48,11 +60,14 @@ struct PartsContext {
     /// only when a part's class has slope bands.
     std::optional<double> slope_percent;
     std::string slope_text = "mean slope of the catchment";
-    std::string slope_source = "terrain";
+    LineSource slope_source{Ref::none, "terrain"};
     /// Warning lines of the caller, placed after the table notes (coverage of layers).
     CalcLines warnings;
     units::System units = units::System::si; ///< unit system of the lines
 };
+
+/// An area as the lines show it: in ha on an SI sheet, in ac on a US customary one.
+[[nodiscard]] Quantity sheet_area(std::string symbol, double area_m2, units::System system);
 
 /// The weighting of one catchment's parts.
 struct PartsWeighting {
