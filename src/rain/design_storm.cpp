@@ -159,10 +159,6 @@ constexpr Formula peak_averaged{"storm.peak_averaged",
                                 "linear interpolation of the storm table (property of the "
                                 "method)"};
 
-Quantity count_qty(std::string symbol, std::size_t n) {
-    return qty(std::move(symbol), static_cast<double>(n), Unit::none, Shown::integer());
-}
-
 /// The largest step of a storm: its index and the cumulative fractions at its ends.
 struct LargestStep {
     std::size_t index = 0;
@@ -229,14 +225,14 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
     const auto status = word("status", d.status);
     const auto storm = word("storm", d.name);
     lines.note(distribution_note, {storm, qty("D", d.duration_h(), Unit::h),
-                                   count_qty("points", d.hours.size()), source, status});
+                                   detail::count_qty("points", d.hours.size()), source, status});
     if (!is_checked(d)) {
         lines.warn(not_checked, {storm, source, status});
     }
     const auto p = detail::depth_qty("P", depth_mm, sheet_units);
     lines.note(storm_depth, {}, p);
     const auto dt = qty("dt", step_min, Unit::min);
-    lines.note(time_step, {count_qty("n", n)}, dt);
+    lines.note(time_step, {detail::count_qty("n", n)}, dt);
     out.value.step_s = units::min_to_s(step_min);
     out.value.depth_mm.resize(n);
     const auto peak = fill_steps(d, depth_mm, step_min, out.value.depth_mm);
@@ -403,9 +399,9 @@ void block_depth_lines(const BlockStorm &b, const std::vector<double> &increment
     for (std::size_t k = 1; k <= shown; ++k) {
         const double t1 = static_cast<double>(o.position[k - 1]) * b.step_min;
         std::vector<Quantity> inputs{
-            count_qty("k", k),        count_qty("n", b.n),
-            qty("t1", t1, Unit::min), qty("t2", t1 + b.step_min, Unit::min),
-            intensity.at(k, "i"),     qty("t", b.duration_of(k), Unit::min)};
+            detail::count_qty("k", k), detail::count_qty("n", b.n),
+            qty("t1", t1, Unit::min),  qty("t2", t1 + b.step_min, Unit::min),
+            intensity.at(k, "i"),      qty("t", b.duration_of(k), Unit::min)};
         const auto block = detail::depth_qty("dD", increments[k - 1], s);
         if (k == 1) {
             lines.calc(first_block, std::move(inputs), block);
@@ -416,8 +412,9 @@ void block_depth_lines(const BlockStorm &b, const std::vector<double> &increment
         lines.calc(later_block, std::move(inputs), block);
     }
     if (shown < b.n) {
-        lines.note(other_blocks, {count_qty("first", shown + 1), count_qty("n", b.n),
-                                  detail::depth_qty("dD_min", increments[o.by_size.back()], s)});
+        lines.note(other_blocks,
+                   {detail::count_qty("first", shown + 1), detail::count_qty("n", b.n),
+                    detail::depth_qty("dD_min", increments[o.by_size.back()], s)});
     }
 }
 
@@ -450,8 +447,8 @@ WithLines<Hyetograph> alternating_block_hyetograph(const Idf &idf, double durati
     auto &lines = out.lines;
     const auto dt = qty("dt", step_min, Unit::min);
     lines.note(block_storm_note,
-               {qty("T", return_period_yr, Unit::yr), qty("Td", duration_min, Unit::min),
-                count_qty("n", b.n), dt, count_qty("centre", order.centre + 1),
+               {detail::return_period_qty(return_period_yr), qty("Td", duration_min, Unit::min),
+                detail::count_qty("n", b.n), dt, detail::count_qty("centre", order.centre + 1),
                 qty("c0", static_cast<double>(order.centre) * step_min, Unit::min),
                 qty("c1", static_cast<double>(order.centre + 1) * step_min, Unit::min)});
     BlockIntensities intensity(b, sheet_units, lines);

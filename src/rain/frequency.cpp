@@ -32,11 +32,6 @@ constexpr Formula beyond_record{"ams.beyond_record",
                                 Ref::common_practice,
                                 ""};
 
-Quantity count_qty(std::string symbol, std::size_t n) {
-    return qty(std::move(symbol), static_cast<double>(n), Unit::none, Shown::integer());
-}
-Quantity return_period_qty(double t_yr) { return qty("T", t_yr, Unit::yr); }
-
 /// Puts the negative numbers that the numbers template of `line` substitutes in parentheses
 /// ("(-0.1640)"), so that a substituted value never reads as "+ -0.1640" or "2^--0.1000":
 /// every "{X}" whose quantity X is a negative number becomes "({X})".
@@ -120,12 +115,13 @@ std::vector<double> prepared_series(std::span<const double> mm, double t_yr, con
     }
     const double n = static_cast<double>(v.size());
     if (v.size() < short_record_years) {
-        lines.warn(short_record,
-                   {count_qty("n", v.size()), count_qty("n_short", short_record_years),
-                    return_period_qty(t_yr)});
+        lines.warn(short_record, {detail::count_qty("n", v.size()),
+                                  detail::count_qty("n_short", short_record_years),
+                                  detail::return_period_qty(t_yr)});
     }
     if (t_yr > 2.0 * n) {
-        lines.warn(beyond_record, {return_period_qty(t_yr), count_qty("n", v.size())});
+        lines.warn(beyond_record,
+                   {detail::return_period_qty(t_yr), detail::count_qty("n", v.size())});
     }
     return v;
 }
@@ -175,17 +171,18 @@ WithLines<double> gumbel_depth(std::span<const double> annual_max_mm, double ret
         ss += (x - mean) * (x - mean);
     }
     const double sd = std::sqrt(ss / (n - 1.0));
-    calc_signed(out.lines, series_mean, {qty("sum", sum, unit), count_qty("n", v.size())},
+    calc_signed(out.lines, series_mean, {qty("sum", sum, unit), detail::count_qty("n", v.size())},
                 qty("xbar", mean, unit));
-    calc_signed(out.lines, series_sd, {qty("ss", ss, unit), count_qty("n", v.size())},
+    calc_signed(out.lines, series_sd, {qty("ss", ss, unit), detail::count_qty("n", v.size())},
                 qty("s", sd, unit));
     const double t = return_period_yr;
     const double k = gumbel_frequency_factor(t);
-    calc_signed(out.lines, gumbel_factor, {return_period_qty(t)}, qty("K_T", k));
+    calc_signed(out.lines, gumbel_factor, {detail::return_period_qty(t)}, qty("K_T", k));
     const double x = mean + k * sd;
-    calc_signed(out.lines, gumbel_design_depth,
-                {return_period_qty(t), qty("xbar", mean, unit), qty("K_T", k), qty("s", sd, unit)},
-                qty("x_T", x, unit));
+    calc_signed(
+        out.lines, gumbel_design_depth,
+        {detail::return_period_qty(t), qty("xbar", mean, unit), qty("K_T", k), qty("s", sd, unit)},
+        qty("x_T", x, unit));
     out.value = detail::sheet_to_mm(x, sheet_units);
     return out;
 }
@@ -385,12 +382,14 @@ Pwm probability_weighted_moments(const std::vector<double> &v, Unit unit, CalcLi
     b.b0 /= n;
     b.b1 /= n;
     b.b2 /= n;
-    const auto size = count_qty("n", v.size());
+    const auto size = detail::count_qty("n", v.size());
     calc_signed(lines, pwm_b0, {size}, qty("b0", b.b0, unit));
-    calc_signed(lines, pwm_b1, {size, count_qty("n-1", v.size() - 1)}, qty("b1", b.b1, unit));
-    calc_signed(lines, pwm_b2,
-                {size, count_qty("n-1", v.size() - 1), count_qty("n-2", v.size() - 2)},
-                qty("b2", b.b2, unit));
+    calc_signed(lines, pwm_b1, {size, detail::count_qty("n-1", v.size() - 1)},
+                qty("b1", b.b1, unit));
+    calc_signed(
+        lines, pwm_b2,
+        {size, detail::count_qty("n-1", v.size() - 1), detail::count_qty("n-2", v.size() - 2)},
+        qty("b2", b.b2, unit));
     return b;
 }
 
@@ -442,16 +441,16 @@ GevSteps gev_parameters(const SampleLMoments &m, Unit unit, CalcLines &lines) {
 double gev_design_value(const GevParameters &p, double t, Unit unit, CalcLines &lines) {
     const double f = 1.0 - 1.0 / t;
     const auto f_q = qty("F", f);
-    calc_signed(lines, non_exceedance, {return_period_qty(t)}, f_q);
+    calc_signed(lines, non_exceedance, {detail::return_period_qty(t)}, f_q);
     const double x = gev_quantile(p, f);
     const auto xi = qty("xi", p.location_mm, unit);
     const auto alpha = qty("alpha", p.scale_mm, unit);
     const auto x_t = qty("x_T", x, unit);
     if (p.shape == 0.0) {
-        calc_signed(lines, gev_depth_k_zero, {return_period_qty(t), xi, alpha, f_q}, x_t);
+        calc_signed(lines, gev_depth_k_zero, {detail::return_period_qty(t), xi, alpha, f_q}, x_t);
     } else {
         calc_signed(lines, gev_design_depth,
-                    {return_period_qty(t), xi, alpha, f_q, qty("k", p.shape)}, x_t);
+                    {detail::return_period_qty(t), xi, alpha, f_q, qty("k", p.shape)}, x_t);
     }
     return x;
 }

@@ -241,7 +241,6 @@ Unit unit_of(IntensityUnit u) noexcept {
 }
 
 Quantity duration_qty(double t_min) { return qty("t", t_min, Unit::min); }
-Quantity return_period_qty(double t_yr) { return qty("T", t_yr, Unit::yr); }
 
 WithLines<double> table_intensity(const IdfTable &t, double dur, double rp, units::System s) {
     const auto where = where_table(t);
@@ -253,7 +252,7 @@ WithLines<double> table_intensity(const IdfTable &t, double dur, double rp, unit
         if (same(ds[d], dur)) {
             out.value = col[d];
             out.lines.calc(table_value,
-                           {duration_qty(dur), return_period_qty(rp),
+                           {duration_qty(dur), detail::return_period_qty(rp),
                             qty("t_table", ds[d], Unit::min), word("idf", t.name)},
                            detail::intensity_qty("i", col[d], s));
             return out;
@@ -281,7 +280,7 @@ WithLines<double> table_intensity(const IdfTable &t, double dur, double rp, unit
     out.value = detail::us_sheet(s) ? units::in_per_h_to_mm_per_h(i) : i;
     const Unit iu = detail::intensity_unit(s);
     out.lines.calc(table_interpolated,
-                   {duration_qty(dur), return_period_qty(rp), qty("t1", t1, Unit::min),
+                   {duration_qty(dur), detail::return_period_qty(rp), qty("t1", t1, Unit::min),
                     qty("t2", t2, Unit::min), qty("i1", i1, iu), qty("i2", i2, iu),
                     word("idf", t.name)},
                    qty("i", i, iu));
@@ -303,7 +302,7 @@ WithLines<double> formula_intensity(const IdfFormula &f, double dur, double rp, 
     }
     const double native = formula_value(k, dur);
     out.lines.calc(formula_value_line,
-                   {duration_qty(dur), return_period_qty(rp), qty("a", k.a),
+                   {duration_qty(dur), detail::return_period_qty(rp), qty("a", k.a),
                     qty("b", k.b_min, Unit::min), qty("c", k.c), word("idf", f.name)},
                    qty("i", native, unit_of(f.unit)));
     const bool native_si = f.unit == IntensityUnit::mm_per_h;
@@ -375,7 +374,7 @@ WithLines<double> Idf::depth(double duration_min, double return_period_yr,
     const double i_mm_per_h = out.value;
     out.value = i_mm_per_h * units::min_to_h(duration_min);
     out.lines.calc(depth_line,
-                   {duration_qty(duration_min), return_period_qty(return_period_yr),
+                   {duration_qty(duration_min), detail::return_period_qty(return_period_yr),
                     detail::intensity_qty("i", i_mm_per_h, sheet_units)},
                    detail::depth_qty("P", out.value, sheet_units));
     return out;

@@ -5,6 +5,7 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/units.hpp"
 
+#include <cstddef>
 #include <string>
 #include <utility>
 
@@ -45,5 +46,13 @@ namespace catchpeak::rain::detail {
 [[nodiscard]] inline Quantity intensity_qty(std::string symbol, double mm_per_h, units::System s) {
     return qty(std::move(symbol), mm_h_to_sheet(mm_per_h, s), intensity_unit(s));
 }
+
+/// A count (years, steps, blocks), printed as an integer.
+[[nodiscard]] inline Quantity count_qty(std::string symbol, std::size_t n) {
+    return qty(std::move(symbol), static_cast<double>(n), Unit::none, Shown::integer());
+}
+
+/// The return period T of a line, yr.
+[[nodiscard]] inline Quantity return_period_qty(double t_yr) { return qty("T", t_yr, Unit::yr); }
 
 } // namespace catchpeak::rain::detail
