@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/design_storm.hpp"
 
+#include "sheet_units.hpp"
+
 #include "catchpeak/core/error.hpp"
 
 #include <fmt/format.h>
@@ -14,9 +16,6 @@
 namespace catchpeak::rain {
 
 namespace {
-
-constexpr const char *chow_ab =
-    "Chow, Maidment & Mays (1988), Applied Hydrology, sec. 14.4 (alternating block method)";
 
 /// Block depth lines on the sheet: every block of a storm of at most `max_block_lines` blocks,
 /// else the first `few_block_lines` (the largest, for an IDF whose increments decrease).
@@ -45,14 +44,6 @@ std::size_t whole_steps(double total_min, double step_min, const std::string &wh
                                       sig(total_min), sig(total_min / std::max(1.0, rounded))));
     }
     return static_cast<std::size_t>(rounded);
-}
-
-std::string depth_unit(units::System s) { return s == units::System::us_customary ? "in" : "mm"; }
-double mm_to_sheet(double mm, units::System s) {
-    return s == units::System::us_customary ? units::mm_to_in(mm) : mm;
-}
-double mm_h_to_sheet(double v, units::System s) {
-    return s == units::System::us_customary ? units::mm_per_h_to_in_per_h(v) : v;
 }
 
 } // namespace
@@ -120,6 +111,104 @@ double cumulative_fraction_at(const StormDistribution &d, double hour) {
     return f[lo] + (f[hi] - f[lo]) * (hour - h[lo]) / (h[hi] - h[lo]);
 }
 
+namespace {
+
+// A storm from a dimensionless distribution. The source is the table's: "{source}; status:
+// {status}".
+constexpr std::string_view table_source = "{source}; status: {status}";
+constexpr Formula distribution_note{"storm.distribution",
+                                    "Design storm distribution",
+                                    "",
+                                    "{storm}, {D} {D:u}, cumulative fractions interpolated "
+                                    "linearly between the table's {points} points",
+                                    Ref::none,
+                                    table_source};
+constexpr Formula not_checked{"storm.not_checked",
+                              "Storm distribution not checked",
+                              "",
+                              "the table of '{storm}' has status '{status}': it has not been "
+                              "checked against a published source; check it before relying on "
+                              "the result",
+                              Ref::none,
+                              table_source};
+constexpr Formula storm_depth{"storm.depth",   "Storm depth",      "",
+                              "P = {P} {P:u}", Ref::project_input, ""};
+constexpr Formula time_step{"storm.time_step",  "Time step", "", "dt = {dt} {dt:u}, {n} steps",
+                            Ref::project_input, ""};
+constexpr Formula largest_step{"storm.largest_step",
+                               "Largest step depth",
+                               "dP = P (F(t2) - F(t1))",
+                               "dP = {P} x ({F2} - {F1}), t1 = {t1} {t1:u}, t2 = {t2} {t2:u}",
+                               Ref::none,
+                               table_source};
+constexpr Formula storm_peak{"storm.peak_intensity",
+                             "Peak intensity of the design storm",
+                             "i = dP / dt",
+                             "i = {dP} / ({dt} / 60)",
+                             Ref::none,
+                             table_source};
+constexpr Formula peak_averaged{"storm.peak_averaged",
+                                "Peak averaged over a table interval",
+                                "",
+                                "the largest step lies between the table's points at {h0} "
+                                "{h0:u} and {h1} {h1:u} ({gap} {gap:u} apart, {dt} {dt:u} "
+                                "steps): the rain of that interval is spread evenly over its "
+                                "steps, so the peak intensity is the interval's average; a "
+                                "table with more points near the peak would give a higher peak",
+                                Ref::none,
+                                "linear interpolation of the storm table (property of the "
+                                "method)"};
+
+/// The largest step of a storm: its index and the cumulative fractions at its ends.
+struct LargestStep {
+    std::size_t index = 0;
+    double f0 = 0.0;
+    double f1 = 0.0;
+};
+
+LargestStep fill_steps(const StormDistribution &d, double depth_mm, double step_min,
+                       std::vector<double> &depth) {
+    const std::size_t n = depth.size();
+    double prev_f = 0.0;
+    LargestStep peak;
+    for (std::size_t k = 0; k < n; ++k) {
+        const double t1_h = units::min_to_h(static_cast<double>(k + 1) * step_min);
+        const double f1 = k + 1 == n ? 1.0 : cumulative_fraction_at(d, t1_h);
+        depth[k] = depth_mm * (f1 - prev_f);
+        // The first of equal steps (within round-off) is reported as the largest.
+        if (k == 0 || depth[k] > depth[peak.index] * (1.0 + 1e-9)) {
+            peak = {k, prev_f, f1};
+        }
+        prev_f = f1;
+    }
+    return peak;
+}
+
+/// Linear interpolation spreads the rain of one table interval evenly over the steps inside
+/// it: when the largest step lies inside an interval longer than a step, the peak intensity
+/// is that interval's average, lower than a finer table would give. Warns when it does.
+void warn_when_averaged(const StormDistribution &d, double peak_start_h, double peak_end_h,
+                        double step_min, CalcLines &lines) {
+    const auto hi = static_cast<std::size_t>(
+        std::upper_bound(d.hours.begin(), d.hours.end(), peak_start_h * (1.0 + 1e-12)) -
+        d.hours.begin());
+    if (hi == 0 || hi >= d.hours.size()) {
+        return;
+    }
+    const double h0 = d.hours[hi - 1];
+    const double h1 = d.hours[hi];
+    const double interval_min = units::h_to_min(h1 - h0);
+    if (peak_end_h <= h1 * (1.0 + 1e-12) && interval_min > step_min * (1.0 + 1e-9)) {
+        lines
+            .warn(peak_averaged,
+                  {qty("h0", h0, Unit::h), qty("h1", h1, Unit::h),
+                   qty("gap", interval_min, Unit::min), qty("dt", step_min, Unit::min)})
+            .flags.averaged = true;
+    }
+}
+
+} // namespace
+
 WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_mm, double step_min,
                                        units::System sheet_units) {
     validate(d);
@@ -132,80 +221,204 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
     const std::size_t n = whole_steps(duration_min, step_min, where, "storm duration");
     WithLines<Hyetograph> out{{}, {}};
     auto &lines = out.lines;
-    const auto source = fmt::format("{}; status: {}", d.source, d.status);
-    lines.note("Design storm distribution",
-               fmt::format("{}, {} h, cumulative fractions interpolated linearly between the "
-                           "table's {} points",
-                           d.name, sig(d.duration_h()), d.hours.size()),
-               source);
+    const auto source = word("source", d.source);
+    const auto status = word("status", d.status);
+    const auto storm = word("storm", d.name);
+    lines.note(distribution_note, {storm, qty("D", d.duration_h(), Unit::h),
+                                   detail::count_qty("points", d.hours.size()), source, status});
     if (!is_checked(d)) {
-        lines.warn("Storm distribution not checked",
-                   fmt::format("the table of '{}' has status '{}': it has not been checked "
-                               "against a published source; check it before relying on the "
-                               "result",
-                               d.name, d.status),
-                   source);
+        lines.warn(not_checked, {storm, source, status});
     }
-    const auto unit = depth_unit(sheet_units);
-    const double p_sheet = mm_to_sheet(depth_mm, sheet_units);
-    lines.note("Storm depth", fmt::format("P = {} {}", sig(p_sheet), unit), "project input",
-               p_sheet, unit);
-    lines.note("Time step", fmt::format("dt = {} min, {} steps", sig(step_min), n), "project input",
-               step_min, "min");
+    const auto p = detail::depth_qty("P", depth_mm, sheet_units);
+    lines.note(storm_depth, {}, p);
+    const auto dt = qty("dt", step_min, Unit::min);
+    lines.note(time_step, {detail::count_qty("n", n)}, dt);
     out.value.step_s = units::min_to_s(step_min);
     out.value.depth_mm.resize(n);
-    double prev_f = 0.0;
-    std::size_t peak = 0;
-    double peak_f0 = 0.0;
-    double peak_f1 = 0.0;
-    for (std::size_t k = 0; k < n; ++k) {
-        const double t1_h = units::min_to_h(static_cast<double>(k + 1) * step_min);
-        const double f1 = k + 1 == n ? 1.0 : cumulative_fraction_at(d, t1_h);
-        out.value.depth_mm[k] = depth_mm * (f1 - prev_f);
-        // The first of equal steps (within round-off) is reported as the largest.
-        if (k == 0 || out.value.depth_mm[k] > out.value.depth_mm[peak] * (1.0 + 1e-9)) {
-            peak = k;
-            peak_f0 = prev_f;
-            peak_f1 = f1;
-        }
-        prev_f = f1;
-    }
-    const double peak_start_h = units::min_to_h(static_cast<double>(peak) * step_min);
-    const double peak_end_h = units::min_to_h(static_cast<double>(peak + 1) * step_min);
-    lines.calc("Largest step depth", "dP = P (F(t2) - F(t1))",
-               fmt::format("dP = {} x ({} - {}), t1 = {} h, t2 = {} h", sig(p_sheet), sig(peak_f1),
-                           sig(peak_f0), sig(peak_start_h), sig(peak_end_h)),
-               mm_to_sheet(out.value.depth_mm[peak], sheet_units), unit, source);
-    lines.calc("Peak intensity of the design storm", "i = dP / dt",
-               fmt::format("i = {} / ({} / 60)",
-                           sig(mm_to_sheet(out.value.depth_mm[peak], sheet_units)), sig(step_min)),
-               mm_h_to_sheet(out.value.depth_mm[peak] / units::min_to_h(step_min), sheet_units),
-               unit + "/h", source);
-    // Linear interpolation spreads the rain of one table interval evenly over the steps inside
-    // it: when the largest step lies inside an interval longer than a step, the peak intensity
-    // is that interval's average, lower than a finer table would give.
-    const auto hi = static_cast<std::size_t>(
-        std::upper_bound(d.hours.begin(), d.hours.end(), peak_start_h * (1.0 + 1e-12)) -
-        d.hours.begin());
-    if (hi > 0 && hi < d.hours.size()) {
-        const double h0 = d.hours[hi - 1];
-        const double h1 = d.hours[hi];
-        const double interval_min = units::h_to_min(h1 - h0);
-        if (peak_end_h <= h1 * (1.0 + 1e-12) && interval_min > step_min * (1.0 + 1e-9)) {
-            lines
-                .warn("Peak averaged over a table interval",
-                      fmt::format("the largest step lies between the table's points at {} h "
-                                  "and {} h ({} min apart, {} min steps): the rain of that "
-                                  "interval is spread evenly over its steps, so the peak "
-                                  "intensity is the interval's average; a table with more "
-                                  "points near the peak would give a higher peak",
-                                  sig(h0), sig(h1), sig(interval_min), sig(step_min)),
-                      "linear interpolation of the storm table (property of the method)")
-                .flags.averaged = true;
-        }
-    }
+    const auto peak = fill_steps(d, depth_mm, step_min, out.value.depth_mm);
+    const double peak_start_h = units::min_to_h(static_cast<double>(peak.index) * step_min);
+    const double peak_end_h = units::min_to_h(static_cast<double>(peak.index + 1) * step_min);
+    const double peak_mm = out.value.depth_mm[peak.index];
+    const auto dp = detail::depth_qty("dP", peak_mm, sheet_units);
+    lines.calc(largest_step,
+               {p, qty("F2", peak.f1), qty("F1", peak.f0), qty("t1", peak_start_h, Unit::h),
+                qty("t2", peak_end_h, Unit::h), source, status},
+               dp);
+    lines.calc(storm_peak, {dp, dt, source, status},
+               detail::intensity_qty("i", peak_mm / units::min_to_h(step_min), sheet_units));
+    warn_when_averaged(d, peak_start_h, peak_end_h, step_min, lines);
     return out;
 }
+
+namespace {
+
+// The alternating block method, Chow, Maidment & Mays (1988), sec. 14.4.
+constexpr std::string_view chow_ab = ", Applied Hydrology, sec. 14.4 (alternating block method)";
+constexpr std::string_view block_symbols = "dD_k = i(k dt) k dt - i((k-1) dt) (k-1) dt";
+constexpr Formula block_storm_note{"storm.alternating_block",
+                                   "Design storm",
+                                   "",
+                                   "alternating block, {T} {T:u}, duration Td = {Td} {Td:u} in "
+                                   "{n} blocks of dt = {dt} {dt:u}: block depths from the IDF, "
+                                   "the largest in the middle of the storm (block {centre} of "
+                                   "{n}, {c0} to {c1} {c1:u}), the others in descending order "
+                                   "alternately right and left of it",
+                                   Ref::chow_1988,
+                                   chow_ab};
+constexpr std::string_view block_label = "Block depth {k} of {n}, placed {t1} to {t2} {t2:u}";
+constexpr Formula first_block{"storm.block_first",     block_label,    "dD_1 = i(dt) dt",
+                              "dD_1 = {i} x {t} / 60", Ref::chow_1988, chow_ab};
+constexpr Formula later_block{"storm.block",  block_label,
+                              block_symbols,  "dD_{k} = {i} x {t} / 60 - {i_prev} x {t_prev} / 60",
+                              Ref::chow_1988, chow_ab};
+constexpr Formula other_blocks{"storm.other_blocks",
+                               "Other blocks",
+                               "",
+                               "blocks {first} to {n} likewise, dD_k = i(k dt) k dt - i((k-1) "
+                               "dt) (k-1) dt, the smallest {dD_min} {dD_min:u}; all are drawn "
+                               "on the hyetograph",
+                               Ref::chow_1988,
+                               chow_ab};
+constexpr Formula block_total{"storm.block_total",   "Storm depth",  "D = i(Td) Td",
+                              "D = {i} x {Td} / 60", Ref::chow_1988, chow_ab};
+constexpr Formula blocks_reordered{"storm.blocks_reordered",
+                                   "Blocks reordered",
+                                   "",
+                                   "the depth increments of the IDF do not decrease steadily "
+                                   "with duration; they are sorted, largest first ({dD_max} "
+                                   "{dD_max:u}), before being placed",
+                                   Ref::chow_1988,
+                                   chow_ab};
+constexpr Formula block_peak{"storm.block_peak_intensity",
+                             "Peak intensity of the design storm",
+                             "i = dD_max / dt",
+                             "i = {dD} / ({dt} / 60)",
+                             Ref::chow_1988,
+                             chow_ab};
+
+/// An alternating-block storm of `n` blocks of `step_min` over `duration_min` from `idf`.
+struct BlockStorm {
+    const Idf &idf;
+    double duration_min;
+    double step_min;
+    double return_period_yr;
+    std::size_t n;
+
+    /// Duration of the first k blocks (exactly the storm duration for k = n).
+    [[nodiscard]] double duration_of(std::size_t k) const {
+        return k == n ? duration_min : static_cast<double>(k) * step_min;
+    }
+};
+
+/// Cumulative depths D_k = i(k dt) k dt for k = 0..n, mm; throws when one falls.
+std::vector<double> cumulative_depths(const BlockStorm &b, const std::string &where) {
+    std::vector<double> cumulative(b.n + 1, 0.0);
+    for (std::size_t k = 1; k <= b.n; ++k) {
+        const double t_min = b.duration_of(k);
+        cumulative[k] =
+            b.idf.intensity_mm_per_h(t_min, b.return_period_yr) * units::min_to_h(t_min);
+        if (cumulative[k] < cumulative[k - 1]) {
+            throw_input_error(where,
+                              fmt::format("the IDF depth falls from {} mm at {} min to {} mm at "
+                                          "{} min, so a block would be negative",
+                                          sig(cumulative[k - 1]), sig(b.duration_of(k - 1)),
+                                          sig(cumulative[k]), sig(t_min)),
+                              "an IDF whose depth i t grows with the duration");
+        }
+    }
+    return cumulative;
+}
+
+/// Where each depth increment goes: increments ranked by size (0: the largest; ties keep the
+/// order of duration), the largest at the centre, then right, left, right, ...
+struct BlockOrder {
+    std::vector<std::size_t> by_size;  ///< increment index by rank
+    std::vector<std::size_t> position; ///< block position of increment k
+    std::size_t centre = 0;
+    bool already_descending = true;
+};
+
+BlockOrder block_order(const std::vector<double> &increments) {
+    const std::size_t n = increments.size();
+    BlockOrder o;
+    o.by_size.resize(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        o.by_size[k] = k;
+    }
+    std::stable_sort(o.by_size.begin(), o.by_size.end(),
+                     [&](std::size_t a, std::size_t b) { return increments[a] > increments[b]; });
+    o.already_descending = std::is_sorted(increments.begin(), increments.end(), std::greater<>());
+    o.centre = (n - 1) / 2;
+    std::vector<std::size_t> position_of_rank{o.centre};
+    position_of_rank.reserve(n);
+    std::size_t right = o.centre + 1;
+    std::size_t left = o.centre; // the next left position is left - 1
+    bool go_right = true;
+    for (std::size_t r = 1; r < n; ++r) {
+        position_of_rank.push_back(((go_right && right < n) || left == 0) ? right++ : --left);
+        go_right = !go_right;
+    }
+    o.position.resize(n);
+    for (std::size_t r = 0; r < n; ++r) {
+        o.position[o.by_size[r]] = position_of_rank[r];
+    }
+    return o;
+}
+
+/// The intensity lines of i(k dt) of a block storm, each added once.
+class BlockIntensities {
+  public:
+    BlockIntensities(const BlockStorm &b, units::System s, CalcLines &lines)
+        : storm_(b), sheet_(s), lines_(lines), mm_per_h_(b.n + 1, 0.0), shown_(b.n + 1, false) {}
+
+    /// i(k dt) as a quantity in the sheet's unit; adds its lines the first time.
+    Quantity at(std::size_t k, std::string symbol) {
+        if (!shown_[k]) {
+            auto i = storm_.idf.intensity(storm_.duration_of(k), storm_.return_period_yr, sheet_);
+            lines_.append(i.lines);
+            mm_per_h_[k] = i.value;
+            shown_[k] = true;
+        }
+        return detail::intensity_qty(std::move(symbol), mm_per_h_[k], sheet_);
+    }
+
+  private:
+    const BlockStorm &storm_;
+    units::System sheet_;
+    CalcLines &lines_;
+    std::vector<double> mm_per_h_;
+    std::vector<bool> shown_;
+};
+
+/// The lines of the block depths: every block when there are few, else the first ones (the
+/// largest for the usual IDF) and a note for the rest.
+void block_depth_lines(const BlockStorm &b, const std::vector<double> &increments,
+                       const BlockOrder &o, BlockIntensities &intensity, units::System s,
+                       CalcLines &lines) {
+    const std::size_t shown = b.n <= max_block_lines ? b.n : few_block_lines;
+    for (std::size_t k = 1; k <= shown; ++k) {
+        const double t1 = static_cast<double>(o.position[k - 1]) * b.step_min;
+        std::vector<Quantity> inputs{
+            detail::count_qty("k", k), detail::count_qty("n", b.n),
+            qty("t1", t1, Unit::min),  qty("t2", t1 + b.step_min, Unit::min),
+            intensity.at(k, "i"),      qty("t", b.duration_of(k), Unit::min)};
+        const auto block = detail::depth_qty("dD", increments[k - 1], s);
+        if (k == 1) {
+            lines.calc(first_block, std::move(inputs), block);
+            continue;
+        }
+        inputs.push_back(intensity.at(k - 1, "i_prev"));
+        inputs.push_back(qty("t_prev", b.duration_of(k - 1), Unit::min));
+        lines.calc(later_block, std::move(inputs), block);
+    }
+    if (shown < b.n) {
+        lines.note(other_blocks,
+                   {detail::count_qty("first", shown + 1), detail::count_qty("n", b.n),
+                    detail::depth_qty("dD_min", increments[o.by_size.back()], s)});
+    }
+}
+
+} // namespace
 
 WithLines<Hyetograph> alternating_block_hyetograph(const Idf &idf, double duration_min,
                                                    double step_min, double return_period_yr,
@@ -216,127 +429,39 @@ WithLines<Hyetograph> alternating_block_hyetograph(const Idf &idf, double durati
                           fmt::format("storm duration {} min is not positive", sig(duration_min)),
                           "a duration > 0 min");
     }
-    const std::size_t n = whole_steps(duration_min, step_min, where, "storm duration");
-    auto duration_of = [&](std::size_t k) {
-        return k == n ? duration_min : static_cast<double>(k) * step_min;
-    };
-    // Cumulative depths D_k = i(k dt) k dt, mm.
-    std::vector<double> cumulative(n + 1, 0.0);
-    for (std::size_t k = 1; k <= n; ++k) {
-        const double t_min = duration_of(k);
-        cumulative[k] = idf.intensity_mm_per_h(t_min, return_period_yr) * units::min_to_h(t_min);
-        if (cumulative[k] < cumulative[k - 1]) {
-            throw_input_error(where,
-                              fmt::format("the IDF depth falls from {} mm at {} min to {} mm at "
-                                          "{} min, so a block would be negative",
-                                          sig(cumulative[k - 1]), sig(duration_of(k - 1)),
-                                          sig(cumulative[k]), sig(t_min)),
-                              "an IDF whose depth i t grows with the duration");
-        }
-    }
-    // Increment k (by duration, from 0) and its rank by size (0: the largest; ties keep the
-    // order of duration).
-    std::vector<double> increments(n);
-    for (std::size_t k = 0; k < n; ++k) {
+    const BlockStorm b{idf, duration_min, step_min, return_period_yr,
+                       whole_steps(duration_min, step_min, where, "storm duration")};
+    const auto cumulative = cumulative_depths(b, where);
+    std::vector<double> increments(b.n);
+    for (std::size_t k = 0; k < b.n; ++k) {
         increments[k] = cumulative[k + 1] - cumulative[k];
     }
-    std::vector<std::size_t> by_size(n);
-    for (std::size_t k = 0; k < n; ++k) {
-        by_size[k] = k;
-    }
-    std::stable_sort(by_size.begin(), by_size.end(),
-                     [&](std::size_t a, std::size_t b) { return increments[a] > increments[b]; });
-    const bool already_descending =
-        std::is_sorted(increments.begin(), increments.end(), std::greater<>());
-    // Block positions by rank: centre, then right, left, right, ...
-    const std::size_t centre = (n - 1) / 2;
-    std::vector<std::size_t> position_of_rank{centre};
-    position_of_rank.reserve(n);
-    std::size_t right = centre + 1;
-    std::size_t left = centre; // the next left position is left - 1
-    bool go_right = true;
-    for (std::size_t r = 1; r < n; ++r) {
-        position_of_rank.push_back(((go_right && right < n) || left == 0) ? right++ : --left);
-        go_right = !go_right;
-    }
-    std::vector<std::size_t> position(n); // of increment k
-    for (std::size_t r = 0; r < n; ++r) {
-        position[by_size[r]] = position_of_rank[r];
-    }
+    const auto order = block_order(increments);
     WithLines<Hyetograph> out{{}, {}};
     out.value.step_s = units::min_to_s(step_min);
-    out.value.depth_mm.assign(n, 0.0);
-    for (std::size_t k = 0; k < n; ++k) {
-        out.value.depth_mm[position[k]] = increments[k];
+    out.value.depth_mm.assign(b.n, 0.0);
+    for (std::size_t k = 0; k < b.n; ++k) {
+        out.value.depth_mm[order.position[k]] = increments[k];
     }
 
     auto &lines = out.lines;
-    const auto unit = depth_unit(sheet_units);
-    lines.note("Design storm",
-               fmt::format("alternating block, {} yr, duration Td = {} min in {} blocks of "
-                           "dt = {} min: block depths from the IDF, the largest in the middle of "
-                           "the storm (block {} of {}, {} to {} min), the others in descending "
-                           "order alternately right and left of it",
-                           sig(return_period_yr), sig(duration_min), n, sig(step_min), centre + 1,
-                           n, sig(static_cast<double>(centre) * step_min),
-                           sig(static_cast<double>(centre + 1) * step_min)),
-               chow_ab);
-    // The intensity lines of i(k dt), each shown once.
-    std::vector<double> i_sheet(n + 1, 0.0);
-    std::vector<bool> shown(n + 1, false);
-    auto intensity_at = [&](std::size_t k) {
-        if (!shown[k]) {
-            auto i = idf.intensity(duration_of(k), return_period_yr, sheet_units);
-            lines.append(i.lines);
-            i_sheet[k] = i.value;
-            shown[k] = true;
-        }
-        return mm_h_to_sheet(i_sheet[k], sheet_units);
-    };
-    // Every block when there are few; else the first ones (the largest for the usual IDF).
-    const std::size_t block_lines = n <= max_block_lines ? n : few_block_lines;
-    for (std::size_t k = 1; k <= block_lines; ++k) {
-        const double t1 = static_cast<double>(position[k - 1]) * step_min;
-        const std::string label = fmt::format("Block depth {} of {}, placed {} to {} min", k, n,
-                                              sig(t1), sig(t1 + step_min));
-        const double now = intensity_at(k);
-        if (k == 1) {
-            lines.calc(label, "dD_1 = i(dt) dt",
-                       fmt::format("dD_1 = {} x {} / 60", sig(now), sig(duration_of(1))),
-                       mm_to_sheet(increments[0], sheet_units), unit, chow_ab);
-            continue;
-        }
-        const double before = intensity_at(k - 1);
-        lines.calc(label, "dD_k = i(k dt) k dt - i((k-1) dt) (k-1) dt",
-                   fmt::format("dD_{} = {} x {} / 60 - {} x {} / 60", k, sig(now),
-                               sig(duration_of(k)), sig(before), sig(duration_of(k - 1))),
-                   mm_to_sheet(increments[k - 1], sheet_units), unit, chow_ab);
+    const auto dt = qty("dt", step_min, Unit::min);
+    lines.note(block_storm_note,
+               {detail::return_period_qty(return_period_yr), qty("Td", duration_min, Unit::min),
+                detail::count_qty("n", b.n), dt, detail::count_qty("centre", order.centre + 1),
+                qty("c0", static_cast<double>(order.centre) * step_min, Unit::min),
+                qty("c1", static_cast<double>(order.centre + 1) * step_min, Unit::min)});
+    BlockIntensities intensity(b, sheet_units, lines);
+    block_depth_lines(b, increments, order, intensity, sheet_units, lines);
+    lines.calc(block_total, {intensity.at(b.n, "i"), qty("Td", duration_min, Unit::min)},
+               detail::depth_qty("D", cumulative[b.n], sheet_units));
+    if (!order.already_descending) {
+        lines.note(blocks_reordered,
+                   {detail::depth_qty("dD_max", increments[order.by_size.front()], sheet_units)});
     }
-    if (block_lines < n) {
-        lines.note("Other blocks",
-                   fmt::format("blocks {} to {} likewise, dD_k = i(k dt) k dt - i((k-1) dt) "
-                               "(k-1) dt, the smallest {} {}; all are drawn on the hyetograph",
-                               block_lines + 1, n,
-                               sig(mm_to_sheet(increments[by_size.back()], sheet_units)), unit),
-                   chow_ab);
-    }
-    const double i_total = intensity_at(n);
-    lines.calc("Storm depth", "D = i(Td) Td",
-               fmt::format("D = {} x {} / 60", sig(i_total), sig(duration_min)),
-               mm_to_sheet(cumulative[n], sheet_units), unit, chow_ab);
-    if (!already_descending) {
-        lines.note("Blocks reordered",
-                   fmt::format("the depth increments of the IDF do not decrease steadily with "
-                               "duration; they are sorted, largest first ({} {}), before being "
-                               "placed",
-                               sig(mm_to_sheet(increments[by_size.front()], sheet_units)), unit),
-                   chow_ab);
-    }
-    const double peak_mm = increments[by_size.front()];
-    lines.calc(
-        "Peak intensity of the design storm", "i = dD_max / dt",
-        fmt::format("i = {} / ({} / 60)", sig(mm_to_sheet(peak_mm, sheet_units)), sig(step_min)),
-        mm_h_to_sheet(peak_mm / units::min_to_h(step_min), sheet_units), unit + "/h", chow_ab);
+    const double peak_mm = increments[order.by_size.front()];
+    lines.calc(block_peak, {detail::depth_qty("dD", peak_mm, sheet_units), dt},
+               detail::intensity_qty("i", peak_mm / units::min_to_h(step_min), sheet_units));
     return out;
 }
 

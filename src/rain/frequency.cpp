@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/frequency.hpp"
 
+#include "sheet_units.hpp"
+
 #include "catchpeak/core/error.hpp"
 
 #include <fmt/format.h>
@@ -14,9 +16,68 @@ namespace catchpeak::rain {
 
 namespace {
 
-constexpr const char *chow = "Chow, Maidment & Mays (1988), Applied Hydrology";
-constexpr const char *hosking = "Hosking (1990); Hosking & Wallis (1997)";
-constexpr const char *record_rule = "common practice, no source";
+// Record length (common practice, no source).
+constexpr Formula short_record{"ams.short_record",
+                               "Short rainfall record",
+                               "",
+                               "{n} years of annual maxima, fewer than {n_short}; the {T} {T:u} "
+                               "depth is uncertain",
+                               Ref::common_practice,
+                               ""};
+constexpr Formula beyond_record{"ams.beyond_record",
+                                "Return period beyond the record",
+                                "",
+                                "return period {T} {T:u} is more than twice the record length "
+                                "({n} years); the depth is an extrapolation",
+                                Ref::common_practice,
+                                ""};
+
+/// Puts the negative numbers that the numbers template of `line` substitutes in parentheses
+/// ("(-0.1640)"), so that a substituted value never reads as "+ -0.1640" or "2^--0.1000":
+/// every "{X}" whose quantity X is a negative number becomes "({X})".
+CalcLine &negatives_in_parentheses(CalcLine &line) {
+    const auto negative = [&line](std::string_view symbol) {
+        const auto is = [symbol](const Quantity &q) {
+            return q.symbol == symbol && !q.text && q.value < 0.0;
+        };
+        return std::any_of(line.inputs.begin(), line.inputs.end(), is) || is(line.result);
+    };
+    const std::string_view in = line.pattern.numbers;
+    std::string out;
+    out.reserve(in.size() + 8);
+    std::size_t i = 0;
+    while (i < in.size()) {
+        const std::size_t open = in.find('{', i);
+        const std::size_t close = open == std::string_view::npos ? open : in.find('}', open);
+        if (close == std::string_view::npos) {
+            out += in.substr(i);
+            break;
+        }
+        out += in.substr(i, open - i);
+        if (in.substr(open, 2) == "{{") { // an escaped brace
+            out += "{{";
+            i = open + 2;
+            continue;
+        }
+        const std::string_view placeholder = in.substr(open, close + 1 - open);
+        if (negative(placeholder.substr(1, placeholder.size() - 2))) {
+            out += '(';
+            out += placeholder;
+            out += ')';
+        } else {
+            out += placeholder;
+        }
+        i = close + 1;
+    }
+    line.pattern.numbers = std::move(out);
+    return line;
+}
+
+/// A calculation line whose negative numbers are shown in parentheses.
+CalcLine &calc_signed(CalcLines &lines, const Formula &f, std::vector<Quantity> inputs,
+                      Quantity result) {
+    return negatives_in_parentheses(lines.calc(f, std::move(inputs), std::move(result)));
+}
 
 void check_return_period(double t_yr, const char *method) {
     if (!std::isfinite(t_yr) || !(t_yr > 1.0)) {
@@ -32,9 +93,9 @@ std::vector<double> prepared_series(std::span<const double> mm, double t_yr, con
     check_return_period(t_yr, method);
     const auto where = fmt::format("{} frequency analysis: annual maximum series", method);
     if (mm.size() < min_record_years) {
-        throw_input_error(
-            where, fmt::format("{} values", mm.size()),
-            fmt::format("at least {} years of annual maxima ({})", min_record_years, record_rule));
+        throw_input_error(where, fmt::format("{} values", mm.size()),
+                          fmt::format("at least {} years of annual maxima ({})", min_record_years,
+                                      short_form(Ref::common_practice)));
     }
     std::vector<double> v;
     v.reserve(mm.size());
@@ -54,31 +115,36 @@ std::vector<double> prepared_series(std::span<const double> mm, double t_yr, con
     }
     const double n = static_cast<double>(v.size());
     if (v.size() < short_record_years) {
-        lines.warn("Short rainfall record",
-                   fmt::format("{} years of annual maxima, fewer than {}; the {} yr depth is "
-                               "uncertain",
-                               v.size(), short_record_years, sig(t_yr)),
-                   record_rule);
+        lines.warn(short_record, {detail::count_qty("n", v.size()),
+                                  detail::count_qty("n_short", short_record_years),
+                                  detail::return_period_qty(t_yr)});
     }
     if (t_yr > 2.0 * n) {
-        lines.warn("Return period beyond the record",
-                   fmt::format("return period {} yr is more than twice the record length ({} "
-                               "years); the depth is an extrapolation",
-                               sig(t_yr), v.size()),
-                   record_rule);
+        lines.warn(beyond_record,
+                   {detail::return_period_qty(t_yr), detail::count_qty("n", v.size())});
     }
     return v;
 }
 
-std::string depth_unit(units::System s) { return s == units::System::us_customary ? "in" : "mm"; }
-
-/// A number for the numbers column, in parentheses when negative ("(-0.1640)"), so that a
-/// substituted value never reads as "+ -0.1640" or "2^--0.1000".
-std::string num(double v) { return v < 0.0 ? fmt::format("({})", sig(v)) : sig(v); }
-
-double sheet_to_mm(double v, units::System s) {
-    return s == units::System::us_customary ? units::in_to_mm(v) : v;
-}
+// Gumbel (EV1) by the method of moments, Chow, Maidment & Mays (1988).
+constexpr Formula series_mean{"ams.mean",          "Mean of the annual maxima",
+                              "xbar = sum(x) / n", "xbar = {sum} / {n}",
+                              Ref::project_input,  ": annual maximum series"};
+constexpr Formula series_sd{"ams.standard_deviation",
+                            "Standard deviation of the annual maxima",
+                            "s = sqrt(sum((x - xbar)^2) / (n - 1))",
+                            "s = sqrt({ss} / ({n} - 1))",
+                            Ref::project_input,
+                            ": annual maximum series"};
+constexpr Formula gumbel_factor{"ams.gumbel_frequency_factor",
+                                "Gumbel frequency factor",
+                                "K_T = -(sqrt(6)/pi) (0.5772 + ln(ln(T/(T - 1))))",
+                                "K_T = -(sqrt(6)/pi) x (0.5772 + ln(ln({T}/({T} - 1))))",
+                                Ref::chow_1988,
+                                ", Applied Hydrology, eq. 12.3.8"};
+constexpr Formula gumbel_design_depth{"ams.gumbel_depth",   "Design depth, Gumbel, {T} {T:u}",
+                                      "x_T = xbar + K_T s", "x_T = {xbar} + {K_T} x {s}",
+                                      Ref::chow_1988,       ", Applied Hydrology, sec. 12.3"};
 
 } // namespace
 
@@ -93,7 +159,7 @@ WithLines<double> gumbel_depth(std::span<const double> annual_max_mm, double ret
     WithLines<double> out{0.0, {}};
     const auto v =
         prepared_series(annual_max_mm, return_period_yr, "Gumbel", sheet_units, out.lines);
-    const auto unit = depth_unit(sheet_units);
+    const Unit unit = detail::depth_unit(sheet_units);
     const double n = static_cast<double>(v.size());
     double sum = 0.0;
     for (double x : v) {
@@ -105,24 +171,19 @@ WithLines<double> gumbel_depth(std::span<const double> annual_max_mm, double ret
         ss += (x - mean) * (x - mean);
     }
     const double sd = std::sqrt(ss / (n - 1.0));
-    out.lines.calc("Mean of the annual maxima", "xbar = sum(x) / n",
-                   fmt::format("xbar = {} / {}", num(sum), v.size()), mean, unit,
-                   "project input: annual maximum series");
-    out.lines.calc("Standard deviation of the annual maxima",
-                   "s = sqrt(sum((x - xbar)^2) / (n - 1))",
-                   fmt::format("s = sqrt({} / ({} - 1))", num(ss), v.size()), sd, unit,
-                   "project input: annual maximum series");
+    calc_signed(out.lines, series_mean, {qty("sum", sum, unit), detail::count_qty("n", v.size())},
+                qty("xbar", mean, unit));
+    calc_signed(out.lines, series_sd, {qty("ss", ss, unit), detail::count_qty("n", v.size())},
+                qty("s", sd, unit));
     const double t = return_period_yr;
     const double k = gumbel_frequency_factor(t);
-    out.lines.calc(
-        "Gumbel frequency factor", "K_T = -(sqrt(6)/pi) (0.5772 + ln(ln(T/(T - 1))))",
-        fmt::format("K_T = -(sqrt(6)/pi) x (0.5772 + ln(ln({}/({} - 1))))", num(t), num(t)), k, "",
-        fmt::format("{}, eq. 12.3.8", chow));
+    calc_signed(out.lines, gumbel_factor, {detail::return_period_qty(t)}, qty("K_T", k));
     const double x = mean + k * sd;
-    out.lines.calc(fmt::format("Design depth, Gumbel, {} yr", num(t)), "x_T = xbar + K_T s",
-                   fmt::format("x_T = {} + {} x {}", num(mean), num(k), num(sd)), x, unit,
-                   fmt::format("{}, sec. 12.3", chow));
-    out.value = sheet_to_mm(x, sheet_units);
+    calc_signed(
+        out.lines, gumbel_design_depth,
+        {detail::return_period_qty(t), qty("xbar", mean, unit), qty("K_T", k), qty("s", sd, unit)},
+        qty("x_T", x, unit));
+    out.value = detail::sheet_to_mm(x, sheet_units);
     return out;
 }
 
@@ -205,105 +266,207 @@ GevSteps gev_steps(const SampleLMoments &m) {
 
 GevParameters gev_from_l_moments(const SampleLMoments &m) { return gev_steps(m).p; }
 
+namespace {
+
+// GEV by L-moments: Hosking (1990); Hosking & Wallis (1997); the approximation of k from
+// Hosking, Wallis & Wood (1985). x_(j) are the values sorted ascending.
+constexpr std::string_view and_hw1997 = "; Hosking & Wallis (1997)";
+constexpr Formula pwm_b0{
+    "ams.pwm_b0",           "Probability-weighted moment b0",
+    "b0 = (1/n) sum x_(j)", "b0 = (1/{n}) x sum of the {n} values",
+    Ref::hosking_1990,      "; Hosking & Wallis (1997); values x_(j) sorted ascending"};
+constexpr Formula pwm_b1{"ams.pwm_b1",
+                         "Probability-weighted moment b1",
+                         "b1 = (1/n) sum (j-1)/(n-1) x_(j)",
+                         "b1 = (1/{n}) x sum (j-1)/{n-1} x_(j)",
+                         Ref::hosking_1990,
+                         "; Hosking & Wallis (1997); values x_(j) sorted ascending"};
+constexpr Formula pwm_b2{"ams.pwm_b2",
+                         "Probability-weighted moment b2",
+                         "b2 = (1/n) sum (j-1)(j-2)/((n-1)(n-2)) x_(j)",
+                         "b2 = (1/{n}) x sum (j-1)(j-2)/({n-1} x {n-2}) x_(j)",
+                         Ref::hosking_1990,
+                         "; Hosking & Wallis (1997); values x_(j) sorted ascending"};
+constexpr Formula l_moment_1{"ams.l1",    "L-moment l1",     "l1 = b0",
+                             "l1 = {b0}", Ref::hosking_1990, and_hw1997};
+constexpr Formula l_moment_2{"ams.l2",          "L-moment l2",
+                             "l2 = 2 b1 - b0",  "l2 = 2 x {b1} - {b0}",
+                             Ref::hosking_1990, and_hw1997};
+constexpr Formula l_moment_3{
+    "ams.l3",          "L-moment l3", "l3 = 6 b2 - 6 b1 + b0", "l3 = 6 x {b2} - 6 x {b1} + {b0}",
+    Ref::hosking_1990, and_hw1997};
+constexpr Formula l_skewness{"ams.tau3",           "L-skewness",      "tau3 = l3 / l2",
+                             "tau3 = {l3} / {l2}", Ref::hosking_1990, and_hw1997};
+constexpr Formula gev_c{"ams.gev_c",
+                        "GEV shape, auxiliary c",
+                        "c = 2/(3 + tau3) - ln 2 / ln 3",
+                        "c = 2/(3 + {tau3}) - ln 2 / ln 3",
+                        Ref::hosking_wallis_wood_1985,
+                        and_hw1997};
+constexpr Formula gev_k{"ams.gev_k",
+                        "GEV shape parameter",
+                        "k = 7.8590 c + 2.9554 c^2",
+                        "k = 7.8590 x {c} + 2.9554 x {c}^2",
+                        Ref::hosking_wallis_wood_1985,
+                        and_hw1997};
+constexpr Formula gev_k_range{"ams.gev_k_outside_range",
+                              "GEV shape approximation outside its range",
+                              "",
+                              "L-skewness tau3 = {tau3} lies outside -0.5 to 0.5, where the "
+                              "approximation of k is accurate to about 9e-4",
+                              Ref::hosking_wallis_wood_1985,
+                              "; Hosking & Wallis (1997) (range: value from memory, not checked "
+                              "against the source)"};
+constexpr Formula gev_k_zero{"ams.gev_k_zero",
+                             "GEV shape taken as zero",
+                             "",
+                             "|k| < 1e-8: the Gumbel limit alpha = l2 / ln 2, xi = l1 - 0.5772 "
+                             "alpha is used",
+                             Ref::hosking_1990,
+                             and_hw1997};
+constexpr Formula gev_scale_k_zero{"ams.gev_scale_k_zero", "GEV scale parameter",
+                                   "alpha = l2 / ln 2",    "alpha = {l2} / ln 2",
+                                   Ref::hosking_1990,      and_hw1997};
+constexpr Formula gev_location_k_zero{"ams.gev_location_k_zero", "GEV location parameter",
+                                      "xi = l1 - 0.5772 alpha",  "xi = {l1} - 0.5772 x {alpha}",
+                                      Ref::hosking_1990,         and_hw1997};
+constexpr Formula gev_gamma{"ams.gev_gamma",      "Gamma function",  "G = Gamma(1 + k)",
+                            "G = Gamma(1 + {k})", Ref::hosking_1990, and_hw1997};
+constexpr Formula gev_scale{"ams.gev_scale",
+                            "GEV scale parameter",
+                            "alpha = l2 k / ((1 - 2^-k) G)",
+                            "alpha = {l2} x {k} / ((1 - 2^-{k}) x {G})",
+                            Ref::hosking_1990,
+                            and_hw1997};
+constexpr Formula gev_location{"ams.gev_location",
+                               "GEV location parameter",
+                               "xi = l1 - alpha (1 - G) / k",
+                               "xi = {l1} - {alpha} x (1 - {G}) / {k}",
+                               Ref::hosking_1990,
+                               and_hw1997};
+constexpr Formula non_exceedance{"ams.non_exceedance",
+                                 "Non-exceedance probability",
+                                 "F = 1 - 1/T",
+                                 "F = 1 - 1/{T}",
+                                 Ref::none,
+                                 "definition of the return period"};
+constexpr Formula gev_depth_k_zero{"ams.gev_depth_k_zero",
+                                   "Design depth, GEV, {T} {T:u}",
+                                   "x_T = xi - alpha ln(-ln F)",
+                                   "x_T = {xi} - {alpha} x ln(-ln {F})",
+                                   Ref::hosking_1990,
+                                   and_hw1997};
+constexpr Formula gev_design_depth{"ams.gev_depth",
+                                   "Design depth, GEV, {T} {T:u}",
+                                   "x_T = xi + alpha (1 - (-ln F)^k) / k",
+                                   "x_T = {xi} + {alpha} x (1 - (-ln {F})^{k}) / {k}",
+                                   Ref::hosking_1990,
+                                   and_hw1997};
+
+/// The unbiased probability-weighted moments of the sorted series (sheet units).
+struct Pwm {
+    double b0 = 0.0;
+    double b1 = 0.0;
+    double b2 = 0.0;
+};
+
+Pwm probability_weighted_moments(const std::vector<double> &v, Unit unit, CalcLines &lines) {
+    const double n = static_cast<double>(v.size());
+    Pwm b;
+    for (std::size_t i = 0; i < v.size(); ++i) {
+        const double j = static_cast<double>(i + 1);
+        b.b0 += v[i];
+        b.b1 += (j - 1.0) / (n - 1.0) * v[i];
+        b.b2 += (j - 1.0) * (j - 2.0) / ((n - 1.0) * (n - 2.0)) * v[i];
+    }
+    b.b0 /= n;
+    b.b1 /= n;
+    b.b2 /= n;
+    const auto size = detail::count_qty("n", v.size());
+    calc_signed(lines, pwm_b0, {size}, qty("b0", b.b0, unit));
+    calc_signed(lines, pwm_b1, {size, detail::count_qty("n-1", v.size() - 1)},
+                qty("b1", b.b1, unit));
+    calc_signed(
+        lines, pwm_b2,
+        {size, detail::count_qty("n-1", v.size() - 1), detail::count_qty("n-2", v.size() - 2)},
+        qty("b2", b.b2, unit));
+    return b;
+}
+
+SampleLMoments l_moments_of(const Pwm &b, Unit unit, CalcLines &lines) {
+    SampleLMoments m;
+    m.l1 = b.b0;
+    m.l2 = 2.0 * b.b1 - b.b0;
+    const double l3 = 6.0 * b.b2 - 6.0 * b.b1 + b.b0;
+    m.tau3 = l3 / m.l2;
+    const auto b0 = qty("b0", b.b0, unit);
+    const auto b1 = qty("b1", b.b1, unit);
+    calc_signed(lines, l_moment_1, {b0}, qty("l1", m.l1, unit));
+    calc_signed(lines, l_moment_2, {b1, b0}, qty("l2", m.l2, unit));
+    calc_signed(lines, l_moment_3, {qty("b2", b.b2, unit), b1, b0}, qty("l3", l3, unit));
+    calc_signed(lines, l_skewness, {qty("l3", l3, unit), qty("l2", m.l2, unit)},
+                qty("tau3", m.tau3));
+    return m;
+}
+
+/// The shape k from tau3, then the scale and location (lines in the sheet's unit).
+GevSteps gev_parameters(const SampleLMoments &m, Unit unit, CalcLines &lines) {
+    const auto s = gev_steps(m);
+    calc_signed(lines, gev_c, {qty("tau3", m.tau3)}, qty("c", s.c));
+    const double k_raw = 7.8590 * s.c + 2.9554 * s.c * s.c;
+    calc_signed(lines, gev_k, {qty("c", s.c)}, qty("k", k_raw));
+    if (m.tau3 < -0.5 || m.tau3 > 0.5) {
+        lines.warn(gev_k_range, {qty("tau3", m.tau3)});
+    }
+    const auto &p = s.p;
+    const auto l1 = qty("l1", m.l1, unit);
+    const auto l2 = qty("l2", m.l2, unit);
+    const auto alpha = qty("alpha", p.scale_mm, unit);
+    const auto xi = qty("xi", p.location_mm, unit);
+    if (p.shape == 0.0) {
+        lines.note(gev_k_zero);
+        calc_signed(lines, gev_scale_k_zero, {l2}, alpha);
+        calc_signed(lines, gev_location_k_zero, {l1, alpha}, xi);
+        return s;
+    }
+    const auto k = qty("k", p.shape);
+    const auto g = qty("G", s.gamma);
+    calc_signed(lines, gev_gamma, {k}, g);
+    calc_signed(lines, gev_scale, {l2, k, g}, alpha);
+    calc_signed(lines, gev_location, {l1, alpha, g, k}, xi);
+    return s;
+}
+
+/// x_T = x(1 - 1/T), in the sheet's unit.
+double gev_design_value(const GevParameters &p, double t, Unit unit, CalcLines &lines) {
+    const double f = 1.0 - 1.0 / t;
+    const auto f_q = qty("F", f);
+    calc_signed(lines, non_exceedance, {detail::return_period_qty(t)}, f_q);
+    const double x = gev_quantile(p, f);
+    const auto xi = qty("xi", p.location_mm, unit);
+    const auto alpha = qty("alpha", p.scale_mm, unit);
+    const auto x_t = qty("x_T", x, unit);
+    if (p.shape == 0.0) {
+        calc_signed(lines, gev_depth_k_zero, {detail::return_period_qty(t), xi, alpha, f_q}, x_t);
+    } else {
+        calc_signed(lines, gev_design_depth,
+                    {detail::return_period_qty(t), xi, alpha, f_q, qty("k", p.shape)}, x_t);
+    }
+    return x;
+}
+
+} // namespace
+
 WithLines<double> gev_depth(std::span<const double> annual_max_mm, double return_period_yr,
                             units::System sheet_units) {
     WithLines<double> out{0.0, {}};
     const auto v = prepared_series(annual_max_mm, return_period_yr, "GEV", sheet_units, out.lines);
-    const auto unit = depth_unit(sheet_units);
-    const double n = static_cast<double>(v.size());
-    double b0 = 0.0;
-    double b1 = 0.0;
-    double b2 = 0.0;
-    for (std::size_t i = 0; i < v.size(); ++i) {
-        const double j = static_cast<double>(i + 1);
-        b0 += v[i];
-        b1 += (j - 1.0) / (n - 1.0) * v[i];
-        b2 += (j - 1.0) * (j - 2.0) / ((n - 1.0) * (n - 2.0)) * v[i];
-    }
-    b0 /= n;
-    b1 /= n;
-    b2 /= n;
-    const auto pwm_source = fmt::format("{}; values x_(j) sorted ascending", hosking);
-    out.lines.calc("Probability-weighted moment b0", "b0 = (1/n) sum x_(j)",
-                   fmt::format("b0 = (1/{}) x sum of the {} values", v.size(), v.size()), b0, unit,
-                   pwm_source);
-    out.lines.calc("Probability-weighted moment b1", "b1 = (1/n) sum (j-1)/(n-1) x_(j)",
-                   fmt::format("b1 = (1/{}) x sum (j-1)/{} x_(j)", v.size(), v.size() - 1), b1,
-                   unit, pwm_source);
-    out.lines.calc("Probability-weighted moment b2", "b2 = (1/n) sum (j-1)(j-2)/((n-1)(n-2)) x_(j)",
-                   fmt::format("b2 = (1/{}) x sum (j-1)(j-2)/({} x {}) x_(j)", v.size(),
-                               v.size() - 1, v.size() - 2),
-                   b2, unit, pwm_source);
-    SampleLMoments m;
-    m.l1 = b0;
-    m.l2 = 2.0 * b1 - b0;
-    const double l3 = 6.0 * b2 - 6.0 * b1 + b0;
-    m.tau3 = l3 / m.l2;
-    out.lines.calc("L-moment l1", "l1 = b0", fmt::format("l1 = {}", num(b0)), m.l1, unit, hosking);
-    out.lines.calc("L-moment l2", "l2 = 2 b1 - b0",
-                   fmt::format("l2 = 2 x {} - {}", num(b1), num(b0)), m.l2, unit, hosking);
-    out.lines.calc("L-moment l3", "l3 = 6 b2 - 6 b1 + b0",
-                   fmt::format("l3 = 6 x {} - 6 x {} + {}", num(b2), num(b1), num(b0)), l3, unit,
-                   hosking);
-    out.lines.calc("L-skewness", "tau3 = l3 / l2",
-                   fmt::format("tau3 = {} / {}", num(l3), num(m.l2)), m.tau3, "", hosking);
-    const auto s = gev_steps(m);
-    const auto k_source = "Hosking, Wallis & Wood (1985); Hosking & Wallis (1997)";
-    out.lines.calc("GEV shape, auxiliary c", "c = 2/(3 + tau3) - ln 2 / ln 3",
-                   fmt::format("c = 2/(3 + {}) - ln 2 / ln 3", num(m.tau3)), s.c, "", k_source);
-    const double k_raw = 7.8590 * s.c + 2.9554 * s.c * s.c;
-    out.lines.calc("GEV shape parameter", "k = 7.8590 c + 2.9554 c^2",
-                   fmt::format("k = 7.8590 x {} + 2.9554 x {}^2", num(s.c), num(s.c)), k_raw, "",
-                   k_source);
-    if (m.tau3 < -0.5 || m.tau3 > 0.5) {
-        out.lines.warn(
-            "GEV shape approximation outside its range",
-            fmt::format("L-skewness tau3 = {} lies outside -0.5 to 0.5, where the "
-                        "approximation of k is accurate to about 9e-4",
-                        sig(m.tau3)),
-            fmt::format("{} (range: value from memory, not checked against the source)", k_source));
-    }
-    const double t = return_period_yr;
-    const double f = 1.0 - 1.0 / t;
-    const auto &p = s.p;
-    if (p.shape == 0.0) {
-        out.lines.note("GEV shape taken as zero",
-                       "|k| < 1e-8: the Gumbel limit alpha = l2 / ln 2, xi = l1 - 0.5772 alpha "
-                       "is used",
-                       hosking);
-        out.lines.calc("GEV scale parameter", "alpha = l2 / ln 2",
-                       fmt::format("alpha = {} / ln 2", num(m.l2)), p.scale_mm, unit, hosking);
-        out.lines.calc("GEV location parameter", "xi = l1 - 0.5772 alpha",
-                       fmt::format("xi = {} - 0.5772 x {}", num(m.l1), num(p.scale_mm)),
-                       p.location_mm, unit, hosking);
-    } else {
-        out.lines.calc("Gamma function", "G = Gamma(1 + k)",
-                       fmt::format("G = Gamma(1 + {})", num(p.shape)), s.gamma, "", hosking);
-        out.lines.calc("GEV scale parameter", "alpha = l2 k / ((1 - 2^-k) G)",
-                       fmt::format("alpha = {} x {} / ((1 - 2^-{}) x {})", num(m.l2), num(p.shape),
-                                   num(p.shape), num(s.gamma)),
-                       p.scale_mm, unit, hosking);
-        out.lines.calc("GEV location parameter", "xi = l1 - alpha (1 - G) / k",
-                       fmt::format("xi = {} - {} x (1 - {}) / {}", num(m.l1), num(p.scale_mm),
-                                   num(s.gamma), num(p.shape)),
-                       p.location_mm, unit, hosking);
-    }
-    out.lines.calc("Non-exceedance probability", "F = 1 - 1/T", fmt::format("F = 1 - 1/{}", num(t)),
-                   f, "", "definition of the return period");
-    const double x = gev_quantile(p, f);
-    if (p.shape == 0.0) {
-        out.lines.calc(
-            fmt::format("Design depth, GEV, {} yr", num(t)), "x_T = xi - alpha ln(-ln F)",
-            fmt::format("x_T = {} - {} x ln(-ln {})", num(p.location_mm), num(p.scale_mm), num(f)),
-            x, unit, hosking);
-    } else {
-        out.lines.calc(fmt::format("Design depth, GEV, {} yr", num(t)),
-                       "x_T = xi + alpha (1 - (-ln F)^k) / k",
-                       fmt::format("x_T = {} + {} x (1 - (-ln {})^{}) / {}", num(p.location_mm),
-                                   num(p.scale_mm), num(f), num(p.shape), num(p.shape)),
-                       x, unit, hosking);
-    }
-    out.value = sheet_to_mm(x, sheet_units);
+    const Unit unit = detail::depth_unit(sheet_units);
+    const auto b = probability_weighted_moments(v, unit, out.lines);
+    const auto m = l_moments_of(b, unit, out.lines);
+    const auto s = gev_parameters(m, unit, out.lines);
+    const double x = gev_design_value(s.p, return_period_yr, unit, out.lines);
+    out.value = detail::sheet_to_mm(x, sheet_units);
     return out;
 }
 

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/rain/idf.hpp"
 
+#include "sheet_units.hpp"
+
 #include "catchpeak/core/error.hpp"
 
 #include <fmt/format.h>
@@ -192,30 +194,67 @@ std::size_t find_rp(const std::vector<double> &have, double rp, const std::strin
     missing_return_period(where, rp, have);
 }
 
-std::string sheet_unit(units::System s) {
-    return s == units::System::us_customary ? "in/h" : "mm/h";
+// The lines of an intensity: t the duration, T the return period, i the intensity.
+constexpr Formula table_value{"idf.table_value",
+                              "Rainfall intensity, {t} {t:u}, {T} {T:u}",
+                              "i = i(t, T) from the table",
+                              "i = {i} (table value at t = {t_table} {t_table:u}, T = {T} {T:u})",
+                              Ref::project_input,
+                              ": IDF table {idf}"};
+constexpr Formula table_interpolated{
+    "idf.table_interpolated",
+    "Rainfall intensity, {t} {t:u}, {T} {T:u}",
+    "i = i1 (t/t1)^(ln(i2/i1) / ln(t2/t1))",
+    "i = {i1} x ({t}/{t1})^(ln({i2}/{i1}) / ln({t2}/{t1}))",
+    Ref::none,
+    "log-log interpolation between {t1} and {t2} {t2:u}; project input: IDF table {idf}"};
+constexpr Formula outside_fitted{"idf.outside_fitted_durations",
+                                 "IDF formula outside its fitted durations",
+                                 "",
+                                 "duration {t} {t:u} lies outside {t_min} to {t_max} {t_max:u}, "
+                                 "the durations the constants of '{idf}' were fitted for; the "
+                                 "intensity is an extrapolation",
+                                 Ref::project_input,
+                                 ": IDF formula {idf}"};
+constexpr Formula formula_value_line{
+    "idf.formula",       "Rainfall intensity, {t} {t:u}, {T} {T:u}",
+    "i = a / (t + b)^c", "i = {a} / ({t} + {b})^{c}",
+    Ref::project_input,  ": IDF formula {idf}"};
+constexpr Formula in_h_to_mm_h{"idf.to_mm_per_h",
+                               "Rainfall intensity in {i:u}",
+                               "i[{i:u}] = 25.4 i[{i_in:u}]",
+                               "i = 25.4 x {i_in}",
+                               Ref::none,
+                               "1 in = 25.4 mm (exact)"};
+constexpr Formula mm_h_to_in_h{"idf.to_in_per_h",
+                               "Rainfall intensity in {i:u}",
+                               "i[{i:u}] = i[{i_mm:u}] / 25.4",
+                               "i = {i_mm} / 25.4",
+                               Ref::none,
+                               "1 in = 25.4 mm (exact)"};
+constexpr Formula depth_line{"idf.depth", "Rainfall depth, {t} {t:u}, {T} {T:u}",
+                             "P = i t",   "P = {i} x {t} / 60",
+                             Ref::none,   "depth from the intensity over the duration"};
+
+Unit unit_of(IntensityUnit u) noexcept {
+    return u == IntensityUnit::in_per_h ? Unit::in_per_h : Unit::mm_per_h;
 }
 
-double mm_h_to_sheet(double v, units::System s) {
-    return s == units::System::us_customary ? units::mm_per_h_to_in_per_h(v) : v;
-}
+Quantity duration_qty(double t_min) { return qty("t", t_min, Unit::min); }
 
 WithLines<double> table_intensity(const IdfTable &t, double dur, double rp, units::System s) {
     const auto where = where_table(t);
     const std::size_t r = find_rp(t.return_periods_yr, rp, where);
     const auto &col = t.intensity_mm_per_h[r];
     const auto &ds = t.durations_min;
-    const std::string source = fmt::format("project input: IDF table {}", t.name);
-    const std::string unit = sheet_unit(s);
     WithLines<double> out{0.0, {}};
-    const std::string label = fmt::format("Rainfall intensity, {} min, {} yr", sig(dur), sig(rp));
     for (std::size_t d = 0; d < ds.size(); ++d) {
         if (same(ds[d], dur)) {
             out.value = col[d];
-            out.lines.calc(label, "i = i(t, T) from the table",
-                           fmt::format("i = {} (table value at t = {} min, T = {} yr)",
-                                       sig(mm_h_to_sheet(col[d], s)), sig(ds[d]), sig(rp)),
-                           mm_h_to_sheet(col[d], s), unit, source);
+            out.lines.calc(table_value,
+                           {duration_qty(dur), detail::return_period_qty(rp),
+                            qty("t_table", ds[d], Unit::min), word("idf", t.name)},
+                           detail::intensity_qty("i", col[d], s));
             return out;
         }
     }
@@ -234,17 +273,17 @@ WithLines<double> table_intensity(const IdfTable &t, double dur, double rp, unit
     const double t2 = ds[hi];
     // Interpolate in the sheet's unit so that the line reproduces exactly; the log-log form is
     // the same in any unit, the SI value is converted back.
-    const double i1 = mm_h_to_sheet(col[lo], s);
-    const double i2 = mm_h_to_sheet(col[hi], s);
+    const double i1 = detail::mm_h_to_sheet(col[lo], s);
+    const double i2 = detail::mm_h_to_sheet(col[hi], s);
     const double n = std::log(i2 / i1) / std::log(t2 / t1);
     const double i = i1 * std::pow(dur / t1, n);
-    out.value = s == units::System::us_customary ? units::in_per_h_to_mm_per_h(i) : i;
-    out.lines.calc(
-        label, "i = i1 (t/t1)^(ln(i2/i1) / ln(t2/t1))",
-        fmt::format("i = {} x ({}/{})^(ln({}/{}) / ln({}/{}))", sig(i1), sig(dur), sig(t1), sig(i2),
-                    sig(i1), sig(t2), sig(t1)),
-        i, unit,
-        fmt::format("log-log interpolation between {} and {} min; {}", sig(t1), sig(t2), source));
+    out.value = detail::us_sheet(s) ? units::in_per_h_to_mm_per_h(i) : i;
+    const Unit iu = detail::intensity_unit(s);
+    out.lines.calc(table_interpolated,
+                   {duration_qty(dur), detail::return_period_qty(rp), qty("t1", t1, Unit::min),
+                    qty("t2", t2, Unit::min), qty("i1", i1, iu), qty("i2", i2, iu),
+                    word("idf", t.name)},
+                   qty("i", i, iu));
     return out;
 }
 
@@ -255,35 +294,27 @@ WithLines<double> formula_intensity(const IdfFormula &f, double dur, double rp, 
         have.push_back(k.return_period_yr);
     }
     const auto &k = f.constants[find_rp(have, rp, where)];
-    const std::string source = fmt::format("project input: IDF formula {}", f.name);
     WithLines<double> out{0.0, {}};
     if (f.max_duration_min > 0.0 && (dur < f.min_duration_min || dur > f.max_duration_min)) {
-        out.lines.warn("IDF formula outside its fitted durations",
-                       fmt::format("duration {} min lies outside {} to {} min, the durations the "
-                                   "constants of '{}' were fitted for; the intensity is an "
-                                   "extrapolation",
-                                   sig(dur), sig(f.min_duration_min), sig(f.max_duration_min),
-                                   f.name),
-                       source);
+        out.lines.warn(outside_fitted,
+                       {duration_qty(dur), qty("t_min", f.min_duration_min, Unit::min),
+                        qty("t_max", f.max_duration_min, Unit::min), word("idf", f.name)});
     }
     const double native = formula_value(k, dur);
-    const std::string native_unit(to_string(f.unit));
-    const std::string label = fmt::format("Rainfall intensity, {} min, {} yr", sig(dur), sig(rp));
-    out.lines.calc(label, "i = a / (t + b)^c",
-                   fmt::format("i = {} / ({} + {})^{}", sig(k.a), sig(dur), sig(k.b_min), sig(k.c)),
-                   native, native_unit, source);
+    out.lines.calc(formula_value_line,
+                   {duration_qty(dur), detail::return_period_qty(rp), qty("a", k.a),
+                    qty("b", k.b_min, Unit::min), qty("c", k.c), word("idf", f.name)},
+                   qty("i", native, unit_of(f.unit)));
     const bool native_si = f.unit == IntensityUnit::mm_per_h;
     out.value = native_si ? native : units::in_per_h_to_mm_per_h(native);
     const bool sheet_si = s == units::System::si;
     if (native_si != sheet_si) {
         if (sheet_si) {
-            out.lines.calc("Rainfall intensity in mm/h", "i[mm/h] = 25.4 i[in/h]",
-                           fmt::format("i = 25.4 x {}", sig(native)), out.value, "mm/h",
-                           "1 in = 25.4 mm (exact)");
+            out.lines.calc(in_h_to_mm_h, {qty("i_in", native, Unit::in_per_h)},
+                           qty("i", out.value, Unit::mm_per_h));
         } else {
-            out.lines.calc("Rainfall intensity in in/h", "i[in/h] = i[mm/h] / 25.4",
-                           fmt::format("i = {} / 25.4", sig(native)),
-                           units::mm_per_h_to_in_per_h(native), "in/h", "1 in = 25.4 mm (exact)");
+            out.lines.calc(mm_h_to_in_h, {qty("i_mm", native, Unit::mm_per_h)},
+                           qty("i", units::mm_per_h_to_in_per_h(native), Unit::in_per_h));
         }
     }
     return out;
@@ -291,15 +322,7 @@ WithLines<double> formula_intensity(const IdfFormula &f, double dur, double rp, 
 
 } // namespace
 
-std::string_view to_string(IntensityUnit u) noexcept {
-    switch (u) {
-    case IntensityUnit::mm_per_h:
-        return "mm/h";
-    case IntensityUnit::in_per_h:
-        return "in/h";
-    }
-    return "mm/h";
-}
+std::string_view to_string(IntensityUnit u) noexcept { return symbol(unit_of(u)); }
 
 Idf::Idf(IdfTable table) : data_(std::move(table)) { validate(std::get<IdfTable>(data_)); }
 
@@ -348,14 +371,12 @@ WithLines<double> Idf::intensity(double duration_min, double return_period_yr,
 WithLines<double> Idf::depth(double duration_min, double return_period_yr,
                              units::System sheet_units) const {
     auto out = intensity(duration_min, return_period_yr, sheet_units);
-    const bool us = sheet_units == units::System::us_customary;
-    const double i_sheet = us ? units::mm_per_h_to_in_per_h(out.value) : out.value;
-    out.value = out.value * units::min_to_h(duration_min);
-    out.lines.calc(
-        fmt::format("Rainfall depth, {} min, {} yr", sig(duration_min), sig(return_period_yr)),
-        "P = i t", fmt::format("P = {} x {} / 60", sig(i_sheet), sig(duration_min)),
-        us ? units::mm_to_in(out.value) : out.value, us ? "in" : "mm",
-        "depth from the intensity over the duration");
+    const double i_mm_per_h = out.value;
+    out.value = i_mm_per_h * units::min_to_h(duration_min);
+    out.lines.calc(depth_line,
+                   {duration_qty(duration_min), detail::return_period_qty(return_period_yr),
+                    detail::intensity_qty("i", i_mm_per_h, sheet_units)},
+                   detail::depth_qty("P", out.value, sheet_units));
     return out;
 }
 

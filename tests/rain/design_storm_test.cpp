@@ -12,6 +12,7 @@
 #include <vector>
 
 using catchpeak::InputError;
+using catchpeak::test::line_keyed;
 using catchpeak::test::line_labelled;
 using catchpeak::units::System;
 namespace rain = catchpeak::rain;
@@ -102,12 +103,13 @@ TEST(StormHyetograph, SumsToTheDepthAndFollowsTheCurve) {
     // The steepest part (2 h to 3 h: 0.5 of P in 1 h) gives the largest step, 0.5 P / 4.
     // Peak intensity line (mm/h), then the warning that it is the 2-3 h interval's average.
     ASSERT_EQ(r.lines.warning_count(), 1U);
-    const auto &lines = r.lines.lines();
-    EXPECT_NEAR(lines[lines.size() - 2].value(), 0.5 * p_mm, p_mm * rel_eps);
-    EXPECT_NE(catchpeak::test::text(lines.back())
-                  .numbers.find("2.000 h and 3.000 h (60.00 min apart, 15.00 min steps)"),
+    EXPECT_NEAR(line_keyed(r.lines, "storm.peak_intensity").value(), 0.5 * p_mm, p_mm * rel_eps);
+    const auto &averaged = line_keyed(r.lines, "storm.peak_averaged");
+    EXPECT_TRUE(averaged.flags.averaged);
+    EXPECT_NE(catchpeak::test::text(averaged).numbers.find(
+                  "2.000 h and 3.000 h (60.00 min apart, 15.00 min steps)"),
               std::string::npos)
-        << catchpeak::test::text(lines.back()).numbers;
+        << catchpeak::test::text(averaged).numbers;
 }
 
 TEST(StormHyetograph, NoAveragingWarningWhenStepsMatchTheTable) {
@@ -120,9 +122,10 @@ TEST(StormHyetograph, UncheckedTableGivesAWarning) {
     d.status = "from memory, not checked";
     const auto r = rain::storm_hyetograph(d, 50.0, 30.0, System::us_customary);
     ASSERT_EQ(r.lines.warning_count(), 2U); // unchecked table; peak averaged over 2-3 h
-    EXPECT_NE(catchpeak::test::text(r.lines.lines()[1]).numbers.find("from memory, not checked"),
+    EXPECT_NE(catchpeak::test::text(line_keyed(r.lines, "storm.not_checked"))
+                  .numbers.find("from memory, not checked"),
               std::string::npos);
-    EXPECT_EQ(catchpeak::test::text(r.lines.lines()[r.lines.size() - 2]).unit, "in/h");
+    EXPECT_EQ(catchpeak::test::text(line_keyed(r.lines, "storm.peak_intensity")).unit, "in/h");
 }
 
 TEST(StormHyetograph, ValidationMessages) {
@@ -179,11 +182,8 @@ TEST(AlternatingBlock, ReordersIncrementsThatDoNotDecrease) {
     EXPECT_NEAR(r.value.depth_mm[1], 10.0, 1e-12); // centre: the largest
     EXPECT_NEAR(r.value.depth_mm[2], 4.0, 1e-12);  // right of it: the second largest
     EXPECT_NEAR(r.value.depth_mm[0], 1.0, 1e-12);
-    bool noted = false;
-    for (const auto &line : r.lines.lines()) {
-        noted = noted || catchpeak::test::text(line).label == "Blocks reordered";
-    }
-    EXPECT_TRUE(noted);
+    EXPECT_EQ(catchpeak::test::text(line_keyed(r.lines, "storm.blocks_reordered")).label,
+              "Blocks reordered");
 }
 
 TEST(AlternatingBlock, ValidationMessages) {
@@ -288,17 +288,18 @@ TEST(AlternatingBlock, LongStormShowsTheFirstBlocksAndANote) {
     ASSERT_EQ(r.value.steps(), 24U);
     std::size_t block_lines = 0;
     for (const auto &l : r.lines.lines()) {
-        if (catchpeak::test::text(l).label.rfind("Block depth ", 0) == 0) {
+        if (l.key == "storm.block_first" || l.key == "storm.block") {
             ++block_lines;
             EXPECT_EQ(catchpeak::test::text(l).unit, "in");
         }
     }
     EXPECT_EQ(block_lines, 6U);
-    ASSERT_NE(line_labelled(r.lines, "Other blocks"), nullptr);
+    EXPECT_EQ(catchpeak::test::text(line_keyed(r.lines, "storm.other_blocks")).label,
+              "Other blocks");
     // The storm depth line, in inches: i(1440) x 1440 / 60 h, i = 1500 / (1450)^0.8 mm/h.
     const double depth_in = 1500.0 / std::pow(1450.0, 0.8) * 24.0 / 25.4;
-    const auto *total = line_labelled(r.lines, "Storm depth");
-    ASSERT_NE(total, nullptr);
-    EXPECT_NEAR(total->value(), depth_in, depth_in * rel_eps);
+    const auto &total = line_keyed(r.lines, "storm.block_total");
+    EXPECT_EQ(catchpeak::test::text(total).label, "Storm depth");
+    EXPECT_NEAR(total.value(), depth_in, depth_in * rel_eps);
     EXPECT_NEAR(r.value.total_mm() / 25.4, depth_in, depth_in * 1e-9);
 }

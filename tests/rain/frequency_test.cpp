@@ -14,6 +14,7 @@
 #include <vector>
 
 using catchpeak::InputError;
+using catchpeak::test::line_keyed;
 using catchpeak::units::System;
 namespace rain = catchpeak::rain;
 
@@ -55,7 +56,7 @@ TEST(Gumbel, DepthIsMeanPlusKTimesS) {
     const auto r = rain::gumbel_depth(series25, t, System::si);
     EXPECT_NEAR(r.value, expected, expected * rel_eps);
     EXPECT_EQ(r.lines.warning_count(), 0U); // 25 years, T = 50 <= 2 x 25
-    EXPECT_EQ(catchpeak::test::text(r.lines.lines().back()).unit, "mm");
+    EXPECT_EQ(catchpeak::test::text(line_keyed(r.lines, "ams.gumbel_depth")).unit, "mm");
 }
 
 TEST(Gumbel, AgreesWithBoostExtremeValueQuantile) {
@@ -75,8 +76,9 @@ TEST(Gumbel, UsSheetShowsInches) {
     const auto si = rain::gumbel_depth(series25, 10.0, System::si);
     const auto us = rain::gumbel_depth(series25, 10.0, System::us_customary);
     EXPECT_NEAR(us.value, si.value, si.value * rel_eps);
-    EXPECT_EQ(catchpeak::test::text(us.lines.lines().back()).unit, "in");
-    EXPECT_NEAR(us.lines.lines().back().value(), si.value / 25.4, si.value / 25.4 * rel_eps);
+    const auto &depth = line_keyed(us.lines, "ams.gumbel_depth");
+    EXPECT_EQ(catchpeak::test::text(depth).unit, "in");
+    EXPECT_NEAR(depth.value(), si.value / 25.4, si.value / 25.4 * rel_eps);
 }
 
 TEST(Gumbel, RecordLengthRules) {
@@ -90,13 +92,13 @@ TEST(Gumbel, RecordLengthRules) {
     const std::vector<double> twelve(series25.begin(), series25.begin() + 12);
     const auto r = rain::gumbel_depth(twelve, 10.0, System::si);
     ASSERT_EQ(r.lines.warning_count(), 1U);
-    EXPECT_NE(catchpeak::test::text(r.lines.lines()[0])
+    EXPECT_NE(catchpeak::test::text(line_keyed(r.lines, "ams.short_record"))
                   .numbers.find("12 years of annual maxima, fewer than 20"),
               std::string::npos);
 
     const auto far = rain::gumbel_depth(series25, 100.0, System::si);
     ASSERT_EQ(far.lines.warning_count(), 1U);
-    EXPECT_NE(catchpeak::test::text(far.lines.lines()[0])
+    EXPECT_NE(catchpeak::test::text(line_keyed(far.lines, "ams.beyond_record"))
                   .numbers.find("more than twice the record length"),
               std::string::npos);
 }
@@ -148,20 +150,22 @@ TEST(Gev, DepthLinesEndWithTheQuantile) {
     const auto m = rain::sample_l_moments(series25);
     const auto p = rain::gev_from_l_moments(m);
     EXPECT_NEAR(r.value, rain::gev_quantile(p, 1.0 - 1.0 / 25.0), r.value * rel_eps);
+    EXPECT_EQ(r.lines.lines().back().key, "ams.gev_depth");
     EXPECT_EQ(catchpeak::test::text(r.lines.lines().back()).unit, "mm");
     EXPECT_EQ(catchpeak::test::text(r.lines.lines().back()).symbols,
               "x_T = xi + alpha (1 - (-ln F)^k) / k");
     const auto us = rain::gev_depth(series25, 25.0, System::us_customary);
     EXPECT_NEAR(us.value, r.value, r.value * 1e-10);
-    EXPECT_NEAR(us.lines.lines().back().value(), r.value / 25.4, r.value / 25.4 * 1e-10);
+    EXPECT_NEAR(line_keyed(us.lines, "ams.gev_depth").value(), r.value / 25.4,
+                r.value / 25.4 * 1e-10);
 }
 
 TEST(Frequency, NegativeNumbersAreShownInParentheses) {
     // K_2 is negative (Chow et al. 1988, eq. 12.3.8: K_T < 0 for T = 2 yr).
     const auto g = rain::gumbel_depth(series25, 2.0, System::si);
-    EXPECT_NE(catchpeak::test::text(g.lines.lines().back()).numbers.find("+ (-0.164"),
-              std::string::npos)
-        << catchpeak::test::text(g.lines.lines().back()).numbers;
+    const auto &depth = line_keyed(g.lines, "ams.gumbel_depth");
+    EXPECT_NE(catchpeak::test::text(depth).numbers.find("+ (-0.164"), std::string::npos)
+        << catchpeak::test::text(depth).numbers;
     // A series with a long upper tail gives k < 0; no line may read "--", "+ -" or "x -".
     std::vector<double> tail_values = series25;
     tail_values[0] = 250.0;

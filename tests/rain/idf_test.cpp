@@ -48,6 +48,7 @@ TEST(IdfTable, TableValueAtListedDuration) {
     const auto r = idf.intensity(10.0, 10.0, System::si);
     EXPECT_NEAR(r.value, 450.0 * std::pow(10.0, -0.6), 450.0 * rel_eps);
     ASSERT_EQ(r.lines.size(), 1U);
+    EXPECT_EQ(r.lines.lines()[0].key, "idf.table_value");
     EXPECT_EQ(catchpeak::test::text(r.lines.lines()[0]).unit, "mm/h");
     EXPECT_NE(
         catchpeak::test::text(r.lines.lines()[0]).source.find("project input: IDF table power law"),
@@ -68,7 +69,7 @@ TEST(IdfTable, InterpolationLineShowsBracketingValuesInSheetUnits) {
     const auto us = idf.intensity(20.0, 2.0, System::us_customary);
     EXPECT_NEAR(us.value, si.value, si.value * rel_eps); // always mm/h
     ASSERT_EQ(us.lines.size(), 1U);
-    const auto &line = us.lines.lines()[0];
+    const auto &line = catchpeak::test::line_keyed(us.lines, "idf.table_interpolated");
     EXPECT_EQ(catchpeak::test::text(line).unit, "in/h");
     EXPECT_NEAR(line.value(), si.value / 25.4, si.value / 25.4 * rel_eps);
     // The two bracketing table values (10 and 30 min), converted to in/h, are in the line.
@@ -176,16 +177,20 @@ TEST(IdfFormula, EvaluatesInTheConstantsUnitAndConverts) {
 
     const auto si = idf.intensity(15.0, 10.0, System::si);
     ASSERT_EQ(si.lines.size(), 2U); // formula in in/h, then the conversion to mm/h
-    EXPECT_EQ(catchpeak::test::text(si.lines.lines()[1]).unit, "mm/h");
-    EXPECT_NEAR(si.lines.lines()[1].value(), in_h * 25.4, in_h * 25.4 * rel_eps);
+    const auto &to_mm = si.lines.lines()[1];
+    EXPECT_EQ(to_mm.key, "idf.to_mm_per_h");
+    EXPECT_EQ(catchpeak::test::text(to_mm).unit, "mm/h");
+    EXPECT_NEAR(to_mm.value(), in_h * 25.4, in_h * 25.4 * rel_eps);
 }
 
 TEST(IdfFormula, WarnsOutsideTheFittedDurations) {
     const Idf idf(us_formula());
     const auto r = idf.intensity(2.0, 2.0, System::us_customary);
     EXPECT_EQ(r.lines.warning_count(), 1U);
-    EXPECT_NE(catchpeak::test::text(r.lines.lines()[0]).numbers.find("outside 5.000 to 1440 min"),
-              std::string::npos);
+    const auto &warning = catchpeak::test::line_keyed(r.lines, "idf.outside_fitted_durations");
+    EXPECT_NE(catchpeak::test::text(warning).numbers.find("outside 5.000 to 1440 min"),
+              std::string::npos)
+        << catchpeak::test::text(warning).numbers;
     EXPECT_EQ(idf.intensity(30.0, 2.0, System::us_customary).lines.warning_count(), 0U);
 }
 
@@ -223,10 +228,11 @@ TEST(Idf, DepthIsIntensityTimesDuration) {
     const double i = 450.0 * std::pow(20.0, -0.6); // computed from the law
     const auto si = idf.depth(20.0, 10.0, System::si);
     EXPECT_NEAR(si.value, i * 20.0 / 60.0, i * rel_eps);
-    EXPECT_EQ(catchpeak::test::text(si.lines.lines().back()).unit, "mm");
+    EXPECT_EQ(catchpeak::test::text(catchpeak::test::line_keyed(si.lines, "idf.depth")).unit, "mm");
     const auto us = idf.depth(20.0, 10.0, System::us_customary);
     EXPECT_NEAR(us.value, si.value, si.value * rel_eps);
-    EXPECT_EQ(catchpeak::test::text(us.lines.lines().back()).unit, "in");
-    EXPECT_NEAR(us.lines.lines().back().value(), si.value / 25.4, si.value * rel_eps);
+    const auto &depth = catchpeak::test::line_keyed(us.lines, "idf.depth");
+    EXPECT_EQ(catchpeak::test::text(depth).unit, "in");
+    EXPECT_NEAR(depth.value(), si.value / 25.4, si.value * rel_eps);
     EXPECT_EQ(us.lines.size(), 2U); // the intensity line, then the depth line
 }
