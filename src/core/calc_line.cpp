@@ -81,6 +81,16 @@ std::string_view symbol(Unit u) noexcept {
         return "ft3";
     case Unit::per_yr:
         return "1/yr";
+    case Unit::ac_in_per_h:
+        return "ac-in/h";
+    case Unit::csm_per_in:
+        return "ft3/s/mi2/in";
+    case Unit::ft3_per_s_per_in:
+        return "ft3/s per in";
+    case Unit::m3_per_s_per_mm:
+        return "m3/s per mm";
+    case Unit::ac_ft:
+        return "ac-ft";
     }
     return "";
 }

@@ -12,7 +12,8 @@
 namespace catchpeak::hydro::detail {
 
 /// Throws InputError unless value is finite and > 0.
-inline void require_positive(const std::string &quantity, double value, const std::string &unit) {
+inline void require_positive(const std::string &quantity, double value, Unit u = Unit::none) {
+    const std::string unit(symbol(u));
     if (!std::isfinite(value) || value <= 0.0) {
         throw_input_error(quantity, "value " + full(value) + " " + unit + " is not positive",
                           "a finite value > 0 " + unit);
@@ -20,8 +21,8 @@ inline void require_positive(const std::string &quantity, double value, const st
 }
 
 /// Throws InputError unless value is finite and >= 0.
-inline void require_non_negative(const std::string &quantity, double value,
-                                 const std::string &unit) {
+inline void require_non_negative(const std::string &quantity, double value, Unit u = Unit::none) {
+    const std::string unit(symbol(u));
     if (!std::isfinite(value) || value < 0.0) {
         throw_input_error(quantity, "value " + full(value) + " " + unit + " is negative",
                           "a finite value >= 0 " + unit);

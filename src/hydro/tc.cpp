@@ -2,8 +2,7 @@
 #include "catchpeak/hydro/tc.hpp"
 
 #include "checks.hpp"
-
-#include <fmt/format.h>
+#include "sheet.hpp"
 
 #include <cmath>
 
@@ -13,79 +12,156 @@ namespace {
 
 using units::System;
 
-constexpr const char *kirpich_source = "Kirpich (1940); TxDOT Hydraulic Design Manual eq. 4-15";
-constexpr const char *kirpich_range_source =
-    "Kirpich (1940) data: about 1-112 ac, slopes about 3-10 % (from memory, not checked "
-    "against the source)";
-constexpr const char *lag_source = "NRCS NEH 630 ch. 15 (2010), lag equation";
-constexpr const char *lag_range_source =
-    "NRCS NEH 630 ch. 15 (2010): data behind the lag equation 1.3 ac to 9.2 mi2";
-constexpr const char *tr55_ch3 = "TR-55 (1986) ch. 3";
-constexpr const char *us_only_note =
+// clang-format off
+constexpr std::string_view us_only =
     "method published only in US customary units; SI inputs converted (exact factors, NIST SP "
     "811)";
-constexpr const char *conversion_source = "exact conversion (NIST SP 811)";
+constexpr std::string_view conversion = "exact conversion (NIST SP 811)";
+constexpr std::string_view lag_where = "NRCS NEH 630 ch. 15 (2010), lag equation";
+constexpr std::string_view kirpich_range_where =
+    " data: about 1-112 ac, slopes about 3-10 % (from memory, not checked against the source)";
+constexpr std::string_view lag_range_where =
+    "NRCS NEH 630 ch. 15 (2010): data behind the lag equation 1.3 ac to 9.2 mi2";
+constexpr std::string_view sheet_too_long =
+    "sheet flow length {L} {L:u} exceeds {Lmax} {Lmax:u}; beyond it flow concentrates, treat the "
+    "rest as shallow concentrated flow";
+
+constexpr Formula kirpich_us{"tc.kirpich_us", "Time of concentration, Kirpich",
+    "tc = 0.0078 L^0.77 S^-0.385 (L ft)", "tc = 0.0078 x {L}^0.77 x {S}^-0.385",
+    Ref::kirpich_1940, "; TxDOT Hydraulic Design Manual eq. 4-15"};
+constexpr Formula kirpich_si{"tc.kirpich_si", "Time of concentration, Kirpich",
+    "tc = 0.0195 L^0.77 S^-0.385 (L m)", "tc = 0.0195 x {L}^0.77 x {S}^-0.385",
+    Ref::kirpich_1940, "; TxDOT Hydraulic Design Manual eq. 4-15"};
+constexpr Formula kirpich_area_us{"tc.kirpich_area", "Kirpich: catchment area outside the data",
+    "", "catchment area {A} {A:u} is outside Kirpich's data (about 1-112 ac); tc may be "
+    "unreliable, compare with another method", Ref::kirpich_1940, kirpich_range_where};
+constexpr Formula kirpich_area_si{"tc.kirpich_area", "Kirpich: catchment area outside the data",
+    "", "catchment area {A} {A:u} is outside Kirpich's data (about 0.4047-45.32 ha); tc may be "
+    "unreliable, compare with another method", Ref::kirpich_1940, kirpich_range_where};
+constexpr Formula kirpich_slope{"tc.kirpich_slope", "Kirpich: slope outside the data", "",
+    "slope {S} {S:u} is outside Kirpich's data (about 3-10 %); tc may be unreliable, compare "
+    "with another method", Ref::kirpich_1940, kirpich_range_where};
+constexpr Formula lag_units{"tc.lag_units", "NRCS lag method units", "", us_only, Ref::none,
+    lag_where};
+constexpr Formula lag_length_ft{"tc.lag_length_ft", "Hydraulic flow length in ft",
+    "l = l[m] / 0.3048", "l = {l[m]} / 0.3048", Ref::none, conversion};
+constexpr Formula lag_retention{"tc.lag_retention", "Potential maximum retention",
+    "S = 1000/CN - 10 (in)", "S = 1000/{CN} - 10", Ref::tr55_1986, " eq. 2-4"};
+constexpr Formula lag{"tc.lag", "Lag, NRCS lag equation",
+    "L = l^0.8 (S + 1)^0.7 / (1900 Y^0.5) (l ft, Y %)",
+    "L = {l}^0.8 x ({S} + 1)^0.7 / (1900 x {Y}^0.5)", Ref::none, lag_where};
+constexpr Formula lag_tc{"tc.lag_tc", "Time of concentration from lag", "tc = L / 0.6",
+    "tc = {L} / 0.6", Ref::none, lag_where};
+constexpr Formula lag_tc_min{"tc.lag_tc_min", "Time of concentration in minutes",
+    "tc[min] = 60 tc[h]", "tc = 60 x {tc}", Ref::none, "definition"};
+constexpr Formula lag_area_us{"tc.lag_area", "NRCS lag: catchment area outside the data", "",
+    "catchment area {A} {A:u} is outside the data behind the lag equation (1.3 ac to 9.2 mi2); "
+    "tc may be unreliable", Ref::none, lag_range_where};
+constexpr Formula lag_area_si{"tc.lag_area", "NRCS lag: catchment area outside the data", "",
+    "catchment area {A} {A:u} is outside the data behind the lag equation (0.5261 ha to 23.83 "
+    "km2); tc may be unreliable", Ref::none, lag_range_where};
+constexpr Formula sheet_units{"tc.sheet_units", "Sheet flow units", "", us_only,
+    Ref::tr55_1986, " ch. 3"};
+constexpr Formula sheet_length_ft{"tc.sheet_length_ft", "Sheet flow length in ft",
+    "L = L[m] / 0.3048", "L = {L[m]} / 0.3048", Ref::none, conversion};
+constexpr Formula sheet_p2_in{"tc.sheet_p2_in", "2-year 24-hour rainfall in inches",
+    "P2 = P2[mm] / 25.4", "P2 = {P2[mm]} / 25.4", Ref::none, conversion};
+constexpr Formula sheet_flow{"tc.sheet_flow", "Travel time, sheet flow",
+    "Tt = 0.007 (n L)^0.8 / (P2^0.5 s^0.4) (L ft, P2 in)",
+    "Tt = 0.007 x ({n} x {L})^0.8 / ({P2}^0.5 x {s}^0.4)", Ref::tr55_1986, " eq. 3-3"};
+constexpr Formula sheet_over_300ft{"tc.sheet_over_limit", "Sheet flow length over the limit", "",
+    sheet_too_long, Ref::tr55_1986, " ch. 3: L <= 300 ft"};
+constexpr Formula sheet_over_100ft{"tc.sheet_over_limit", "Sheet flow length over the limit", "",
+    sheet_too_long, Ref::none, "NRCS NEH 630 ch. 15 (2010): L typically <= 100 ft"};
+constexpr Formula shallow_velocity_us{"tc.shallow_velocity_us",
+    "Velocity, shallow concentrated flow ({surface})", "V = {k} s^0.5", "V = {k} x {s}^0.5",
+    Ref::tr55_1986, " App. F, {surface} (from memory, not checked)"};
+constexpr Formula shallow_velocity_si{"tc.shallow_velocity_si",
+    "Velocity, shallow concentrated flow ({surface})", "V = {k} x 0.3048 s^0.5",
+    "V = {k} x 0.3048 x {s}^0.5", Ref::tr55_1986,
+    " App. F, {surface} (from memory, not checked); SI form computed with 1 ft = 0.3048 m"};
+constexpr Formula shallow_travel_time{"tc.shallow_travel_time",
+    "Travel time, shallow concentrated flow", "Tt = L / (3600 V)",
+    "Tt = {L} {L:u} / (3600 x {V} {V:u})", Ref::tr55_1986, " eq. 3-1"};
+constexpr Formula hydraulic_radius{"tc.hydraulic_radius", "Hydraulic radius", "r = a / pw",
+    "r = {a} {a:u} / {pw} {pw:u}", Ref::tr55_1986, " ch. 3"};
+constexpr Formula manning_us{"tc.manning_us", "Velocity, channel flow (Manning)",
+    "V = 1.49 r^(2/3) s^(1/2) / n", "V = 1.49 x {r}^(2/3) x {s}^(1/2) / {n}", Ref::none,
+    "Manning's equation; TR-55 (1986) eq. 3-4"};
+constexpr Formula manning_si{"tc.manning_si", "Velocity, channel flow (Manning)",
+    "V = r^(2/3) s^(1/2) / n", "V = {r}^(2/3) x {s}^(1/2) / {n}", Ref::none,
+    "Manning's equation; TR-55 (1986) eq. 3-4"};
+constexpr Formula channel_travel_time{"tc.channel_travel_time", "Travel time, channel flow",
+    "Tt = L / (3600 V)", "Tt = {L} {L:u} / (3600 x {V} {V:u})", Ref::tr55_1986, " eq. 3-1"};
+constexpr Formula kerby_us{"tc.kerby_us", "Overland flow time, Kerby",
+    "tov = 0.828 (L N / S^0.5)^0.467 (L ft)", "tov = 0.8280 x ({L} x {N} / {S}^0.5)^0.467",
+    Ref::kerby_1959, ", as given in the TxDOT Hydraulic Design Manual ch. 4"};
+constexpr Formula kerby_si{"tc.kerby_si", "Overland flow time, Kerby",
+    "tov = 1.44 (L N / S^0.5)^0.467 (L m)", "tov = 1.440 x ({L} x {N} / {S}^0.5)^0.467",
+    Ref::kerby_1959, ", SI form (constant 1.44 from memory, not checked against the source)"};
+constexpr Formula kerby_too_long{"tc.kerby_over_limit",
+    "Kerby: overland flow length over the limit", "",
+    "overland flow length {L} {L:u} exceeds about {Lmax} {Lmax:u}", Ref::none,
+    "Kerby method limit about 1200 ft (from memory, not checked against the source)"};
+constexpr Formula tc_sum{"tc.sum", "Time of concentration, sum of travel times",
+    "tc = sum of Tt", "tc = {[{Tt}| + ]}", Ref::tr55_1986, " ch. 3"};
+constexpr Formula tc_minimum{"tc.minimum", "Time of concentration, minimum applied",
+    "tc = max(tc, tc,min)", "tc = max({tc}, {tc,min})", Ref::project_setting,
+    ": minimum tc (common practice, no source)"};
+constexpr Formula tc_minimum_governs{"tc.minimum_governs", "Minimum tc governs", "",
+    "computed tc {tc} {tc:u} is below the minimum {tc,min} {tc,min:u}; the minimum is used",
+    Ref::project_setting, ""};
+// clang-format on
 
 /// Adds the line converting a length in m to ft, for methods published only in US units.
-double length_to_ft_line(CalcLines &lines, const std::string &label, const std::string &symbol,
+/// `symbol` names the length in ft, `symbol`[m] the length in m.
+double length_to_ft_line(CalcLines &lines, const Formula &f, const std::string &symbol,
                          double length_m) {
     const double ft = units::m_to_ft(length_m);
-    lines.calc(label + " in ft", symbol + " = " + symbol + "[m] / 0.3048",
-               fmt::format("{} = {} / 0.3048", symbol, sig(length_m)), ft, "ft", conversion_source);
+    lines.calc(f, {qty(symbol + "[m]", length_m, Unit::m)}, qty(symbol, ft, Unit::ft));
     return ft;
 }
 
-double h_to_min_line(CalcLines &lines, const std::string &label, const std::string &symbol,
-                     double value_h) {
-    const double v_min = units::h_to_min(value_h);
-    lines.calc(label + " in minutes", symbol + "[min] = 60 " + symbol + "[h]",
-               fmt::format("{} = 60 x {}", symbol, sig(value_h)), v_min, "min", "definition");
-    return v_min;
+/// Warns (with `us` or `si`, the same message in the sheet's units) when the catchment area is
+/// outside the data of a method.
+void warn_area_outside(CalcLines &lines, const Formula &us, const Formula &si, double area_m2,
+                       System system) {
+    lines.warn(detail::is_us(system) ? us : si,
+               {qty("A", detail::sheet_area(area_m2, system), detail::area_unit(system))});
+}
+
+/// Tt = L / (3600 V) in h, L and V in the sheet's units.
+double travel_time_line(CalcLines &lines, const Formula &f, double l, double v, System system) {
+    const double tt_h = l / (3600.0 * v);
+    const Unit vu = detail::is_us(system) ? Unit::ft_per_s : Unit::m_per_s;
+    lines.calc(f, {qty("L", l, detail::length_unit(system)), qty("V", v, vu)},
+               qty("Tt", tt_h, Unit::h));
+    return tt_h;
 }
 
 } // namespace
 
 WithLines<double> kirpich_tc_min(double length_m, double slope_m_per_m, double area_m2,
                                  System system) {
-    detail::require_positive("Kirpich: longest flow path length L", length_m, "m");
-    detail::require_positive("Kirpich: slope S", slope_m_per_m, "m/m");
-    detail::require_positive("Kirpich: catchment area", area_m2, "m2");
+    detail::require_positive("Kirpich: longest flow path length L", length_m, Unit::m);
+    detail::require_positive("Kirpich: slope S", slope_m_per_m, Unit::m_per_m);
+    detail::require_positive("Kirpich: catchment area", area_m2, Unit::m2);
     WithLines<double> out{};
-    double tc_min = 0.0;
-    if (system == System::us_customary) {
-        const double l_ft = units::m_to_ft(length_m);
-        tc_min = 0.0078 * std::pow(l_ft, 0.77) * std::pow(slope_m_per_m, -0.385);
-        out.lines.calc(
-            "Time of concentration, Kirpich", "tc = 0.0078 L^0.77 S^-0.385 (L ft)",
-            fmt::format("tc = 0.0078 x {}^0.77 x {}^-0.385", sig(l_ft), sig(slope_m_per_m)), tc_min,
-            "min", kirpich_source);
-    } else {
-        tc_min = 0.0195 * std::pow(length_m, 0.77) * std::pow(slope_m_per_m, -0.385);
-        out.lines.calc(
-            "Time of concentration, Kirpich", "tc = 0.0195 L^0.77 S^-0.385 (L m)",
-            fmt::format("tc = 0.0195 x {}^0.77 x {}^-0.385", sig(length_m), sig(slope_m_per_m)),
-            tc_min, "min", kirpich_source);
-    }
+    const bool us = detail::is_us(system);
+    const double l = us ? units::m_to_ft(length_m) : length_m;
+    const double tc_min =
+        (us ? 0.0078 : 0.0195) * std::pow(l, 0.77) * std::pow(slope_m_per_m, -0.385);
+    out.lines.calc(us ? kirpich_us : kirpich_si,
+                   {qty("L", l, detail::length_unit(system)),
+                    qty("S", slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m)},
+                   qty("tc", tc_min, Unit::min));
     const double area_ac = units::m2_to_acre(area_m2);
     if (area_ac < 1.0 || area_ac > 112.0) {
-        const std::string shown = system == System::us_customary
-                                      ? fmt::format("{} ac", sig(area_ac))
-                                      : fmt::format("{} ha", sig(units::m2_to_ha(area_m2)));
-        const std::string range =
-            system == System::us_customary ? "about 1-112 ac" : "about 0.4047-45.32 ha";
-        out.lines.warn("Kirpich: catchment area outside the data",
-                       fmt::format("catchment area {} is outside Kirpich's data ({}); tc may be "
-                                   "unreliable, compare with another method",
-                                   shown, range),
-                       kirpich_range_source);
+        warn_area_outside(out.lines, kirpich_area_us, kirpich_area_si, area_m2, system);
     }
     const double slope_pct = 100.0 * slope_m_per_m;
     if (slope_pct < 3.0 || slope_pct > 10.0) {
-        out.lines.warn("Kirpich: slope outside the data",
-                       fmt::format("slope {} % is outside Kirpich's data (about 3-10 %); tc may "
-                                   "be unreliable, compare with another method",
-                                   sig(slope_pct)),
-                       kirpich_range_source);
+        out.lines.warn(kirpich_slope, {qty("S", slope_pct, Unit::percent)});
     }
     out.value = tc_min;
     return out;
@@ -93,10 +169,10 @@ WithLines<double> kirpich_tc_min(double length_m, double slope_m_per_m, double a
 
 WithLines<double> nrcs_lag_tc_min(double flow_length_m, double cn, double slope_percent,
                                   double area_m2, System system) {
-    detail::require_positive("NRCS lag: hydraulic flow length l", flow_length_m, "m");
+    detail::require_positive("NRCS lag: hydraulic flow length l", flow_length_m, Unit::m);
     detail::require_cn(cn);
-    detail::require_positive("NRCS lag: average catchment slope Y", slope_percent, "%");
-    detail::require_positive("NRCS lag: catchment area", area_m2, "m2");
+    detail::require_positive("NRCS lag: average catchment slope Y", slope_percent, Unit::percent);
+    detail::require_positive("NRCS lag: catchment area", area_m2, Unit::m2);
     if (cn >= 100.0) {
         throw_input_error("NRCS lag: curve number CN", "value 100 gives S = 0 and no lag",
                           "30 <= CN < 100");
@@ -104,74 +180,58 @@ WithLines<double> nrcs_lag_tc_min(double flow_length_m, double cn, double slope_
     WithLines<double> out{};
     double l_ft = units::m_to_ft(flow_length_m);
     if (system == System::si) {
-        out.lines.note("NRCS lag method units", us_only_note, lag_source);
-        l_ft = length_to_ft_line(out.lines, "Hydraulic flow length", "l", flow_length_m);
+        out.lines.note(lag_units);
+        l_ft = length_to_ft_line(out.lines, lag_length_ft, "l", flow_length_m);
     }
     const double s_in = 1000.0 / cn - 10.0;
-    out.lines.calc("Potential maximum retention", "S = 1000/CN - 10 (in)",
-                   fmt::format("S = 1000/{} - 10", sig(cn)), s_in, "in", "TR-55 (1986) eq. 2-4");
+    out.lines.calc(lag_retention, {qty("CN", cn)}, qty("S", s_in, Unit::in));
     const double lag_h =
         std::pow(l_ft, 0.8) * std::pow(s_in + 1.0, 0.7) / (1900.0 * std::sqrt(slope_percent));
-    out.lines.calc("Lag, NRCS lag equation", "L = l^0.8 (S + 1)^0.7 / (1900 Y^0.5) (l ft, Y %)",
-                   fmt::format("L = {}^0.8 x ({} + 1)^0.7 / (1900 x {}^0.5)", sig(l_ft), sig(s_in),
-                               sig(slope_percent)),
-                   lag_h, "h", lag_source);
+    out.lines.calc(lag,
+                   {qty("l", l_ft, Unit::ft), qty("S", s_in, Unit::in),
+                    qty("Y", slope_percent, Unit::percent)},
+                   qty("L", lag_h, Unit::h));
     const double tc_h = lag_h / 0.6;
-    out.lines.calc("Time of concentration from lag", "tc = L / 0.6",
-                   fmt::format("tc = {} / 0.6", sig(lag_h)), tc_h, "h", lag_source);
-    out.value = h_to_min_line(out.lines, "Time of concentration", "tc", tc_h);
+    out.lines.calc(lag_tc, {qty("L", lag_h, Unit::h)}, qty("tc", tc_h, Unit::h));
+    out.value = units::h_to_min(tc_h);
+    out.lines.calc(lag_tc_min, {qty("tc", tc_h, Unit::h)}, qty("tc[min]", out.value, Unit::min));
     const double area_ac = units::m2_to_acre(area_m2);
     const double area_mi2 = units::m2_to_mi2(area_m2);
     if (area_ac < 1.3 || area_mi2 > 9.2) {
-        const std::string shown = system == System::us_customary
-                                      ? fmt::format("{} ac", sig(area_ac))
-                                      : fmt::format("{} ha", sig(units::m2_to_ha(area_m2)));
-        const std::string range =
-            system == System::us_customary ? "1.3 ac to 9.2 mi2" : "0.5261 ha to 23.83 km2";
-        out.lines.warn("NRCS lag: catchment area outside the data",
-                       fmt::format("catchment area {} is outside the data behind the lag "
-                                   "equation ({}); tc may be unreliable",
-                                   shown, range),
-                       lag_range_source);
+        warn_area_outside(out.lines, lag_area_us, lag_area_si, area_m2, system);
     }
     return out;
 }
 
 WithLines<double> sheet_flow_tt_min(double manning_n, double length_m, double p2_24h_mm,
                                     double slope_m_per_m, SheetFlowLimit limit, System system) {
-    detail::require_positive("sheet flow: Manning roughness n", manning_n, "");
-    detail::require_positive("sheet flow: length L", length_m, "m");
-    detail::require_positive("sheet flow: 2-year 24-hour rainfall P2", p2_24h_mm, "mm");
-    detail::require_positive("sheet flow: slope s", slope_m_per_m, "m/m");
+    detail::require_positive("sheet flow: Manning roughness n", manning_n);
+    detail::require_positive("sheet flow: length L", length_m, Unit::m);
+    detail::require_positive("sheet flow: 2-year 24-hour rainfall P2", p2_24h_mm, Unit::mm);
+    detail::require_positive("sheet flow: slope s", slope_m_per_m, Unit::m_per_m);
     WithLines<double> out{};
     double l_ft = units::m_to_ft(length_m);
-    double p2_in = units::mm_to_in(p2_24h_mm);
+    const double p2_in = units::mm_to_in(p2_24h_mm);
     if (system == System::si) {
-        out.lines.note("Sheet flow units", us_only_note, tr55_ch3);
-        l_ft = length_to_ft_line(out.lines, "Sheet flow length", "L", length_m);
-        out.lines.calc("2-year 24-hour rainfall in inches", "P2 = P2[mm] / 25.4",
-                       fmt::format("P2 = {} / 25.4", sig(p2_24h_mm)), p2_in, "in",
-                       conversion_source);
+        out.lines.note(sheet_units);
+        l_ft = length_to_ft_line(out.lines, sheet_length_ft, "L", length_m);
+        out.lines.calc(sheet_p2_in, {qty("P2[mm]", p2_24h_mm, Unit::mm)},
+                       qty("P2", p2_in, Unit::in));
     }
     const double tt_h =
         0.007 * std::pow(manning_n * l_ft, 0.8) / (std::sqrt(p2_in) * std::pow(slope_m_per_m, 0.4));
-    out.lines.calc("Travel time, sheet flow", "Tt = 0.007 (n L)^0.8 / (P2^0.5 s^0.4) (L ft, P2 in)",
-                   fmt::format("Tt = 0.007 x ({} x {})^0.8 / ({}^0.5 x {}^0.4)", sig(manning_n),
-                               sig(l_ft), sig(p2_in), sig(slope_m_per_m)),
-                   tt_h, "h", "TR-55 (1986) eq. 3-3");
+    out.lines.calc(sheet_flow,
+                   {qty("n", manning_n), qty("L", l_ft, Unit::ft), qty("P2", p2_in, Unit::in),
+                    qty("s", slope_m_per_m, Unit::ft_per_ft)},
+                   qty("Tt", tt_h, Unit::h));
     const bool tr55 = limit == SheetFlowLimit::tr55_300_ft;
     const double limit_ft = tr55 ? 300.0 : 100.0;
     if (l_ft > limit_ft) {
-        const std::string shown =
-            system == System::us_customary
-                ? fmt::format("{} ft exceeds {} ft", sig(l_ft), sig(limit_ft))
-                : fmt::format("{} m exceeds {} m", sig(length_m), sig(units::ft_to_m(limit_ft)));
-        out.lines.warn("Sheet flow length over the limit",
-                       "sheet flow length " + shown +
-                           "; beyond it flow concentrates, treat the rest as shallow "
-                           "concentrated flow",
-                       tr55 ? "TR-55 (1986) ch. 3: L <= 300 ft"
-                            : "NRCS NEH 630 ch. 15 (2010): L typically <= 100 ft");
+        const bool us = detail::is_us(system);
+        const Unit lu = detail::length_unit(system);
+        out.lines.warn(tr55 ? sheet_over_300ft : sheet_over_100ft,
+                       {qty("L", us ? l_ft : length_m, lu),
+                        qty("Lmax", us ? limit_ft : units::ft_to_m(limit_ft), lu)});
     }
     out.value = units::h_to_min(tt_h);
     return out;
@@ -179,108 +239,70 @@ WithLines<double> sheet_flow_tt_min(double manning_n, double length_m, double p2
 
 WithLines<double> shallow_flow_tt_min(double length_m, double slope_m_per_m, ShallowSurface surface,
                                       System system) {
-    detail::require_positive("shallow concentrated flow: length L", length_m, "m");
-    detail::require_positive("shallow concentrated flow: slope s", slope_m_per_m, "m/m");
+    detail::require_positive("shallow concentrated flow: length L", length_m, Unit::m);
+    detail::require_positive("shallow concentrated flow: slope s", slope_m_per_m, Unit::m_per_m);
     WithLines<double> out{};
     const bool paved = surface == ShallowSurface::paved;
     const double k_us = paved ? 20.3282 : 16.1345;
-    const std::string what = paved ? "paved" : "unpaved";
-    const std::string src = "TR-55 (1986) App. F, " + what + " (from memory, not checked)";
-    double v = 0.0;
-    double l = 0.0;
-    std::string vu;
-    std::string lu;
-    if (system == System::us_customary) {
-        v = k_us * std::sqrt(slope_m_per_m);
-        l = units::m_to_ft(length_m);
-        vu = "ft/s";
-        lu = "ft";
-        out.lines.calc("Velocity, shallow concentrated flow (" + what + ")",
-                       fmt::format("V = {} s^0.5", sig(k_us, 6)),
-                       fmt::format("V = {} x {}^0.5", sig(k_us, 6), sig(slope_m_per_m)), v, vu,
-                       src);
-    } else {
-        const double k_si = k_us * units::m_per_ft;
-        v = k_si * std::sqrt(slope_m_per_m);
-        l = length_m;
-        vu = "m/s";
-        lu = "m";
-        out.lines.calc("Velocity, shallow concentrated flow (" + what + ")",
-                       fmt::format("V = {} x 0.3048 s^0.5", sig(k_us, 6)),
-                       fmt::format("V = {} x 0.3048 x {}^0.5", sig(k_us, 6), sig(slope_m_per_m)), v,
-                       vu, src + "; SI form computed with 1 ft = 0.3048 m");
-    }
-    const double tt_h = l / (3600.0 * v);
-    out.lines.calc("Travel time, shallow concentrated flow", "Tt = L / (3600 V)",
-                   fmt::format("Tt = {} {} / (3600 x {} {})", sig(l), lu, sig(v), vu), tt_h, "h",
-                   "TR-55 (1986) eq. 3-1");
-    out.value = units::h_to_min(tt_h);
+    const bool us = detail::is_us(system);
+    const double v =
+        us ? k_us * std::sqrt(slope_m_per_m) : k_us * units::m_per_ft * std::sqrt(slope_m_per_m);
+    out.lines.calc(us ? shallow_velocity_us : shallow_velocity_si,
+                   {word("surface", paved ? "paved" : "unpaved"),
+                    qty("k", k_us, Unit::none, Shown::sig(6)),
+                    qty("s", slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m)},
+                   qty("V", v, us ? Unit::ft_per_s : Unit::m_per_s));
+    const double l = us ? units::m_to_ft(length_m) : length_m;
+    out.value = units::h_to_min(travel_time_line(out.lines, shallow_travel_time, l, v, system));
     return out;
 }
 
 WithLines<double> channel_flow_tt_min(double manning_n, double flow_area_m2,
                                       double wetted_perimeter_m, double slope_m_per_m,
                                       double length_m, System system) {
-    detail::require_positive("channel flow: Manning roughness n", manning_n, "");
-    detail::require_positive("channel flow: flow area a", flow_area_m2, "m2");
-    detail::require_positive("channel flow: wetted perimeter pw", wetted_perimeter_m, "m");
-    detail::require_positive("channel flow: slope s", slope_m_per_m, "m/m");
-    detail::require_positive("channel flow: length L", length_m, "m");
+    detail::require_positive("channel flow: Manning roughness n", manning_n);
+    detail::require_positive("channel flow: flow area a", flow_area_m2, Unit::m2);
+    detail::require_positive("channel flow: wetted perimeter pw", wetted_perimeter_m, Unit::m);
+    detail::require_positive("channel flow: slope s", slope_m_per_m, Unit::m_per_m);
+    detail::require_positive("channel flow: length L", length_m, Unit::m);
     WithLines<double> out{};
-    const bool us = system == System::us_customary;
+    const bool us = detail::is_us(system);
     const double a = us ? units::m2_to_ft2(flow_area_m2) : flow_area_m2;
     const double pw = us ? units::m_to_ft(wetted_perimeter_m) : wetted_perimeter_m;
     const double l = us ? units::m_to_ft(length_m) : length_m;
-    const std::string lu = us ? "ft" : "m";
-    const std::string vu = us ? "ft/s" : "m/s";
+    const Unit lu = detail::length_unit(system);
     const double r = a / pw;
-    out.lines.calc("Hydraulic radius", "r = a / pw",
-                   fmt::format("r = {} {}2 / {} {}", sig(a), lu, sig(pw), lu), r, lu,
-                   "TR-55 (1986) ch. 3");
+    out.lines.calc(hydraulic_radius, {qty("a", a, us ? Unit::ft2 : Unit::m2), qty("pw", pw, lu)},
+                   qty("r", r, lu));
     const double k = us ? 1.49 : 1.0;
     const double v = k / manning_n * std::pow(r, 2.0 / 3.0) * std::sqrt(slope_m_per_m);
-    out.lines.calc("Velocity, channel flow (Manning)",
-                   us ? "V = 1.49 r^(2/3) s^(1/2) / n" : "V = r^(2/3) s^(1/2) / n",
-                   us ? fmt::format("V = 1.49 x {}^(2/3) x {}^(1/2) / {}", sig(r),
-                                    sig(slope_m_per_m), sig(manning_n))
-                      : fmt::format("V = {}^(2/3) x {}^(1/2) / {}", sig(r), sig(slope_m_per_m),
-                                    sig(manning_n)),
-                   v, vu, "Manning's equation; TR-55 (1986) eq. 3-4");
-    const double tt_h = l / (3600.0 * v);
-    out.lines.calc("Travel time, channel flow", "Tt = L / (3600 V)",
-                   fmt::format("Tt = {} {} / (3600 x {} {})", sig(l), lu, sig(v), vu), tt_h, "h",
-                   "TR-55 (1986) eq. 3-1");
-    out.value = units::h_to_min(tt_h);
+    out.lines.calc(us ? manning_us : manning_si,
+                   {qty("r", r, lu), qty("s", slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m),
+                    qty("n", manning_n)},
+                   qty("V", v, us ? Unit::ft_per_s : Unit::m_per_s));
+    out.value = units::h_to_min(travel_time_line(out.lines, channel_travel_time, l, v, system));
     return out;
 }
 
 WithLines<double> kerby_tov_min(double length_m, double retardance_n, double slope_m_per_m,
                                 System system) {
-    detail::require_positive("Kerby: overland flow length L", length_m, "m");
-    detail::require_positive("Kerby: retardance coefficient N", retardance_n, "");
-    detail::require_positive("Kerby: slope S", slope_m_per_m, "m/m");
+    detail::require_positive("Kerby: overland flow length L", length_m, Unit::m);
+    detail::require_positive("Kerby: retardance coefficient N", retardance_n);
+    detail::require_positive("Kerby: slope S", slope_m_per_m, Unit::m_per_m);
     WithLines<double> out{};
-    const bool us = system == System::us_customary;
+    const bool us = detail::is_us(system);
     const double l = us ? units::m_to_ft(length_m) : length_m;
     const double k = us ? 0.828 : 1.44;
     const double tov = k * std::pow(l * retardance_n / std::sqrt(slope_m_per_m), 0.467);
-    out.lines.calc("Overland flow time, Kerby",
-                   us ? "tov = 0.828 (L N / S^0.5)^0.467 (L ft)"
-                      : "tov = 1.44 (L N / S^0.5)^0.467 (L m)",
-                   fmt::format("tov = {} x ({} x {} / {}^0.5)^0.467", sig(k), sig(l),
-                               sig(retardance_n), sig(slope_m_per_m)),
-                   tov, "min",
-                   us ? "Kerby (1959), as given in the TxDOT Hydraulic Design Manual ch. 4"
-                      : "Kerby (1959), SI form (constant 1.44 from memory, not checked against "
-                        "the source)");
+    const Unit lu = detail::length_unit(system);
+    out.lines.calc(us ? kerby_us : kerby_si,
+                   {qty("L", l, lu), qty("N", retardance_n),
+                    qty("S", slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m)},
+                   qty("tov", tov, Unit::min));
     const double l_ft = units::m_to_ft(length_m);
     if (l_ft > 1200.0) {
-        out.lines.warn(
-            "Kerby: overland flow length over the limit",
-            us ? fmt::format("overland flow length {} ft exceeds about 1200 ft", sig(l_ft))
-               : fmt::format("overland flow length {} m exceeds about 365.8 m", sig(length_m)),
-            "Kerby method limit about 1200 ft (from memory, not checked against the "
-            "source)");
+        out.lines.warn(kerby_too_long, {qty("L", us ? l_ft : length_m, lu),
+                                        qty("Lmax", us ? 1200.0 : units::ft_to_m(1200.0), lu)});
     }
     out.value = tov;
     return out;
@@ -292,34 +314,31 @@ WithLines<double> sum_travel_times_min(const std::vector<double> &times_min, Sys
                           "at least one segment");
     }
     WithLines<double> out{};
-    const bool us = system == System::us_customary;
+    const bool us = detail::is_us(system);
+    const Unit tu = us ? Unit::h : Unit::min;
     double sum_min = 0.0;
-    std::string terms;
+    std::vector<std::vector<Quantity>> rows;
     for (double t : times_min) {
-        detail::require_non_negative("time of concentration: travel time", t, "min");
+        detail::require_non_negative("time of concentration: travel time", t, Unit::min);
         sum_min += t;
-        terms += (terms.empty() ? "" : " + ") + sig(us ? units::min_to_h(t) : t);
+        rows.push_back({qty("Tt", us ? units::min_to_h(t) : t, tu)});
     }
-    out.lines.calc("Time of concentration, sum of travel times", "tc = sum of Tt", "tc = " + terms,
-                   us ? units::min_to_h(sum_min) : sum_min, us ? "h" : "min", "TR-55 (1986) ch. 3");
+    out.lines.calc(tc_sum, {}, qty("tc", us ? units::min_to_h(sum_min) : sum_min, tu)).rows =
+        std::move(rows);
     out.value = sum_min;
     return out;
 }
 
 WithLines<double> apply_minimum_tc(double tc_min, double minimum_tc_min) {
-    detail::require_positive("time of concentration tc", tc_min, "min");
-    detail::require_non_negative("minimum time of concentration", minimum_tc_min, "min");
+    detail::require_positive("time of concentration tc", tc_min, Unit::min);
+    detail::require_non_negative("minimum time of concentration", minimum_tc_min, Unit::min);
     WithLines<double> out{};
     out.value = std::max(tc_min, minimum_tc_min);
-    out.lines.calc("Time of concentration, minimum applied", "tc = max(tc, tc,min)",
-                   fmt::format("tc = max({}, {})", sig(tc_min), sig(minimum_tc_min)), out.value,
-                   "min", "project setting: minimum tc (common practice, no source)");
+    const std::vector<Quantity> inputs = {qty("tc", tc_min, Unit::min),
+                                          qty("tc,min", minimum_tc_min, Unit::min)};
+    out.lines.calc(tc_minimum, inputs, qty("tc", out.value, Unit::min));
     if (tc_min < minimum_tc_min) {
-        out.lines.note("Minimum tc governs",
-                       fmt::format("computed tc {} min is below the minimum {} min; the minimum "
-                                   "is used",
-                                   sig(tc_min), sig(minimum_tc_min)),
-                       "project setting");
+        out.lines.note(tc_minimum_governs, inputs).flags.minimum_governs = true;
     }
     return out;
 }

@@ -2,8 +2,7 @@
 #include "catchpeak/hydro/unit_hydrograph.hpp"
 
 #include "checks.hpp"
-
-#include <fmt/format.h>
+#include "sheet.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -14,16 +13,220 @@ using units::System;
 
 namespace {
 
-constexpr const char *neh16 = "NRCS NEH 630 ch. 16 (2007)";
+// clang-format off
+constexpr Formula duration_aggregated{"uh.duration_aggregated",
+    "Unit hydrograph duration (hyetograph steps aggregated)", "D = k dt, k = floor({f} tc / dt)",
+    "D = {k} x {dt} {dt:u}", Ref::none, "NRCS NEH 630 ch. 16 (2007): D about 0.133 tc (from memory)"};
+constexpr Formula duration_split{"uh.duration_split",
+    "Unit hydrograph duration (hyetograph steps split evenly)",
+    "D = dt / m, m = ceil(dt / ({f} tc))", "D = {dt} {dt:u} / {m}", Ref::none,
+    "NRCS NEH 630 ch. 16 (2007): D about 0.133 tc (from memory); excess spread evenly over each "
+    "step"};
+constexpr Formula unit_time_to_peak{"uh.unit_time_to_peak", "Time to peak of the unit hydrograph",
+    "tp = D/2 + 0.6 tc", "tp = {D}/2 + 0.6 x {tc}", Ref::none,
+    "NRCS NEH 630 ch. 16 (2007): tp = D/2 + L, lag L = 0.6 tc"};
+constexpr Formula duration_too_long{"uh.duration_too_long", "Unit hydrograph duration too long", "",
+    "D = {D} {D:u} exceeds 0.25 tp = {tp/4} {tp/4:u}; the peak may be underestimated, use a finer "
+    "hyetograph", Ref::none, "NRCS NEH 630 ch. 16 (2007): D <= 0.25 tp (from memory)"};
+constexpr Formula unit_peak_us{"uh.unit_peak_us", "Unit hydrograph peak per inch of runoff",
+    "qp = 484 A Q / tp (Q = 1 in)", "qp = 484 x {A} x 1 / {tp}", Ref::none,
+    "NRCS NEH 630 ch. 16 (2007), peak rate factor 484"};
+constexpr Formula unit_peak_si{"uh.unit_peak_si", "Unit hydrograph peak per mm of runoff",
+    "qp = 0.208 A Q / tp (Q = 1 mm)", "qp = 0.208 x {A} x 1 / {tp}", Ref::none,
+    "NRCS NEH 630 ch. 16 (2007), SI form 2.08 A Q / tp with Q in cm, i.e. 0.208 with Q in mm"};
+constexpr Formula runoff_sum{"uh.runoff", "Runoff depth (sum of excess)", "Q = sum of excess",
+    "Q = {Q} {Q:u}", Ref::tr55_1986, " eq. 2-1 on the cumulative rainfall"};
+constexpr Formula peak{keys::uh_peak, "Peak flow, SCS unit hydrograph",
+    "qp = max over t of sum_k Qk U(t - k D)",
+    "convolution of {n} steps of excess with {m} unit hydrograph ordinates at D = {D} {D:u}",
+    Ref::none, "{table}"};
+constexpr Formula time_to_peak{"uh.time_to_peak", "Time to peak of the hydrograph",
+    "t at the largest ordinate", "t = {i} x {D} {D:u}", Ref::none, "computed from the hydrograph"};
+constexpr Formula volume_us{"uh.volume_us", "Hydrograph volume", "V = sum(q) D / 43560",
+    "V = {sum(q)} {sum(q):u} x {D} {D:u} / 43560", Ref::none, "computed from the hydrograph"};
+constexpr Formula volume_si{"uh.volume_si", "Hydrograph volume", "V = sum(q) D",
+    "V = {sum(q)} {sum(q):u} x {D} {D:u}", Ref::none, "computed from the hydrograph"};
+constexpr Formula rainfall_excess{"uh.rainfall_excess", "Rainfall excess", "",
+    "excess per step = runoff of the cumulative rainfall (CN {CN}) minus that of the step before; "
+    "{n} steps of {dt} {dt:u}, rainfall {P} {P:u}", Ref::tr55_1986, " eq. 2-1 on the mass curve"};
+// clang-format on
+
+Quantity count(std::string symbol, std::size_t n) {
+    return qty(std::move(symbol), static_cast<double>(n), Unit::none, Shown::integer());
+}
 
 void check_hyetograph(const rain::Hyetograph &h, const std::string &what) {
-    detail::require_positive(what + ": time step", h.step_s, "s");
+    detail::require_positive(what + ": time step", h.step_s, Unit::s);
     if (h.depth_mm.empty()) {
         throw_input_error(what, "no time steps", "at least one step");
     }
     for (double d : h.depth_mm) {
-        detail::require_non_negative(what + ": depth of a step", d, "mm");
+        detail::require_non_negative(what + ": depth of a step", d, Unit::mm);
     }
+}
+
+void check_inputs(const DimensionlessUnitHydrograph &table, const rain::Hyetograph &excess,
+                  double area_m2, double tc_min, const UnitHydrographSettings &settings) {
+    check_hyetograph(excess, "excess hyetograph");
+    detail::require_positive("unit hydrograph: catchment area", area_m2, Unit::m2);
+    detail::require_positive("unit hydrograph: time of concentration tc", tc_min, Unit::min);
+    detail::require_positive("unit hydrograph: step as a fraction of tc",
+                             settings.step_fraction_of_tc);
+    if (table.t_over_tp.size() < 2 || table.t_over_tp.size() != table.q_over_qp.size()) {
+        throw_input_error("dimensionless unit hydrograph " + table.origin.file,
+                          "fewer than 2 ordinates or columns of unequal length",
+                          "at least 2 (t/tp, q/qp) pairs");
+    }
+}
+
+/// The excess at the unit hydrograph's duration D.
+struct ExcessAtD {
+    double d_s = 0.0;         ///< D
+    std::vector<double> e_mm; ///< excess per step of D
+};
+
+/// Aggregates or splits the hyetograph's steps so that D <= fraction x tc.
+ExcessAtD excess_at_duration(CalcLines &lines, const rain::Hyetograph &excess, double tc_min,
+                             double fraction) {
+    const double d_max_s = fraction * units::min_to_s(tc_min);
+    const double step_in_s = excess.step_s;
+    const double step_in_h = step_in_s / units::s_per_h;
+    ExcessAtD out;
+    const Quantity f = qty("f", fraction);
+    const Quantity dt = qty("dt", step_in_h, Unit::h);
+    if (step_in_s <= d_max_s) {
+        const auto k = static_cast<std::size_t>(std::floor(d_max_s / step_in_s));
+        out.d_s = static_cast<double>(k) * step_in_s;
+        out.e_mm.assign((excess.steps() + k - 1) / k, 0.0);
+        for (std::size_t i = 0; i < excess.steps(); ++i) {
+            out.e_mm[i / k] += excess.depth_mm[i];
+        }
+        lines.calc(duration_aggregated, {f, count("k", k), dt},
+                   qty("D", out.d_s / units::s_per_h, Unit::h));
+    } else {
+        const auto m = static_cast<std::size_t>(std::ceil(step_in_s / d_max_s));
+        out.d_s = step_in_s / static_cast<double>(m);
+        out.e_mm.reserve(excess.steps() * m);
+        for (double d : excess.depth_mm) {
+            for (std::size_t j = 0; j < m; ++j) {
+                out.e_mm.push_back(d / static_cast<double>(m));
+            }
+        }
+        lines.calc(duration_split, {f, dt, count("m", m)},
+                   qty("D", out.d_s / units::s_per_h, Unit::h));
+    }
+    return out;
+}
+
+/// tp = D/2 + 0.6 tc, with a warning when D > 0.25 tp.
+double unit_hydrograph_tp_h(CalcLines &lines, double d_h, double tc_min) {
+    const double tc_h = units::min_to_h(tc_min);
+    const double tp_h = d_h / 2.0 + 0.6 * tc_h;
+    lines.calc(unit_time_to_peak, {qty("D", d_h, Unit::h), qty("tc", tc_h, Unit::h)},
+               qty("tp", tp_h, Unit::h));
+    if (d_h > 0.25 * tp_h * (1.0 + 1e-12)) {
+        lines.warn(duration_too_long, {qty("D", d_h, Unit::h), qty("tp/4", 0.25 * tp_h, Unit::h)});
+    }
+    return tp_h;
+}
+
+/// The unit peak per unit runoff in the sheet's published form: ft3/s per in (US) or m3/s
+/// per mm (SI).
+double unit_peak_per_runoff(CalcLines &lines, double area_m2, double tp_h, System system) {
+    const Quantity tp = qty("tp", tp_h, Unit::h);
+    if (detail::is_us(system)) {
+        const double a_mi2 = units::m2_to_mi2(area_m2);
+        const double qpu = 484.0 * a_mi2 / tp_h;
+        lines.calc(unit_peak_us, {qty("A", a_mi2, Unit::mi2), tp},
+                   qty("qp", qpu, Unit::ft3_per_s_per_in));
+        return qpu;
+    }
+    const double a_km2 = units::m2_to_km2(area_m2);
+    const double qpu = 0.208 * a_km2 / tp_h;
+    lines.calc(unit_peak_si, {qty("A", a_km2, Unit::km2), tp},
+               qty("qp", qpu, Unit::m3_per_s_per_mm));
+    return qpu;
+}
+
+/// Unit hydrograph ordinates at steps of D (until the table's end).
+std::vector<double> unit_ordinates(const DimensionlessUnitHydrograph &table, double qpu, double d_h,
+                                   double tp_h) {
+    const double t_end = table.t_over_tp.back();
+    std::vector<double> u;
+    for (std::size_t j = 0;; ++j) {
+        const double x = static_cast<double>(j) * d_h / tp_h;
+        if (x >= t_end) {
+            break;
+        }
+        u.push_back(qpu * table.ratio_at(x));
+    }
+    return u;
+}
+
+/// The discrete convolution of the excess (in the sheet's unit) with the ordinates.
+std::vector<double> convolve(const std::vector<double> &e_mm, const std::vector<double> &u,
+                             System system) {
+    const double per_mm = detail::is_us(system) ? 1.0 / units::mm_per_in : 1.0;
+    std::vector<double> flow(e_mm.size() + u.size(), 0.0);
+    for (std::size_t k = 0; k < e_mm.size(); ++k) {
+        const double e = e_mm[k] * per_mm;
+        if (e == 0.0) {
+            continue;
+        }
+        for (std::size_t j = 0; j < u.size(); ++j) {
+            flow[k + j] += e * u[j];
+        }
+    }
+    return flow;
+}
+
+/// The hydrograph of the flows in the sheet's unit, with the lines of its peak, time to peak,
+/// runoff and volume.
+Hydrograph hydrograph_of(CalcLines &lines, const std::vector<double> &flow, const ExcessAtD &x,
+                         std::size_t ordinates, double tp_h, const std::string &table,
+                         System system) {
+    const bool us = detail::is_us(system);
+    Hydrograph h;
+    h.step_s = x.d_s;
+    h.tp_h = tp_h;
+    h.flow_m3_s.reserve(flow.size());
+    double sheet_peak = 0.0;
+    std::size_t i_peak = 0;
+    for (std::size_t i = 0; i < flow.size(); ++i) {
+        h.flow_m3_s.push_back(us ? units::cfs_to_m3s(flow[i]) : flow[i]);
+        if (flow[i] > sheet_peak) {
+            sheet_peak = flow[i];
+            i_peak = i;
+        }
+    }
+    h.peak_m3_s = us ? units::cfs_to_m3s(sheet_peak) : sheet_peak;
+    h.time_to_peak_s = static_cast<double>(i_peak) * x.d_s;
+    double sum_q = 0.0;
+    for (double q : h.flow_m3_s) {
+        sum_q += q;
+    }
+    h.volume_m3 = sum_q * x.d_s;
+    for (double e : x.e_mm) {
+        h.runoff_mm += e;
+    }
+    const double d_h = x.d_s / units::s_per_h;
+    const Quantity d = qty("D", d_h, Unit::h);
+    const Unit qu = detail::flow_unit(system);
+    lines.calc(runoff_sum, {},
+               qty("Q", detail::sheet_depth(h.runoff_mm, system), detail::depth_unit(system)));
+    lines.calc(peak, {count("n", x.e_mm.size()), count("m", ordinates), d, word("table", table)},
+               qty("qp", sheet_peak, qu));
+    lines.calc(time_to_peak, {count("i", i_peak), d},
+               qty("t", h.time_to_peak_s / units::s_per_h, Unit::h));
+    const Quantity ds = qty("D", x.d_s, Unit::s);
+    if (us) {
+        const double v_ft3 = h.volume_m3 / (units::m_per_ft * units::m_per_ft * units::m_per_ft);
+        lines.calc(volume_us, {qty("sum(q)", units::m3s_to_cfs(sum_q), qu), ds},
+                   qty("V", v_ft3 / 43560.0, Unit::ac_ft));
+    } else {
+        lines.calc(volume_si, {qty("sum(q)", sum_q, qu), ds}, qty("V", h.volume_m3, Unit::m3));
+    }
+    return h;
 }
 
 } // namespace
@@ -49,160 +252,15 @@ WithLines<Hydrograph> unit_hydrograph_from_excess(const DimensionlessUnitHydrogr
                                                   const rain::Hyetograph &excess, double area_m2,
                                                   double tc_min, System system,
                                                   const UnitHydrographSettings &settings) {
-    check_hyetograph(excess, "excess hyetograph");
-    detail::require_positive("unit hydrograph: catchment area", area_m2, "m2");
-    detail::require_positive("unit hydrograph: time of concentration tc", tc_min, "min");
-    detail::require_positive("unit hydrograph: step as a fraction of tc",
-                             settings.step_fraction_of_tc, "");
-    if (table.t_over_tp.size() < 2 || table.t_over_tp.size() != table.q_over_qp.size()) {
-        throw_input_error("dimensionless unit hydrograph " + table.origin.file,
-                          "fewer than 2 ordinates or columns of unequal length",
-                          "at least 2 (t/tp, q/qp) pairs");
-    }
-    const bool us = system == System::us_customary;
-    const std::string table_src = table.origin.cite();
+    check_inputs(table, excess, area_m2, tc_min, settings);
     WithLines<Hydrograph> out{};
-
-    // Duration D: aggregate or split the hyetograph's steps so that D <= fraction x tc.
-    const double tc_s = units::min_to_s(tc_min);
-    const double d_max_s = settings.step_fraction_of_tc * tc_s;
-    const double step_in_s = excess.step_s;
-    std::vector<double> e_mm;
-    double d_s = 0.0;
-    const double step_in_h = step_in_s / units::s_per_h;
-    if (step_in_s <= d_max_s) {
-        const auto k = static_cast<std::size_t>(std::floor(d_max_s / step_in_s));
-        d_s = static_cast<double>(k) * step_in_s;
-        e_mm.assign((excess.steps() + k - 1) / k, 0.0);
-        for (std::size_t i = 0; i < excess.steps(); ++i) {
-            e_mm[i / k] += excess.depth_mm[i];
-        }
-        out.lines.calc(
-            "Unit hydrograph duration (hyetograph steps aggregated)",
-            fmt::format("D = k dt, k = floor({} tc / dt)", sig(settings.step_fraction_of_tc)),
-            fmt::format("D = {} x {} h", k, sig(step_in_h)), d_s / units::s_per_h, "h",
-            std::string(neh16) + ": D about 0.133 tc (from memory)");
-    } else {
-        const auto m = static_cast<std::size_t>(std::ceil(step_in_s / d_max_s));
-        d_s = step_in_s / static_cast<double>(m);
-        e_mm.reserve(excess.steps() * m);
-        for (double d : excess.depth_mm) {
-            for (std::size_t j = 0; j < m; ++j) {
-                e_mm.push_back(d / static_cast<double>(m));
-            }
-        }
-        out.lines.calc(
-            "Unit hydrograph duration (hyetograph steps split evenly)",
-            fmt::format("D = dt / m, m = ceil(dt / ({} tc))", sig(settings.step_fraction_of_tc)),
-            fmt::format("D = {} h / {}", sig(step_in_h), m), d_s / units::s_per_h, "h",
-            std::string(neh16) +
-                ": D about 0.133 tc (from memory); excess spread evenly over each step");
-    }
-    const double d_h = d_s / units::s_per_h;
-    const double tc_h = units::min_to_h(tc_min);
-    const double tp_h = d_h / 2.0 + 0.6 * tc_h;
-    out.lines.calc("Time to peak of the unit hydrograph", "tp = D/2 + 0.6 tc",
-                   fmt::format("tp = {}/2 + 0.6 x {}", sig(d_h), sig(tc_h)), tp_h, "h",
-                   std::string(neh16) + ": tp = D/2 + L, lag L = 0.6 tc");
-    if (d_h > 0.25 * tp_h * (1.0 + 1e-12)) {
-        out.lines.warn("Unit hydrograph duration too long",
-                       fmt::format("D = {} h exceeds 0.25 tp = {} h; the peak may be "
-                                   "underestimated, use a finer hyetograph",
-                                   sig(d_h), sig(0.25 * tp_h)),
-                       std::string(neh16) + ": D <= 0.25 tp (from memory)");
-    }
-
-    // Unit peak per unit runoff, in the sheet's published form.
-    double qpu = 0.0; // ft3/s per in (US) or m3/s per mm (SI)
-    if (us) {
-        const double a_mi2 = units::m2_to_mi2(area_m2);
-        qpu = 484.0 * a_mi2 / tp_h;
-        out.lines.calc("Unit hydrograph peak per inch of runoff", "qp = 484 A Q / tp (Q = 1 in)",
-                       fmt::format("qp = 484 x {} x 1 / {}", sig(a_mi2), sig(tp_h)), qpu,
-                       "ft3/s per in", std::string(neh16) + ", peak rate factor 484");
-    } else {
-        const double a_km2 = units::m2_to_km2(area_m2);
-        qpu = 0.208 * a_km2 / tp_h;
-        out.lines.calc(
-            "Unit hydrograph peak per mm of runoff", "qp = 0.208 A Q / tp (Q = 1 mm)",
-            fmt::format("qp = 0.208 x {} x 1 / {}", sig(a_km2), sig(tp_h)), qpu, "m3/s per mm",
-            std::string(neh16) + ", SI form 2.08 A Q / tp with Q in cm, i.e. 0.208 with Q "
-                                 "in mm");
-    }
-
-    // Unit hydrograph ordinates at steps of D, and the discrete convolution.
-    const double t_end = table.t_over_tp.back();
-    std::vector<double> u;
-    for (std::size_t j = 0;; ++j) {
-        const double x = static_cast<double>(j) * d_h / tp_h;
-        if (x >= t_end) {
-            break;
-        }
-        u.push_back(qpu * table.ratio_at(x));
-    }
-    const double per_mm = us ? 1.0 / units::mm_per_in : 1.0; // excess in the sheet's unit
-    std::vector<double> flow(e_mm.size() + u.size(), 0.0);
-    for (std::size_t k = 0; k < e_mm.size(); ++k) {
-        const double e = e_mm[k] * per_mm;
-        if (e == 0.0) {
-            continue;
-        }
-        for (std::size_t j = 0; j < u.size(); ++j) {
-            flow[k + j] += e * u[j];
-        }
-    }
-    Hydrograph h;
-    h.step_s = d_s;
-    h.tp_h = tp_h;
-    h.flow_m3_s.reserve(flow.size());
-    double sheet_peak = 0.0;
-    std::size_t i_peak = 0;
-    for (std::size_t i = 0; i < flow.size(); ++i) {
-        h.flow_m3_s.push_back(us ? units::cfs_to_m3s(flow[i]) : flow[i]);
-        if (flow[i] > sheet_peak) {
-            sheet_peak = flow[i];
-            i_peak = i;
-        }
-    }
-    h.peak_m3_s = us ? units::cfs_to_m3s(sheet_peak) : sheet_peak;
-    h.time_to_peak_s = static_cast<double>(i_peak) * d_s;
-    double sum_q = 0.0;
-    for (double q : h.flow_m3_s) {
-        sum_q += q;
-    }
-    h.volume_m3 = sum_q * d_s;
-    for (double e : e_mm) {
-        h.runoff_mm += e;
-    }
-
-    const std::string conv =
-        fmt::format("convolution of {} steps of excess with {} unit hydrograph ordinates at "
-                    "D = {} h",
-                    e_mm.size(), u.size(), sig(d_h));
-    const std::string q_total =
-        us ? sig(units::mm_to_in(h.runoff_mm)) + " in" : sig(h.runoff_mm) + " mm";
-    out.lines.calc("Runoff depth (sum of excess)", "Q = sum of excess", "Q = " + q_total,
-                   us ? units::mm_to_in(h.runoff_mm) : h.runoff_mm, us ? "in" : "mm",
-                   "TR-55 (1986) eq. 2-1 on the cumulative rainfall");
-    out.lines
-        .calc("Peak flow, SCS unit hydrograph", "qp = max over t of sum_k Qk U(t - k D)", conv,
-              sheet_peak, us ? "ft3/s" : "m3/s", table_src)
-        .key = keys::uh_peak;
-    out.lines.calc("Time to peak of the hydrograph", "t at the largest ordinate",
-                   fmt::format("t = {} x {} h", i_peak, sig(d_h)),
-                   h.time_to_peak_s / units::s_per_h, "h", "computed from the hydrograph");
-    if (us) {
-        const double v_ft3 = h.volume_m3 / (units::m_per_ft * units::m_per_ft * units::m_per_ft);
-        out.lines.calc(
-            "Hydrograph volume", "V = sum(q) D / 43560",
-            fmt::format("V = {} ft3/s x {} s / 43560", sig(units::m3s_to_cfs(sum_q)), sig(d_s)),
-            v_ft3 / 43560.0, "ac-ft", "computed from the hydrograph");
-    } else {
-        out.lines.calc("Hydrograph volume", "V = sum(q) D",
-                       fmt::format("V = {} m3/s x {} s", sig(sum_q), sig(d_s)), h.volume_m3, "m3",
-                       "computed from the hydrograph");
-    }
-    out.value = std::move(h);
+    const ExcessAtD x = excess_at_duration(out.lines, excess, tc_min, settings.step_fraction_of_tc);
+    const double d_h = x.d_s / units::s_per_h;
+    const double tp_h = unit_hydrograph_tp_h(out.lines, d_h, tc_min);
+    const double qpu = unit_peak_per_runoff(out.lines, area_m2, tp_h, system);
+    const std::vector<double> u = unit_ordinates(table, qpu, d_h, tp_h);
+    const std::vector<double> flow = convolve(x.e_mm, u, system);
+    out.value = hydrograph_of(out.lines, flow, x, u.size(), tp_h, table.origin.cite(), system);
     return out;
 }
 
@@ -214,14 +272,10 @@ WithLines<Hydrograph> unit_hydrograph_from_rainfall(const DimensionlessUnitHydro
     const rain::Hyetograph excess = excess_hyetograph(rainfall, cn, ratio);
     auto out = unit_hydrograph_from_excess(table, excess, area_m2, tc_min, system, settings);
     CalcLines lines;
-    lines.note("Rainfall excess",
-               fmt::format("excess per step = runoff of the cumulative rainfall (CN {}) minus that "
-                           "of the step before; {} steps of {} min, rainfall {}",
-                           sig(cn), rainfall.steps(), sig(rainfall.step_s / 60.0),
-                           system == System::us_customary
-                               ? sig(units::mm_to_in(rainfall.total_mm())) + " in"
-                               : sig(rainfall.total_mm()) + " mm"),
-               "TR-55 (1986) eq. 2-1 on the mass curve");
+    lines.note(
+        rainfall_excess,
+        {qty("CN", cn), count("n", rainfall.steps()), qty("dt", rainfall.step_s / 60.0, Unit::min),
+         qty("P", detail::sheet_depth(rainfall.total_mm(), system), detail::depth_unit(system))});
     lines.append(out.lines);
     out.lines = std::move(lines);
     return out;

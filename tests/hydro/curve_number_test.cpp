@@ -23,7 +23,9 @@ TEST(CnRunoff, NoRunoffBelowInitialAbstraction) {
     const auto r = h::cn_runoff(u::in_to_mm(1.5), 50.0, System::us_customary);
     EXPECT_DOUBLE_EQ(r.value.runoff_mm, 0.0);
     EXPECT_NEAR(u::mm_to_in(r.value.ia_mm), 2.0, 1e-12);
-    EXPECT_EQ(catchpeak::test::text(r.lines.lines().back()).symbols, "Q = 0 for P <= Ia");
+    EXPECT_EQ(catchpeak::test::text(catchpeak::test::line_keyed(r.lines, "cn.runoff_none")).symbols,
+              "Q = 0 for P <= Ia");
+    EXPECT_FALSE(r.lines.has("cn.runoff"));
 }
 
 TEST(CnRunoff, Cn100RunsOffEverything) {
@@ -33,7 +35,7 @@ TEST(CnRunoff, Cn100RunsOffEverything) {
 
 TEST(CnRunoff, SiSheetShowsTheMillimetreForm) {
     const auto r = h::cn_runoff(100.0, 80.0, System::si);
-    const auto &l = r.lines.lines().front();
+    const auto &l = catchpeak::test::line_keyed(r.lines, "cn.retention_si");
     EXPECT_EQ(catchpeak::test::text(l).symbols, "S = 25400/CN - 254");
     EXPECT_NEAR(l.value(), 25400.0 / 80.0 - 254.0, 1e-12);
     EXPECT_EQ(catchpeak::test::text(l).unit, "mm");

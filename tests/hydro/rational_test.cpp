@@ -57,11 +57,10 @@ TEST(Rational, SheetsDifferOnlyByTheRounded1008) {
 TEST(Rational, CfCIsCappedAtOne) {
     const auto r = h::rational_peak_m3_s(0.95, 1.25, 100.0, u::ha_to_m2(1.0), System::si);
     EXPECT_NEAR(r.value, 1.0 * 100.0 * 1.0 / 360.0, 1e-12);
-    bool capped = false;
-    for (const auto &l : r.lines.lines()) {
-        capped = capped || catchpeak::test::text(l).label.find("capped") != std::string::npos;
-    }
-    EXPECT_TRUE(capped);
+    const auto &capped = catchpeak::test::line_keyed(r.lines, "rational.cf_c_capped");
+    EXPECT_TRUE(capped.flags.capped);
+    EXPECT_NE(catchpeak::test::text(capped).label.find("capped"), std::string::npos);
+    EXPECT_DOUBLE_EQ(capped.value(), 1.0);
     const auto uncapped = h::rational_peak_m3_s(0.5, 1.25, 100.0, u::ha_to_m2(1.0), System::si);
     EXPECT_EQ(uncapped.lines.size(), 2u);
 }

@@ -35,7 +35,7 @@ TEST(Kirpich, UsSheetShowsThePublishedUsForm) {
     const auto r =
         h::kirpich_tc_min(u::ft_to_m(1000.0), 0.05, u::acre_to_m2(20.0), System::us_customary);
     ASSERT_FALSE(r.lines.empty());
-    const auto &l = r.lines.lines().front();
+    const auto &l = catchpeak::test::line_keyed(r.lines, "tc.kirpich_us");
     EXPECT_EQ(catchpeak::test::text(l).symbols, "tc = 0.0078 L^0.77 S^-0.385 (L ft)");
     EXPECT_EQ(catchpeak::test::text(l).numbers, "tc = 0.0078 x 1000^0.77 x 0.05000^-0.385");
     EXPECT_EQ(catchpeak::test::text(l).unit, "min");
@@ -46,7 +46,7 @@ TEST(Kirpich, UsSheetShowsThePublishedUsForm) {
 
 TEST(Kirpich, SiSheetShowsThePublishedSiForm) {
     const auto r = h::kirpich_tc_min(300.0, 0.05, u::ha_to_m2(8.0), System::si);
-    const auto &l = r.lines.lines().front();
+    const auto &l = catchpeak::test::line_keyed(r.lines, "tc.kirpich_si");
     EXPECT_EQ(catchpeak::test::text(l).symbols, "tc = 0.0195 L^0.77 S^-0.385 (L m)");
     EXPECT_EQ(catchpeak::test::text(l).numbers, "tc = 0.0195 x 300.0^0.77 x 0.05000^-0.385");
     EXPECT_NEAR(r.value, 0.0195 * std::pow(300.0, 0.77) * std::pow(0.05, -0.385), 1e-9);

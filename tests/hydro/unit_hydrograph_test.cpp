@@ -18,7 +18,6 @@ using catchpeak::rain::Hyetograph;
 using catchpeak::units::System;
 namespace u = catchpeak::units;
 namespace h = catchpeak::hydro;
-using catchpeak::test::line_starting_with;
 
 // An invented triangular dimensionless hydrograph: peak 1 at t/tp = 1, zero at 0 and 2.
 // Its area is 1, so the volume checks below are exact up to the sampling.
@@ -59,7 +58,7 @@ TEST(UnitHydrograph, AggregatesFineStepsToD) {
     EXPECT_NEAR(r.value.runoff_mm, 30.0, 1e-12);
     // tp = D/2 + 0.6 tc, in h.
     EXPECT_NEAR(r.value.tp_h, 420.0 / 7200.0 + 0.6, 1e-12);
-    EXPECT_NEAR(line_starting_with(r.lines, "Time to peak of the unit").value(), r.value.tp_h,
+    EXPECT_NEAR(catchpeak::test::line_keyed(r.lines, "uh.unit_time_to_peak").value(), r.value.tp_h,
                 1e-12);
 }
 
@@ -76,7 +75,8 @@ TEST(UnitHydrograph, VolumeOfATriangleSampledAtItsCorners) {
     EXPECT_DOUBLE_EQ(r.value.step_s, 480.0);
     const double expected = 0.208 * 3.6 * 30.0 / 1000.0 * 1e6;
     EXPECT_NEAR(r.value.volume_m3, expected, 1e-9 * expected);
-    EXPECT_NEAR(line_starting_with(r.lines, "Hydrograph volume").value(), r.value.volume_m3, 1e-6);
+    EXPECT_NEAR(catchpeak::test::line_keyed(r.lines, "uh.volume_si").value(), r.value.volume_m3,
+                1e-6);
 }
 
 TEST(UnitHydrograph, SplitsCoarseStepsEvenly) {
@@ -87,9 +87,10 @@ TEST(UnitHydrograph, SplitsCoarseStepsEvenly) {
     const auto r = h::unit_hydrograph_from_excess(triangle(), e, 1e6, 60.0, System::si);
     EXPECT_DOUBLE_EQ(r.value.step_s, 450.0);
     EXPECT_NEAR(r.value.runoff_mm, 30.0, 1e-12);
-    EXPECT_NE(catchpeak::test::text(line_starting_with(r.lines, "Unit hydrograph duration"))
+    EXPECT_NE(catchpeak::test::text(catchpeak::test::line_keyed(r.lines, "uh.duration_split"))
                   .label.find("split"),
               std::string::npos);
+    EXPECT_FALSE(r.lines.has("uh.duration_aggregated"));
 }
 
 TEST(UnitHydrograph, IsLinearInTheExcess) {

@@ -69,15 +69,9 @@ TEST(TcReference, NrcsLagRegressionValue) {
     const auto r =
         h::nrcs_lag_tc_min(u::ft_to_m(6900.0), 75.0, 2.8, u::mi2_to_m2(1.0), System::us_customary);
     EXPECT_NEAR(u::min_to_h(r.value), 1.723, 0.0005);
-    bool lag_found = false;
-    for (const auto &l : r.lines.lines()) {
-        if (catchpeak::test::text(l).unit == "h" &&
-            catchpeak::test::text(l).symbols.rfind("L =", 0) == 0) {
-            EXPECT_NEAR(l.value(), 1.034, 0.0005);
-            lag_found = true;
-        }
-    }
-    EXPECT_TRUE(lag_found);
+    const auto &lag = catchpeak::test::line_keyed(r.lines, "tc.lag");
+    EXPECT_EQ(catchpeak::test::text(lag).unit, "h");
+    EXPECT_NEAR(lag.value(), 1.034, 0.0005);
 }
 
 TEST(TcReference, NrcsLagAndSheetFlowSameOnBothSheets) {

@@ -50,6 +50,11 @@ enum class Unit : std::uint8_t {
     m3,
     ft3,
     per_yr,
+    ac_in_per_h,
+    csm_per_in, ///< ft3/s per mi2 per inch of runoff
+    ft3_per_s_per_in,
+    m3_per_s_per_mm,
+    ac_ft,
 };
 
 /// The symbol of a unit as the sheet prints it ("ft3/s", "mm/h", "" for none).
