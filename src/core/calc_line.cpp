@@ -81,6 +81,10 @@ std::string_view symbol(Unit u) noexcept {
         return "ft3";
     case Unit::per_yr:
         return "1/yr";
+    case Unit::years:
+        return "years";
+    case Unit::us_ft:
+        return "US ft";
     }
     return "";
 }

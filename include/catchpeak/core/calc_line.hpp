@@ -50,6 +50,8 @@ enum class Unit : std::uint8_t {
     m3,
     ft3,
     per_yr,
+    years, ///< a count of years (the length of a record)
+    us_ft, ///< US survey foot, of a coordinate in a CRS that uses it
 };
 
 /// The symbol of a unit as the sheet prints it ("ft3/s", "mm/h", "" for none).
