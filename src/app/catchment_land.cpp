@@ -20,6 +20,15 @@ using project::Project;
 
 namespace {
 
+/// The note naming the land parts of a catchment: `{table}` the land table as given, `{lines}`
+/// its lines of the parts.
+constexpr Formula land_parts_note{"point.land_parts",
+                                  "Land parts",
+                                  "",
+                                  "{table}, {lines}: class, soil group and area of each part",
+                                  Ref::project_input,
+                                  ""};
+
 /// "lines 3, 4 and 7" / "line 3" of the parts.
 std::string lines_of(const std::vector<TableLandPart> &parts) {
     std::vector<std::size_t> lines;
@@ -175,9 +184,8 @@ land::PartsWeighting weight_table_catchment(const Project &p, const TableCatchme
     pc.label = c.id;
     pc.catchment_area_m2 = c.area_m2;
     const std::string rows = fmt::format("{}, {}", land_given, lines_of(parts));
-    pc.input_notes.note("Land parts",
-                        fmt::format("{}: class, soil group and area of each part", rows),
-                        "project input");
+    pc.input_notes.note(land_parts_note,
+                        {word("table", land_given), word("lines", lines_of(parts))});
     pc.parts_source = fmt::format("project input ({})", rows);
     pc.area_check_source =
         fmt::format("project input ({}; {}, line {})", rows, table_given, c.line);

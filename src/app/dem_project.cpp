@@ -30,11 +30,6 @@ using project::Project;
 
 namespace {
 
-constexpr const char *d8_source = "D8 (O'Callaghan & Mark 1984) on the conditioned DEM";
-constexpr const char *conditioning_source =
-    "D8 (O'Callaghan & Mark 1984) on the DEM conditioned by Priority-Flood (Barnes et al. 2014)";
-constexpr const char *horn_source = "Horn (1981) slope of every cell, averaged over the catchment";
-
 /// The largest side of the map's hillshade, pixels.
 constexpr std::size_t hillshade_max_px = 600;
 
@@ -228,68 +223,132 @@ void require_layers(const Project &p) {
     }
 }
 
+// The wording of the terrain lines of a design point, declared once.
+constexpr std::string_view d8_where = "D8 (O'Callaghan & Mark 1984) on the conditioned DEM";
+constexpr std::string_view dem_where = "DEM as given (before conditioning)";
+constexpr Formula point_given{
+    "terrain.point_given",          "Design point as given", "",
+    "x = {x} {x:u}, y = {y} {y:u}", Ref::project_input,      " ({points})"};
+constexpr Formula point_snapped{
+    "terrain.point_snapped",
+    "Design point snapped to the cell of largest flow accumulation within the snap radius",
+    "",
+    "x = {x} {x:u}, y = {y} {y:u}; moved {d} {d:u}",
+    Ref::none,
+    d8_where};
+constexpr Formula area_note{
+    "terrain.area",
+    "Catchment area",
+    "",
+    "A = {A} {A:u}",
+    Ref::none,
+    "D8 (O'Callaghan & Mark 1984) on the DEM conditioned by Priority-Flood (Barnes et al. 2014)"};
+constexpr Formula local_area_note{
+    "terrain.local_area",
+    "Local catchment area (without the catchments of the design points upstream)",
+    "",
+    "A local = {A} {A:u}; upstream: {[{id}|, ]}",
+    Ref::none,
+    d8_where};
+constexpr Formula length_note{"terrain.flow_path_length",
+                              "Longest flow path length",
+                              "",
+                              "L = {L} {L:u}",
+                              Ref::none,
+                              d8_where};
+constexpr Formula top_note{"terrain.elevation_top",
+                           "Elevation at the top of the longest flow path",
+                           "",
+                           "Z top = {Z} {Z:u}",
+                           Ref::none,
+                           dem_where};
+constexpr Formula outlet_note{"terrain.elevation_outlet",
+                              "Elevation at the outlet",
+                              "",
+                              "Z outlet = {Z} {Z:u}",
+                              Ref::none,
+                              dem_where};
+constexpr Formula slope_calc{"terrain.slope",
+                             "Slope of the longest flow path",
+                             "S = (Z top - Z outlet) / L",
+                             "S = ({Ztop} - {Zoutlet}) / {L}",
+                             Ref::none,
+                             "H/L of the longest flow path"};
+constexpr Formula slope_10_85_note{"terrain.slope_10_85",
+                                   "Slope 10-85 of the longest flow path",
+                                   "",
+                                   "S 10-85 = {S} {S:u}",
+                                   Ref::none,
+                                   "elevations at 10 % and 85 % of L from the outlet"};
+constexpr Formula mean_slope_note{"terrain.mean_slope",
+                                  "Mean catchment slope",
+                                  "",
+                                  "S mean = {S} {S:u}",
+                                  Ref::none,
+                                  "Horn (1981) slope of every cell, averaged over the catchment"};
+/// A warning of the delineation, `{message}` as the terrain module words it.
+constexpr Formula delineation_warning{"terrain.delineation", "Delineation", "",
+                                      "{message}",           Ref::none,     d8_where};
+constexpr Formula local_weighting_note{
+    "terrain.local_weighting",
+    "Local catchment (own part, without the catchments of the design points upstream): land "
+    "weighting for information",
+    "",
+    "the peaks of this design point use the total catchment above",
+    Ref::none,
+    d8_where};
+
+/// The unit of the DEM file's own CRS, in which the engineer's survey gives coordinates.
+Unit crs_unit(const std::string &horizontal_unit) {
+    return horizontal_unit == "US survey foot"       ? Unit::us_ft
+           : horizontal_unit == "international foot" ? Unit::ft
+                                                     : Unit::m;
+}
+
 /// The lines of the terrain figures of one design point (not numbered yet).
 CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
     const bool us = p.info.units == units::System::us_customary;
     const auto &pt = d.result.points[i];
     const auto &fp = pt.longest_flow_path;
-    const std::string pts_src = fmt::format("project input ({})", p.inputs.design_points->given);
     CalcLines lines;
-    auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
-    const char *lu = us ? "ft" : "m";
+    const Unit lu = us ? Unit::ft : Unit::m;
+    auto len = [&](std::string symbol, double m) {
+        return qty(std::move(symbol), us ? units::m_to_ft(m) : m, lu);
+    };
+    auto area = [&](std::string symbol, double m2) {
+        return us ? qty(std::move(symbol), units::m2_to_acre(m2), Unit::ac)
+                  : qty(std::move(symbol), units::m2_to_ha(m2), Unit::ha);
+    };
+    const Unit su = us ? Unit::ft_per_ft : Unit::m_per_m;
     // Coordinates in the unit of the DEM file's own CRS, as the engineer's survey gives them.
     const double crs_m = d.dem.horizontal_unit_m > 0.0 ? d.dem.horizontal_unit_m : 1.0;
-    const std::string crs_u = d.dem.horizontal_unit == "US survey foot"       ? "US ft"
-                              : d.dem.horizontal_unit == "international foot" ? "ft"
-                                                                              : "m";
-    lines.note("Design point as given",
-               fmt::format("x = {:.2f} {}, y = {:.2f} {}", pt.given_x / crs_m, crs_u,
-                           pt.given_y / crs_m, crs_u),
-               pts_src);
-    lines.note("Design point snapped to the cell of largest flow accumulation within the snap "
-               "radius",
-               fmt::format("x = {:.2f} {}, y = {:.2f} {}; moved {} {}", pt.snapped_x / crs_m, crs_u,
-                           pt.snapped_y / crs_m, crs_u, sig(len(pt.snap_distance_m)), lu),
-               d8_source, len(pt.snap_distance_m), lu);
-    if (us) {
-        lines.note("Catchment area", fmt::format("A = {} ac", sig(units::m2_to_acre(pt.area_m2))),
-                   conditioning_source, units::m2_to_acre(pt.area_m2), "ac");
-    } else {
-        lines.note("Catchment area", fmt::format("A = {} ha", sig(units::m2_to_ha(pt.area_m2))),
-                   conditioning_source, units::m2_to_ha(pt.area_m2), "ha");
-    }
+    const Unit cu = crs_unit(d.dem.horizontal_unit);
+    auto coord = [&](std::string symbol, double m) {
+        return qty(std::move(symbol), m / crs_m, cu, Shown::fixed(2));
+    };
+    lines.note(point_given, {coord("x", pt.given_x), coord("y", pt.given_y),
+                             word("points", p.inputs.design_points->given)});
+    lines.note(point_snapped, {coord("x", pt.snapped_x), coord("y", pt.snapped_y)},
+               len("d", pt.snap_distance_m));
+    lines.note(area_note, {}, area("A", pt.area_m2));
     if (!pt.upstream_points.empty()) {
-        std::string ids;
+        std::vector<std::vector<Quantity>> upstream;
         for (auto k : d.all_upstream[i]) {
-            ids += (ids.empty() ? "" : ", ") + d.result.points[k].id;
+            upstream.push_back({word("id", d.result.points[k].id)});
         }
-        const double la =
-            us ? units::m2_to_acre(pt.local_area_m2) : units::m2_to_ha(pt.local_area_m2);
-        lines.note("Local catchment area (without the catchments of the design points upstream)",
-                   fmt::format("A local = {} {}; upstream: {}", sig(la), us ? "ac" : "ha", ids),
-                   d8_source, la, us ? "ac" : "ha");
+        lines.note(local_area_note, {}, area("A", pt.local_area_m2)).rows = std::move(upstream);
     }
-    lines.note("Longest flow path length", fmt::format("L = {} {}", sig(len(fp.length_m)), lu),
-               d8_source, len(fp.length_m), lu);
-    lines.note("Elevation at the top of the longest flow path",
-               fmt::format("Z top = {} {}", sig(len(fp.elevation_top_m)), lu),
-               "DEM as given (before conditioning)", len(fp.elevation_top_m), lu);
-    lines.note("Elevation at the outlet",
-               fmt::format("Z outlet = {} {}", sig(len(fp.elevation_outlet_m)), lu),
-               "DEM as given (before conditioning)", len(fp.elevation_outlet_m), lu);
-    lines.calc("Slope of the longest flow path", "S = (Z top - Z outlet) / L",
-               fmt::format("S = ({} - {}) / {}", sig(len(fp.elevation_top_m)),
-                           sig(len(fp.elevation_outlet_m)), sig(len(fp.length_m))),
-               fp.slope_m_per_m, us ? "ft/ft" : "m/m", "H/L of the longest flow path");
-    lines.note("Slope 10-85 of the longest flow path",
-               fmt::format("S 10-85 = {} {}", sig(fp.slope_10_85_m_per_m), us ? "ft/ft" : "m/m"),
-               "elevations at 10 % and 85 % of L from the outlet", fp.slope_10_85_m_per_m,
-               us ? "ft/ft" : "m/m");
-    lines.note("Mean catchment slope",
-               fmt::format("S mean = {} {}", sig(pt.mean_slope_m_per_m), us ? "ft/ft" : "m/m"),
-               horn_source, pt.mean_slope_m_per_m, us ? "ft/ft" : "m/m");
+    lines.note(length_note, {}, len("L", fp.length_m));
+    lines.note(top_note, {}, len("Z", fp.elevation_top_m));
+    lines.note(outlet_note, {}, len("Z", fp.elevation_outlet_m));
+    lines.calc(slope_calc,
+               {len("Ztop", fp.elevation_top_m), len("Zoutlet", fp.elevation_outlet_m),
+                len("L", fp.length_m)},
+               qty("S", fp.slope_m_per_m, su));
+    lines.note(slope_10_85_note, {}, qty("S", fp.slope_10_85_m_per_m, su));
+    lines.note(mean_slope_note, {}, qty("S", pt.mean_slope_m_per_m, su));
     for (const auto &w : pt.warnings) {
-        lines.warn("Delineation", w, d8_source);
+        lines.warn(delineation_warning, {word("message", w)});
     }
     return lines;
 }
@@ -364,10 +423,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         if (!pt.upstream_points.empty() && !d.local_wkb[i].empty()) {
             const land::CatchmentLand local =
                 overlay.weight(d.local_wkb[i], pt.id + " local", pt.mean_slope_m_per_m);
-            dp.lines.note("Local catchment (own part, without the catchments of the design "
-                          "points upstream): land weighting for information",
-                          "the peaks of this design point use the total catchment above",
-                          d8_source);
+            dp.lines.note(local_weighting_note);
             dp.lines.append(local.lines);
         }
         dp.map = make_map(d, i);

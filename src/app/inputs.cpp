@@ -282,6 +282,69 @@ template <typename F> void collect(Problems &problems, F &&f) {
     }
 }
 
+/// Checks that the catchment has the C and CN its methods need (by their registrations), when
+/// neither land parts nor land layers give them.
+void check_catchment_inputs(const Project &p, const TableCatchment &c, Problems &problems) {
+    const std::string where =
+        fmt::format("{}:{}", p.inputs.catchment_table->resolved.string(), c.line);
+    const PointOverride *o = nullptr;
+    for (const auto &po : p.methods.points) {
+        if (po.id == c.id) {
+            o = &po;
+        }
+    }
+    const auto &peaks =
+        (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
+    const TcMethod tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
+    const bool given_tc = (o != nullptr && o->tc_min && !o->tc_method) ||
+                          (c.tc_min && (o == nullptr || !o->tc_method));
+    const bool needs_c =
+        std::any_of(peaks.begin(), peaks.end(), [](auto m) { return needs_of(m).c; });
+    const bool needs_cn =
+        std::any_of(peaks.begin(), peaks.end(), [](auto m) { return needs_of(m).cn; }) ||
+        (needs_of(tc_method).cn && !given_tc);
+    if (needs_c && !c.c) {
+        problems.add(input_message(where,
+                                   fmt::format("catchment '{}' has no runoff coefficient", c.id),
+                                   "a value in column 'c', or land parts of the catchment in the "
+                                   "land table ([inputs] catchment_land_table)"));
+    }
+    if (needs_cn && !c.cn) {
+        problems.add(input_message(where, fmt::format("catchment '{}' has no curve number", c.id),
+                                   "a value in column 'cn', or land parts of the catchment in the "
+                                   "land table ([inputs] catchment_land_table)"));
+    }
+}
+
+/// Checks the catchment table: the inputs of every catchment, and that every [[methods.point]]
+/// names one of its catchments.
+void check_catchment_table(const Project &p, Problems &problems) {
+    std::set<std::string> ids;
+    collect(problems, [&] {
+        const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
+        const bool land_layers = p.inputs.land_cover.has_value();
+        const LandPartsById land_parts = read_land_parts(p, rows, problems);
+        for (const auto &c : rows) {
+            ids.insert(c.id);
+            // C and CN come from the land parts (checked above) or the land layers.
+            if (land_parts.count(c.id) == 0 && !land_layers) {
+                check_catchment_inputs(p, c, problems);
+            }
+        }
+    });
+    for (const auto &po : p.methods.points) {
+        if (!ids.empty() && ids.count(po.id) == 0 && !po.id.empty()) {
+            std::vector<std::string> all(ids.begin(), ids.end());
+            const std::string hint = closest_match(po.id, all);
+            problems.add(input_message(
+                fmt::format("{}:{}: [[methods.point]] id", p.file.string(), po.line),
+                fmt::format("design point '{}' is not in the catchment table{}", po.id,
+                            hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                "an id of the catchment table"));
+        }
+    }
+}
+
 } // namespace
 
 void check_project(const Project &p, Problems &problems) {
@@ -326,70 +389,17 @@ void check_project(const Project &p, Problems &problems) {
             }
         });
     }
-    if (p.uses_method(PeakMethod::rational)) {
-        const auto cf = config_dir() / "rational_frequency_factors.csv";
+    // The configuration tables the chosen methods need.
+    if (needs_of(p).frequency_factors) {
+        const auto cf = config_dir() / frequency_factor_file;
         if (!fs::exists(cf)) {
             problems.add(input_message(cf.string(), "the frequency factor table is missing",
                                        "config/rational_frequency_factors.csv, or "
                                        "CATCHPEAK_CONFIG_DIR naming a folder that has it"));
         }
     }
-
-    std::set<std::string> ids;
     if (p.inputs.catchment_table) {
-        collect(problems, [&] {
-            const auto rows = read_catchment_table(p.inputs.catchment_table->resolved);
-            const bool land_layers = p.inputs.land_cover.has_value();
-            const LandPartsById land_parts = read_land_parts(p, rows, problems);
-            for (const auto &c : rows) {
-                ids.insert(c.id);
-                if (land_parts.count(c.id) != 0) {
-                    continue; // C and CN come from the land parts (checked above)
-                }
-                const std::string where =
-                    fmt::format("{}:{}", p.inputs.catchment_table->resolved.string(), c.line);
-                const PointOverride *o = nullptr;
-                for (const auto &po : p.methods.points) {
-                    if (po.id == c.id) {
-                        o = &po;
-                    }
-                }
-                const auto &peaks =
-                    (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
-                const bool rational =
-                    std::find(peaks.begin(), peaks.end(), PeakMethod::rational) != peaks.end();
-                const TcMethod tc_method =
-                    (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
-                const bool given_tc = (o != nullptr && o->tc_min && !o->tc_method) ||
-                                      (c.tc_min && (o == nullptr || !o->tc_method));
-                const bool scs = std::any_of(peaks.begin(), peaks.end(),
-                                             [](auto m) { return m != PeakMethod::rational; }) ||
-                                 (tc_method == TcMethod::nrcs_lag && !given_tc);
-                if (rational && !c.c && !land_layers) {
-                    problems.add(input_message(
-                        where, fmt::format("catchment '{}' has no runoff coefficient", c.id),
-                        "a value in column 'c', or land parts of the catchment in the land "
-                        "table ([inputs] catchment_land_table)"));
-                }
-                if (scs && !c.cn && !land_layers) {
-                    problems.add(input_message(
-                        where, fmt::format("catchment '{}' has no curve number", c.id),
-                        "a value in column 'cn', or land parts of the catchment in the land "
-                        "table ([inputs] catchment_land_table)"));
-                }
-            }
-        });
-        for (const auto &po : p.methods.points) {
-            if (!ids.empty() && ids.count(po.id) == 0 && !po.id.empty()) {
-                std::vector<std::string> all(ids.begin(), ids.end());
-                const std::string hint = closest_match(po.id, all);
-                problems.add(input_message(
-                    fmt::format("{}:{}: [[methods.point]] id", pf, po.line),
-                    fmt::format("design point '{}' is not in the catchment table{}", po.id,
-                                hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
-                    "an id of the catchment table"));
-            }
-        }
+        check_catchment_table(p, problems);
     }
 }
 

@@ -16,6 +16,7 @@
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <set>
 #include <string_view>
@@ -31,6 +32,260 @@ using project::Rainfall;
 using project::SegmentalParameters;
 
 namespace {
+
+// The wording of every line of a design point's hydrology, declared once. `{source}` is the
+// source text of the catchment's figures (PointInputs::source, profile_source), `{file}` the
+// project file's name.
+
+// The catchment's figures restated.
+constexpr Formula area_note{"point.area",    "Catchment area", "",
+                            "A = {A} {A:u}", Ref::none,        "{source}"};
+constexpr Formula length_note{"point.flow_path_length",
+                              "Longest flow path length",
+                              "",
+                              "L = {L} {L:u}",
+                              Ref::none,
+                              "{source}"};
+constexpr Formula slope_note{
+    "point.slope", "Slope of the longest flow path", "", "S = {S} {S:u}", Ref::none, "{source}"};
+constexpr Formula c_note{"point.c", "Runoff coefficient", "", "C = {C}", Ref::none, "{source}"};
+constexpr Formula cn_note{"point.cn", "Curve number", "", "CN = {CN}", Ref::none, "{source}"};
+
+// Time of concentration given, and the lag method's slope.
+constexpr Formula tc_given_point{
+    "point.tc_given_point", "Time of concentration, given", "", "tc = {tc} {tc:u}",
+    Ref::project_input,     " ({file}, line {n})"};
+constexpr Formula tc_given_input{
+    "point.tc_given", "Time of concentration, given", "", "tc = {tc} {tc:u}", Ref::none,
+    "{source}"};
+constexpr Formula lag_slope_mean{"point.lag_slope_mean",
+                                 "Watershed slope for the lag method",
+                                 "",
+                                 "Y = mean catchment slope = {Y} {Y:u}",
+                                 Ref::none,
+                                 "{source}"};
+constexpr Formula lag_slope_flow_path{
+    "point.lag_slope_flow_path",
+    "Watershed slope for the lag method",
+    "",
+    "Y = slope of the longest flow path = {Y} {Y:u} (no mean catchment slope given; the method "
+    "asks for the average land slope)",
+    Ref::none,
+    "{source}"};
+
+// The 24-hour design depth.
+constexpr Formula depth_given{
+    "point.depth_24h",  "24-hour rainfall depth, {T}-year", "", "P = {P} {P:u}",
+    Ref::project_input, " ({file}, [rainfall] {key})"};
+constexpr Formula depth_given_p2{"point.depth_24h_p2",
+                                 "24-hour rainfall depth, {T}-year (P2 for sheet flow)",
+                                 "",
+                                 "P = {P} {P:u}",
+                                 Ref::project_input,
+                                 " ({file}, [rainfall] {key})"};
+constexpr Formula depth_fitted{"point.depth_24h_fitted",
+                               "24-hour rainfall depth, {T}-year",
+                               "",
+                               "P = x_T = {P} {P:u}",
+                               Ref::none,
+                               "design depth of the line above: {fit} fit of {series}"};
+constexpr Formula depth_fitted_p2{"point.depth_24h_fitted_p2",
+                                  "24-hour rainfall depth, {T}-year (P2 for sheet flow)",
+                                  "",
+                                  "P = x_T = {P} {P:u}",
+                                  Ref::none,
+                                  "design depth of the line above: {fit} fit of {series}"};
+/// The note that lists the annual maximum series a design depth is fitted to.
+constexpr std::string_view ams_series_key = "rain.ams_series";
+constexpr Formula ams_series_note{ams_series_key,
+                                  "Annual maximum series of 24-hour depths",
+                                  "",
+                                  "n = {n} {n:u}, {first} to {last} (column {column})",
+                                  Ref::project_input,
+                                  " ({series})"};
+
+// The parts of the longest flow path and their slopes.
+constexpr std::string_view split_where = "split of the longest flow path by the project's "
+                                         "settings ([settings] sheet_flow_max_length_m, "
+                                         "shallow_length_m)";
+constexpr std::string_view overland_where =
+    "[settings] sheet_flow_max_length_m: the first part of the longest flow path";
+constexpr Formula sheet_flow_length{
+    "point.sheet_flow_length", "Sheet flow length", "L1 = min(L, L1 max)",
+    "L1 = min({L}, {L1max})",  Ref::none,           overland_where};
+constexpr Formula overland_flow_length{"point.overland_flow_length",
+                                       "Overland flow length",
+                                       "L1 = min(L, L1 max)",
+                                       "L1 = min({L}, {L1max})",
+                                       Ref::none,
+                                       overland_where};
+constexpr Formula segment_slope_whole{
+    "point.segment_slope_whole",
+    "Slope, {segment}",
+    "",
+    "s = slope of the longest flow path = {s} {s:u} (the inputs give no slope per segment)",
+    Ref::none,
+    "{source}"};
+constexpr Formula segment_not_downhill{
+    "point.segment_not_downhill",
+    "Slope, {segment}: not downhill on the DEM",
+    "",
+    "the DEM falls {dz} {dz:u} over this segment ({z0} {z0:u} at {x0} {x0:u} from the top, {z1} "
+    "{z1:u} at {x1} {x1:u}): an embankment, a pit or a flat on the DEM as given; the slope of the "
+    "whole flow path, {S} {S:u}, is used",
+    Ref::none,
+    "{source}"};
+constexpr Formula segment_slope_calc{
+    "point.segment_slope",       "Slope, {segment}", "s = (Z start - Z end) / length",
+    "s = ({z0} - {z1}) / {len}", Ref::none,          "{source}"};
+
+// TR-55 segmental tc.
+constexpr Formula tr55_segmental_note{
+    "point.tr55_segmental",
+    "Time of concentration, TR-55 segmental",
+    "",
+    "tc = sum of the travel times of sheet, shallow concentrated and channel flow",
+    Ref::tr55_1986,
+    " ch. 3"};
+constexpr Formula shallow_length_set{
+    "point.shallow_length_set", "Shallow concentrated flow length",
+    "L2 = min(L - L1, L2 set)", "L2 = min({L} - {L1}, {L2set})",
+    Ref::project_input,         " ({file}, [methods.tr55_segmental]): shallow_length_m"};
+constexpr Formula shallow_length_rest{"point.shallow_length",
+                                      "Shallow concentrated flow length",
+                                      "L2 = L - L1",
+                                      "L2 = {L} - {L1}",
+                                      Ref::none,
+                                      split_where};
+constexpr Formula channel_start_missing{
+    "point.channel_start_missing",
+    "Where the channel starts is not given",
+    "",
+    "no shallow_length_m in [methods.tr55_segmental]: the whole flow path after the sheet flow is "
+    "taken as shallow concentrated flow, which is slower than channel flow; give the length to "
+    "where the flow enters a channel",
+    Ref::tr55_1986,
+    " ch. 3"};
+constexpr Formula channel_length{"point.channel_length",
+                                 "Channel flow length",
+                                 "L3 = L - L1 - L2",
+                                 "L3 = {L} - {L1} - {L2}",
+                                 Ref::none,
+                                 split_where};
+constexpr Formula sheet_manning_note{"point.sheet_manning_n",
+                                     "Manning roughness, sheet flow",
+                                     "",
+                                     "n = {n}",
+                                     Ref::project_input,
+                                     " ({file}, [methods.tr55_segmental]): sheet_manning_n (TR-55 "
+                                     "Table 3-1)"};
+constexpr Formula channel_section_note{
+    "point.channel_section",
+    "Channel section and roughness",
+    "",
+    "n = {n}, a = {a} {a:u}, pw = {pw} {pw:u}",
+    Ref::project_input,
+    " ({file}, [methods.tr55_segmental]): channel_manning_n, channel_flow_area_m2, "
+    "channel_wetted_perimeter_m"};
+
+// Kerby-Kirpich tc.
+constexpr std::string_view kerby_kirpich_where = " ch. 4, Kerby-Kirpich (Roussel et al. 2005)";
+constexpr Formula kerby_kirpich_note{
+    "point.kerby_kirpich",
+    "Time of concentration, Kerby-Kirpich",
+    "",
+    "tc = tov (Kerby, overland flow) + tch (Kirpich, channel flow)",
+    Ref::txdot_hdm,
+    kerby_kirpich_where};
+constexpr Formula retardance_note{"point.kerby_retardance",
+                                  "Retardance coefficient N",
+                                  "",
+                                  "N = {N}",
+                                  Ref::project_input,
+                                  " ({file}, [methods.kerby_kirpich]: retardance_n; Kerby's table "
+                                  "in the TxDOT Hydraulic Design Manual ch. 4)"};
+constexpr Formula kerby_channel_length{"point.kerby_channel_length",
+                                       "Channel flow length",
+                                       "L2 = L - L1",
+                                       "L2 = {L} - {L1}",
+                                       Ref::none,
+                                       split_where};
+constexpr Formula kerby_kirpich_tc{"point.kerby_kirpich_tc", "Time of concentration, Kerby-Kirpich",
+                                   "tc = tov + tch",         "tc = {tov} + {tch}",
+                                   Ref::txdot_hdm,           kerby_kirpich_where};
+constexpr Formula kerby_kirpich_area{"point.kerby_kirpich_area",
+                                     "Kerby-Kirpich: catchment area outside the method's range",
+                                     "",
+                                     "catchment area {A} {A:u} lies outside {min} to {max} {max:u}",
+                                     Ref::txdot_hdm,
+                                     " ch. 4 (Roussel et al. 2005)"};
+
+// The peak methods' own lines.
+constexpr Formula tr55_ia_005{
+    "point.tr55_ia_005",
+    "Ia = 0.05 S with the TR-55 graphical method",
+    "",
+    "the unit peak discharge coefficients were derived with Ia = 0.2 S; with Ia = 0.05 S the "
+    "ratio Ia/P is outside the basis of the table and the peak is an extrapolation of the method",
+    Ref::tr55_1986,
+    " ch. 4"};
+constexpr Formula ponds_point{"point.ponds_point",
+                              "Ponds and swamps",
+                              "",
+                              "share of the catchment = {F} {F:u}",
+                              Ref::project_input,
+                              " ({file}, [[methods.point]] line {n})"};
+constexpr Formula ponds_setting{"point.ponds_setting",
+                                "Ponds and swamps",
+                                "",
+                                "share of the catchment = {F} {F:u}",
+                                Ref::project_input,
+                                " ({file}, [settings] pond_swamp_percent)"};
+constexpr Formula ponds_none{"point.ponds_none",
+                             "Ponds and swamps",
+                             "",
+                             "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
+                             Ref::project_input,
+                             " ([settings] pond_swamp_percent not given)"};
+constexpr Formula storm_shorter_than_tc{
+    "point.storm_shorter_than_tc",
+    "Storm shorter than the time of concentration",
+    "",
+    "the alternating-block storm lasts {td} {td:u}, less than tc = {tc} {tc:u}: rain from the "
+    "whole catchment does not reach the design point at once and the peak may be too low; choose "
+    "a storm_duration_min of at least tc",
+    Ref::common_practice,
+    ""};
+constexpr Formula storm_step_long{
+    "point.storm_step_long",
+    "Storm time step long for the unit hydrograph",
+    "",
+    "storm time step {dt} {dt:u} exceeds 0.2 tp = 0.2 x {tp} {tp:u} = {tp02} {tp02:u}: the "
+    "rainfall of a step is spread evenly over the unit hydrograph's shorter steps and the peak "
+    "may be too low; choose a shorter storm_time_step_min",
+    Ref::none,
+    "NRCS NEH 630 ch. 16: a time step of no more than about 0.2 tp (from memory, not checked)"};
+
+bool us_sheet(const Project &p) { return p.info.units == units::System::us_customary; }
+
+/// A length for the sheet: ft on a US sheet, m on an SI sheet.
+Quantity length_q(std::string symbol, double m, bool us) {
+    return qty(std::move(symbol), us ? units::m_to_ft(m) : m, us ? Unit::ft : Unit::m);
+}
+/// A slope for the sheet: ft/ft on a US sheet, m/m on an SI sheet.
+Quantity slope_q(std::string symbol, double s, bool us) {
+    return qty(std::move(symbol), s, us ? Unit::ft_per_ft : Unit::m_per_m);
+}
+/// A depth for the sheet: in on a US sheet, mm on an SI sheet.
+Quantity depth_q(std::string symbol, double mm, bool us) {
+    return qty(std::move(symbol), us ? units::mm_to_in(mm) : mm, us ? Unit::in : Unit::mm);
+}
+Quantity minutes(std::string symbol, double min) { return qty(std::move(symbol), min, Unit::min); }
+Quantity file_word(const Project &p) { return word("file", p.file.filename().string()); }
+Quantity source_word(const std::string &source) { return word("source", source); }
+template <typename N> Quantity line_number(N n) {
+    return qty("n", static_cast<double>(n), Unit::none, Shown::integer());
+}
 
 const PointOverride *override_for(const Project &p, const std::string &id) {
     for (const auto &o : p.methods.points) {
@@ -119,16 +374,6 @@ std::vector<double> rebin(const rain::Hyetograph &h, double step_s, std::size_t 
     return out;
 }
 
-/// The note that lists the annual maximum series a design depth is fitted to.
-constexpr std::string_view ams_series_key = "rain.ams_series";
-
-constexpr const char *txdot_kk =
-    "TxDOT Hydraulic Design Manual ch. 4, Kerby-Kirpich (Roussel et al. 2005)";
-
-std::string depth_text(double mm, bool us) {
-    return us ? fmt::format("{} in", sig(units::mm_to_in(mm))) : fmt::format("{} mm", sig(mm));
-}
-
 /// Appends the lines of `part` to `lines`, leaving out every line already shown (the same
 /// content in `shown`): the fit of the annual maximum series repeats its mean, moments and
 /// warnings for every return period, and the sheet shows them once.
@@ -143,20 +388,28 @@ void append_once(CalcLines &lines, const CalcLines &part, CalcLines &shown) {
     }
 }
 
+/// The wording of the 24-hour depth's note: of a return period's design depth, or of P2 for
+/// the sheet flow.
+struct DepthWording {
+    const Formula &given;
+    const Formula &fitted;
+};
+constexpr DepthWording design_depth_wording{depth_given, depth_fitted};
+constexpr DepthWording p2_wording{depth_given_p2, depth_fitted_p2};
+
 /// The 24-hour design depth of return period `rp`, mm, with its lines: the depth given in
 /// [rainfall] depths_24h, or the depth fitted to the annual maximum series by the project's
 /// distribution. `shown` holds the frequency-analysis lines already on this point's sheet.
 double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, double rp,
-                           CalcLines &lines, CalcLines &shown, std::string_view purpose = {}) {
-    const bool us = p.info.units == units::System::us_customary;
-    const std::string pf = p.file.filename().string();
+                           CalcLines &lines, CalcLines &shown,
+                           const DepthWording &wording = design_depth_wording) {
+    const bool us = us_sheet(p);
+    const Quantity period = qty("T", rp, Unit::yr, Shown::exact());
     const auto depth = p.rainfall.depth_24h_mm.find(rp);
     if (depth != p.rainfall.depth_24h_mm.end()) {
         const double p_mm = depth->second;
-        lines.note(fmt::format("24-hour rainfall depth, {}-year{}", rp, purpose),
-                   fmt::format("P = {}", depth_text(p_mm, us)),
-                   fmt::format("project input ({}, [rainfall] {})", pf, p.rainfall.depth_24h_key),
-                   us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+        lines.note(wording.given, {period, file_word(p), word("key", p.rainfall.depth_24h_key)},
+                   depth_q("P", p_mm, us));
         return p_mm;
     }
     if (tables.ams == nullptr) {
@@ -168,12 +421,11 @@ double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, doub
     const AnnualMaximumSeries &ams = *tables.ams;
     CalcLines part;
     const auto [first, last] = std::minmax_element(ams.years.begin(), ams.years.end());
-    part.note("Annual maximum series of 24-hour depths",
-              fmt::format("n = {} years, {} to {} (column {})", ams.depth_mm.size(), *first, *last,
-                          ams.column),
-              fmt::format("project input ({})", ams.source),
-              static_cast<double>(ams.depth_mm.size()), "years")
-        .key = ams_series_key;
+    part.note(ams_series_note,
+              {qty("first", *first, Unit::none, Shown::integer()),
+               qty("last", *last, Unit::none, Shown::integer()), word("column", ams.column),
+               word("series", ams.source)},
+              qty("n", static_cast<double>(ams.depth_mm.size()), Unit::years, Shown::integer()));
     const bool gev = p.rainfall.ams_distribution == project::AmsDistribution::gev;
     WithLines<double> fit{0.0, {}};
     try {
@@ -185,32 +437,22 @@ double design_depth_24h_mm(const Project &p, const HydrologyTables &tables, doub
     part.append(fit.lines);
     append_once(lines, part, shown);
     const double p_mm = fit.value;
-    lines.note(fmt::format("24-hour rainfall depth, {}-year{}", rp, purpose),
-               fmt::format("P = x_T = {}", depth_text(p_mm, us)),
-               fmt::format("design depth of the line above: {} fit of {}",
-                           gev ? "GEV (L-moments)" : "Gumbel (moments)", ams.source),
-               us ? units::mm_to_in(p_mm) : p_mm, us ? "in" : "mm");
+    lines.note(wording.fitted,
+               {period, word("fit", gev ? "GEV (L-moments)" : "Gumbel (moments)"),
+                word("series", ams.source)},
+               depth_q("P", p_mm, us));
     return p_mm;
 }
 
-constexpr const char *split_source =
-    "split of the longest flow path by the project's settings ([settings] "
-    "sheet_flow_max_length_m, shallow_length_m)";
-
-/// A length for the sheet: ft on a US sheet, m on an SI sheet.
-double sheet_length(double m, bool us) { return us ? units::m_to_ft(m) : m; }
-
 /// The first part of the longest flow path, overland (sheet) flow: L1 = min(L, L max). A line.
-double overland_length_m(const Project &p, const PointInputs &in, const std::string &label,
+double overland_length_m(const Project &p, const PointInputs &in, const Formula &f,
                          CalcLines &lines) {
-    const bool us = p.info.units == units::System::us_customary;
-    const char *lu = us ? "ft" : "m";
+    const bool us = us_sheet(p);
     const double l1 = std::min(in.longest_flow_path_m, p.settings.sheet_flow_max_length_m);
-    lines.calc(label, "L1 = min(L, L1 max)",
-               fmt::format("L1 = min({}, {})", sig(sheet_length(in.longest_flow_path_m, us)),
-                           sig(sheet_length(p.settings.sheet_flow_max_length_m, us))),
-               sheet_length(l1, us), lu,
-               "[settings] sheet_flow_max_length_m: the first part of the longest flow path");
+    lines.calc(f,
+               {length_q("L", in.longest_flow_path_m, us),
+                length_q("L1max", p.settings.sheet_flow_max_length_m, us)},
+               length_q("L1", l1, us));
     return l1;
 }
 
@@ -237,84 +479,90 @@ double profile_elevation_m(const std::vector<std::pair<double, double>> &profile
 /// the whole flow path. Lines say which.
 double segment_slope(const PointInputs &in, bool us, const std::string &segment, double from_m,
                      double to_m, CalcLines &lines) {
-    const char *su = us ? "ft/ft" : "m/m";
     if (in.profile.size() < 2 || !(to_m > from_m)) {
-        lines.note(fmt::format("Slope, {}", segment),
-                   fmt::format("s = slope of the longest flow path = {} {} (the inputs give no "
-                               "slope per segment)",
-                               sig(in.slope), su),
-                   in.source, in.slope, su);
+        lines.note(segment_slope_whole, {word("segment", segment), source_word(in.source)},
+                   slope_q("s", in.slope, us));
         return in.slope;
     }
     const double z0 = profile_elevation_m(in.profile, from_m);
     const double z1 = profile_elevation_m(in.profile, to_m);
     const double s = (z0 - z1) / (to_m - from_m);
-    const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
-    const char *lu = us ? "ft" : "m";
     if (!(s > 0.0)) {
-        lines.warn(fmt::format("Slope, {}: not downhill on the DEM", segment),
-                   fmt::format("the DEM falls {} {} over this segment ({} {} at {} {} from the "
-                               "top, {} {} at {} {}): an embankment, a pit or a flat on the DEM "
-                               "as given; the slope of the whole flow path, {} {}, is used",
-                               sig(len(z0 - z1)), lu, sig(len(z0)), lu, sig(len(from_m)), lu,
-                               sig(len(z1)), lu, sig(len(to_m)), lu, sig(in.slope), su),
-                   in.profile_source);
+        lines.warn(segment_not_downhill,
+                   {word("segment", segment), length_q("dz", z0 - z1, us), length_q("z0", z0, us),
+                    length_q("x0", from_m, us), length_q("z1", z1, us), length_q("x1", to_m, us),
+                    slope_q("S", in.slope, us), source_word(in.profile_source)});
         return in.slope;
     }
-    lines.calc(
-        fmt::format("Slope, {}", segment), "s = (Z start - Z end) / length",
-        fmt::format("s = ({} - {}) / {}", sig(len(z0)), sig(len(z1)), sig(len(to_m - from_m))), s,
-        su, in.profile_source);
+    lines.calc(segment_slope_calc,
+               {word("segment", segment), length_q("z0", z0, us), length_q("z1", z1, us),
+                length_q("len", to_m - from_m, us), source_word(in.profile_source)},
+               slope_q("s", s, us));
     return s;
 }
 
-/// TR-55 segmental tc (TR-55 ch. 3): sheet, shallow concentrated and channel flow along the
-/// longest flow path, split by the settings; P2 from the rainfall inputs.
-double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const SegmentalParameters &sp,
-                             const HydrologyTables &tables, CalcLines &lines, CalcLines &shown) {
-    const bool us = p.info.units == units::System::us_customary;
-    const char *lu = us ? "ft" : "m";
-    const std::string params =
-        fmt::format("project input ({}, [methods.tr55_segmental])", p.file.filename().string());
-    lines.note("Time of concentration, TR-55 segmental",
-               "tc = sum of the travel times of sheet, shallow concentrated and channel flow",
-               "TR-55 (1986) ch. 3");
+/// The lengths of the three parts of the flow path of the TR-55 segmental tc, m, with their
+/// lines: sheet flow (L1), shallow concentrated flow (L2), channel flow (L3).
+std::array<double, 3> tr55_segment_lengths_m(const Project &p, const PointInputs &in,
+                                             const SegmentalParameters &sp, CalcLines &lines) {
+    const bool us = us_sheet(p);
     const double l = in.longest_flow_path_m;
-    const double l1 = overland_length_m(p, in, "Sheet flow length", lines);
+    const double l1 = overland_length_m(p, in, sheet_flow_length, lines);
     double l2 = l - l1;
     if (sp.shallow_length_m) {
         l2 = std::min(l - l1, *sp.shallow_length_m);
-        lines.calc("Shallow concentrated flow length", "L2 = min(L - L1, L2 set)",
-                   fmt::format("L2 = min({} - {}, {})", sig(sheet_length(l, us)),
-                               sig(sheet_length(l1, us)),
-                               sig(sheet_length(*sp.shallow_length_m, us))),
-                   sheet_length(l2, us), lu, params + ": shallow_length_m");
+        lines.calc(shallow_length_set,
+                   {length_q("L", l, us), length_q("L1", l1, us),
+                    length_q("L2set", *sp.shallow_length_m, us), file_word(p)},
+                   length_q("L2", l2, us));
     } else {
-        lines.calc("Shallow concentrated flow length", "L2 = L - L1",
-                   fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
-                   sheet_length(l2, us), lu, split_source);
+        lines.calc(shallow_length_rest, {length_q("L", l, us), length_q("L1", l1, us)},
+                   length_q("L2", l2, us));
         if (l2 > 0.0) {
-            lines.warn("Where the channel starts is not given",
-                       "no shallow_length_m in [methods.tr55_segmental]: the whole flow path "
-                       "after the sheet flow is taken as shallow concentrated flow, which is "
-                       "slower than channel flow; give the length to where the flow enters a "
-                       "channel",
-                       "TR-55 (1986) ch. 3");
+            lines.warn(channel_start_missing);
         }
     }
     const double l3 = l - l1 - l2;
     if (l3 > 0.0) {
-        lines.calc("Channel flow length", "L3 = L - L1 - L2",
-                   fmt::format("L3 = {} - {} - {}", sig(sheet_length(l, us)),
-                               sig(sheet_length(l1, us)), sig(sheet_length(l2, us))),
-                   sheet_length(l3, us), lu, split_source);
+        lines.calc(channel_length,
+                   {length_q("L", l, us), length_q("L1", l1, us), length_q("L2", l2, us)},
+                   length_q("L3", l3, us));
     }
+    return {l1, l2, l3};
+}
+
+/// The parameters of the segmental methods: the point's own in [[methods.point]], else the
+/// project's.
+const SegmentalParameters &segmental_parameters(const Project &p, const PointOverride *o) {
+    return o != nullptr ? o->tr55_segmental : p.methods.tr55_segmental;
+}
+const KerbyParameters &kerby_parameters(const Project &p, const PointOverride *o) {
+    return o != nullptr ? o->kerby_kirpich : p.methods.kerby_kirpich;
+}
+
+/// What a tc method computes from.
+struct TcContext {
+    const Project &p;
+    const PointInputs &in;
+    const PointOverride *o; ///< the point's [[methods.point]], or null
+    const HydrologyTables &tables;
+    CalcLines &shown; ///< frequency-analysis lines already on this point's sheet
+};
+
+/// TR-55 segmental tc (TR-55 ch. 3): sheet, shallow concentrated and channel flow along the
+/// longest flow path, split by the settings; P2 from the rainfall inputs.
+double tr55_segmental_tc_min(const TcContext &c, CalcLines &lines) {
+    const Project &p = c.p;
+    const PointInputs &in = c.in;
+    const SegmentalParameters &sp = segmental_parameters(p, c.o);
+    const bool us = us_sheet(p);
+    lines.note(tr55_segmental_note);
+    const auto [l1, l2, l3] = tr55_segment_lengths_m(p, in, sp, lines);
+    const double l = in.longest_flow_path_m;
     std::vector<double> times;
     {
-        const double p2_mm =
-            design_depth_24h_mm(p, tables, 2.0, lines, shown, " (P2 for sheet flow)");
-        lines.note("Manning roughness, sheet flow", fmt::format("n = {}", sig(sp.sheet_manning_n)),
-                   params + ": sheet_manning_n (TR-55 Table 3-1)", sp.sheet_manning_n);
+        const double p2_mm = design_depth_24h_mm(p, c.tables, 2.0, lines, c.shown, p2_wording);
+        lines.note(sheet_manning_note, {file_word(p)}, qty("n", sp.sheet_manning_n));
         const auto limit = p.settings.sheet_flow_max_length_m <= units::ft_to_m(100.0) + 1e-9
                                ? hydro::SheetFlowLimit::neh630_100_ft
                                : hydro::SheetFlowLimit::tr55_300_ft;
@@ -330,15 +578,11 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
         times.push_back(t.value);
     }
     if (l3 > 0.0) {
-        lines.note("Channel section and roughness",
-                   us ? fmt::format("n = {}, a = {} ft2, pw = {} ft", sig(sp.channel_manning_n),
-                                    sig(units::m2_to_ft2(sp.channel_flow_area_m2)),
-                                    sig(units::m_to_ft(sp.channel_wetted_perimeter_m)))
-                      : fmt::format("n = {}, a = {} m2, pw = {} m", sig(sp.channel_manning_n),
-                                    sig(sp.channel_flow_area_m2),
-                                    sig(sp.channel_wetted_perimeter_m)),
-                   params + ": channel_manning_n, channel_flow_area_m2, "
-                            "channel_wetted_perimeter_m");
+        lines.note(channel_section_note,
+                   {qty("n", sp.channel_manning_n),
+                    us ? qty("a", units::m2_to_ft2(sp.channel_flow_area_m2), Unit::ft2)
+                       : qty("a", sp.channel_flow_area_m2, Unit::m2),
+                    length_q("pw", sp.channel_wetted_perimeter_m, us), file_word(p)});
         const double s3 = segment_slope(in, us, "channel flow", l1 + l2, l, lines);
         auto t = hydro::channel_flow_tt_min(sp.channel_manning_n, sp.channel_flow_area_m2,
                                             sp.channel_wetted_perimeter_m, s3, l3, p.info.units);
@@ -352,333 +596,517 @@ double tr55_segmental_tc_min(const Project &p, const PointInputs &in, const Segm
 
 /// Kerby-Kirpich tc (TxDOT Hydraulic Design Manual ch. 4, after Roussel et al. 2005): Kerby
 /// overland flow over the first part of the flow path, Kirpich for the rest.
-double kerby_kirpich_tc_min(const Project &p, const PointInputs &in, const KerbyParameters &kp,
-                            CalcLines &lines) {
-    const bool us = p.info.units == units::System::us_customary;
-    const char *lu = us ? "ft" : "m";
-    lines.note("Time of concentration, Kerby-Kirpich",
-               "tc = tov (Kerby, overland flow) + tch (Kirpich, channel flow)", txdot_kk);
+double kerby_kirpich_tc_min(const TcContext &c, CalcLines &lines) {
+    const Project &p = c.p;
+    const PointInputs &in = c.in;
+    const KerbyParameters &kp = kerby_parameters(p, c.o);
+    const bool us = us_sheet(p);
+    lines.note(kerby_kirpich_note);
     const double l = in.longest_flow_path_m;
-    const double l1 = overland_length_m(p, in, "Overland flow length", lines);
+    const double l1 = overland_length_m(p, in, overland_flow_length, lines);
     const double l2 = l - l1;
-    lines.note("Retardance coefficient N", fmt::format("N = {}", sig(kp.retardance_n)),
-               fmt::format("project input ({}, [methods.kerby_kirpich]: retardance_n; Kerby's "
-                           "table in the TxDOT Hydraulic Design Manual ch. 4)",
-                           p.file.filename().string()),
-               kp.retardance_n);
+    lines.note(retardance_note, {file_word(p)}, qty("N", kp.retardance_n));
     const double s1 = segment_slope(in, us, "overland flow", 0.0, l1, lines);
     auto ov = hydro::kerby_tov_min(l1, kp.retardance_n, s1, p.info.units);
     lines.append(ov.lines);
     double tch = 0.0;
     if (l2 > 0.0) {
-        lines.calc("Channel flow length", "L2 = L - L1",
-                   fmt::format("L2 = {} - {}", sig(sheet_length(l, us)), sig(sheet_length(l1, us))),
-                   sheet_length(l2, us), lu, split_source);
+        lines.calc(kerby_channel_length, {length_q("L", l, us), length_q("L1", l1, us)},
+                   length_q("L2", l2, us));
         const double s2 = segment_slope(in, us, "channel flow", l1, l, lines);
         auto ch = hydro::kirpich_tc_min(l2, s2, in.area_m2, p.info.units);
         lines.append(ch.lines);
         tch = ch.value;
     }
     const double tc = ov.value + tch;
-    lines.calc("Time of concentration, Kerby-Kirpich", "tc = tov + tch",
-               fmt::format("tc = {} + {}", sig(ov.value), sig(tch)), tc, "min", txdot_kk);
-    // TxDOT gives 0.25-150 mi2 for the combined method (checked secondary, REFERENCES.md 3).
-    const double area_mi2 = in.area_m2 / units::m2_per_mi2;
-    if (area_mi2 < 0.25 || area_mi2 > 150.0) {
-        lines.warn("Kerby-Kirpich: catchment area outside the method's range",
-                   fmt::format("catchment area {} mi2 lies outside 0.25 to 150 mi2", sig(area_mi2)),
-                   "TxDOT Hydraulic Design Manual ch. 4 (Roussel et al. 2005)");
-    }
+    lines.calc(kerby_kirpich_tc, {minutes("tov", ov.value), minutes("tch", tch)},
+               minutes("tc", tc));
     return tc;
+}
+
+/// Kirpich tc along the longest flow path.
+double kirpich_tc(const TcContext &c, CalcLines &lines) {
+    auto k =
+        hydro::kirpich_tc_min(c.in.longest_flow_path_m, c.in.slope, c.in.area_m2, c.p.info.units);
+    lines.append(k.lines);
+    return k.value;
+}
+
+/// NRCS lag tc (NEH 630 ch. 15), with the mean catchment slope when the inputs give it.
+double nrcs_lag_tc(const TcContext &c, CalcLines &lines) {
+    const PointInputs &in = c.in;
+    const Quantity src = source_word(in.source);
+    double slope = in.slope;
+    if (in.mean_slope) {
+        slope = *in.mean_slope;
+        lines.note(lag_slope_mean, {src}, qty("Y", 100.0 * slope, Unit::percent));
+    } else {
+        lines.note(lag_slope_flow_path, {src}, qty("Y", 100.0 * slope, Unit::percent));
+    }
+    auto k = hydro::nrcs_lag_tc_min(c.in.longest_flow_path_m, *in.cn, 100.0 * slope, in.area_m2,
+                                    c.p.info.units);
+    lines.append(k.lines);
+    return k.value;
+}
+
+/// A tc given by the engineer: for the point in [[methods.point]], else in the catchment input.
+double given_tc(const TcContext &c, CalcLines &lines) {
+    if (c.o != nullptr && c.o->tc_min) {
+        lines.note(tc_given_point, {file_word(c.p), line_number(c.o->line)},
+                   minutes("tc", *c.o->tc_min));
+        return *c.o->tc_min;
+    }
+    if (!c.in.tc_min) {
+        throw InternalError("a given tc without a tc");
+    }
+    lines.note(tc_given_input, {source_word(c.in.source)}, minutes("tc", *c.in.tc_min));
+    return *c.in.tc_min;
+}
+
+/// The catchment areas a tc method applies to, and the warning outside them (null: the method
+/// has no limits of its own here).
+struct AreaLimits {
+    double min_mi2 = 0.0;
+    double max_mi2 = 0.0;
+    const Formula *warning = nullptr;
+};
+
+/// One tc method: what it needs, the publications it rests on, its applicability and its
+/// computation.
+struct TcRegistration {
+    TcMethod method;
+    MethodNeeds needs;
+    std::string_view cn_for; ///< the method, in the message of a missing curve number
+    std::array<Ref, 4> refs; ///< for the references page, in order (Ref::none: unused)
+    AreaLimits area_mi2;
+    double (*compute)(const TcContext &, CalcLines &);
+};
+
+// TxDOT gives 0.25-150 mi2 for the combined method (checked secondary, REFERENCES.md 3).
+constexpr AreaLimits kerby_kirpich_area_mi2{0.25, 150.0, &kerby_kirpich_area};
+
+/// In the order of TcMethod.
+constexpr std::array<TcRegistration, 5> tc_methods{{
+    {TcMethod::kirpich, {}, "", {Ref::kirpich_1940, Ref::txdot_hdm}, {}, kirpich_tc},
+    {TcMethod::nrcs_lag,
+     {.cn = true},
+     "the NRCS lag method",
+     {Ref::neh630_ch15_2010},
+     {},
+     nrcs_lag_tc},
+    {TcMethod::tr55_segmental, {}, "", {Ref::tr55_1986}, {}, tr55_segmental_tc_min},
+    {TcMethod::kerby_kirpich,
+     {},
+     "",
+     {Ref::txdot_hdm, Ref::kirpich_1940, Ref::kerby_1959, Ref::roussel_2005},
+     kerby_kirpich_area_mi2,
+     kerby_kirpich_tc_min},
+    {TcMethod::given, {}, "", {}, {}, given_tc},
+}};
+
+const TcRegistration &registration(TcMethod m) {
+    const auto &r = tc_methods[static_cast<std::size_t>(m)];
+    if (r.method != m) {
+        throw InternalError("the tc methods are not registered in the order of TcMethod");
+    }
+    return r;
+}
+
+/// What a peak method computes from, for every return period.
+struct PeakContext {
+    const Project &p;
+    const PointInputs &in;
+    const PointOverride *o; ///< the point's [[methods.point]], or null
+    const HydrologyTables &tables;
+    double tc_min = 0.0;
+    hydro::IaRatio ratio = hydro::IaRatio::r020;
+    hydro::RationalSettings rational;
+    double pond_percent = 0.0; ///< set by the TR-55 graphical method's preparation
+};
+
+/// The design storm of one return period and its SCS runoff, shared by the Curve Number methods:
+/// the alternating block from the IDF (then only the unit hydrograph uses it: the project
+/// refuses it with the TR-55 graphical method), or the 24-hour depth of the NRCS storm.
+struct ScsRain {
+    double p_mm = 0.0;
+    std::optional<rain::Hyetograph> block_storm;
+    hydro::CnRunoff runoff;
+};
+
+/// A peak of one method and return period, with the index of the line that gives its Q.
+struct PeakOut {
+    report::Peak peak;
+    std::size_t q_line = 0;
+};
+
+ScsRain scs_rain(const PeakContext &c, double rp, CalcLines &lines, CalcLines &shown) {
+    const Project &p = c.p;
+    ScsRain r;
+    if (p.rainfall.alternating_block()) {
+        if (c.tables.idf == nullptr) {
+            throw InternalError("IDF not loaded for the alternating-block storm");
+        }
+        auto storm =
+            rain::alternating_block_hyetograph(*c.tables.idf, p.rainfall.storm_duration_min,
+                                               p.settings.storm_time_step_min, rp, p.info.units);
+        lines.append(storm.lines);
+        if (p.rainfall.storm_duration_min < c.tc_min) {
+            lines.warn(storm_shorter_than_tc,
+                       {minutes("td", p.rainfall.storm_duration_min), minutes("tc", c.tc_min)});
+        }
+        r.p_mm = storm.value.total_mm();
+        r.block_storm = std::move(storm.value);
+    } else {
+        r.p_mm = design_depth_24h_mm(p, c.tables, rp, lines, shown);
+    }
+    auto runoff = hydro::cn_runoff(r.p_mm, *c.in.cn, p.info.units, c.ratio);
+    lines.append(runoff.lines);
+    r.runoff = runoff.value;
+    if (!c.in.land_parts.empty()) {
+        std::vector<hydro::CnPart> parts;
+        for (const auto &lp : c.in.land_parts) {
+            parts.push_back({lp.area_m2, lp.cn});
+        }
+        auto comp = hydro::composite_runoff(parts, r.p_mm, p.info.units, c.ratio);
+        lines.append(comp.lines);
+    }
+    return r;
+}
+
+std::optional<PeakOut> rational_peak(const PeakContext &c, const ScsRain *, double rp,
+                                     CalcLines &lines) {
+    const auto &t = c.tables;
+    if (t.idf == nullptr || t.frequency_factors == nullptr || !c.in.c) {
+        return std::nullopt;
+    }
+    auto i = t.idf->intensity(c.tc_min, rp, c.p.info.units);
+    lines.append(i.lines);
+    auto cf = hydro::frequency_factor(*t.frequency_factors, rp);
+    lines.append(cf.lines);
+    auto q = hydro::rational_peak_m3_s(*c.in.c, cf.value, i.value, c.in.area_m2, c.p.info.units,
+                                       c.rational);
+    // The line that gives Q: the last calculation line of the Rational Method's lines.
+    PeakOut out;
+    out.q_line = last_calculation_index(lines, q.lines);
+    lines.append(q.lines);
+    out.peak.return_period_yr = rp;
+    out.peak.method = PeakMethod::rational;
+    out.peak.q_m3_s = q.value;
+    out.peak.intermediates = {{"c", *c.in.c},
+                              {"cf", cf.value},
+                              {"intensity_mm_per_h", i.value},
+                              {"duration_min", c.tc_min}};
+    return out;
+}
+
+/// Before the return periods: the TR-55 graphical method's warning on Ia = 0.05 S and the share
+/// of ponds and swamps.
+void prepare_tr55_peak(PeakContext &c, CalcLines &lines) {
+    const Project &p = c.p;
+    if (c.ratio == hydro::IaRatio::r005) {
+        lines.warn(tr55_ia_005);
+    }
+    if (c.o != nullptr && c.o->pond_swamp_percent) {
+        c.pond_percent = *c.o->pond_swamp_percent;
+        lines.note(ponds_point, {file_word(p), line_number(c.o->line)},
+                   qty("F", c.pond_percent, Unit::percent));
+    } else if (p.settings.pond_swamp_percent) {
+        c.pond_percent = *p.settings.pond_swamp_percent;
+        lines.note(ponds_setting, {file_word(p)}, qty("F", c.pond_percent, Unit::percent));
+    } else {
+        lines.note(ponds_none);
+    }
+}
+
+std::optional<PeakOut> tr55_graphical_peak(const PeakContext &c, const ScsRain *rain, double rp,
+                                           CalcLines &lines) {
+    const auto &t = c.tables;
+    if (t.peak_coefficients == nullptr || t.pond_factors == nullptr || rain == nullptr) {
+        throw InternalError("TR-55 tables not loaded");
+    }
+    const Project &p = c.p;
+    auto q = hydro::tr55_peak(*t.peak_coefficients, *t.pond_factors,
+                              p.rainfall.required_storm_type(p.file.string()), c.in.area_m2,
+                              c.tc_min, rain->p_mm, rain->runoff.ia_mm, rain->runoff.runoff_mm,
+                              c.pond_percent, p.info.units);
+    // The line that gives Q: the last calculation line of the TR-55 peak's lines.
+    PeakOut out;
+    out.q_line = last_calculation_index(lines, q.lines);
+    lines.append(q.lines);
+    out.peak.return_period_yr = rp;
+    out.peak.method = PeakMethod::tr55_graphical;
+    out.peak.q_m3_s = q.value.peak_m3_s;
+    out.peak.intermediates = {{"rainfall_depth_mm", rain->p_mm},
+                              {"runoff_depth_mm", rain->runoff.runoff_mm},
+                              {"initial_abstraction_mm", rain->runoff.ia_mm},
+                              {"cn", *c.in.cn},
+                              {"ia_over_p", q.value.ia_over_p},
+                              {"unit_peak_csm_per_in", q.value.unit_peak_csm_per_in},
+                              {"fp", q.value.fp},
+                              {"tc_min", c.tc_min}};
+    return out;
+}
+
+/// The hydrograph's figures for the report: flow, and rainfall and excess re-binned to its step.
+report::Hydrograph hydrograph_plot(const hydro::Hydrograph &hg, const rain::Hyetograph &rain,
+                                   double cn, hydro::IaRatio ratio) {
+    report::Hydrograph plot;
+    plot.step_s = hg.step_s;
+    plot.q_m3_s = hg.flow_m3_s;
+    const std::size_t n = hg.flow_m3_s.size();
+    plot.rain_mm = rebin(rain, hg.step_s, n);
+    plot.excess_mm = rebin(hydro::excess_hyetograph(rain, cn, ratio), hg.step_s, n);
+    return plot;
+}
+
+std::optional<PeakOut> unit_hydrograph_peak(const PeakContext &c, const ScsRain *r, double rp,
+                                            CalcLines &lines) {
+    const auto &t = c.tables;
+    if (r == nullptr || t.unit_hydrograph == nullptr || (!r->block_storm && t.storm == nullptr)) {
+        throw InternalError("unit hydrograph or storm table not loaded");
+    }
+    const Project &p = c.p;
+    const double cn = *c.in.cn;
+    const double step_min = p.settings.storm_time_step_min;
+    // The alternating block's lines are on the sheet already, before the runoff.
+    auto rain = r->block_storm ? WithLines<rain::Hyetograph>{*r->block_storm, {}}
+                               : rain::storm_hyetograph(*t.storm, r->p_mm, step_min, p.info.units);
+    lines.append(rain.lines);
+    auto h = hydro::unit_hydrograph_from_rainfall(*t.unit_hydrograph, rain.value, cn, c.in.area_m2,
+                                                  c.tc_min, p.info.units, {}, c.ratio);
+    const double tp_min = h.value.tp_h * 60.0;
+    // Where the storm table itself is coarser than the step around the peak, its own warning
+    // says so, and a shorter step would not help.
+    const bool table_coarser =
+        std::any_of(rain.lines.lines().begin(), rain.lines.lines().end(), [](const CalcLine &l) {
+            return l.kind == LineKind::warning && l.flags.averaged;
+        });
+    if (step_min > 0.2 * tp_min && !table_coarser) {
+        h.lines.warn(storm_step_long, {minutes("dt", step_min), minutes("tp", tp_min),
+                                       minutes("tp02", 0.2 * tp_min)});
+    }
+    PeakOut out;
+    out.q_line = calculation_index(lines, h.lines, hydro::keys::uh_peak);
+    lines.append(h.lines);
+    const auto &hg = h.value;
+    out.peak.return_period_yr = rp;
+    out.peak.method = PeakMethod::scs_unit_hydrograph;
+    out.peak.q_m3_s = hg.peak_m3_s;
+    out.peak.intermediates = {{"rainfall_depth_mm", r->p_mm},
+                              {"runoff_depth_mm", hg.runoff_mm},
+                              {"cn", cn},
+                              {"time_to_peak_min", hg.time_to_peak_s / 60.0},
+                              {"unit_hydrograph_tp_min", hg.tp_h * 60.0},
+                              {"step_min", hg.step_s / 60.0},
+                              {"volume_m3", hg.volume_m3},
+                              {"tc_min", c.tc_min}};
+    out.peak.hydrograph = hydrograph_plot(hg, rain.value, cn, c.ratio);
+    return out;
+}
+
+/// One peak method: what it needs, the publications it rests on, a preparation once per design
+/// point (may be null) and its computation for one return period (given the SCS rain when it
+/// needs a curve number). A computation may give no peak (the Rational Method without C).
+struct PeakRegistration {
+    PeakMethod method;
+    MethodNeeds needs;
+    std::string_view cn_for; ///< the methods, in the message of a missing curve number
+    std::array<Ref, 4> refs; ///< for the references page, before the design storm's
+    void (*prepare)(PeakContext &, CalcLines &);
+    std::optional<PeakOut> (*compute)(const PeakContext &, const ScsRain *, double, CalcLines &);
+};
+
+constexpr std::string_view scs_methods = "the SCS Curve Number methods";
+
+/// In the order of PeakMethod (the order of the peaks of a return period).
+constexpr std::array<PeakRegistration, 3> peak_methods{{
+    {PeakMethod::rational,
+     {.c = true, .frequency_factors = true},
+     "",
+     {Ref::txdot_hdm},
+     nullptr,
+     rational_peak},
+    {PeakMethod::tr55_graphical,
+     {.cn = true, .tr55_tables = true},
+     scs_methods,
+     {Ref::tr55_1986},
+     prepare_tr55_peak,
+     tr55_graphical_peak},
+    {PeakMethod::scs_unit_hydrograph,
+     {.cn = true, .unit_hydrograph = true, .design_storm = true},
+     scs_methods,
+     {Ref::tr55_1986, Ref::neh630_ch16_2007},
+     nullptr,
+     unit_hydrograph_peak},
+}};
+
+const PeakRegistration &registration(PeakMethod m) {
+    const auto &r = peak_methods[static_cast<std::size_t>(m)];
+    if (r.method != m) {
+        throw InternalError("the peak methods are not registered in the order of PeakMethod");
+    }
+    return r;
+}
+
+/// The publication of the design storm a method's hyetograph follows.
+Ref design_storm_ref(const Project &p) {
+    return p.rainfall.alternating_block() ? Ref::chow_1988 : Ref::tp149_1973;
+}
+
+/// Restates the catchment's figures (area, flow path, slope, C and CN, or the land weighting).
+void restate_inputs(const Project &p, const PointInputs &in, CalcLines &lines) {
+    const bool us = us_sheet(p);
+    const Quantity src = source_word(in.source);
+    lines.note(area_note, {src},
+               us ? qty("A", units::m2_to_acre(in.area_m2), Unit::ac)
+                  : qty("A", units::m2_to_ha(in.area_m2), Unit::ha));
+    lines.note(length_note, {src}, length_q("L", in.longest_flow_path_m, us));
+    lines.note(slope_note, {src}, slope_q("S", in.slope, us));
+    if (!in.land_lines.empty()) {
+        lines.append(in.land_lines);
+        return;
+    }
+    if (in.c) {
+        lines.note(c_note, {src}, qty("C", *in.c));
+    }
+    if (in.cn) {
+        lines.note(cn_note, {src}, qty("CN", *in.cn));
+    }
+}
+
+/// The tc method of the design point: a tc given for the point in [[methods.point]] or in the
+/// catchment input (unless the point chooses another method), else the point's or the
+/// project's method.
+TcMethod chosen_tc_method(const Project &p, const PointInputs &in, const PointOverride *o) {
+    if (o != nullptr && o->tc_min && (!o->tc_method || *o->tc_method == TcMethod::given)) {
+        return TcMethod::given;
+    }
+    if (in.tc_min && (o == nullptr || !o->tc_method)) {
+        return TcMethod::given;
+    }
+    return (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
+}
+
+void require_cn(const PointInputs &in, const std::string &id, std::string_view cn_for) {
+    if (!in.cn) {
+        throw_input_error(in.source, fmt::format("design point '{}' has no curve number", id),
+                          fmt::format("a CN for {} (column 'cn')", cn_for));
+    }
+}
+
+/// The time of concentration with its method's lines and the minimum tc, min.
+double point_tc_min(const TcContext &c, TcMethod method, const std::string &id, CalcLines &lines) {
+    const TcRegistration &r = registration(method);
+    if (r.needs.cn) {
+        require_cn(c.in, id, r.cn_for);
+    }
+    const double tc = r.compute(c, lines);
+    const AreaLimits &range = r.area_mi2;
+    const double area_mi2 = c.in.area_m2 / units::m2_per_mi2;
+    if (range.warning != nullptr && (area_mi2 < range.min_mi2 || area_mi2 > range.max_mi2)) {
+        lines.warn(*range.warning, {qty("A", area_mi2, Unit::mi2),
+                                    qty("min", range.min_mi2, Unit::mi2, Shown::exact()),
+                                    qty("max", range.max_mi2, Unit::mi2, Shown::exact())});
+    }
+    auto m = hydro::apply_minimum_tc(tc, c.p.settings.minimum_tc_min);
+    lines.append(m.lines);
+    return m.value;
+}
+
+/// The peaks of every return period by the point's peak methods, in the order of the return
+/// periods and, within one, of PeakMethod. Appends the lines; `shown` holds the
+/// frequency-analysis lines already on the sheet.
+std::vector<PeakOut> point_peaks(PeakContext &c, const std::vector<PeakMethod> &chosen,
+                                 const std::string &id, CalcLines &lines, CalcLines &shown) {
+    std::vector<const PeakRegistration *> used;
+    for (const auto &r : peak_methods) {
+        if (std::find(chosen.begin(), chosen.end(), r.method) != chosen.end()) {
+            used.push_back(&r);
+        }
+    }
+    for (const auto *r : used) {
+        if (r->needs.cn) {
+            require_cn(c.in, id, r->cn_for);
+        }
+    }
+    for (const auto *r : used) {
+        if (r->prepare != nullptr) {
+            r->prepare(c, lines);
+        }
+    }
+    std::vector<PeakOut> out;
+    for (double rp : c.p.rainfall.return_periods_yr) {
+        std::optional<ScsRain> rain;
+        for (const auto *r : used) {
+            if (r->needs.cn && !rain) {
+                rain = scs_rain(c, rp, lines, shown);
+            }
+            if (auto pk = r->compute(c, rain ? &*rain : nullptr, rp, lines)) {
+                out.push_back(std::move(*pk));
+            }
+        }
+    }
+    return out;
+}
+
+/// Puts the peaks on the design point: drops repeated warnings, numbers the lines and gives each
+/// peak the id of the line of its Q.
+void assemble_peaks(std::vector<PeakOut> peaks, report::DesignPointResult &dp) {
+    std::vector<std::size_t> q_line_index;
+    q_line_index.reserve(peaks.size());
+    for (auto &pk : peaks) {
+        q_line_index.push_back(pk.q_line);
+        dp.peaks.push_back(std::move(pk.peak));
+    }
+    drop_repeated_warnings(dp.lines, q_line_index);
+    number_lines(dp.lines, dp.id);
+    for (std::size_t k = 0; k < dp.peaks.size(); ++k) {
+        if (q_line_index[k] < dp.lines.size()) {
+            dp.peaks[k].line_id = dp.lines.lines()[q_line_index[k]].id;
+        }
+    }
 }
 
 } // namespace
 
+const MethodNeeds &needs_of(TcMethod m) { return registration(m).needs; }
+const MethodNeeds &needs_of(PeakMethod m) { return registration(m).needs; }
+
+MethodNeeds needs_of(const Project &p) {
+    MethodNeeds all;
+    for (const auto &r : peak_methods) {
+        if (p.uses_method(r.method)) {
+            const MethodNeeds &n = r.needs;
+            all.c = all.c || n.c;
+            all.cn = all.cn || n.cn;
+            all.frequency_factors = all.frequency_factors || n.frequency_factors;
+            all.tr55_tables = all.tr55_tables || n.tr55_tables;
+            all.unit_hydrograph = all.unit_hydrograph || n.unit_hydrograph;
+            all.design_storm = all.design_storm || n.design_storm;
+        }
+    }
+    return all;
+}
+
 void compute_point_hydrology(const Project &p, const PointInputs &in, const HydrologyTables &tables,
                              report::DesignPointResult &dp) {
-    const bool us = p.info.units == units::System::us_customary;
-    const std::string &src = in.source;
     auto &lines = dp.lines;
-    const double area_ha = units::m2_to_ha(in.area_m2);
-    const double area_ac = units::m2_to_acre(in.area_m2);
-    const double length_ft = units::m_to_ft(in.longest_flow_path_m);
     if (in.restate_inputs) {
-        if (us) {
-            lines.note("Catchment area", fmt::format("A = {} ac", sig(area_ac)), src, area_ac,
-                       "ac");
-            lines.note("Longest flow path length", fmt::format("L = {} ft", sig(length_ft)), src,
-                       length_ft, "ft");
-        } else {
-            lines.note("Catchment area", fmt::format("A = {} ha", sig(area_ha)), src, area_ha,
-                       "ha");
-            lines.note("Longest flow path length",
-                       fmt::format("L = {} m", sig(in.longest_flow_path_m)), src,
-                       in.longest_flow_path_m, "m");
-        }
-        lines.note("Slope of the longest flow path",
-                   fmt::format("S = {} {}", sig(in.slope), us ? "ft/ft" : "m/m"), src, in.slope,
-                   us ? "ft/ft" : "m/m");
-        if (!in.land_lines.empty()) {
-            lines.append(in.land_lines);
-        } else {
-            if (in.c) {
-                lines.note("Runoff coefficient", fmt::format("C = {}", sig(*in.c)), src, *in.c);
-            }
-            if (in.cn) {
-                lines.note("Curve number", fmt::format("CN = {}", sig(*in.cn)), src, *in.cn);
-            }
-        }
+        restate_inputs(p, in, lines);
     }
-
-    // Time of concentration.
     CalcLines ams_shown; // frequency-analysis lines already on this sheet
     const PointOverride *o = override_for(p, dp.id);
-    TcMethod tc_method = (o != nullptr && o->tc_method) ? *o->tc_method : p.methods.tc_method;
-    double tc = 0.0;
-    if (o != nullptr && o->tc_min && (!o->tc_method || *o->tc_method == TcMethod::given)) {
-        tc_method = TcMethod::given;
-        tc = *o->tc_min;
-        lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)),
-                   fmt::format("project input ({}, line {})", p.file.filename().string(), o->line),
-                   tc, "min");
-    } else if (in.tc_min && (o == nullptr || !o->tc_method)) {
-        tc_method = TcMethod::given;
-        tc = *in.tc_min;
-        lines.note("Time of concentration, given", fmt::format("tc = {} min", sig(tc)), src, tc,
-                   "min");
-    } else if (tc_method == TcMethod::nrcs_lag) {
-        if (!in.cn) {
-            throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
-                              "a CN for the NRCS lag method (column 'cn')");
-        }
-        double slope = in.slope;
-        if (in.mean_slope) {
-            slope = *in.mean_slope;
-            lines.note("Watershed slope for the lag method",
-                       fmt::format("Y = mean catchment slope = {} %", sig(100.0 * slope)), src,
-                       100.0 * slope, "%");
-        } else {
-            lines.note("Watershed slope for the lag method",
-                       fmt::format("Y = slope of the longest flow path = {} % (no mean "
-                                   "catchment slope given; the method asks for the average "
-                                   "land slope)",
-                                   sig(100.0 * slope)),
-                       src, 100.0 * slope, "%");
-        }
-        auto k = hydro::nrcs_lag_tc_min(in.longest_flow_path_m, *in.cn, 100.0 * slope, in.area_m2,
-                                        p.info.units);
-        lines.append(k.lines);
-        tc = k.value;
-    } else if (tc_method == TcMethod::tr55_segmental) {
-        tc = tr55_segmental_tc_min(p, in,
-                                   o != nullptr ? o->tr55_segmental : p.methods.tr55_segmental,
-                                   tables, lines, ams_shown);
-    } else if (tc_method == TcMethod::kerby_kirpich) {
-        tc = kerby_kirpich_tc_min(p, in, o != nullptr ? o->kerby_kirpich : p.methods.kerby_kirpich,
-                                  lines);
-    } else {
-        auto k = hydro::kirpich_tc_min(in.longest_flow_path_m, in.slope, in.area_m2, p.info.units);
-        lines.append(k.lines);
-        tc = k.value;
-    }
-    {
-        auto m = hydro::apply_minimum_tc(tc, p.settings.minimum_tc_min);
-        lines.append(m.lines);
-        tc = m.value;
-    }
+    const TcMethod tc_method = chosen_tc_method(p, in, o);
+    const double tc = point_tc_min({p, in, o, tables, ams_shown}, tc_method, dp.id, lines);
     dp.tc_min = tc;
     dp.tc_method = tc_method;
 
-    const auto &peaks =
+    hydro::RationalSettings rational;
+    rational.max_area_m2 = units::ha_to_m2(p.settings.rational_area_limit_ha);
+    PeakContext c{p, in, o, tables, tc, ia_ratio(p), rational, 0.0};
+    const auto &chosen =
         (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
-    auto uses = [&](PeakMethod m) {
-        return std::find(peaks.begin(), peaks.end(), m) != peaks.end();
-    };
-    std::vector<std::size_t> q_line_index; // per peak, filled with its line id below
-    hydro::RationalSettings rational_settings;
-    rational_settings.max_area_m2 = units::ha_to_m2(p.settings.rational_area_limit_ha);
-    const hydro::IaRatio ratio = ia_ratio(p);
-    std::vector<hydro::CnPart> parts;
-    for (const auto &lp : in.land_parts) {
-        parts.push_back({lp.area_m2, lp.cn});
-    }
-    const bool scs = uses(PeakMethod::tr55_graphical) || uses(PeakMethod::scs_unit_hydrograph);
-    if (scs && !in.cn) {
-        throw_input_error(src, fmt::format("design point '{}' has no curve number", dp.id),
-                          "a CN for the SCS Curve Number methods (column 'cn')");
-    }
-    if (uses(PeakMethod::tr55_graphical) && ratio == hydro::IaRatio::r005) {
-        lines.warn("Ia = 0.05 S with the TR-55 graphical method",
-                   "the unit peak discharge coefficients were derived with Ia = 0.2 S; with "
-                   "Ia = 0.05 S the ratio Ia/P is outside the basis of the table and the peak "
-                   "is an extrapolation of the method",
-                   "TR-55 (1986) ch. 4");
-    }
-    double pond_percent = 0.0;
-    if (uses(PeakMethod::tr55_graphical)) {
-        const std::string pf = p.file.filename().string();
-        if (o != nullptr && o->pond_swamp_percent) {
-            pond_percent = *o->pond_swamp_percent;
-            lines.note("Ponds and swamps",
-                       fmt::format("share of the catchment = {} %", sig(pond_percent)),
-                       fmt::format("project input ({}, [[methods.point]] line {})", pf, o->line),
-                       pond_percent, "%");
-        } else if (p.settings.pond_swamp_percent) {
-            pond_percent = *p.settings.pond_swamp_percent;
-            lines.note("Ponds and swamps",
-                       fmt::format("share of the catchment = {} %", sig(pond_percent)),
-                       fmt::format("project input ({}, [settings] pond_swamp_percent)", pf),
-                       pond_percent, "%");
-        } else {
-            lines.note("Ponds and swamps",
-                       "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
-                       "project input ([settings] pond_swamp_percent not given)");
-        }
-    }
-    for (double rp : p.rainfall.return_periods_yr) {
-        if (uses(PeakMethod::rational) && tables.idf != nullptr &&
-            tables.frequency_factors != nullptr && in.c) {
-            auto i = tables.idf->intensity(tc, rp, p.info.units);
-            lines.append(i.lines);
-            auto cf = hydro::frequency_factor(*tables.frequency_factors, rp);
-            lines.append(cf.lines);
-            auto q = hydro::rational_peak_m3_s(*in.c, cf.value, i.value, in.area_m2, p.info.units,
-                                               rational_settings);
-            // The line that gives Q: the last calculation line of the Rational Method's lines.
-            q_line_index.push_back(last_calculation_index(lines, q.lines));
-            lines.append(q.lines);
-            report::Peak pk;
-            pk.return_period_yr = rp;
-            pk.method = PeakMethod::rational;
-            pk.q_m3_s = q.value;
-            pk.intermediates = {{"c", *in.c},
-                                {"cf", cf.value},
-                                {"intensity_mm_per_h", i.value},
-                                {"duration_min", tc}};
-            dp.peaks.push_back(std::move(pk));
-        }
-        if (!scs) {
-            continue;
-        }
-        // The design storm: the alternating block from the IDF (then only the unit hydrograph
-        // uses it: the project refuses it with the TR-55 graphical method), or the 24-hour depth
-        // of the NRCS storm.
-        std::optional<rain::Hyetograph> block_storm;
-        double p_mm = 0.0;
-        if (p.rainfall.alternating_block()) {
-            if (tables.idf == nullptr) {
-                throw InternalError("IDF not loaded for the alternating-block storm");
-            }
-            auto storm = rain::alternating_block_hyetograph(
-                *tables.idf, p.rainfall.storm_duration_min, p.settings.storm_time_step_min, rp,
-                p.info.units);
-            lines.append(storm.lines);
-            if (p.rainfall.storm_duration_min < tc) {
-                lines.warn("Storm shorter than the time of concentration",
-                           fmt::format("the alternating-block storm lasts {} min, less than tc = "
-                                       "{} min: rain from the whole catchment does not reach the "
-                                       "design point at once and the peak may be too low; choose "
-                                       "a storm_duration_min of at least tc",
-                                       sig(p.rainfall.storm_duration_min), sig(tc)),
-                           "common practice, no source");
-            }
-            p_mm = storm.value.total_mm();
-            block_storm = std::move(storm.value);
-        } else {
-            p_mm = design_depth_24h_mm(p, tables, rp, lines, ams_shown);
-        }
-        const double cn = *in.cn;
-        auto runoff = hydro::cn_runoff(p_mm, cn, p.info.units, ratio);
-        lines.append(runoff.lines);
-        if (!parts.empty()) {
-            auto comp = hydro::composite_runoff(parts, p_mm, p.info.units, ratio);
-            lines.append(comp.lines);
-        }
-        if (uses(PeakMethod::tr55_graphical)) {
-            if (tables.peak_coefficients == nullptr || tables.pond_factors == nullptr) {
-                throw InternalError("TR-55 tables not loaded");
-            }
-            auto q = hydro::tr55_peak(*tables.peak_coefficients, *tables.pond_factors,
-                                      p.rainfall.required_storm_type(p.file.string()), in.area_m2,
-                                      tc, p_mm, runoff.value.ia_mm, runoff.value.runoff_mm,
-                                      pond_percent, p.info.units);
-            // The line that gives Q: the last calculation line of the TR-55 peak's lines.
-            q_line_index.push_back(last_calculation_index(lines, q.lines));
-            lines.append(q.lines);
-            report::Peak pk;
-            pk.return_period_yr = rp;
-            pk.method = PeakMethod::tr55_graphical;
-            pk.q_m3_s = q.value.peak_m3_s;
-            pk.intermediates = {{"rainfall_depth_mm", p_mm},
-                                {"runoff_depth_mm", runoff.value.runoff_mm},
-                                {"initial_abstraction_mm", runoff.value.ia_mm},
-                                {"cn", cn},
-                                {"ia_over_p", q.value.ia_over_p},
-                                {"unit_peak_csm_per_in", q.value.unit_peak_csm_per_in},
-                                {"fp", q.value.fp},
-                                {"tc_min", tc}};
-            dp.peaks.push_back(std::move(pk));
-        }
-        if (uses(PeakMethod::scs_unit_hydrograph)) {
-            if (tables.unit_hydrograph == nullptr || (!block_storm && tables.storm == nullptr)) {
-                throw InternalError("unit hydrograph or storm table not loaded");
-            }
-            const double step_min = p.settings.storm_time_step_min;
-            // The alternating block's lines are on the sheet already, before the runoff.
-            auto rain = block_storm
-                            ? WithLines<rain::Hyetograph>{*block_storm, {}}
-                            : rain::storm_hyetograph(*tables.storm, p_mm, step_min, p.info.units);
-            lines.append(rain.lines);
-            auto h = hydro::unit_hydrograph_from_rainfall(*tables.unit_hydrograph, rain.value, cn,
-                                                          in.area_m2, tc, p.info.units, {}, ratio);
-            const double tp_min = h.value.tp_h * 60.0;
-            // Where the storm table itself is coarser than the step around the peak, its own
-            // warning says so, and a shorter step would not help.
-            const bool table_coarser = std::any_of(
-                rain.lines.lines().begin(), rain.lines.lines().end(),
-                [](const CalcLine &l) { return l.kind == LineKind::warning && l.flags.averaged; });
-            if (step_min > 0.2 * tp_min && !table_coarser) {
-                h.lines.warn("Storm time step long for the unit hydrograph",
-                             fmt::format("storm time step {} min exceeds 0.2 tp = 0.2 x {} min = "
-                                         "{} min: the rainfall of a step is spread evenly over "
-                                         "the unit hydrograph's shorter steps and the peak may "
-                                         "be too low; choose a shorter storm_time_step_min",
-                                         sig(step_min), sig(tp_min), sig(0.2 * tp_min)),
-                             "NRCS NEH 630 ch. 16: a time step of no more than about 0.2 tp "
-                             "(from memory, not checked)");
-            }
-            q_line_index.push_back(calculation_index(lines, h.lines, hydro::keys::uh_peak));
-            lines.append(h.lines);
-            const auto &hg = h.value;
-            report::Peak pk;
-            pk.return_period_yr = rp;
-            pk.method = PeakMethod::scs_unit_hydrograph;
-            pk.q_m3_s = hg.peak_m3_s;
-            pk.intermediates = {{"rainfall_depth_mm", p_mm},
-                                {"runoff_depth_mm", hg.runoff_mm},
-                                {"cn", cn},
-                                {"time_to_peak_min", hg.time_to_peak_s / 60.0},
-                                {"unit_hydrograph_tp_min", hg.tp_h * 60.0},
-                                {"step_min", hg.step_s / 60.0},
-                                {"volume_m3", hg.volume_m3},
-                                {"tc_min", tc}};
-            report::Hydrograph plot;
-            plot.step_s = hg.step_s;
-            plot.q_m3_s = hg.flow_m3_s;
-            const std::size_t n = hg.flow_m3_s.size();
-            plot.rain_mm = rebin(rain.value, hg.step_s, n);
-            plot.excess_mm = rebin(hydro::excess_hyetograph(rain.value, cn, ratio), hg.step_s, n);
-            pk.hydrograph = std::move(plot);
-            dp.peaks.push_back(std::move(pk));
-        }
-    }
-    drop_repeated_warnings(lines, q_line_index);
-    number_lines(lines, dp.id);
-    for (std::size_t k = 0; k < dp.peaks.size(); ++k) {
-        if (q_line_index[k] < lines.size()) {
-            dp.peaks[k].line_id = lines.lines()[q_line_index[k]].id;
-        }
-    }
+    assemble_peaks(point_peaks(c, chosen, dp.id, lines, ams_shown), dp);
 }
 
 void check_storm_idf(const Project &p, const rain::Idf &idf, Problems &problems) {
@@ -727,25 +1155,26 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
         t.ams = read_annual_maximum_series(p.rainfall.annual_maximum_series->resolved,
                                            p.rainfall.annual_maximum_series->given);
     }
+    const MethodNeeds needs = needs_of(p);
     auto read = [&](const std::string &role, const std::string &name, auto reader, auto &into) {
         into = reader(config / name);
         t.config_files.emplace_back(role, std::filesystem::path(name));
     };
-    if (p.uses_method(PeakMethod::rational)) {
-        read("frequency factor table", "rational_frequency_factors.csv",
+    if (needs.frequency_factors) {
+        read("frequency factor table", std::string(frequency_factor_file),
              io::read_frequency_factor_table, t.frequency_factors);
     }
-    if (p.uses_method(PeakMethod::tr55_graphical)) {
+    if (needs.tr55_tables) {
         read("TR-55 peak coefficients", "tr55_peak_coefficients.csv",
              io::read_peak_coefficient_table, t.peak_coefficients);
         read("TR-55 pond factors", "tr55_pond_factors.csv", io::read_pond_factor_table,
              t.pond_factors);
     }
-    if (p.uses_method(PeakMethod::scs_unit_hydrograph)) {
+    if (needs.unit_hydrograph) {
         read("dimensionless unit hydrograph", "scs_dimensionless_unit_hydrograph.csv",
              io::read_dimensionless_unit_hydrograph, t.unit_hydrograph);
     }
-    if (p.uses_method(PeakMethod::scs_unit_hydrograph) && !p.rainfall.alternating_block()) {
+    if (needs.design_storm && !p.rainfall.alternating_block()) {
         const auto file =
             io::nrcs_storm_file(config, p.rainfall.required_storm_type(p.file.string()));
         t.storm = io::read_storm_table(file);
@@ -757,78 +1186,36 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
 
 void add_method_references(const Project &p, const report::DesignPointResult &dp,
                            std::vector<report::Reference> &refs) {
-    auto add = [&](const std::string &key, const std::string &citation) {
-        for (const auto &r : refs) {
-            if (r.key == key) {
-                return;
-            }
+    auto add = [&](Ref r) {
+        const std::string key(short_form(r));
+        if (r == Ref::none ||
+            std::any_of(refs.begin(), refs.end(),
+                        [&](const report::Reference &e) { return e.key == key; })) {
+            return;
         }
-        refs.push_back({key, citation});
+        refs.push_back({key, std::string(citation(r))});
     };
-    const std::string neh630 =
-        "USDA Natural Resources Conservation Service. National Engineering Handbook Part 630 "
-        "Hydrology, ";
-    const std::string chow_1988 = "Chow, V.T., Maidment, D.R. and Mays, L.W. (1988). Applied "
-                                  "Hydrology. McGraw-Hill, New York.";
-    const std::string tr55 = "USDA Soil Conservation Service (1986). Urban Hydrology for Small "
-                             "Watersheds, Technical Release 55 (TR-55), 2nd ed., June 1986.";
-    if (dp.tc_method == TcMethod::kirpich) {
-        add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
-                              "watersheds. Civil Engineering 10(6), 362.");
-        add("TxDOT Hydraulic Design Manual",
-            "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
-    }
-    if (dp.tc_method == TcMethod::nrcs_lag) {
-        add("NEH 630 ch. 15 (2010)", neh630 + "chapter 15 Time of Concentration (2010).");
-    }
-    if (dp.tc_method == TcMethod::tr55_segmental) {
-        add("TR-55 (1986)", tr55);
-    }
-    if (dp.tc_method == TcMethod::kerby_kirpich) {
-        add("TxDOT Hydraulic Design Manual",
-            "Texas Department of Transportation, Hydraulic Design Manual, chapter 4 Hydrology.");
-        add("Kirpich (1940)", "Kirpich, Z.P. (1940). Time of concentration of small agricultural "
-                              "watersheds. Civil Engineering 10(6), 362.");
-        add("Kerby (1959)", "Kerby, W.S. (1959). Time of concentration for overland flow. Civil "
-                            "Engineering 29(3), 174.");
-        add("Roussel et al. (2005)",
-            "Roussel, M.C., Thompson, D.B., Fang, X., Cleveland, T.G. and Garcia, C.A. (2005). "
-            "Time-parameter estimation for applicable Texas watersheds. Research report for the "
-            "Texas Department of Transportation (citation from memory, not checked).");
+    if (dp.tc_method) {
+        for (Ref r : registration(*dp.tc_method).refs) {
+            add(r);
+        }
     }
     for (const auto &pk : dp.peaks) {
-        if (pk.method == PeakMethod::rational) {
-            add("TxDOT Hydraulic Design Manual", "Texas Department of Transportation, Hydraulic "
-                                                 "Design Manual, chapter 4 Hydrology.");
-        } else if (pk.method == PeakMethod::tr55_graphical) {
-            add("TR-55 (1986)", tr55);
-        } else if (pk.method == PeakMethod::scs_unit_hydrograph) {
-            add("TR-55 (1986)", tr55);
-            add("NEH 630 ch. 16 (2007)", neh630 + "chapter 16 Hydrographs (2007).");
-            if (p.rainfall.alternating_block()) {
-                add("Chow, Maidment & Mays (1988)", chow_1988);
-            } else {
-                add("TP-149 (1973)", "USDA Soil Conservation Service (1973). A Method for "
-                                     "Estimating Volume and Rate of Runoff in Small Watersheds, "
-                                     "Technical Paper 149 (TP-149), rev. April 1973.");
-            }
+        const PeakRegistration &m = registration(pk.method);
+        for (Ref r : m.refs) {
+            add(r);
+        }
+        if (m.needs.design_storm) {
+            add(design_storm_ref(p));
         }
     }
     const bool ams = dp.lines.has(ams_series_key);
     if (ams && p.rainfall.ams_distribution == project::AmsDistribution::gev) {
-        add("Hosking (1990)",
-            "Hosking, J.R.M. (1990). L-moments: analysis and estimation of distributions using "
-            "linear combinations of order statistics. Journal of the Royal Statistical Society, "
-            "Series B 52(1), 105-124.");
-        add("Hosking & Wallis (1997)", "Hosking, J.R.M. and Wallis, J.R. (1997). Regional "
-                                       "Frequency Analysis: an approach based on L-moments. "
-                                       "Cambridge University Press.");
-        add("Hosking, Wallis & Wood (1985)",
-            "Hosking, J.R.M., Wallis, J.R. and Wood, E.F. (1985). Estimation of the generalized "
-            "extreme-value distribution by the method of probability-weighted moments. "
-            "Technometrics 27(3), 251-261.");
+        add(Ref::hosking_1990);
+        add(Ref::hosking_wallis_1997);
+        add(Ref::hosking_wallis_wood_1985);
     } else if (ams) {
-        add("Chow, Maidment & Mays (1988)", chow_1988);
+        add(Ref::chow_1988);
     }
 }
 

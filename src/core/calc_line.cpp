@@ -91,6 +91,10 @@ std::string_view symbol(Unit u) noexcept {
         return "m3/s per mm";
     case Unit::ac_ft:
         return "ac-ft";
+    case Unit::years:
+        return "years";
+    case Unit::us_ft:
+        return "US ft";
     }
     return "";
 }

@@ -137,6 +137,12 @@ TEST(CalcLinesGolden, TinyTableProjectMatchesTheHandComposedLines) {
         EXPECT_EQ(catchpeak::test::text(got).unit, want.unit);
         EXPECT_EQ(catchpeak::test::text(got).source, want.source);
     }
+    // The restated inputs are lines of formulas of their own, found by key.
+    const auto &dp_lines = results.points[0].lines;
+    EXPECT_EQ(catchpeak::test::line_keyed(dp_lines, "point.area").id, "G-1-L1");
+    EXPECT_EQ(catchpeak::test::line_keyed(dp_lines, "point.flow_path_length").id, "G-1-L2");
+    EXPECT_EQ(catchpeak::test::line_keyed(dp_lines, "point.slope").id, "G-1-L3");
+    EXPECT_EQ(catchpeak::test::line_keyed(dp_lines, "point.c").id, "G-1-L4");
     // The peak names the line that gives it.
     ASSERT_EQ(results.points[0].peaks.size(), 1u);
     EXPECT_EQ(results.points[0].peaks[0].line_id, "G-1-L11");

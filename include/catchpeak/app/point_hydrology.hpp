@@ -3,6 +3,7 @@
 
 #include "catchpeak/app/inputs.hpp"
 #include "catchpeak/core/calc_line.hpp"
+#include "catchpeak/core/methods.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/project/project.hpp"
 #include "catchpeak/rain/design_storm.hpp"
@@ -12,6 +13,7 @@
 #include <filesystem>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -50,6 +52,28 @@ struct PointInputs {
     /// same design point already give them (the terrain and land lines of a DEM project).
     bool restate_inputs = true;
 };
+
+/// What a tc or peak method needs from a design point's inputs and from the configuration
+/// folder. Each method registers it once (point_hydrology.cpp); the project checks, the loading
+/// of the tables and the computation read it.
+struct MethodNeeds {
+    bool c = false;                 ///< a runoff coefficient
+    bool cn = false;                ///< a curve number (for a peak: the SCS runoff of the storm)
+    bool frequency_factors = false; ///< the Rational Method's frequency factor table
+    bool tr55_tables = false;       ///< the TR-55 peak coefficients and pond factors
+    bool unit_hydrograph = false;   ///< the dimensionless unit hydrograph
+    /// A design storm hyetograph: the NRCS 24-hour storm table, unless the project's storm is
+    /// the alternating block from its IDF.
+    bool design_storm = false;
+};
+
+[[nodiscard]] const MethodNeeds &needs_of(TcMethod m);
+[[nodiscard]] const MethodNeeds &needs_of(PeakMethod m);
+/// What the peak methods the project uses (its own and its points') need together.
+[[nodiscard]] MethodNeeds needs_of(const project::Project &project);
+
+/// The file of the Rational Method's frequency factors in the configuration folder.
+inline constexpr std::string_view frequency_factor_file = "rational_frequency_factors.csv";
 
 /// The method tables a run has loaded. Pointers may be null when no chosen method needs them.
 struct HydrologyTables {

@@ -55,6 +55,8 @@ enum class Unit : std::uint8_t {
     ft3_per_s_per_in,
     m3_per_s_per_mm,
     ac_ft,
+    years, ///< a count of years (the length of a record)
+    us_ft, ///< US survey foot, of a coordinate in a CRS that uses it
 };
 
 /// The symbol of a unit as the sheet prints it ("ft3/s", "mm/h", "" for none).
