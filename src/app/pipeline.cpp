@@ -236,8 +236,10 @@ fs::path run_project(const fs::path &project_file, const RunOptions &options, st
         fs::create_directories(dir, ec);
         gpkg.emplace(dir / "catchments.gpkg");
         io::write_gpkg(gpkg->temp_path(), layers);
+        // The temporary holds the final bytes: it is only renamed below.
+        r.stamp.outputs.push_back({"catchments.gpkg", sha256_file(gpkg->temp_path())});
     }
-    (void)report::write_outputs(r, dir);
+    (void)report::write_outputs(r, dir, [](const fs::path &f) { return sha256_file(f); });
     if (gpkg) {
         gpkg->commit();
     }

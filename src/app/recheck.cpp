@@ -103,6 +103,26 @@ fs::path find_project_file(const fs::path &output_dir, const report::Stamp &stam
                       "the project file beside the output folder, or '--project FILE'");
 }
 
+/// Whether the file at `path` still has the recorded SHA-256; `current` gets its hash ("" when
+/// it is missing).
+InputCheck::Status file_status(const fs::path &path, const std::string &recorded,
+                               std::string &current) {
+    if (!is_file(path)) {
+        return InputCheck::Status::missing;
+    }
+    current = sha256_file(path);
+    return current == recorded ? InputCheck::Status::unchanged : InputCheck::Status::changed;
+}
+
+OutputCheck check_output(const fs::path &output_dir, const report::OutputRecord &o) {
+    OutputCheck c;
+    c.path = o.path;
+    c.resolved = output_dir / o.path;
+    c.recorded_sha256 = o.sha256;
+    c.status = file_status(c.resolved, c.recorded_sha256, c.current_sha256);
+    return c;
+}
+
 std::string line_text(const CalcLine &l) {
     const LineText t = report::text_of(l);
     return fmt::format("{} | {} | {} | {} {} | {}", t.label, t.symbols, t.numbers, full(l.value()),
@@ -218,16 +238,25 @@ std::size_t RecheckReport::inputs_not_unchanged() const {
     }));
 }
 
+std::size_t RecheckReport::outputs_not_unchanged() const {
+    return static_cast<std::size_t>(
+        std::count_if(outputs.begin(), outputs.end(),
+                      [](const auto &o) { return o.status != InputCheck::Status::unchanged; }));
+}
+
 bool RecheckReport::all_reproduced() const {
-    return inputs_not_unchanged() == 0 && line_differences.empty() && peak_differences.empty() &&
-           recompute_error.empty();
+    return inputs_not_unchanged() == 0 && outputs_not_unchanged() == 0 &&
+           line_differences.empty() && peak_differences.empty() && recompute_error.empty();
 }
 
 ExitCode RecheckReport::exit_code() const {
     if (inputs_not_unchanged() != 0) {
         return ExitCode::inputs_changed;
     }
-    return all_reproduced() ? ExitCode::success : ExitCode::not_reproduced;
+    if (!line_differences.empty() || !peak_differences.empty() || !recompute_error.empty()) {
+        return ExitCode::not_reproduced;
+    }
+    return outputs_not_unchanged() != 0 ? ExitCode::outputs_changed : ExitCode::success;
 }
 
 RecheckReport recheck(const fs::path &output_dir, const RecheckOptions &options) {
@@ -257,14 +286,11 @@ RecheckReport recheck(const fs::path &output_dir, const RecheckOptions &options)
         c.resolved =
             in.role == "project file" ? rep.project_file : resolve_input(in.path, project_dir);
         c.recorded_sha256 = in.sha256;
-        if (!is_file(c.resolved)) {
-            c.status = InputCheck::Status::missing;
-        } else {
-            c.current_sha256 = sha256_file(c.resolved);
-            c.status = c.current_sha256 == c.recorded_sha256 ? InputCheck::Status::unchanged
-                                                             : InputCheck::Status::changed;
-        }
+        c.status = file_status(c.resolved, c.recorded_sha256, c.current_sha256);
         rep.inputs.push_back(std::move(c));
+    }
+    for (const auto &o : stamp.outputs) {
+        rep.outputs.push_back(check_output(output_dir, o));
     }
 
     report::RunResults recomputed;
@@ -302,6 +328,19 @@ std::string format_recheck(const RecheckReport &rep) {
     }
     s += fmt::format("{} of {} inputs unchanged\n", rep.inputs.size() - rep.inputs_not_unchanged(),
                      rep.inputs.size());
+    for (const auto &o : rep.outputs) {
+        if (o.status == InputCheck::Status::changed) {
+            s += fmt::format("output changed since the run: '{}' ({}): SHA-256 was {}, is {}\n",
+                             o.path, o.resolved.string(), o.recorded_sha256, o.current_sha256);
+        } else if (o.status == InputCheck::Status::missing) {
+            s += fmt::format("output missing since the run: '{}' (not found at {})\n", o.path,
+                             o.resolved.string());
+        }
+    }
+    if (!rep.outputs.empty()) {
+        s += fmt::format("{} of {} outputs unchanged\n",
+                         rep.outputs.size() - rep.outputs_not_unchanged(), rep.outputs.size());
+    }
     if (!rep.recompute_error.empty()) {
         s += fmt::format("the project cannot be recomputed from the current inputs: {}\n",
                          rep.recompute_error);

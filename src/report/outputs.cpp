@@ -10,7 +10,8 @@
 
 namespace catchpeak::report {
 
-WrittenOutputs write_outputs(const RunResults &results, const std::filesystem::path &dir) {
+WrittenOutputs write_outputs(const RunResults &results, const std::filesystem::path &dir,
+                             const FileDigest &digest) {
     std::error_code ec;
     std::filesystem::create_directories(dir, ec);
     if (ec) {
@@ -26,7 +27,13 @@ WrittenOutputs write_outputs(const RunResults &results, const std::filesystem::p
     out.summary_csv = dir / summary_file_name;
     write_results_json(results, dir);
     out.results_json = dir / results_file_name;
-    write_run_record(results.stamp, dir);
+    // The run record: the stamp and the SHA-256 of each file written above (renamed into place
+    // and complete, so these are the final bytes).
+    Stamp stamp = results.stamp;
+    for (const auto &f : {out.sheet_pdf, out.summary_csv, out.results_json}) {
+        stamp.outputs.push_back({f.filename().string(), digest(f)});
+    }
+    write_run_record(stamp, dir);
     out.run_record = dir / run_record_file_name;
     return out;
 }

@@ -498,6 +498,14 @@ std::string run_record_json(const Stamp &stamp) {
         inputs.push_back(std::move(ij));
     }
     j["inputs"] = std::move(inputs);
+    Json outputs = Json::array();
+    for (const auto &o : stamp.outputs) {
+        Json oj;
+        oj["path"] = o.path;
+        oj["sha256"] = o.sha256;
+        outputs.push_back(std::move(oj));
+    }
+    j["outputs"] = std::move(outputs);
     if (!stamp.project_file_from_output.empty()) {
         j["project_file_from_output"] = stamp.project_file_from_output;
     }
@@ -517,6 +525,14 @@ Stamp parse_run_record_json(std::string_view text, std::string_view where) {
     for (std::size_t i = 0; i < inputs.size(); ++i) {
         const Reader ir(inputs[i], r.item("inputs", i));
         s.inputs.push_back({ir.str("role"), ir.str("path"), ir.str("sha256")});
+    }
+    // A record written before the outputs were hashed has no "outputs".
+    if (j.contains("outputs")) {
+        const auto &outputs = r.array("outputs");
+        for (std::size_t i = 0; i < outputs.size(); ++i) {
+            const Reader orr(outputs[i], r.item("outputs", i));
+            s.outputs.push_back({orr.str("path"), orr.str("sha256")});
+        }
     }
     if (j.contains("project_file_from_output")) {
         s.project_file_from_output = r.str("project_file_from_output");

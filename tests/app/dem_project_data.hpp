@@ -1,10 +1,11 @@
 // SPDX-License-Identifier: MIT
 // A small DEM project made by the tests: a V valley with a closed head, two nested design points
 // on its axis, two land-cover classes on one soil. The geometry is chosen so that every figure
-// the tests check can be computed by hand (see the comments of make_dem_project).
+// the tests check can be computed by hand (see the comments of dem_project).
 #pragma once
 
 #include "io/gdal_test_data.hpp"
+#include "support/test_project.hpp"
 
 #include <fmt/format.h>
 
@@ -67,12 +68,13 @@ struct DemProjectOptions {
     std::string residential_class = "residential_1_4_ac";
 };
 
-/// Writes dem.tif, points.gpkg, land.gpkg, soils.gpkg, idf.csv and project.toml into `dir` and
-/// returns the project file.
-inline std::filesystem::path make_dem_project(const std::filesystem::path &dir,
-                                              const DemProjectOptions &o = {}) {
+/// The valley project in a fresh scratch folder: dem.tif, points.gpkg, land.gpkg (land.shp
+/// without a CRS) and soils.gpkg are written at once; idf.csv and project.toml (an SI project
+/// "Valley test", Kirpich and the Rational Method at 2 and 10 years) by write().
+inline TestProject dem_project(const std::string &scratch_name, const DemProjectOptions &o = {}) {
     using S = DemProjectSpec;
-    std::filesystem::create_directories(dir);
+    TestProject p(scratch_name);
+    const std::filesystem::path &dir = p.dir();
     RasterSpec r;
     r.width = S::width;
     r.height = S::height;
@@ -107,42 +109,20 @@ inline std::filesystem::path make_dem_project(const std::filesystem::path &dir,
                o.land_crs, o.land_crs.empty() ? "ESRI Shapefile" : "GPKG");
     make_layer(dir / "soils.gpkg", "soils", {"hsg"}, {{rect(S::x0, y1, x1, S::y0), {"B"}}},
                o.points_crs);
-    {
-        std::ofstream idf(dir / "idf.csv");
-        idf << "# unit: mm/h\nduration_min,2,10\n5,100,150\n10,80,120\n60,30,45\n";
-    }
-    const auto project = dir / "project.toml";
-    std::ofstream toml(project);
-    toml << R"([project]
-name = "Valley test"
-units = "SI"
-
-[inputs]
-dem = "dem.tif"
-design_points = "points.gpkg"
-id_field = "id"
-land_cover = ")"
-         << land_file << R"("
-class_field = "class"
-soils = "soils.gpkg"
-soil_group_field = "hsg"
-
-[rainfall]
-idf = "idf.csv"
-return_periods_yr = [2, 10]
-
-[methods]
-tc = "kirpich"
-peak = ["rational"]
-
-[settings]
-snap_radius_m = 5.0
-minimum_tc_min = 5
-
-[output]
-folder = "out"
-)";
-    return project;
+    p.idf("# unit: mm/h\nduration_min,2,10\n5,100,150\n10,80,120\n60,30,45\n");
+    p.project.text("name", "Valley test");
+    p.inputs.remove("catchment_table")
+        .text("dem", "dem.tif")
+        .text("design_points", "points.gpkg")
+        .text("id_field", "id")
+        .text("land_cover", land_file)
+        .text("class_field", "class")
+        .text("soils", "soils.gpkg")
+        .text("soil_group_field", "hsg");
+    p.rainfall.set("return_periods_yr", "[2, 10]");
+    p.methods.text("tc", "kirpich").set("peak", "[\"rational\"]");
+    p.settings.set("snap_radius_m", "5.0").set("minimum_tc_min", "5");
+    return p;
 }
 
 } // namespace catchpeak::test

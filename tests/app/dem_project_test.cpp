@@ -7,6 +7,7 @@
 // residential_1_4_ac 75). No expected value was taken from catchpeak's output.
 #include "app/dem_project_data.hpp"
 #include "catchpeak/app/pipeline.hpp"
+#include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
 #include "support/results_json.hpp"
@@ -46,12 +47,18 @@ fs::path run_quiet(const fs::path &project, std::optional<fs::path> out_dir = {}
 
 TEST(DemProject, AreasCAndCnOfNestedPointsMatchTheHandComputation) {
     using S = t::DemProjectSpec;
-    const auto dir = t::scratch_dir("dem_project_hand");
-    const auto project = t::make_dem_project(dir);
+    auto dp = t::dem_project("dem_project_hand");
+    const auto project = dp.write();
     const fs::path written = run_quiet(project);
     ASSERT_TRUE(fs::exists(written / "results.json"));
     EXPECT_TRUE(fs::exists(written / "catchments.gpkg"));
     EXPECT_TRUE(fs::exists(written / "calculation-sheet.pdf"));
+    // The run record holds the SHA-256 of the GeoPackage as written, beside the other outputs.
+    const auto record = read_json(written / "run-record.json");
+    ASSERT_EQ(record.at("outputs").size(), 4u) << record.dump(1);
+    EXPECT_EQ(record.at("outputs").at(0).at("path"), "catchments.gpkg");
+    EXPECT_EQ(record.at("outputs").at(0).at("sha256"),
+              catchpeak::app::sha256_file(written / "catchments.gpkg"));
     const auto doc = read_json(written / "results.json");
 
     // Catchment of the axis cell of row r: 31 columns x (r - 4) rows of 100 m2 (see the
@@ -97,8 +104,9 @@ TEST(DemProject, AreasCAndCnOfNestedPointsMatchTheHandComputation) {
 }
 
 TEST(DemProject, CheckValidatesWithoutWritingAnything) {
-    const auto dir = t::scratch_dir("dem_project_check");
-    const auto project = t::make_dem_project(dir);
+    auto dp = t::dem_project("dem_project_check");
+    const auto &dir = dp.dir();
+    const auto project = dp.write();
     std::ostringstream out;
     catchpeak::app::check_project_file(project, out);
     EXPECT_NE(out.str().find("no problems found"), std::string::npos);
@@ -113,19 +121,11 @@ TEST(DemProject, SegmentalTcTakesEachSegmentsSlopeFromTheDem) {
     // Split: sheet flow 0-30.48 m (setting), shallow 30.48-130.48 m (shallow_length_m = 100):
     // both on the side slope, s = 0.2. Channel 130.48-640 m: (0.2 x 19.52 + 0.05 x 490) /
     // 509.52.
-    const auto dir = t::scratch_dir("dem_project_segments");
-    const auto project = t::make_dem_project(dir);
-    std::string text = catchpeak::read_text_file(project);
-    const auto swap = [&](const std::string &from, const std::string &to) {
-        const auto at = text.find(from);
-        ASSERT_NE(at, std::string::npos) << from;
-        text.replace(at, from.size(), to);
-    };
-    swap("tc = \"kirpich\"", "tc = \"tr55_segmental\"");
-    swap("return_periods_yr = [2, 10]", "return_periods_yr = [2, 10]\nstorm_type = \"II\"\n"
-                                        "depths_24h_mm = { \"2\" = 80.0, \"10\" = 120.0 }");
-    swap("[settings]", "[methods.tr55_segmental]\nshallow_length_m = 100.0\n\n[settings]");
-    std::ofstream(project) << text;
+    auto dp = t::dem_project("dem_project_segments");
+    dp.methods.text("tc", "tr55_segmental");
+    dp.rainfall.text("storm_type", "II").set("depths_24h_mm", "{ \"2\" = 80.0, \"10\" = 120.0 }");
+    dp.methods_extra = "\n[methods.tr55_segmental]\nshallow_length_m = 100.0\n";
+    const auto project = dp.write();
 
     const fs::path written = run_quiet(project);
     const auto doc = read_json(written / "results.json");
@@ -149,12 +149,12 @@ TEST(DemProject, CoordinatesAreGivenInTheUnitOfTheDemsCrs) {
     // The same valley in a CRS whose unit is the US survey foot (EPSG:2229, NAD83 / California
     // zone 5 (ftUS)): the design point on the axis at column 20 lies at x = 500000 + 20.5 x 10 =
     // 500205 ftUS. Inside, coordinates are metres; the lines give them back in US survey feet.
-    const auto dir = t::scratch_dir("dem_project_feet");
     t::DemProjectOptions opt;
     opt.dem_crs = "EPSG:2229";
     opt.land_crs = "EPSG:2229";
     opt.points_crs = "EPSG:2229";
-    const auto project = t::make_dem_project(dir, opt);
+    auto dp = t::dem_project("dem_project_feet", opt);
+    const auto project = dp.write();
     const fs::path written = run_quiet(project);
     const auto doc = read_json(written / "results.json");
     bool seen = false;
@@ -172,8 +172,9 @@ TEST(DemProject, ResultsAreTheSameWhateverFolderItRunsFrom) {
     // The lines name input files as the project file gives them, not as resolved from the
     // working folder: a project run by its absolute path and by a relative one gives the same
     // results.json bytes.
-    const auto dir = t::scratch_dir("dem_project_cwd");
-    const auto project = t::make_dem_project(dir);
+    auto dp = t::dem_project("dem_project_cwd");
+    const auto &dir = dp.dir();
+    const auto project = dp.write();
     (void)run_quiet(fs::absolute(project), dir / "by_absolute");
     const auto before = fs::current_path();
     fs::current_path(dir.parent_path());

@@ -2,31 +2,23 @@
 #include "catchpeak/app/inputs.hpp"
 
 #include "catchpeak/core/error.hpp"
-#include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
-#include <fstream>
 #include <string>
 
 using namespace catchpeak::app;
 namespace fs = std::filesystem;
 
-namespace {
-
-fs::path write(const fs::path &dir, const std::string &name, const std::string &text) {
-    std::ofstream(dir / name, std::ios::binary) << text;
-    return dir / name;
-}
-
-} // namespace
+using catchpeak::test::write_file;
 
 TEST(CatchmentTable, ConvertsUnitsFromColumnNames) {
     const auto dir = catchpeak::test::scratch_dir("catchment_units");
-    const auto f = write(dir, "c.csv",
-                         "id,area_ac,length_ft,relief_ft,c,cn,tc_min\n"
-                         "A,2.5,1000,20,0.4,,\n"
-                         "B,1,500,,0.9,98,7\n");
+    const auto f = dir / "c.csv";
+    write_file(f, "id,area_ac,length_ft,relief_ft,c,cn,tc_min\n"
+                  "A,2.5,1000,20,0.4,,\n"
+                  "B,1,500,,0.9,98,7\n");
     // Row B has no relief: the file is rejected, naming line 3 and the column.
     try {
         (void)read_catchment_table(f);
@@ -35,10 +27,9 @@ TEST(CatchmentTable, ConvertsUnitsFromColumnNames) {
         EXPECT_NE(std::string(e.what()).find("c.csv:3: column 'relief_ft'"), std::string::npos)
             << e.what();
     }
-    write(dir, "c.csv",
-          "id,area_ac,length_ft,slope_percent,c,cn,tc_min\n"
-          "A,2.5,1000,2,0.4,,\n"
-          "B,1,500,1,0.9,98,7\n");
+    write_file(f, "id,area_ac,length_ft,slope_percent,c,cn,tc_min\n"
+                  "A,2.5,1000,2,0.4,,\n"
+                  "B,1,500,1,0.9,98,7\n");
     const auto rows = read_catchment_table(f);
     ASSERT_EQ(rows.size(), 2u);
     // 1 acre = 4046.8564224 m2 and 1 ft = 0.3048 m exactly (NIST SP 811).
@@ -53,7 +44,8 @@ TEST(CatchmentTable, ConvertsUnitsFromColumnNames) {
 
 TEST(CatchmentTable, RejectsAMissingAreaColumn) {
     const auto dir = catchpeak::test::scratch_dir("catchment_no_area");
-    const auto f = write(dir, "c.csv", "id,length_m,relief_m\nA,100,2\n");
+    const auto f = dir / "c.csv";
+    write_file(f, "id,length_m,relief_m\nA,100,2\n");
     try {
         (void)read_catchment_table(f);
         FAIL() << "expected an InputError";

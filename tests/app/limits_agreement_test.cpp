@@ -14,7 +14,7 @@
 #include "catchpeak/hydro/rational.hpp"
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/land/tables.hpp"
-#include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <fmt/format.h>
 #include <gtest/gtest.h>
@@ -39,9 +39,9 @@ bool accepted(const std::function<void()> &f) {
 }
 
 fs::path write(const std::string &name, const std::string &text) {
-    const auto dir = catchpeak::test::scratch_dir("limits_agreement");
-    std::ofstream(dir / name, std::ios::binary) << text;
-    return dir / name;
+    const auto file = catchpeak::test::scratch_dir("limits_agreement") / name;
+    catchpeak::test::write_file(file, text);
+    return file;
 }
 
 bool catchment_table_takes(const std::string &column, double v) {

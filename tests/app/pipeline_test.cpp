@@ -6,7 +6,7 @@
 
 #include "catchpeak/core/error.hpp"
 #include "support/results_json.hpp"
-#include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
@@ -28,51 +28,28 @@ using catchpeak::test::point;
 
 namespace {
 
-void write(const fs::path &path, const std::string &text) {
-    std::ofstream(path, std::ios::binary) << text;
-}
-
-std::string read(const fs::path &path) {
-    std::ifstream in(path, std::ios::binary);
-    std::ostringstream s;
-    s << in.rdbuf();
-    return s.str();
-}
+using catchpeak::test::read_file;
+using catchpeak::test::TestProject;
+using catchpeak::test::write_file;
 
 /// An SI project: IN-1 with a given tc read straight off the IDF table, OUT-1 with Kirpich.
-fs::path si_project(const fs::path &dir) {
-    write(dir / "project.toml", R"([project]
-name = "Birchwood Lane inlets"
-units = "SI"
-
-[inputs]
-catchment_table = "catchments.csv"
-
-[rainfall]
-idf = "idf.csv"
-return_periods_yr = [2, 10]
-
-[methods]
-tc = "kirpich"
-peak = ["rational"]
-
-[settings]
-minimum_tc_min = 5
-
-[output]
-folder = "out"
-)");
-    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\n"
-                                  "IN-1,0.72,80,1.6,0.5,10\n"
-                                  "OUT-1,3.0,500,5,0.45,\n");
-    write(dir / "idf.csv", "# invented IDF table for the test\n"
-                           "# unit: mm/h\n"
-                           "duration_min,2,10\n"
-                           "5,110,150\n"
-                           "10,90,120\n"
-                           "15,75,100\n"
-                           "60,30,40\n");
-    return dir / "project.toml";
+TestProject si_project(const std::string &scratch_name) {
+    TestProject p(scratch_name);
+    p.project.text("name", "Birchwood Lane inlets");
+    p.rainfall.set("return_periods_yr", "[2, 10]");
+    p.methods.text("tc", "kirpich").set("peak", "[\"rational\"]");
+    p.settings.set("minimum_tc_min", "5");
+    p.catchments("id,area_ha,length_m,relief_m,c,tc_min\n"
+                 "IN-1,0.72,80,1.6,0.5,10\n"
+                 "OUT-1,3.0,500,5,0.45,\n");
+    p.idf("# invented IDF table for the test\n"
+          "# unit: mm/h\n"
+          "duration_min,2,10\n"
+          "5,110,150\n"
+          "10,90,120\n"
+          "15,75,100\n"
+          "60,30,40\n");
+    return p;
 }
 
 double q(const nlohmann::json &p, double rp) {
@@ -87,14 +64,14 @@ double q(const nlohmann::json &p, double rp) {
 } // namespace
 
 TEST(Pipeline, TableProjectSiComputedByHand) {
-    const auto dir = catchpeak::test::scratch_dir("pipeline_si");
-    const auto file = si_project(dir);
+    auto p = si_project("pipeline_si");
+    const auto &dir = p.dir();
     std::ostringstream out;
     std::ostringstream err;
     RunOptions options;
     options.run_time_utc = "2026-01-01T00:00:00Z";
-    run_project(file, options, out, err);
-    const auto j = nlohmann::json::parse(read(dir / "out" / "results.json"));
+    (void)p.run_app(options, out, err);
+    const auto j = nlohmann::json::parse(read_file(dir / "out" / "results.json"));
 
     // IN-1: tc given as 10 min, i read from the table at 10 min (no interpolation).
     // Q = C i A / 360 (Rational Method, SI form: i mm/h, A ha, Q m3/s):
@@ -121,11 +98,13 @@ TEST(Pipeline, TableProjectSiComputedByHand) {
     // The summary table prints the same figures at 4 significant figures.
     EXPECT_NE(out.str().find("0.1200"), std::string::npos) << out.str();
     // The run record holds the time and the SHA-256 of the inputs; results.json does not.
-    const auto rec = nlohmann::json::parse(read(dir / "out" / "run-record.json"));
+    const auto rec = nlohmann::json::parse(read_file(dir / "out" / "run-record.json"));
     EXPECT_EQ(rec.at("run_time_utc"), "2026-01-01T00:00:00Z");
     // project file, catchment table, IDF and the frequency factor table.
     EXPECT_EQ(rec.at("inputs").size(), 4u);
-    EXPECT_EQ(read(dir / "out" / "results.json").find("2026-01-01"), std::string::npos);
+    // And of the outputs but itself: the sheet, summary.csv and results.json.
+    EXPECT_EQ(rec.at("outputs").size(), 3u);
+    EXPECT_EQ(read_file(dir / "out" / "results.json").find("2026-01-01"), std::string::npos);
     // Every calculation line of a design point is numbered "<id>-L<n>", and each peak names
     // the line that gives it.
     EXPECT_EQ(in1.at("lines").at(0).at("id"), "IN-1-L1");
@@ -141,27 +120,19 @@ TEST(Pipeline, TableProjectSiComputedByHand) {
 }
 
 TEST(Pipeline, UsCustomarySheetUsesThePublishedUsForm) {
-    const auto dir = catchpeak::test::scratch_dir("pipeline_us");
-    write(dir / "project.toml", R"([project]
-name = "Cedar Hollow lot"
-units = "US"
-[inputs]
-catchment_table = "c.csv"
-[rainfall]
-idf = "idf.csv"
-return_periods_yr = [10]
-[output]
-folder = "out"
-)");
-    write(dir / "c.csv", "id,area_ac,length_ft,slope_percent,c,tc_min\nLOT-1,2.0,300,2,0.6,10\n");
-    write(dir / "idf.csv", "# unit: in/h\nduration_min,10\n5,5.0\n10,4.0\n30,2.5\n");
+    TestProject p("pipeline_us");
+    const auto &dir = p.dir();
+    p.project.text("name", "Cedar Hollow lot").text("units", "US");
+    p.inputs.text("catchment_table", "c.csv");
+    p.with_file("c.csv", "id,area_ac,length_ft,slope_percent,c,tc_min\nLOT-1,2.0,300,2,0.6,10\n");
+    p.idf("# unit: in/h\nduration_min,10\n5,5.0\n10,4.0\n30,2.5\n");
     std::ostringstream out;
     std::ostringstream err;
     RunOptions options;
     options.quiet = true;
-    run_project(dir / "project.toml", options, out, err);
+    (void)p.run_app(options, out, err);
     EXPECT_TRUE(out.str().empty());
-    const auto j = nlohmann::json::parse(read(dir / "out" / "results.json"));
+    const auto j = nlohmann::json::parse(read_file(dir / "out" / "results.json"));
     // Q = 1.008 Cf C i A (1 acre-in/h = 1.008 ft3/s), Cf = 1.0 for 10 years (config table):
     // 1.008 x 0.6 x 4.0 x 2.0 = 4.8384 ft3/s = 4.8384 x 0.028316846592 = 0.137008 m3/s
     // (computed by hand).
@@ -178,8 +149,8 @@ folder = "out"
 }
 
 TEST(Pipeline, TwoRunsGiveByteIdenticalResults) {
-    const auto dir = catchpeak::test::scratch_dir("pipeline_twice");
-    const auto file = si_project(dir);
+    auto p = si_project("pipeline_twice");
+    const auto &dir = p.dir();
     std::ostringstream out;
     std::ostringstream err;
     RunOptions a;
@@ -187,19 +158,19 @@ TEST(Pipeline, TwoRunsGiveByteIdenticalResults) {
     a.quiet = true;
     RunOptions b = a;
     b.out_dir = dir / "b";
-    run_project(file, a, out, err);
-    run_project(file, b, out, err);
-    const std::string ra = read(dir / "a" / "results.json");
+    (void)p.run_app(a, out, err);
+    (void)p.run_app(b, out, err);
+    const std::string ra = read_file(dir / "a" / "results.json");
     EXPECT_FALSE(ra.empty());
-    EXPECT_EQ(ra, read(dir / "b" / "results.json"));
-    EXPECT_EQ(read(dir / "a" / "summary.csv"), read(dir / "b" / "summary.csv"));
+    EXPECT_EQ(ra, read_file(dir / "b" / "results.json"));
+    EXPECT_EQ(read_file(dir / "a" / "summary.csv"), read_file(dir / "b" / "summary.csv"));
 }
 
 TEST(Pipeline, InitWritesTheTemplateAndRefusesToOverwrite) {
     const auto dir = catchpeak::test::scratch_dir("init");
     const auto file = init_project(dir / "new");
-    EXPECT_EQ(read(file), std::string(project_template()));
-    write(file, "edited");
+    EXPECT_EQ(read_file(file), std::string(project_template()));
+    write_file(file, "edited");
     EXPECT_THROW(init_project(dir / "new"), catchpeak::InputError);
-    EXPECT_EQ(read(file), "edited");
+    EXPECT_EQ(read_file(file), "edited");
 }

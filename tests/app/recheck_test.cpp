@@ -6,7 +6,7 @@
 
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
-#include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
@@ -28,66 +28,42 @@ namespace fs = std::filesystem;
 
 namespace {
 
-void write(const fs::path &path, const std::string &text) {
-    std::ofstream(path, std::ios::binary) << text;
-}
-
-std::string read(const fs::path &path) {
-    std::ifstream in(path, std::ios::binary);
-    std::ostringstream s;
-    s << in.rdbuf();
-    return s.str();
-}
+using catchpeak::test::read_file;
+using catchpeak::test::replace_in_file;
+using catchpeak::test::TestProject;
+using catchpeak::test::write_file;
 
 /// A small SI table-input project: IN-1 with a given tc, OUT-1 with Kirpich.
-fs::path small_project(const fs::path &dir, const std::string &return_periods = "[2, 10]") {
-    write(dir / "project.toml", "[project]\nname = \"Alder Row inlets\"\nunits = \"SI\"\n"
-                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
-                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = " +
-                                    return_periods +
-                                    "\n[methods]\ntc = \"kirpich\"\npeak = [\"rational\"]\n"
-                                    "[output]\nfolder = \"out\"\n");
-    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\n"
-                                  "IN-1,0.72,80,1.6,0.5,10\n"
-                                  "OUT-1,3.0,500,5,0.45,\n");
-    write(dir / "idf.csv", "# invented IDF table for the test\n"
-                           "# unit: mm/h\n"
-                           "duration_min,2,10,25\n"
-                           "5,110,150,170\n"
-                           "10,90,120,135\n"
-                           "15,75,100,112\n"
-                           "60,30,40,45\n");
-    return dir / "project.toml";
-}
-
-fs::path run(const fs::path &project) {
-    std::ostringstream out;
-    std::ostringstream err;
-    RunOptions options;
-    options.quiet = true;
-    options.run_time_utc = "2026-01-01T00:00:00Z";
-    return run_project(project, options, out, err);
-}
-
-void replace_in_file(const fs::path &path, const std::string &from, const std::string &to) {
-    std::string text = read(path);
-    const auto at = text.find(from);
-    ASSERT_NE(at, std::string::npos) << from;
-    text.replace(at, from.size(), to);
-    write(path, text);
+TestProject small_project(const std::string &scratch_name,
+                          const std::string &return_periods = "[2, 10]") {
+    TestProject p(scratch_name);
+    p.project.text("name", "Alder Row inlets");
+    p.rainfall.set("return_periods_yr", return_periods);
+    p.methods.text("tc", "kirpich").set("peak", "[\"rational\"]");
+    p.catchments("id,area_ha,length_m,relief_m,c,tc_min\n"
+                 "IN-1,0.72,80,1.6,0.5,10\n"
+                 "OUT-1,3.0,500,5,0.45,\n");
+    p.idf("# invented IDF table for the test\n"
+          "# unit: mm/h\n"
+          "duration_min,2,10,25\n"
+          "5,110,150,170\n"
+          "10,90,120,135\n"
+          "15,75,100,112\n"
+          "60,30,40,45\n");
+    return p;
 }
 
 /// Every file of a folder with its content, to show that recheck writes nothing.
 std::map<std::string, std::string> snapshot(const fs::path &dir) {
     std::map<std::string, std::string> m;
     for (const auto &e : fs::recursive_directory_iterator(dir)) {
-        m[e.path().string()] = e.is_regular_file() ? read(e.path()) : "(folder)";
+        m[e.path().string()] = e.is_regular_file() ? read_file(e.path()) : "(folder)";
     }
     return m;
 }
 
 std::size_t recorded_line_count(const fs::path &out_dir) {
-    const std::string text = read(out_dir / "results.json");
+    const std::string text = read_file(out_dir / "results.json");
     std::size_t n = 0;
     for (auto at = text.find("\"symbols\""); at != std::string::npos;
          at = text.find("\"symbols\"", at + 1)) {
@@ -141,8 +117,9 @@ class ScopedEnv {
 } // namespace
 
 TEST(Recheck, UnchangedRunIsReproducedAndTheFolderIsNotTouched) {
-    const auto dir = catchpeak::test::scratch_dir("recheck_unchanged");
-    const auto out = run(small_project(dir));
+    auto p = small_project("recheck_unchanged");
+    const auto &dir = p.dir();
+    const auto out = p.run_app();
     const auto before = snapshot(out);
     const auto r = recheck(out);
     EXPECT_EQ(snapshot(out), before);
@@ -163,8 +140,9 @@ TEST(Recheck, UnchangedRunIsReproducedAndTheFolderIsNotTouched) {
 }
 
 TEST(Recheck, ChangedCatchmentTableIsNamedWithTheLinesThatDiffer) {
-    const auto dir = catchpeak::test::scratch_dir("recheck_table");
-    const auto out = run(small_project(dir));
+    auto p = small_project("recheck_table");
+    const auto &dir = p.dir();
+    const auto out = p.run_app();
     replace_in_file(dir / "catchments.csv", "OUT-1,3.0,500,5,0.45,", "OUT-1,3.0,500,5,0.5,");
     const auto r = recheck(out);
     EXPECT_FALSE(r.all_reproduced());
@@ -190,8 +168,9 @@ TEST(Recheck, ChangedCatchmentTableIsNamedWithTheLinesThatDiffer) {
 }
 
 TEST(Recheck, ChangedIdfTableIsReported) {
-    const auto dir = catchpeak::test::scratch_dir("recheck_idf");
-    const auto out = run(small_project(dir));
+    auto p = small_project("recheck_idf");
+    const auto &dir = p.dir();
+    const auto out = p.run_app();
     // IN-1 has tc = 10 min: its 10-year intensity is the table value at 10 min.
     replace_in_file(dir / "idf.csv", "10,90,120,135", "10,90,125,135");
     const auto r = recheck(out);
@@ -205,10 +184,11 @@ TEST(Recheck, ChangedIdfTableIsReported) {
 
 TEST(Recheck, ChangedBuiltInFrequencyFactorTableIsReported) {
     // A copy of the method tables, so that this test may change one.
-    const auto dir = catchpeak::test::scratch_dir("recheck_cf");
+    auto p = small_project("recheck_cf", "[25]");
+    const auto &dir = p.dir();
     fs::copy(catchpeak::test::config_dir(), dir / "config", fs::copy_options::recursive);
     const ScopedEnv env("CATCHPEAK_CONFIG_DIR", (dir / "config").string());
-    const auto out = run(small_project(dir, "[25]"));
+    const auto out = p.run_app();
     EXPECT_TRUE(recheck(out).all_reproduced());
 
     const auto cf = dir / "config" / "rational_frequency_factors.csv";
@@ -228,8 +208,9 @@ TEST(Recheck, ChangedBuiltInFrequencyFactorTableIsReported) {
 }
 
 TEST(Recheck, MissingInputIsReportedAndNothingReproduces) {
-    const auto dir = catchpeak::test::scratch_dir("recheck_missing_input");
-    const auto out = run(small_project(dir));
+    auto p = small_project("recheck_missing_input");
+    const auto &dir = p.dir();
+    const auto out = p.run_app();
     fs::remove(dir / "idf.csv");
     const auto r = recheck(out);
     EXPECT_FALSE(r.all_reproduced());
@@ -245,8 +226,9 @@ TEST(Recheck, MissingInputIsReportedAndNothingReproduces) {
 TEST(Recheck, ChangedInputWhoseLinesStillAgreeIsStillAChangedInput) {
     // A comment added to the IDF table changes its SHA-256 but no number: every line is
     // reproduced, yet the run record no longer verifies the file, so the run is not confirmed.
-    const auto dir = catchpeak::test::scratch_dir("recheck_comment");
-    const auto out = run(small_project(dir));
+    auto p = small_project("recheck_comment");
+    const auto &dir = p.dir();
+    const auto out = p.run_app();
     replace_in_file(dir / "idf.csv", "# unit: mm/h\n", "# unit: mm/h\n# a comment added later\n");
     const auto r = recheck(out);
     EXPECT_EQ(input(r, "IDF")->status, InputCheck::Status::changed);
@@ -258,13 +240,14 @@ TEST(Recheck, ChangedInputWhoseLinesStillAgreeIsStillAChangedInput) {
 
 TEST(Recheck, AlteredNumbersWithUnchangedInputsAreNotReproduced) {
     // Every input is as recorded; a line value of results.json was altered after the run.
-    const auto dir = catchpeak::test::scratch_dir("recheck_altered");
-    const auto out = run(small_project(dir));
-    nlohmann::ordered_json results = nlohmann::ordered_json::parse(read(out / "results.json"));
+    auto p = small_project("recheck_altered");
+    const auto &dir = p.dir();
+    const auto out = p.run_app();
+    nlohmann::ordered_json results = nlohmann::ordered_json::parse(read_file(out / "results.json"));
     auto &line = results.at("design_points").at(1).at("lines").at(0);
     const std::string id = line.at("id").get<std::string>();
     line["value"] = line.at("value").get<double>() * 1.001;
-    write(out / "results.json", results.dump(2));
+    write_file(out / "results.json", results.dump(2));
     const auto r = recheck(out);
     EXPECT_EQ(r.inputs_not_unchanged(), 0u);
     ASSERT_EQ(r.line_differences.size(), 1u) << format_recheck(r);
@@ -275,15 +258,14 @@ TEST(Recheck, AlteredNumbersWithUnchangedInputsAreNotReproduced) {
 }
 
 TEST(Recheck, OutputFolderElsewhereFindsTheProjectOrNeedsIt) {
-    const auto dir = catchpeak::test::scratch_dir("recheck_elsewhere");
-    const auto project = small_project(dir, "[2]");
+    auto p = small_project("recheck_elsewhere", "[2]");
+    const auto &dir = p.dir();
+    const auto project = p.file();
     fs::create_directories(dir / "runs");
-    std::ostringstream o;
-    std::ostringstream e;
     RunOptions options;
     options.quiet = true;
     options.out_dir = dir / "runs" / "first";
-    run_project(project, options, o, e);
+    (void)p.run_app(options);
     // Found by the path the run record keeps, relative to the output folder.
     EXPECT_TRUE(recheck(dir / "runs" / "first").all_reproduced());
     // Moved since: not found, unless given.
@@ -296,9 +278,9 @@ TEST(Recheck, OutputFolderElsewhereFindsTheProjectOrNeedsIt) {
 }
 
 TEST(Recheck, MissingFolderOrResultsIsAnInputError) {
-    const auto dir = catchpeak::test::scratch_dir("recheck_no_folder");
-    EXPECT_THROW((void)recheck(dir / "nowhere"), catchpeak::InputError);
-    const auto out = run(small_project(dir));
+    auto p = small_project("recheck_no_folder");
+    EXPECT_THROW((void)recheck(p.dir() / "nowhere"), catchpeak::InputError);
+    const auto out = p.run_app();
     fs::remove(out / "results.json");
     try {
         (void)recheck(out);
@@ -306,4 +288,40 @@ TEST(Recheck, MissingFolderOrResultsIsAnInputError) {
     } catch (const catchpeak::InputError &e) {
         EXPECT_NE(std::string(e.what()).find("results.json"), std::string::npos) << e.what();
     }
+}
+
+TEST(Recheck, ChangedOrMissingOutputIsReportedByFile) {
+    auto p = small_project("recheck_outputs");
+    const auto out = p.run_app();
+    const auto unchanged = recheck(out);
+    ASSERT_EQ(unchanged.outputs.size(), 3u); // results.json, summary.csv, the sheet
+    EXPECT_EQ(unchanged.outputs_not_unchanged(), 0u);
+
+    replace_in_file(out / "summary.csv", "IN-1", "IN-2");
+    ASSERT_TRUE(fs::remove(out / "calculation-sheet.pdf"));
+    const auto r = recheck(out);
+    EXPECT_EQ(r.outputs_not_unchanged(), 2u);
+    EXPECT_EQ(r.inputs_not_unchanged(), 0u);
+    EXPECT_TRUE(r.line_differences.empty()) << format_recheck(r);
+    EXPECT_FALSE(r.all_reproduced());
+    EXPECT_EQ(r.exit_code(), ExitCode::outputs_changed);
+    for (const auto &o : r.outputs) {
+        const auto expected = o.path == "summary.csv"             ? InputCheck::Status::changed
+                              : o.path == "calculation-sheet.pdf" ? InputCheck::Status::missing
+                                                                  : InputCheck::Status::unchanged;
+        EXPECT_EQ(o.status, expected) << o.path;
+    }
+    const std::string text = format_recheck(r);
+    EXPECT_NE(text.find("output changed since the run: 'summary.csv'"), std::string::npos) << text;
+    EXPECT_NE(text.find("output missing since the run: 'calculation-sheet.pdf'"), std::string::npos)
+        << text;
+    EXPECT_NE(text.find("1 of 3 outputs unchanged"), std::string::npos) << text;
+}
+
+TEST(Recheck, ChangedInputWinsOverAChangedOutput) {
+    auto p = small_project("recheck_outputs_and_inputs");
+    const auto out = p.run_app();
+    ASSERT_TRUE(fs::remove(out / "summary.csv"));
+    replace_in_file(p.dir() / "idf.csv", "10,90,120,135", "10,90,125,135");
+    EXPECT_EQ(recheck(out).exit_code(), ExitCode::inputs_changed);
 }

@@ -5,7 +5,6 @@
 #include "app/dem_project_data.hpp"
 #include "catchpeak/cli/run.hpp"
 #include "catchpeak/core/error.hpp"
-#include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
 
@@ -83,20 +82,15 @@ class DemRunBadInput : public ::testing::TestWithParam<DemCase> {};
 
 TEST_P(DemRunBadInput, ExitTwoWithMessageAndNothingWritten) {
     const auto &c = GetParam();
-    const auto dir = t::scratch_dir("dem_bad_" + c.name);
     t::DemProjectOptions o;
     c.change(o);
-    const auto project = t::make_dem_project(dir, o);
-    std::ostringstream out;
-    std::ostringstream err;
-    const std::vector<std::string> args =
-        c.command == "run" ? std::vector<std::string>{"run", "--quiet", project.string()}
-                           : std::vector<std::string>{"check", project.string()};
-    const int code = catchpeak::cli::run(args, out, err);
-    EXPECT_EQ(code, static_cast<int>(ExitCode::bad_input)) << out.str() << err.str();
+    auto p = t::dem_project("dem_bad_" + c.name, o);
+    const auto &dir = p.dir();
+    const auto r = c.command == "run" ? p.command("run", {"--quiet"}) : p.command("check");
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
     for (const auto &piece : c.expect_err) {
-        EXPECT_NE(err.str().find(piece), std::string::npos) << "missing '" << piece << "' in:\n"
-                                                            << err.str();
+        EXPECT_NE(r.err.find(piece), std::string::npos) << "missing '" << piece << "' in:\n"
+                                                        << r.err;
     }
     EXPECT_FALSE(fs::exists(dir / "out" / "results.json"));
     EXPECT_FALSE(fs::exists(dir / "out" / "catchments.gpkg"));

@@ -6,7 +6,6 @@
 #include "catchpeak/core/error.hpp"
 #include "io/class_raster_data.hpp"
 #include "support/results_json.hpp"
-#include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
@@ -51,46 +50,36 @@ t::ClassRasterSpec land_on_dem_grid(const RasterOptions &o) {
     return s;
 }
 
-fs::path make_raster_project(const fs::path &dir, const RasterOptions &o,
-                             const t::ClassRasterSpec *land = nullptr) {
-    const fs::path project = t::make_dem_project(dir);
+/// The valley project with land cover and soils as rasters (land.tif, soils.tif, codes.csv).
+t::TestProject raster_project(const std::string &scratch_name, const RasterOptions &o,
+                              const t::ClassRasterSpec *land = nullptr) {
+    auto p = t::dem_project(scratch_name);
+    const auto &dir = p.dir();
     t::make_class_raster(dir / "land.tif", land != nullptr ? *land : land_on_dem_grid(o));
     t::ClassRasterSpec soils = land_on_dem_grid({});
     soils.codes.assign(soils.codes.size(), 2.0);
     soils.categories = {"", "A", "B", "C", "D"};
     t::make_class_raster(dir / "soils.tif", soils);
-    std::ofstream(dir / "codes.csv") << "code,class\n1,commercial\n2,residential_1_4_ac\n";
-    std::stringstream text;
-    text << std::ifstream(project).rdbuf();
-    std::string toml = text.str();
-    auto replace = [&](const std::string &from, const std::string &to) {
-        const auto at = toml.find(from);
-        if (at == std::string::npos) {
-            throw std::runtime_error("project template changed: no " + from);
-        }
-        toml.replace(at, from.size(), to);
-    };
-    replace("land_cover = \"land.gpkg\"",
-            o.code_table ? "land_cover = \"land.tif\"\nland_cover_codes = \"codes.csv\""
-                         : "land_cover = \"land.tif\"");
-    replace("soils = \"soils.gpkg\"", "soils = \"soils.tif\"");
-    std::ofstream(project) << toml;
-    return project;
+    p.with_file("codes.csv", "code,class\n1,commercial\n2,residential_1_4_ac\n");
+    p.inputs.text("land_cover", "land.tif").text("soils", "soils.tif");
+    if (o.code_table) {
+        p.inputs.text("land_cover_codes", "codes.csv");
+    }
+    return p;
 }
 
 int run_cli(const std::vector<std::string> &args, std::string &err_text) {
-    std::ostringstream out;
-    std::ostringstream err;
-    const int code = catchpeak::cli::run(args, out, err);
-    err_text = err.str();
-    return code;
+    const auto r = t::cli(args);
+    err_text = r.err;
+    return r.code;
 }
 
 } // namespace
 
 TEST(LandRasterRun, RastersOnTheDemGridGiveTheHandComputedCAndCn) {
-    const auto dir = t::scratch_dir("land_raster_run");
-    const auto project = make_raster_project(dir, {});
+    auto p = raster_project("land_raster_run", {});
+    const auto &dir = p.dir();
+    const auto project = p.write();
     std::string err;
     ASSERT_EQ(run_cli({"check", project.string()}, err), 0) << err;
     ASSERT_EQ(run_cli({"run", "--quiet", project.string()}, err), 0) << err;
@@ -146,14 +135,15 @@ TEST(LandRasterRun, RastersOnTheDemGridGiveTheHandComputedCAndCn) {
 TEST(LandRasterRun, AReprojectedLandRasterGivesPartsThatAddUpToEachCatchment) {
     // Land cover in WGS 84: 0.0001 degree cells over the valley (about 15.000 E, 36.14 N, where
     // (500000, 4000000) of UTM 33N lies), code 1 west of 15.002 E and code 2 east of it.
-    const auto dir = t::scratch_dir("land_raster_run_wgs84");
     t::ClassRasterSpec land;
     land.width = 400;
     land.height = 400;
     land.gt = {14.99, 0.0001, 0.0, 36.16, 0.0, -0.0001};
     land.crs_wkt = t::crs_wkt("EPSG:4326");
     land.codes = t::codes_of(400, 400, [](int col, int) { return col < 120 ? 1 : 2; });
-    const auto project = make_raster_project(dir, {}, &land);
+    auto rp = raster_project("land_raster_run_wgs84", {}, &land);
+    const auto &dir = rp.dir();
+    const auto project = rp.write();
     std::string err;
     ASSERT_EQ(run_cli({"run", "--quiet", project.string()}, err), 0) << err;
     const auto doc = read_json(dir / "out" / "results.json");
@@ -210,15 +200,13 @@ class LandRasterBadInput : public ::testing::TestWithParam<RasterCase> {};
 TEST_P(LandRasterBadInput, RunAndCheckExitTwoWithTheMessageAndNothingWritten) {
     const auto &c = GetParam();
     for (const std::string command : {"run", "check"}) {
-        const auto dir = t::scratch_dir("land_raster_bad_" + c.name + "_" + command);
         RasterOptions o;
         c.change(o);
-        const auto project = make_raster_project(dir, o);
-        std::string err;
-        const std::vector<std::string> args =
-            command == "run" ? std::vector<std::string>{"run", "--quiet", project.string()}
-                             : std::vector<std::string>{"check", project.string()};
-        EXPECT_EQ(run_cli(args, err), static_cast<int>(ExitCode::bad_input)) << command << err;
+        auto p = raster_project("land_raster_bad_" + c.name + "_" + command, o);
+        const auto &dir = p.dir();
+        const auto r = command == "run" ? p.command("run", {"--quiet"}) : p.command("check");
+        const std::string &err = r.err;
+        EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << command << err;
         for (const auto &piece : c.expect_err) {
             EXPECT_NE(err.find(piece), std::string::npos)
                 << command << ": missing '" << piece << "' in:\n"

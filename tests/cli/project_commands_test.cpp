@@ -4,7 +4,7 @@
 // message must hold, and that nothing was written.
 #include "catchpeak/cli/run.hpp"
 #include "catchpeak/core/error.hpp"
-#include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
@@ -25,28 +25,8 @@ extern "C" const char *__lsan_default_suppressions() { return "leak:libfontconfi
 
 namespace {
 
-// Line numbers matter: messages are checked against them.
-const char *const base_project = R"([project]
-name = "Larkspur Rise subdivision"
-units = "SI"
-
-[inputs]
-catchment_table = "catchments.csv"
-
-[rainfall]
-idf = "idf.csv"
-return_periods_yr = [2, 10]
-
-[methods]
-tc = "kirpich"
-peak = ["rational"]
-
-[settings]
-minimum_tc_min = 5
-
-[output]
-folder = "out"
-)";
+using catchpeak::test::read_file;
+using catchpeak::test::TestProject;
 
 const char *const base_catchments = "id,area_ha,length_m,relief_m,c,cn\n"
                                     "IN-1,0.8,120,3.6,0.65,85\n"
@@ -66,18 +46,14 @@ struct Replace {
 struct BadCase {
     std::string name;
     std::string command;                                     // "run" or "check"
-    std::vector<Replace> project_changes;                    // applied in order to base_project
+    std::vector<Replace> project_changes;                    // applied in order to the project text
     std::map<std::string, std::optional<std::string>> files; // replaced (nullopt: removed)
     std::vector<std::string> expect_err;                     // each must appear on stderr
 };
 
 std::string replaced(std::string s, const std::vector<Replace> &changes) {
     for (const auto &c : changes) {
-        const auto pos = s.find(c.from);
-        if (pos == std::string::npos) {
-            throw std::runtime_error("test record: text not found: " + c.from);
-        }
-        s.replace(pos, c.from.size(), c.to);
+        s = catchpeak::test::replaced(s, c.from, c.to);
     }
     return s;
 }
@@ -553,8 +529,17 @@ const std::vector<BadCase> &cases() {
 
 class BadInput : public ::testing::TestWithParam<BadCase> {};
 
-void write(const fs::path &path, const std::string &text) {
-    std::ofstream(path, std::ios::binary) << text;
+// The valid project every record changes. Line numbers matter: messages are checked against
+// them (project.toml: [project] on line 1, [inputs] 5, [rainfall] 8, [methods] 12, [settings]
+// 16, [output] 19).
+TestProject larkspur_rise(const std::string &scratch_name) {
+    TestProject p(scratch_name);
+    p.project.text("name", "Larkspur Rise subdivision");
+    p.rainfall.set("return_periods_yr", "[2, 10]");
+    p.methods.text("tc", "kirpich").set("peak", "[\"rational\"]");
+    p.settings.set("minimum_tc_min", "5");
+    p.catchments(base_catchments).idf(base_idf);
+    return p;
 }
 
 } // namespace
@@ -563,33 +548,32 @@ TEST(BadInputCases, AtLeastTwentyFive) { EXPECT_GE(cases().size(), 25u); }
 
 TEST_P(BadInput, ExitTwoWithMessageAndNothingWritten) {
     const auto &c = GetParam();
-    const auto dir = catchpeak::test::scratch_dir("bad_" + c.name);
-    write(dir / "project.toml", replaced(base_project, c.project_changes));
-    write(dir / "catchments.csv", base_catchments);
-    write(dir / "idf.csv", base_idf);
+    auto p = larkspur_rise("bad_" + c.name);
+    const auto &dir = p.dir();
+    const std::string project_text = replaced(p.toml(), c.project_changes);
+    p.project_text(project_text);
     for (const auto &[name, text] : c.files) {
         if (text) {
-            write(dir / name, *text);
-        } else {
+            p.with_file(name, *text);
+        }
+    }
+    (void)p.write();
+    for (const auto &[name, text] : c.files) {
+        if (!text) {
             fs::remove(dir / name);
         }
     }
-    std::ostringstream out;
-    std::ostringstream err;
-    const int code = catchpeak::cli::run({c.command, (dir / "project.toml").string()}, out, err);
-    EXPECT_EQ(code, static_cast<int>(ExitCode::bad_input)) << err.str();
+    const auto r = p.command(c.command);
+    const int code = r.code;
+    EXPECT_EQ(code, static_cast<int>(ExitCode::bad_input)) << r.err;
     for (const auto &e : c.expect_err) {
-        EXPECT_NE(err.str().find(e), std::string::npos) << "expected: " << e << "\nstderr:\n"
-                                                        << err.str();
+        EXPECT_NE(r.err.find(e), std::string::npos) << "expected: " << e << "\nstderr:\n" << r.err;
     }
     EXPECT_FALSE(fs::exists(dir / "out" / "results.json"));
     EXPECT_TRUE(catchpeak::test::pending_files(dir).empty());
     // Input files are never modified: the project file is as written.
     if (c.files.count("project.toml") == 0) {
-        std::ifstream in(dir / "project.toml");
-        std::ostringstream s;
-        s << in.rdbuf();
-        EXPECT_EQ(s.str(), replaced(base_project, c.project_changes));
+        EXPECT_EQ(read_file(dir / "project.toml"), project_text);
     }
 }
 
@@ -597,56 +581,36 @@ INSTANTIATE_TEST_SUITE_P(Records, BadInput, ::testing::ValuesIn(cases()),
                          [](const auto &param_info) { return param_info.param.name; });
 
 TEST(ProjectCommands, CheckAndRunAValidProject) {
-    const auto dir = catchpeak::test::scratch_dir("good_project");
-    write(dir / "project.toml", base_project);
-    write(dir / "catchments.csv", base_catchments);
-    write(dir / "idf.csv", base_idf);
-    std::ostringstream out;
-    std::ostringstream err;
-    EXPECT_EQ(catchpeak::cli::run({"check", (dir / "project.toml").string()}, out, err), 0)
-        << err.str();
-    EXPECT_NE(out.str().find("no problems found"), std::string::npos);
-    EXPECT_EQ(catchpeak::cli::run(
-                  {"run", (dir / "project.toml").string(), "--out", (dir / "elsewhere").string()},
-                  out, err),
-              0)
-        << err.str();
+    auto p = larkspur_rise("good_project");
+    const auto &dir = p.dir();
+    const auto check = p.command("check");
+    EXPECT_EQ(check.code, 0) << check.err;
+    EXPECT_NE(check.out.find("no problems found"), std::string::npos);
+    const auto run = p.command("run", {"--out", (dir / "elsewhere").string()});
+    EXPECT_EQ(run.code, 0) << run.err;
     EXPECT_TRUE(fs::exists(dir / "elsewhere" / "results.json"));
     EXPECT_TRUE(fs::exists(dir / "elsewhere" / "summary.csv"));
     EXPECT_TRUE(fs::exists(dir / "elsewhere" / "run-record.json"));
     EXPECT_TRUE(catchpeak::test::pending_files(dir).empty());
-    EXPECT_NE(out.str().find("IN-2"), std::string::npos) << out.str();
+    EXPECT_NE(run.out.find("IN-2"), std::string::npos) << run.out;
 }
 
 TEST(ProjectCommands, CheckAndRunAcceptTheScsMethods) {
-    const auto dir = catchpeak::test::scratch_dir("good_scs_project");
-    std::string project = base_project;
-    const std::string rp = "return_periods_yr = [2, 10]";
-    project.replace(project.find(rp), rp.size(),
-                    rp + "\nstorm_type = \"II\"\ndepths_24h_mm = { \"2\" = 70.0, \"10\" = 110.0 }");
-    const std::string peak = "peak = [\"rational\"]";
-    project.replace(project.find(peak), peak.size(),
-                    "peak = [\"rational\", \"tr55_graphical\", \"scs_unit_hydrograph\"]");
-    const std::string tc = "tc = \"kirpich\"";
-    project.replace(project.find(tc), tc.size(), "tc = \"nrcs_lag\"");
-    write(dir / "project.toml", project);
-    write(dir / "catchments.csv", base_catchments);
-    write(dir / "idf.csv", base_idf);
-    std::ostringstream out;
-    std::ostringstream err;
-    EXPECT_EQ(catchpeak::cli::run({"check", (dir / "project.toml").string()}, out, err), 0)
-        << err.str();
-    EXPECT_EQ(catchpeak::cli::run({"run", (dir / "project.toml").string()}, out, err), 0)
-        << err.str();
+    auto p = larkspur_rise("good_scs_project");
+    p.rainfall.text("storm_type", "II").set("depths_24h_mm", "{ \"2\" = 70.0, \"10\" = 110.0 }");
+    p.methods.set("peak", "[\"rational\", \"tr55_graphical\", \"scs_unit_hydrograph\"]");
+    p.methods.text("tc", "nrcs_lag");
+    const auto check = p.command("check");
+    EXPECT_EQ(check.code, 0) << check.err;
+    const auto run = p.command("run");
+    EXPECT_EQ(run.code, 0) << run.err;
     // The summary table on stdout has a column per method (and a row per return period).
-    EXPECT_NE(out.str().find("TR-55 m3/s"), std::string::npos) << out.str();
-    EXPECT_NE(out.str().find("SCS UH m3/s"), std::string::npos) << out.str();
-    EXPECT_NE(out.str().find("rational m3/s"), std::string::npos) << out.str();
-    std::ifstream in(dir / "out" / "summary.csv");
-    std::ostringstream s;
-    s << in.rdbuf();
-    EXPECT_NE(s.str().find("tr55_graphical"), std::string::npos) << s.str();
-    EXPECT_NE(s.str().find("scs_unit_hydrograph"), std::string::npos) << s.str();
+    EXPECT_NE(run.out.find("TR-55 m3/s"), std::string::npos) << run.out;
+    EXPECT_NE(run.out.find("SCS UH m3/s"), std::string::npos) << run.out;
+    EXPECT_NE(run.out.find("rational m3/s"), std::string::npos) << run.out;
+    const std::string summary = read_file(p.out_dir() / "summary.csv");
+    EXPECT_NE(summary.find("tr55_graphical"), std::string::npos) << summary;
+    EXPECT_NE(summary.find("scs_unit_hydrograph"), std::string::npos) << summary;
 }
 
 TEST(ProjectCommands, InitRefusesToOverwrite) {

@@ -1,13 +1,14 @@
 // SPDX-License-Identifier: MIT
 // `catchpeak recheck` on the command line: exit codes and what it prints.
+#include "catchpeak/app/sha256.hpp"
 #include "catchpeak/cli/run.hpp"
 #include "catchpeak/core/error.hpp"
-#include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
 
-#include <fstream>
+#include <algorithm>
 #include <sstream>
 #include <string>
 #include <vector>
@@ -17,41 +18,33 @@ namespace fs = std::filesystem;
 
 namespace {
 
-void write(const fs::path &path, const std::string &text) {
-    std::ofstream(path, std::ios::binary) << text;
+using catchpeak::test::cli;
+using catchpeak::test::read_file;
+using catchpeak::test::TestProject;
+using catchpeak::test::write_file;
+
+/// A small SI table-input project (not yet written).
+TestProject fern_court(const std::string &scratch_name) {
+    TestProject p(scratch_name);
+    p.project.text("name", "Fern Court");
+    p.catchments("id,area_ha,length_m,relief_m,c,tc_min\n"
+                 "A-1,1.0,100,2,0.6,10\n");
+    p.idf("# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n");
+    return p;
 }
 
-struct Result {
-    int code;
-    std::string out;
-    std::string err;
-};
-
-Result cli(const std::vector<std::string> &args) {
-    std::ostringstream out;
-    std::ostringstream err;
-    const int code = catchpeak::cli::run(args, out, err);
-    return {code, out.str(), err.str()};
-}
-
-/// A small SI table-input project, run once; returns its output folder.
-fs::path project_run(const fs::path &dir) {
-    write(dir / "project.toml", "[project]\nname = \"Fern Court\"\nunits = \"SI\"\n"
-                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
-                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
-                                "[output]\nfolder = \"out\"\n");
-    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\n"
-                                  "A-1,1.0,100,2,0.6,10\n");
-    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n");
-    const auto r = cli({"run", (dir / "project.toml").string(), "--quiet"});
+/// Runs the project once; returns its output folder.
+fs::path project_run(TestProject &p) {
+    const auto r = p.command("run", {"--quiet"});
     EXPECT_EQ(r.code, 0) << r.err;
-    return dir / "out";
+    return p.out_dir();
 }
 
 } // namespace
 
 TEST(CliRecheck, UnchangedRunExitsZero) {
-    const auto out = project_run(catchpeak::test::scratch_dir("cli_recheck_ok"));
+    auto p = fern_court("cli_recheck_ok");
+    const auto out = project_run(p);
     const auto r = cli({"recheck", out.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
     EXPECT_NE(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
@@ -59,9 +52,11 @@ TEST(CliRecheck, UnchangedRunExitsZero) {
 }
 
 TEST(CliRecheck, ChangedInputExitsWithInputsChangedAndNamesTheFile) {
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_changed");
-    const auto out = project_run(dir);
-    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,c,tc_min\nA-1,1.2,100,2,0.6,10\n");
+    auto p = fern_court("cli_recheck_changed");
+    const auto &dir = p.dir();
+    const auto out = project_run(p);
+    write_file(dir / "catchments.csv",
+               "id,area_ha,length_m,relief_m,c,tc_min\nA-1,1.2,100,2,0.6,10\n");
     const auto r = cli({"recheck", out.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::inputs_changed)) << r.out << r.err;
     EXPECT_NE(r.out.find("catchment table 'catchments.csv'"), std::string::npos) << r.out;
@@ -70,8 +65,9 @@ TEST(CliRecheck, ChangedInputExitsWithInputsChangedAndNamesTheFile) {
 }
 
 TEST(CliRecheck, MissingInputExitsWithInputsChanged) {
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_input_gone");
-    const auto out = project_run(dir);
+    auto p = fern_court("cli_recheck_input_gone");
+    const auto &dir = p.dir();
+    const auto out = project_run(p);
     fs::remove(dir / "idf.csv");
     const auto r = cli({"recheck", out.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::inputs_changed)) << r.out << r.err;
@@ -81,13 +77,9 @@ TEST(CliRecheck, MissingInputExitsWithInputsChanged) {
 TEST(CliRecheck, NumbersThatDoNotFollowFromUnchangedInputsExitNotReproduced) {
     // The inputs are those of the run, but the recorded peak flow and its line were altered in
     // results.json: recheck recomputes other numbers and says the run is not reproduced.
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_altered");
-    const auto out = project_run(dir);
-    nlohmann::ordered_json results;
-    {
-        std::ifstream in(out / "results.json");
-        in >> results;
-    }
+    auto p = fern_court("cli_recheck_altered");
+    const auto out = project_run(p);
+    auto results = nlohmann::ordered_json::parse(read_file(out / "results.json"));
     auto &peak = results.at("design_points").at(0).at("peaks").at(0);
     const std::string line_id = peak.at("line_id").get<std::string>();
     peak["q_m3_s"] = peak.at("q_m3_s").get<double>() * 1.01;
@@ -96,7 +88,7 @@ TEST(CliRecheck, NumbersThatDoNotFollowFromUnchangedInputsExitNotReproduced) {
             line["value"] = line.at("value").get<double>() * 1.01;
         }
     }
-    write(out / "results.json", results.dump(2));
+    write_file(out / "results.json", results.dump(2));
     const auto r = cli({"recheck", out.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::not_reproduced)) << r.out << r.err;
     EXPECT_NE(r.out.find("4 of 4 inputs unchanged"), std::string::npos) << r.out;
@@ -112,8 +104,8 @@ TEST(CliRecheck, MissingFolderExitsTwoWithAMessage) {
 }
 
 TEST(CliRecheck, MissingResultsExitsTwoWithAMessage) {
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_no_results");
-    const auto out = project_run(dir);
+    auto p = fern_court("cli_recheck_no_results");
+    const auto out = project_run(p);
     fs::remove(out / "results.json");
     const auto r = cli({"recheck", out.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input));
@@ -123,12 +115,11 @@ TEST(CliRecheck, MissingResultsExitsTwoWithAMessage) {
 TEST(CliRecheck, OutputFolderElsewhereFindsTheProjectByItsRecordedPlace) {
     // The run record keeps the project file's path relative to the output folder, so recheck
     // finds it wherever the output went; a project file moved since needs --project.
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_project");
-    (void)project_run(dir);
+    auto p = fern_court("cli_recheck_project");
+    const auto &dir = p.dir();
+    (void)project_run(p);
     const auto elsewhere = dir / "runs" / "one";
-    ASSERT_EQ(
-        cli({"run", (dir / "project.toml").string(), "--quiet", "--out", elsewhere.string()}).code,
-        0);
+    ASSERT_EQ(p.command("run", {"--quiet", "--out", elsewhere.string()}).code, 0);
     auto r = cli({"recheck", elsewhere.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
 
@@ -144,24 +135,21 @@ TEST(CliRecheck, OutputFolderElsewhereFindsTheProjectByItsRecordedPlace) {
 TEST(CliRecheck, AlternatingBlockStormRunIsReproduced) {
     // The unit hydrograph of the alternating-block storm from the project's IDF (no storm type,
     // no 24-hour depths): check, run, then recheck reproduces every line and peak.
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_block_storm");
-    write(dir / "project.toml", "[project]\nname = \"Fern Court\"\nunits = \"US\"\n"
-                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
-                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
-                                "design_storm = \"alternating_block\"\nstorm_duration_min = 120\n"
-                                "[methods]\npeak = [\"scs_unit_hydrograph\"]\n"
-                                "[settings]\nstorm_time_step_min = 5\n"
-                                "[output]\nfolder = \"out\"\n");
-    write(dir / "catchments.csv", "id,area_ha,length_m,relief_m,cn,tc_min\n"
-                                  "A-1,20.0,600,6,78,25\n");
-    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n60,45\n"
-                           "120,28\n");
-    const auto check = cli({"check", (dir / "project.toml").string()});
+    auto p = fern_court("cli_recheck_block_storm");
+    p.project.text("units", "US");
+    p.rainfall.text("design_storm", "alternating_block").set("storm_duration_min", "120");
+    p.methods.set("peak", "[\"scs_unit_hydrograph\"]");
+    p.settings.set("storm_time_step_min", "5");
+    p.catchments("id,area_ha,length_m,relief_m,cn,tc_min\n"
+                 "A-1,20.0,600,6,78,25\n");
+    p.idf("# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n60,45\n"
+          "120,28\n");
+    const auto check = p.command("check");
     EXPECT_EQ(check.code, 0) << check.err;
-    const auto run = cli({"run", (dir / "project.toml").string(), "--quiet"});
+    const auto run = p.command("run", {"--quiet"});
     ASSERT_EQ(run.code, 0) << run.err;
-    ASSERT_TRUE(fs::exists(dir / "out" / "results.json"));
-    const auto r = cli({"recheck", (dir / "out").string()});
+    ASSERT_TRUE(fs::exists(p.out_dir() / "results.json"));
+    const auto r = cli({"recheck", p.out_dir().string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.out << r.err;
     EXPECT_NE(r.out.find("1 peaks reproduced, 0 differ"), std::string::npos) << r.out;
     EXPECT_NE(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
@@ -170,23 +158,17 @@ TEST(CliRecheck, AlternatingBlockStormRunIsReproduced) {
 // A project whose catchment has land parts (a land table): recheck reproduces it, verifies the
 // land table's hash (and the shipped land tables'), and names the land table when it changed.
 TEST(CliRecheck, ALandTableIsRecordedAndReproduced) {
-    const auto dir = catchpeak::test::scratch_dir("cli_recheck_land");
-    write(dir / "project.toml", "[project]\nname = \"Fern Court\"\nunits = \"US\"\n"
-                                "[inputs]\ncatchment_table = \"catchments.csv\"\n"
-                                "catchment_land_table = \"catchment-land.csv\"\n"
-                                "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
-                                "[output]\nfolder = \"out\"\n");
-    write(dir / "catchments.csv", "id,area_ac,length_ft,relief_ft,tc_min\nA-1,2.0,400,6,10\n");
-    write(dir / "catchment-land.csv", "id,class,soil_group,area_ac\n"
+    auto p = fern_court("cli_recheck_land");
+    const auto &dir = p.dir();
+    p.project.text("units", "US");
+    p.inputs.text("catchment_land_table", "catchment-land.csv");
+    p.catchments("id,area_ac,length_ft,relief_ft,tc_min\nA-1,2.0,400,6,10\n");
+    p.with_file("catchment-land.csv", "id,class,soil_group,area_ac\n"
                                       "A-1,paved_parking_roofs,C,0.8\n"
                                       "A-1,open_space_good,B/D,1.2\n");
-    write(dir / "idf.csv", "# unit: mm/h\nduration_min,10\n5,150\n10,120\n30,70\n");
-    ASSERT_EQ(cli({"run", (dir / "project.toml").string(), "--quiet"}).code, 0);
-    const auto out = dir / "out";
-    std::ifstream rec(out / "run-record.json");
-    std::ostringstream record_text;
-    record_text << rec.rdbuf();
-    const std::string record = record_text.str();
+    ASSERT_EQ(p.command("run", {"--quiet"}).code, 0);
+    const auto out = p.out_dir();
+    const std::string record = read_file(out / "run-record.json");
     EXPECT_NE(record.find("\"catchment land table\""), std::string::npos) << record;
     EXPECT_NE(record.find("config/land/curve_numbers.csv"), std::string::npos) << record;
 
@@ -195,11 +177,56 @@ TEST(CliRecheck, ALandTableIsRecordedAndReproduced) {
     // project, catchment table, land table, IDF, frequency factors, three land tables
     EXPECT_NE(r.out.find("8 of 8 inputs unchanged"), std::string::npos) << r.out;
 
-    write(dir / "catchment-land.csv", "id,class,soil_group,area_ac\n"
-                                      "A-1,paved_parking_roofs,C,1.0\n"
-                                      "A-1,open_space_good,B/D,1.0\n");
+    write_file(dir / "catchment-land.csv", "id,class,soil_group,area_ac\n"
+                                           "A-1,paved_parking_roofs,C,1.0\n"
+                                           "A-1,open_space_good,B/D,1.0\n");
     r = cli({"recheck", out.string()});
     EXPECT_EQ(r.code, static_cast<int>(ExitCode::inputs_changed)) << r.out << r.err;
     EXPECT_NE(r.out.find("catchment land table 'catchment-land.csv'"), std::string::npos) << r.out;
     EXPECT_EQ(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+}
+
+// run-record.json holds the SHA-256 of every output; recheck names an output that changed or is
+// gone since the run, with its own exit code.
+TEST(CliRecheck, ChangedOutputExitsWithOutputsChangedAndNamesTheFile) {
+    auto p = fern_court("cli_recheck_output_changed");
+    const auto out = project_run(p);
+    std::string csv = read_file(out / "summary.csv");
+    ASSERT_FALSE(csv.empty());
+    csv.back() = csv.back() == 'x' ? 'y' : 'x'; // one byte
+    write_file(out / "summary.csv", csv);
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::outputs_changed)) << r.out << r.err;
+    EXPECT_EQ(static_cast<int>(ExitCode::outputs_changed), 5);
+    EXPECT_NE(r.out.find("output changed since the run: 'summary.csv'"), std::string::npos)
+        << r.out;
+    EXPECT_NE(r.out.find("2 of 3 outputs unchanged"), std::string::npos) << r.out;
+    // The inputs and the numbers are as recorded.
+    EXPECT_NE(r.out.find("4 of 4 inputs unchanged"), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << r.out;
+}
+
+TEST(CliRecheck, MissingOutputExitsWithOutputsChangedAndNamesTheFile) {
+    auto p = fern_court("cli_recheck_output_gone");
+    const auto out = project_run(p);
+    ASSERT_TRUE(fs::remove(out / "calculation-sheet.pdf"));
+    const auto r = cli({"recheck", out.string()});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::outputs_changed)) << r.out << r.err;
+    EXPECT_NE(r.out.find("output missing since the run: 'calculation-sheet.pdf'"),
+              std::string::npos)
+        << r.out;
+}
+
+TEST(CliRecheck, TheRunRecordHoldsTheHashOfEveryOutputButItself) {
+    auto p = fern_court("cli_recheck_output_hashes");
+    const auto out = project_run(p);
+    const auto record = nlohmann::json::parse(read_file(out / "run-record.json"));
+    std::vector<std::string> paths;
+    for (const auto &o : record.at("outputs")) {
+        paths.push_back(o.at("path").get<std::string>());
+        EXPECT_EQ(o.at("sha256"), catchpeak::app::sha256_file(out / paths.back())) << paths.back();
+    }
+    std::sort(paths.begin(), paths.end());
+    EXPECT_EQ(paths,
+              (std::vector<std::string>{"calculation-sheet.pdf", "results.json", "summary.csv"}));
 }

@@ -8,6 +8,7 @@
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/project/project.hpp"
 #include "catchpeak/report/results.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
@@ -17,6 +18,17 @@
 using namespace catchpeak;
 
 namespace {
+
+/// A project of the 2-year return period with its 24-hour depth, for a method to be added.
+test::ProjectToml two_year_project() {
+    test::ProjectToml t;
+    t.project.text("name", "x");
+    t.inputs.text("catchment_table", "c.csv");
+    t.rainfall.text("idf", "i.csv")
+        .set("return_periods_yr", "[2]")
+        .set("depths_24h_mm", "{ \"2\" = 50 }");
+    return t;
+}
 
 /// Each text names one value and each value has one text; `count` is the number of the enum's
 /// values (its last enumerator + 1), so a value added to the enum without a row fails here.
@@ -76,12 +88,9 @@ TEST(OptionTables, TheParserTakesEveryTcMethodText) {
             continue; // only per point, with a tc (the parser refuses it as the default)
         }
         project::Problems problems;
-        const auto p = project::parse_project(
-            "[project]\nname = \"x\"\n[inputs]\ncatchment_table = \"c.csv\"\n[rainfall]\n"
-            "idf = \"i.csv\"\nreturn_periods_yr = [2]\ndepths_24h_mm = { \"2\" = 50 }\n"
-            "[methods]\ntc = \"" +
-                std::string(key) + "\"\n",
-            "dir/p.toml", problems);
+        auto toml = two_year_project();
+        toml.methods.text("tc", std::string(key));
+        const auto p = project::parse_project(toml.toml(), "dir/p.toml", problems);
         EXPECT_TRUE(problems.empty()) << key << ": " << problems.list().front();
         EXPECT_EQ(p.methods.tc_method, value) << key;
     }
@@ -90,12 +99,10 @@ TEST(OptionTables, TheParserTakesEveryTcMethodText) {
 TEST(OptionTables, TheParserTakesEveryPeakMethodText) {
     for (const auto &[key, value] : peak_method_options) {
         project::Problems problems;
-        const auto p = project::parse_project(
-            "[project]\nname = \"x\"\n[inputs]\ncatchment_table = \"c.csv\"\n[rainfall]\n"
-            "idf = \"i.csv\"\nreturn_periods_yr = [2]\nstorm_type = \"II\"\n"
-            "depths_24h_mm = { \"2\" = 50 }\n[methods]\npeak = [\"" +
-                std::string(key) + "\"]\n",
-            "dir/p.toml", problems);
+        auto toml = two_year_project();
+        toml.rainfall.text("storm_type", "II");
+        toml.methods.set("peak", "[\"" + std::string(key) + "\"]");
+        const auto p = project::parse_project(toml.toml(), "dir/p.toml", problems);
         EXPECT_TRUE(problems.empty()) << key << ": " << problems.list().front();
         EXPECT_EQ(p.methods.peak_methods, std::vector<PeakMethod>{value}) << key;
     }

@@ -2,6 +2,7 @@
 #include "catchpeak/project/project.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
@@ -50,40 +51,25 @@ TEST(Project, TemplateParsesWithoutProblems) {
 }
 
 TEST(Project, ReadsEveryTable) {
-    const std::string text = R"([project]
-name = "Alder Brook crossing"
-number = "24-117"
-units = "US"
-revision = "B"
-
-[inputs]
-dem = "dem.tif"
-design_points = "points.gpkg"
-id_field = "name"
-land_cover = "land.gpkg"
-soils = "soils.gpkg"
-
-[rainfall]
-idf = "idf.csv"
-return_periods_yr = [2, 25, 100]
-storm_type = "II"
-depths_24h_in = { "2" = 3.0, "25" = 5.0, "100" = 6.5 }
-
-[methods]
-tc = "nrcs_lag"
-peak = ["rational", "tr55_graphical"]
-[[methods.point]]
-id = "CV-1"
-tc = "given"
-tc_min = 22.5
-
-[settings]
-snap_radius_m = 15
-minimum_tc_min = 10
-
-[output]
-folder = "../out"
-)";
+    catchpeak::test::ProjectToml toml;
+    toml.project.text("name", "Alder Brook crossing")
+        .text("number", "24-117")
+        .text("units", "US")
+        .text("revision", "B");
+    toml.inputs.remove("catchment_table")
+        .text("dem", "dem.tif")
+        .text("design_points", "points.gpkg")
+        .text("id_field", "name")
+        .text("land_cover", "land.gpkg")
+        .text("soils", "soils.gpkg");
+    toml.rainfall.set("return_periods_yr", "[2, 25, 100]")
+        .text("storm_type", "II")
+        .set("depths_24h_in", "{ \"2\" = 3.0, \"25\" = 5.0, \"100\" = 6.5 }");
+    toml.methods.text("tc", "nrcs_lag").set("peak", "[\"rational\", \"tr55_graphical\"]");
+    toml.methods_extra = "[[methods.point]]\nid = \"CV-1\"\ntc = \"given\"\ntc_min = 22.5\n";
+    toml.settings.set("snap_radius_m", "15").set("minimum_tc_min", "10");
+    toml.output.text("folder", "../out");
+    const std::string text = toml.toml();
     Problems problems;
     const Project p = parse(text, problems);
     EXPECT_TRUE(problems.empty()) << all(problems);

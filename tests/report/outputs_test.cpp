@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/outputs.hpp"
 
+#include "catchpeak/app/sha256.hpp"
+
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/report/results_json.hpp"
 #include "report/sample_results.hpp"
@@ -17,7 +19,7 @@ namespace {
 TEST(Outputs, WritesTheFourFilesAndNothingPartial) {
     const auto r = test::sample_results(2, units::System::si, {10}, false);
     const auto dir = test::scratch_dir("outputs") / "new" / "folder";
-    const auto out = write_outputs(r, dir);
+    const auto out = write_outputs(r, dir, [](const auto &f) { return app::sha256_file(f); });
     for (const auto &f : {out.results_json, out.run_record, out.summary_csv, out.sheet_pdf}) {
         EXPECT_TRUE(std::filesystem::exists(f)) << f;
         EXPECT_GT(std::filesystem::file_size(f), 0u) << f;
@@ -28,7 +30,14 @@ TEST(Outputs, WritesTheFourFilesAndNothingPartial) {
     EXPECT_EQ(files, 4);
     EXPECT_TRUE(test::pending_files(dir).empty());
     EXPECT_EQ(read_results_json(dir).points.size(), 2u);
-    EXPECT_EQ(read_run_record(dir).run_time_utc, r.stamp.run_time_utc);
+    const auto record = read_run_record(dir);
+    EXPECT_EQ(record.run_time_utc, r.stamp.run_time_utc);
+    // Every output but the record itself, with the SHA-256 of its bytes on disk.
+    ASSERT_EQ(record.outputs.size(), 3u);
+    for (const auto &o : record.outputs) {
+        EXPECT_NE(o.path, std::string(run_record_file_name));
+        EXPECT_EQ(o.sha256, app::sha256_file(dir / o.path)) << o.path;
+    }
 }
 
 TEST(Outputs, UnwritableFolderIsAnInputError) {
@@ -36,7 +45,8 @@ TEST(Outputs, UnwritableFolderIsAnInputError) {
     const auto file = base / "not-a-folder";
     std::ofstream(file) << "x";
     const auto r = test::sample_results(1, units::System::si, {10}, false);
-    EXPECT_THROW((void)write_outputs(r, file / "out"), InputError);
+    EXPECT_THROW((void)write_outputs(r, file / "out", [](const auto &f) { return f.string(); }),
+                 InputError);
 }
 
 } // namespace

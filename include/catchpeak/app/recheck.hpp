@@ -13,8 +13,8 @@
 /// `catchpeak recheck OUTPUT_DIR`: is a run still reproduced by its inputs?
 ///
 /// Reads run-record.json and results.json of an output folder, verifies the SHA-256 of every
-/// recorded input, loads the recorded project file, recomputes the whole project in memory
-/// (the same compute function as `catchpeak run`; nothing is written) and compares every
+/// recorded input and output, loads the recorded project file, recomputes the whole project in
+/// memory (the same compute function as `catchpeak run`; nothing is written) and compares every
 /// calculation line and every peak with what the run recorded. Never modifies the folder.
 namespace catchpeak::app {
 
@@ -33,6 +33,15 @@ struct InputCheck {
     std::string recorded_sha256;
     std::string current_sha256; ///< empty when missing
     Status status = Status::unchanged;
+};
+
+/// One recorded output of the run (a file in the output folder) and what recheck found.
+struct OutputCheck {
+    std::string path;               ///< as recorded, relative to the output folder
+    std::filesystem::path resolved; ///< where recheck looked for it
+    std::string recorded_sha256;
+    std::string current_sha256; ///< empty when missing
+    InputCheck::Status status = InputCheck::Status::unchanged;
 };
 
 /// A calculation line that is not reproduced. One side is empty when the line exists only in
@@ -57,6 +66,8 @@ struct RecheckReport {
     std::filesystem::path output_dir;
     std::filesystem::path project_file; ///< the project file recomputed
     std::vector<InputCheck> inputs;
+    /// The outputs recorded in run-record.json (none in a record of an older run).
+    std::vector<OutputCheck> outputs;
     std::size_t lines_reproduced = 0;
     std::vector<LineDifference> line_differences;
     std::size_t peaks_reproduced = 0;
@@ -66,12 +77,14 @@ struct RecheckReport {
     std::string recompute_error;
 
     [[nodiscard]] std::size_t inputs_not_unchanged() const;
-    /// True when every input is unchanged and every line and peak is reproduced.
+    [[nodiscard]] std::size_t outputs_not_unchanged() const;
+    /// True when every input and output is unchanged and every line and peak is reproduced.
     [[nodiscard]] bool all_reproduced() const;
     /// The exit code of `catchpeak recheck` for this report: success when all_reproduced();
     /// inputs_changed when an input changed or is missing (whatever the lines then show: they
     /// are expected to differ); not_reproduced when every input is unchanged but a line or peak
-    /// differs or the project cannot be recomputed.
+    /// differs or the project cannot be recomputed; outputs_changed when only an output changed
+    /// or is missing.
     [[nodiscard]] ExitCode exit_code() const;
 };
 
@@ -91,8 +104,9 @@ struct RecheckOptions {
                                     const RecheckOptions &options = {});
 
 /// The text `catchpeak recheck` prints: the inputs that changed or are missing (role and
-/// file), each differing line with its recorded and recomputed text and value, each differing
-/// peak, then "P peaks reproduced, Q differ" and, last, "N lines reproduced, M differ".
+/// file), the outputs that changed or are missing (file), each differing line with its recorded and
+/// recomputed text and value, each differing peak, then "P peaks reproduced, Q differ" and, last,
+/// "N lines reproduced, M differ".
 [[nodiscard]] std::string format_recheck(const RecheckReport &report);
 
 } // namespace catchpeak::app

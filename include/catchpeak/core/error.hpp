@@ -17,6 +17,10 @@ enum class ExitCode : int {
     /// `recheck`: a recorded input changed or is missing since the run (its SHA-256 differs or
     /// the file is gone), so the run cannot be verified from the inputs at hand.
     inputs_changed = 4,
+    /// `recheck`: every recorded input is unchanged and every line and peak is reproduced, but
+    /// an output the run wrote (results.json, summary.csv, the sheet, catchments.gpkg) changed
+    /// or is missing since the run (its SHA-256 differs or the file is gone).
+    outputs_changed = 5,
 };
 
 /// Base of every exception catchpeak throws on purpose.

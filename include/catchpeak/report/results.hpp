@@ -45,6 +45,12 @@ struct InputRecord {
     std::string sha256;
 };
 
+/// One file a run wrote into its output folder and the SHA-256 of the bytes written.
+struct OutputRecord {
+    std::string path; ///< relative to the output folder, e.g. "results.json"
+    std::string sha256;
+};
+
 /// The stamp: what was run, on what, when. Goes in the run record and on the sheet, never in
 /// results.json (which must be byte-identical between runs).
 struct Stamp {
@@ -52,6 +58,8 @@ struct Stamp {
     std::string git_commit;
     std::string run_time_utc; ///< ISO 8601, e.g. "2026-12-02T10:15:00Z"
     std::vector<InputRecord> inputs;
+    /// Every output of the run but run-record.json itself; empty in a record of an older run.
+    std::vector<OutputRecord> outputs;
     /// Where the project file lay, relative to the output folder (e.g.
     /// "../../demo-data/demo-project.toml"), so that recheck finds it; "" when not recorded.
     std::string project_file_from_output;
