@@ -93,6 +93,14 @@ Entry entry(Ref r) noexcept {
         return {"NIST SP 811", "Thompson, A. and Taylor, B.N. (2008). Guide for the Use of the "
                                "International System of Units (SI). NIST Special Publication "
                                "811."};
+    case Ref::hds5_2012:
+        return {"HDS-5 (2012)",
+                "Schall, J.D., Thompson, P.L., Zerges, S.M., Kilgore, R.T. and Morris, J.L. "
+                "(2012). Hydraulic Design of Highway Culverts, third edition. FHWA-HIF-12-026, "
+                "Hydraulic Design Series No. 5. Federal Highway Administration."};
+    case Ref::chow_1959:
+        return {"Chow (1959)",
+                "Chow, V.T. (1959). Open-Channel Hydraulics. McGraw-Hill, New York."};
     }
     return {"", ""};
 }

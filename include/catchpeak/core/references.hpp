@@ -31,6 +31,8 @@ enum class Ref : std::uint8_t {
     barnes_2014,
     horn_1981,
     nist_sp811,
+    hds5_2012,
+    chow_1959,
 };
 
 /// The short form of a source as a line prints it ("TR-55 (1986)"; "" for Ref::none).
