@@ -28,13 +28,12 @@ const std::vector<double> series25 = {62.0, 48.5, 71.2, 55.0, 90.3, 44.1, 58.7, 
                                       80.4, 47.3, 61.8, 73.5, 50.2, 57.6, 101.9, 45.8, 63.3,
                                       69.0, 54.4, 77.7, 49.9, 59.1, 84.6, 56.2};
 
+/// An invented 10-year table: name, durations (min), return periods (yr), intensities (mm/h).
 rain::IdfTable invented_table() {
-    rain::IdfTable t;
-    t.name = "invented table";
-    t.durations_min = {10.0, 20.0, 30.0, 40.0, 50.0};
-    t.return_periods_yr = {10.0};
-    t.intensity_mm_per_h = {{120.0, 84.0, 66.0, 54.0, 45.6}};
-    return t;
+    return {"invented table",
+            {10.0, 20.0, 30.0, 40.0, 50.0},
+            {10.0},
+            {{120.0, 84.0, 66.0, 54.0, 45.6}}};
 }
 
 rain::IdfFormula invented_formula(rain::IntensityUnit unit) {
