@@ -241,7 +241,6 @@ TEST(Recheck, ChangedInputWhoseLinesStillAgreeIsStillAChangedInput) {
 TEST(Recheck, AlteredNumbersWithUnchangedInputsAreNotReproduced) {
     // Every input is as recorded; a line value of results.json was altered after the run.
     auto p = small_project("recheck_altered");
-    const auto &dir = p.dir();
     const auto out = p.run_app();
     nlohmann::ordered_json results = nlohmann::ordered_json::parse(read_file(out / "results.json"));
     auto &line = results.at("design_points").at(1).at("lines").at(0);
