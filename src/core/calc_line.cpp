@@ -136,14 +136,6 @@ CalcLine from_formula(const Formula &f, LineKind kind, std::vector<Quantity> inp
     return line;
 }
 
-CalcLine from_text(LineKind kind, LineText text, double value) {
-    CalcLine line;
-    line.kind = kind;
-    line.result.value = value;
-    line.text = std::move(text);
-    return line;
-}
-
 } // namespace
 
 CalcLine &CalcLines::calc(const Formula &f, std::vector<Quantity> inputs, Quantity result) {
@@ -158,30 +150,6 @@ CalcLine &CalcLines::warn(const Formula &f, std::vector<Quantity> inputs) {
 
 CalcLine &CalcLines::note(const Formula &f, std::vector<Quantity> inputs, Quantity result) {
     lines_.push_back(from_formula(f, LineKind::note, std::move(inputs), std::move(result)));
-    return lines_.back();
-}
-
-CalcLine &CalcLines::calc(std::string label, std::string symbols, std::string numbers, double value,
-                          std::string unit, std::string source) {
-    lines_.push_back(from_text(LineKind::calculation,
-                               {std::move(label), std::move(symbols), std::move(numbers),
-                                std::move(unit), std::move(source)},
-                               value));
-    return lines_.back();
-}
-
-CalcLine &CalcLines::warn(std::string label, std::string message, std::string source) {
-    lines_.push_back(from_text(LineKind::warning,
-                               {std::move(label), {}, std::move(message), {}, std::move(source)},
-                               std::numeric_limits<double>::quiet_NaN()));
-    return lines_.back();
-}
-
-CalcLine &CalcLines::note(std::string label, std::string text, std::string source, double value,
-                          std::string unit) {
-    lines_.push_back(from_text(
-        LineKind::note, {std::move(label), {}, std::move(text), std::move(unit), std::move(source)},
-        value));
     return lines_.back();
 }
 

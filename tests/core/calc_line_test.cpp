@@ -30,9 +30,10 @@ TEST(Full, RoundTrips) {
 
 TEST(CalcLines, NumberedWithPrefix) {
     CalcLines lines;
-    lines.calc("Area", "A", "A = 2.000", 2.0, "ha", "project input");
-    lines.warn("Area limit", "A = 90 ha exceeds 80 ha", "common practice, no source");
-    lines.note("Method", "Rational Method", "project input");
+    lines.add(catchpeak::test::text_calc("Area", "A", "A = 2.000", 2.0, "ha", "project input"));
+    lines.add(catchpeak::test::text_warn("Area limit", "A = 90 ha exceeds 80 ha",
+                                         "common practice, no source"));
+    lines.add(catchpeak::test::text_note("Method", "Rational Method", "project input"));
     const auto next = catchpeak::number_lines(lines, "DP3");
     EXPECT_EQ(next, 4u);
     ASSERT_EQ(lines.size(), 3u);
@@ -43,7 +44,7 @@ TEST(CalcLines, NumberedWithPrefix) {
     EXPECT_TRUE(std::isnan(lines.lines()[1].value()));
 
     CalcLines more;
-    more.calc("Q", "Q = C i A", "Q = ...", 1.5, "m3/s", "x");
+    more.add(catchpeak::test::text_calc("Q", "Q = C i A", "Q = ...", 1.5, "m3/s", "x"));
     lines.append(more);
     EXPECT_EQ(lines.size(), 4u);
 }

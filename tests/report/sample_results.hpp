@@ -5,6 +5,7 @@
 
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/report/results.hpp"
+#include "support/calc_lines.hpp"
 
 #include <fmt/format.h>
 
@@ -103,17 +104,20 @@ inline report::DesignPointResult sample_point(std::size_t i, units::System syste
 
     const bool us = system == units::System::us_customary;
     CalcLines lines;
-    lines.note("Catchment area", "from the DEM", "project input", c.area_m2, "m2");
-    lines.calc("Time of concentration, Kirpich", "tc = 0.0078 L^0.77 S^-0.385",
-               fmt::format("tc = 0.0078 x {}^0.77 x {}^-0.385",
-                           sig(units::m_to_ft(c.longest_flow_path_m)), sig(c.slope_flow_path)),
-               p.tc_min, "min", "Kirpich (1940)");
+    lines.add(catchpeak::test::text_note("Catchment area", "from the DEM", "project input",
+                                         c.area_m2, "m2"));
+    lines.add(catchpeak::test::text_calc(
+        "Time of concentration, Kirpich", "tc = 0.0078 L^0.77 S^-0.385",
+        fmt::format("tc = 0.0078 x {}^0.77 x {}^-0.385", sig(units::m_to_ft(c.longest_flow_path_m)),
+                    sig(c.slope_flow_path)),
+        p.tc_min, "min", "Kirpich (1940)"));
     if (i % 2 == 1) {
-        lines.warn("Time of concentration below the minimum",
-                   fmt::format("tc = {} min is below 5 min; 5 min is used, as local practice "
-                               "usually asks for a minimum duration of the design storm",
-                               sig(p.tc_min)),
-                   "common practice, no source");
+        lines.add(catchpeak::test::text_warn(
+            "Time of concentration below the minimum",
+            fmt::format("tc = {} min is below 5 min; 5 min is used, as local practice "
+                        "usually asks for a minimum duration of the design storm",
+                        sig(p.tc_min)),
+            "common practice, no source"));
     }
     std::vector<std::size_t> peak_line_index;
     for (double rp : return_periods) {
@@ -125,16 +129,17 @@ inline report::DesignPointResult sample_point(std::size_t i, units::System syste
             w.c_weighted * i_mm_h * c.area_m2 / 3.6e6 * (1.0 + 1e-7 * static_cast<double>(i));
         pk.intermediates["intensity_mm_per_h"] = i_mm_h;
         pk.intermediates["c_cf"] = 1.0;
-        lines.calc(fmt::format("Rainfall intensity, {}-yr", rp), "i = IDF(tc, T)",
-                   fmt::format("i = IDF({} min, {} yr)", sig(p.tc_min), rp),
-                   us ? units::mm_per_h_to_in_per_h(i_mm_h) : i_mm_h, us ? "in/h" : "mm/h",
-                   "project IDF table");
-        lines.calc(
+        lines.add(catchpeak::test::text_calc(
+            fmt::format("Rainfall intensity, {}-yr", rp), "i = IDF(tc, T)",
+            fmt::format("i = IDF({} min, {} yr)", sig(p.tc_min), rp),
+            us ? units::mm_per_h_to_in_per_h(i_mm_h) : i_mm_h, us ? "in/h" : "mm/h",
+            "project IDF table"));
+        lines.add(catchpeak::test::text_calc(
             fmt::format("Peak flow, Rational Method, {}-yr", rp),
             us ? "Q = C i A" : "Q = C i A / 360",
             fmt::format("Q = {} x {} x {}", sig(w.c_weighted), sig(i_mm_h), sig(c.area_m2 / 1e4)),
             us ? units::m3s_to_cfs(pk.q_m3_s) : pk.q_m3_s, us ? "cfs" : "m3/s",
-            "Rational Method; Kuichling (1889)");
+            "Rational Method; Kuichling (1889)"));
         peak_line_index.push_back(lines.size() - 1);
         p.peaks.push_back(std::move(pk));
     }
@@ -161,10 +166,11 @@ inline report::DesignPointResult sample_point(std::size_t i, units::System syste
         pk.intermediates["runoff_depth_mm"] = 41.25;
         pk.intermediates["time_to_peak_min"] = 215.0;
         pk.hydrograph = std::move(hg);
-        lines.calc(fmt::format("Peak flow, SCS unit hydrograph, {}-yr", pk.return_period_yr),
-                   "Q = max of the convolution of excess and unit hydrograph",
-                   "see the hydrograph plot", us ? units::m3s_to_cfs(pk.q_m3_s) : pk.q_m3_s,
-                   us ? "cfs" : "m3/s", "NRCS NEH Part 630 ch. 16");
+        lines.add(catchpeak::test::text_calc(
+            fmt::format("Peak flow, SCS unit hydrograph, {}-yr", pk.return_period_yr),
+            "Q = max of the convolution of excess and unit hydrograph", "see the hydrograph plot",
+            us ? units::m3s_to_cfs(pk.q_m3_s) : pk.q_m3_s, us ? "cfs" : "m3/s",
+            "NRCS NEH Part 630 ch. 16"));
         peak_line_index.push_back(lines.size() - 1);
         p.peaks.push_back(std::move(pk));
     }

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "../../src/report/internal/sheet_content.hpp"
+#include "support/calc_lines.hpp"
 
 #include "catchpeak/report/sheet.hpp"
 #include "catchpeak/report/sheet_units.hpp"
@@ -152,10 +153,11 @@ TEST(SheetContent, DesignPointSectionGivesItsPartsInOrder) {
 
 TEST(SheetContent, CalculationRowShowsTheLinesFields) {
     CalcLines lines;
-    lines.calc("Peak flow", "Q = C i A / 360", "Q = 0.45 x 80 x 12", 1.2, "m3/s",
-               "Rational Method");
-    lines.warn("Catchment above the limit", "A = 250 ha is above 80 ha", "common practice");
-    lines.note("Catchment area", "from the DEM", "project input");
+    lines.add(catchpeak::test::text_calc("Peak flow", "Q = C i A / 360", "Q = 0.45 x 80 x 12", 1.2,
+                                         "m3/s", "Rational Method"));
+    lines.add(catchpeak::test::text_warn("Catchment above the limit", "A = 250 ha is above 80 ha",
+                                         "common practice"));
+    lines.add(catchpeak::test::text_note("Catchment area", "from the DEM", "project input"));
     number_lines(lines, "DP9");
     const auto calc = calc_line_row(lines.lines()[0]);
     EXPECT_EQ(calc.cells[0].markup, "<b>DP9-L1</b>");

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/sheet.hpp"
+#include "support/calc_lines.hpp"
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
@@ -180,11 +181,12 @@ TEST(Sheet, LongTextWrapsAndContinuesAcrossPages) {
     auto r = test::sample_results(1, units::System::si, {2}, false);
     auto &lines = r.points[0].lines;
     for (int k = 0; k < 80; ++k) {
-        lines.calc("A long label that has to wrap inside its column of the calculation table "
-                   "because it says a lot",
-                   "Q = C i A / 360 with a deliberately_long_symbol_name_without_any_spaces_at_all",
-                   "Q = 0.4500 x 123.4 x 5.678", 0.1 * k, "m3/s",
-                   "A source with a long citation, chapter 3, equation 3-14, table 3-2");
+        lines.add(catchpeak::test::text_calc(
+            "A long label that has to wrap inside its column of the calculation table "
+            "because it says a lot",
+            "Q = C i A / 360 with a deliberately_long_symbol_name_without_any_spaces_at_all",
+            "Q = 0.4500 x 123.4 x 5.678", 0.1 * k, "m3/s",
+            "A source with a long citation, chapter 3, equation 3-14, table 3-2"));
     }
     number_lines(lines, r.points[0].id);
     const auto dir = test::scratch_dir("sheet_long");

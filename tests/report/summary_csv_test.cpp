@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/report/summary_csv.hpp"
+#include "support/calc_lines.hpp"
 
 #include "support/test_env.hpp"
 
@@ -25,8 +26,10 @@ RunResults two_points(units::System system) {
         {10.0, catchpeak::PeakMethod::rational, 2.8316846592, "DP1-L7", {}, std::nullopt});
     a.peaks.push_back(
         {100.0, catchpeak::PeakMethod::tr55_graphical, 0.28316846592, "DP1-L9", {}, std::nullopt});
-    a.lines.warn("Slope above the method's range", "S = 0.2", "common practice, no source");
-    a.lines.warn("Area above the method's range", "A = 10 acre", "common practice, no source");
+    a.lines.add(catchpeak::test::text_warn("Slope above the method's range", "S = 0.2",
+                                           "common practice, no source"));
+    a.lines.add(catchpeak::test::text_warn("Area above the method's range", "A = 10 acre",
+                                           "common practice, no source"));
     DesignPointResult b;
     b.id = "Outfall, east"; // a comma: the field must be quoted
     b.catchment.area_m2 = 1234567.0;

@@ -6,11 +6,39 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/report/line_text.hpp"
 
+#include <limits>
 #include <stdexcept>
 #include <string>
 #include <vector>
 
 namespace catchpeak::test {
+
+/// A line given as finished text, as results.json holds it (for the tests of the report, which
+/// prints what it is given).
+inline CalcLine text_line(LineKind kind, std::string label, std::string symbols,
+                          std::string numbers, double value, std::string unit, std::string source) {
+    CalcLine l;
+    l.kind = kind;
+    l.result.value = value;
+    l.text = LineText{std::move(label), std::move(symbols), std::move(numbers), std::move(unit),
+                      std::move(source)};
+    return l;
+}
+inline CalcLine text_calc(std::string label, std::string symbols, std::string numbers, double value,
+                          std::string unit, std::string source) {
+    return text_line(LineKind::calculation, std::move(label), std::move(symbols),
+                     std::move(numbers), value, std::move(unit), std::move(source));
+}
+inline CalcLine text_warn(std::string label, std::string message, std::string source) {
+    return text_line(LineKind::warning, std::move(label), {}, std::move(message),
+                     std::numeric_limits<double>::quiet_NaN(), {}, std::move(source));
+}
+inline CalcLine text_note(std::string label, std::string text, std::string source,
+                          double value = std::numeric_limits<double>::quiet_NaN(),
+                          std::string unit = {}) {
+    return text_line(LineKind::note, std::move(label), {}, std::move(text), value, std::move(unit),
+                     std::move(source));
+}
 
 /// The line's text as the sheet prints it.
 inline LineText text(const CalcLine &l) { return report::text_of(l); }

@@ -187,13 +187,6 @@ class CalcLines {
     CalcLine &note(const Formula &f, std::vector<Quantity> inputs = {}, Quantity result = {});
     void add(CalcLine line);
 
-    // Lines given as finished text, for code not yet turned to formulas (to be removed).
-    CalcLine &calc(std::string label, std::string symbols, std::string numbers, double value,
-                   std::string unit, std::string source);
-    CalcLine &warn(std::string label, std::string message, std::string source);
-    CalcLine &note(std::string label, std::string text, std::string source,
-                   double value = std::numeric_limits<double>::quiet_NaN(), std::string unit = {});
-
     void append(const CalcLines &other);
 
     [[nodiscard]] const std::vector<CalcLine> &lines() const noexcept { return lines_; }
