@@ -13,7 +13,7 @@ using units::System;
 
 namespace {
 
-// A coefficient X is printed as {(X}{X}{X)}: in parentheses when negative ("(-0.6151)").
+// A coefficient is printed in parentheses when negative ("(-0.6151)"), as TR-55 prints it.
 // clang-format off
 constexpr Formula ratio_line{"tr55.ia_over_p", "Ratio Ia/P", "Ia/P", "Ia/P = {Ia} / {P}",
     Ref::tr55_1986, " ch. 4"};
@@ -22,14 +22,14 @@ constexpr Formula ratio_outside{"tr55.ia_over_p_outside", "Ia/P outside the tabl
     " ch. 4: use the limiting value of Ia/P"};
 constexpr Formula coefficient{"tr55.coefficient", "Coefficient {name}, storm type {type}, Ia/P = {Ia/P}",
     "{name} = {name}a + (Ia/P - Ia/Pa) / (Ia/Pb - Ia/Pa) x ({name}b - {name}a)",
-    "{name} = {(a}{a}{a)} + ({Ia/P} - {Ia/Pa}) / ({Ia/Pb} - {Ia/Pa}) x ({(b}{b}{b)} - {(a}{a}{a)})",
+    "{name} = {a} + ({Ia/P} - {Ia/Pa}) / ({Ia/Pb} - {Ia/Pa}) x ({b} - {a})",
     Ref::none, "{table}"};
 constexpr Formula tc_outside{"tr55.tc_outside", "tc outside the method's range", "",
     "tc = {tc} {tc:u} is outside 0.1-10 h; {used} {used:u} is used for qu", Ref::tr55_1986,
     " ch. 4 limitations"};
 constexpr Formula log_unit_peak{"tr55.log_unit_peak", "Unit peak discharge (log)",
     "log10(qu) = C0 + C1 log10(tc) + C2 (log10 tc)^2",
-    "log10(qu) = {(C0}{C0}{C0)} + {(C1}{C1}{C1)} x log10({tc}) + {(C2}{C2}{C2)} x (log10 {tc})^2",
+    "log10(qu) = {C0} + {C1} x log10({tc}) + {C2} x (log10 {tc})^2",
     Ref::tr55_1986, " App. F (from memory)"};
 constexpr Formula unit_peak{"tr55.unit_peak", "Unit peak discharge", "qu = 10^log10(qu)",
     "qu = 10^{log10(qu)}", Ref::tr55_1986, " ch. 4, Exhibit 4"};
@@ -61,12 +61,9 @@ using Rows = std::vector<PeakCoefficientTable::Row>;
 
 double lerp(double a, double b, double w) { return a + w * (b - a); }
 
-/// Coefficient `symbol` with 6 significant figures and the words that put it in parentheses
-/// when negative.
+/// Coefficient `symbol` with 6 significant figures, in parentheses when negative.
 void add_coefficient(std::vector<Quantity> &q, const std::string &symbol, double v) {
-    q.push_back(word("(" + symbol, v < 0.0 ? "(" : ""));
-    q.push_back(qty(symbol, v, Unit::none, Shown::sig(6)));
-    q.push_back(word(symbol + ")", v < 0.0 ? ")" : ""));
+    q.push_back(qty(symbol, v, Unit::none, Shown::sig(6).parenthesised()));
 }
 
 void check_inputs(double area_m2, double tc_min, double rainfall_mm, double ia_mm, double runoff_mm,

@@ -32,51 +32,15 @@ constexpr Formula beyond_record{"ams.beyond_record",
                                 Ref::common_practice,
                                 ""};
 
-/// Puts the negative numbers that the numbers template of `line` substitutes in parentheses
-/// ("(-0.1640)"), so that a substituted value never reads as "+ -0.1640" or "2^--0.1000":
-/// every "{X}" whose quantity X is a negative number becomes "({X})".
-CalcLine &negatives_in_parentheses(CalcLine &line) {
-    const auto negative = [&line](std::string_view symbol) {
-        const auto is = [symbol](const Quantity &q) {
-            return q.symbol == symbol && !q.text && q.value < 0.0;
-        };
-        return std::any_of(line.inputs.begin(), line.inputs.end(), is) || is(line.result);
-    };
-    const std::string_view in = line.pattern.numbers;
-    std::string out;
-    out.reserve(in.size() + 8);
-    std::size_t i = 0;
-    while (i < in.size()) {
-        const std::size_t open = in.find('{', i);
-        const std::size_t close = open == std::string_view::npos ? open : in.find('}', open);
-        if (close == std::string_view::npos) {
-            out += in.substr(i);
-            break;
-        }
-        out += in.substr(i, open - i);
-        if (in.substr(open, 2) == "{{") { // an escaped brace
-            out += "{{";
-            i = open + 2;
-            continue;
-        }
-        const std::string_view placeholder = in.substr(open, close + 1 - open);
-        if (negative(placeholder.substr(1, placeholder.size() - 2))) {
-            out += '(';
-            out += placeholder;
-            out += ')';
-        } else {
-            out += placeholder;
-        }
-        i = close + 1;
-    }
-    line.pattern.numbers = std::move(out);
-    return line;
-}
-
-/// A calculation line whose negative numbers are shown in parentheses.
+/// A calculation line whose negative numbers are shown in parentheses ("(-0.1640)"), so that a
+/// substituted value never reads as "+ -0.1640" or "2^--0.1000".
 CalcLine &calc_signed(CalcLines &lines, const Formula &f, std::vector<Quantity> inputs,
                       Quantity result) {
-    return negatives_in_parentheses(lines.calc(f, std::move(inputs), std::move(result)));
+    for (auto &q : inputs) {
+        q.shown = q.shown.parenthesised();
+    }
+    result.shown = result.shown.parenthesised();
+    return lines.calc(f, std::move(inputs), std::move(result));
 }
 
 void check_return_period(double t_yr, const char *method) {

@@ -37,10 +37,9 @@ const Quantity *find(std::string_view symbol, const CalcLine &line,
 
 } // namespace
 
-std::string shown(const Quantity &q) {
-    if (q.text) {
-        return *q.text;
-    }
+namespace {
+
+std::string number(const Quantity &q) {
     switch (q.shown.style) {
     case Shown::Style::significant:
         return sig(q.value, q.shown.digits);
@@ -50,6 +49,18 @@ std::string shown(const Quantity &q) {
         return full(q.value);
     }
     return sig(q.value);
+}
+
+} // namespace
+
+std::string shown(const Quantity &q) {
+    if (q.text) {
+        return *q.text;
+    }
+    if (q.shown.negative_in_parentheses && q.value < 0.0) {
+        return "(" + number(q) + ")";
+    }
+    return number(q);
 }
 
 std::string fill(std::string_view pattern, const CalcLine &line, const std::vector<Quantity> *row) {

@@ -44,6 +44,18 @@ TEST(LineText, PrintsEachQuantityAsItsShownSays) {
     EXPECT_EQ(t.unit, "ft3/s");
 }
 
+TEST(LineText, NegativeNumbersInParenthesesWhereTheFormulaSaysSo) {
+    constexpr Formula f{"test.neg", "Frequency factor", "", "x = {m} + {K} x {s} + {K2}", Ref::none,
+                        ""};
+    CalcLines lines;
+    lines.calc(f,
+               {qty("m", 80.0), qty("K", -0.164, Unit::none, Shown::sig(4).parenthesised()),
+                qty("s", 20.0), qty("K2", 0.5, Unit::none, Shown::sig(4).parenthesised())},
+               qty("x", 76.72));
+    // Only a negative value gets the parentheses (TR-55 Table 4-1 prints "(-0.51202)" so).
+    EXPECT_EQ(text_of(lines.lines()[0]).numbers, "x = 80.00 + (-0.1640) x 20.00 + 0.5000");
+}
+
 TEST(LineText, RepeatsOverRowsAndPrintsUnits) {
     constexpr Formula f{"test.sum",
                         "Composite",

@@ -71,6 +71,7 @@ struct Shown {
     };
     Style style = Style::significant;
     int digits = 4;
+    bool negative_in_parentheses = false; ///< "(-0.6151)", as the published tables print them
 
     friend constexpr bool operator==(const Shown &, const Shown &) = default;
 
@@ -80,6 +81,8 @@ struct Shown {
     }
     [[nodiscard]] static constexpr Shown integer() noexcept { return {Style::fixed, 0}; }
     [[nodiscard]] static constexpr Shown exact() noexcept { return {Style::full, 0}; }
+    /// The same, with a negative value put in parentheses.
+    [[nodiscard]] constexpr Shown parenthesised() const noexcept { return {style, digits, true}; }
 };
 
 /// One input or result of a line: a symbol, a value in `unit`, and how it is printed. A
