@@ -100,9 +100,10 @@ void add_project_commands(CLI::App &app, Commands &c, std::ostream &out, std::os
 /// c.action.
 void add_recheck_command(CLI::App &app, Commands &c, std::ostream &out) {
     auto *recheckc = app.add_subcommand(
-        "recheck", "Verify the inputs of a run, recompute it in memory and compare every "
-                   "calculation line; exit 0 when everything is reproduced, 3 when a line "
-                   "differs from unchanged inputs, 4 when an input changed since the run");
+        "recheck", "Verify the inputs and outputs of a run, recompute it in memory and compare "
+                   "every calculation line; exit 0 when everything is reproduced, 3 when a "
+                   "line differs from unchanged inputs, 4 when an input changed since the run, "
+                   "5 when an output changed since the run");
     recheckc->add_option("OUTPUT_DIR", c.recheck_dir, "Output folder of a 'catchpeak run'")
         ->required();
     recheckc->add_option("--project", c.recheck_project,
