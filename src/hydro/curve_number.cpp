@@ -82,7 +82,7 @@ CnEvaluation evaluate_cn(double rainfall_mm, double cn, System system, IaRatio r
     const bool us = detail::is_us(system);
     CnEvaluation e;
     e.p = detail::sheet_depth(rainfall_mm, system);
-    e.s20 = us ? 1000.0 / cn - 10.0 : 25400.0 / cn - 254.0;
+    e.s20 = us ? cn_retention_in(cn) : 25400.0 / cn - 254.0;
     e.s = e.s20;
     e.cn_used = cn;
     double lambda = 0.2;
@@ -142,6 +142,11 @@ double area_weighted(const std::vector<CnPart> &parts, System system, const char
 }
 
 } // namespace
+
+double cn_retention_in(double cn) {
+    detail::require_cn(cn);
+    return 1000.0 / cn - 10.0;
+}
 
 double cn_runoff_depth_mm(double rainfall_mm, double cn, IaRatio ratio) {
     return evaluate_cn(rainfall_mm, cn, System::si, ratio).q;

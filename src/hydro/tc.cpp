@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/hydro/tc.hpp"
 
+#include "catchpeak/hydro/curve_number.hpp"
+
 #include "checks.hpp"
 #include "sheet.hpp"
 
@@ -183,7 +185,7 @@ WithLines<double> nrcs_lag_tc_min(double flow_length_m, double cn, double slope_
         out.lines.note(lag_units);
         l_ft = length_to_ft_line(out.lines, lag_length_ft, "l", flow_length_m);
     }
-    const double s_in = 1000.0 / cn - 10.0;
+    const double s_in = cn_retention_in(cn);
     out.lines.calc(lag_retention, {qty("CN", cn)}, qty("S", s_in, Unit::in));
     const double lag_h =
         std::pow(l_ft, 0.8) * std::pow(s_in + 1.0, 0.7) / (1900.0 * std::sqrt(slope_percent));

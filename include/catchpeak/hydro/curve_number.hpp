@@ -28,6 +28,9 @@ struct CnRunoff {
 [[nodiscard]] WithLines<CnRunoff> cn_runoff(double rainfall_mm, double cn, units::System system,
                                             IaRatio ratio = IaRatio::r020);
 
+/// Potential maximum retention in inches, S = 1000/CN - 10 (TR-55 eq. 2-4); CN in [30, 100].
+[[nodiscard]] double cn_retention_in(double cn);
+
 /// The runoff depth only (no lines): for hyetographs, where each step would need a line.
 [[nodiscard]] double cn_runoff_depth_mm(double rainfall_mm, double cn,
                                         IaRatio ratio = IaRatio::r020);
