@@ -171,13 +171,12 @@ land::PartsWeighting weight_table_catchment(const Project &p, const TableCatchme
     const std::string table_given = p.inputs.catchment_table ? p.inputs.catchment_table->given : "";
     std::vector<land::PartArea> areas;
     areas.reserve(parts.size());
-    std::set<std::string> duals;
+    std::set<land::DualGroup> duals;
     for (const auto &part : parts) {
         areas.push_back({part.land_class, part.soil.group, part.area_m2,
                          fmt::format("{}, line {}", land_given, part.line)});
         if (part.soil.dual) {
-            duals.insert(
-                fmt::format("{} -> {}", part.soil_group_text, land::to_string(part.soil.group)));
+            duals.insert({part.soil_group_text, std::string(land::to_string(part.soil.group))});
         }
     }
     land::PartsContext pc;

@@ -598,17 +598,17 @@ struct LandOverlay::Impl {
     }
 
     /// Warnings for repaired polygons that reach into the catchment; returns the dual soil
-    /// groups found in it, as "B/D -> D", each once.
-    std::vector<std::string> check_features(const CatchmentCut &catchment, const PartSums &parts,
-                                            CalcLines &warnings) const {
-        std::set<std::string> duals;
+    /// groups found in it (as written, and the group used), each once.
+    std::vector<DualGroup> check_features(const CatchmentCut &catchment, const PartSums &parts,
+                                          CalcLines &warnings) const {
+        std::set<DualGroup> duals;
         for (const auto &sp : catchment.soil) {
             if (sp.feature == no_feature) {
                 continue;
             }
             const auto &sf = soils.features[sp.feature];
             if (sf.soil.dual) {
-                duals.insert(fmt::format("{} -> {}", sf.value, to_string(sf.soil.group)));
+                duals.insert({sf.value, std::string(to_string(sf.soil.group))});
             }
             warn_if_repaired(soils, sf, warnings);
         }

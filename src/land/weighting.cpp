@@ -29,13 +29,13 @@ constexpr Formula dual_groups_drained{
     "land.dual_groups_drained",
     "Dual hydrologic soil groups",
     "",
-    "{[{g}|, ]} (setting drained = true: the drained group, the first letter)",
+    "{[{g} -> {used}|, ]} (setting drained = true: the drained group, the first letter)",
     Ref::project_setting,
     ""};
 constexpr Formula dual_groups_undrained{"land.dual_groups_undrained",
                                         "Dual hydrologic soil groups",
                                         "",
-                                        "{[{g}|, ]} (setting drained = false: group D)",
+                                        "{[{g} -> {used}|, ]} (setting drained = false: group D)",
                                         Ref::project_setting,
                                         ""};
 constexpr Formula slope_note{
@@ -204,7 +204,7 @@ void input_lines(CalcLines &lines, const LandTables &tables, const PartsContext 
     if (!context.dual_groups.empty()) {
         auto &l = lines.note(context.drained ? dual_groups_drained : dual_groups_undrained);
         for (const auto &g : context.dual_groups) {
-            l.rows.push_back({word("g", g)});
+            l.rows.push_back({word("g", g.written), word("used", g.used)});
         }
     }
     if (slope_used) {

@@ -255,7 +255,7 @@ TEST(WeightParts, EveryLineRendersInBothUnitSystems) {
         for (const bool drained : {false, true}) {
             auto ctx = context(10000.0);
             ctx.units = system;
-            ctx.dual_groups = {"B/D -> B", "C/D -> C"};
+            ctx.dual_groups = {{"B/D", "B"}, {"C/D", "C"}};
             ctx.drained = drained;
             ctx.parts_source = LineSource{
                 catchpeak::Ref::project_input,

@@ -6,6 +6,7 @@
 #include "catchpeak/land/tables.hpp"
 #include "catchpeak/report/results.hpp"
 
+#include <compare>
 #include <optional>
 #include <string>
 #include <vector>
@@ -42,6 +43,14 @@ struct LineSource {
     LineSource(const char *text); // NOLINT: implicit, as above
 };
 
+/// A dual hydrologic soil group found in a catchment: as the soil layer writes it ("B/D") and
+/// the group used for it by the project's setting ("D").
+struct DualGroup {
+    std::string written;
+    std::string used;
+    friend auto operator<=>(const DualGroup &, const DualGroup &) = default;
+};
+
 /// What the lines say about the catchment and where its parts come from.
 struct PartsContext {
     std::string label;              ///< the catchment, in messages ("DP3", "DP3 local")
@@ -54,7 +63,7 @@ struct PartsContext {
     /// Source of the warning when the parts do not add up to the catchment ("GEOS overlay").
     LineSource area_check_source;
     /// Dual soil groups found, as "B/D -> D", each once; a note states their resolution.
-    std::vector<std::string> dual_groups;
+    std::vector<DualGroup> dual_groups;
     bool drained = false; ///< the setting that resolved them
     /// Slope (percent) for the slope bands of the C table, what it is and its source; needed
     /// only when a part's class has slope bands.
