@@ -225,7 +225,7 @@ void figures(const DesignPointResult &p, const Formats &f, std::vector<SheetBloc
     }
     items.emplace_back("Time of concentration, tc",
                        sig(p.tc_min) + " min" +
-                           (p.tc_method ? " (" + std::string(key_of(*p.tc_method)) + ")" : ""));
+                           (p.tc_method ? " (" + method_title(*p.tc_method) + ")" : ""));
     TableBlock t{columns(style::figure_columns_pt, {{"Figure", left}, {"Value", left}}), {}};
     for (const auto &[k, v] : items) {
         t.rows.push_back({{{esc(k)}, {bold(v)}}, std::nullopt});

@@ -44,6 +44,22 @@ std::string method_title(PeakMethod method) {
     return std::string(key_of(method));
 }
 
+std::string method_title(TcMethod method) {
+    switch (method) {
+    case TcMethod::kirpich:
+        return "Kirpich";
+    case TcMethod::nrcs_lag:
+        return "NRCS lag";
+    case TcMethod::tr55_segmental:
+        return "TR-55 segmental";
+    case TcMethod::kerby_kirpich:
+        return "Kerby-Kirpich";
+    case TcMethod::given:
+        return "given by the engineer";
+    }
+    return std::string(key_of(method));
+}
+
 std::string return_period_title(double return_period_yr) {
     return fmt::format("{:g}-yr", return_period_yr);
 }

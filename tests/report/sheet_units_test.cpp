@@ -39,6 +39,10 @@ TEST(SheetUnits, Titles) {
     EXPECT_EQ(method_title(catchpeak::PeakMethod::rational), "Rational Method");
     EXPECT_EQ(method_title(catchpeak::PeakMethod::tr55_graphical), "TR-55 graphical peak");
     EXPECT_EQ(method_title(catchpeak::PeakMethod::scs_unit_hydrograph), "SCS unit hydrograph");
+    // tc methods by the names of their publications, not by the project file's keys.
+    EXPECT_EQ(method_title(catchpeak::TcMethod::kirpich), "Kirpich");
+    EXPECT_EQ(method_title(catchpeak::TcMethod::kerby_kirpich), "Kerby-Kirpich");
+    EXPECT_EQ(method_title(catchpeak::TcMethod::given), "given by the engineer");
     EXPECT_EQ(return_period_title(10.0), "10-yr");
     EXPECT_EQ(return_period_title(2.33), "2.33-yr");
 }

@@ -36,6 +36,9 @@ struct SheetValue {
 /// Name of a peak flow method for the sheet: "Rational Method", "TR-55 graphical peak",
 /// "SCS unit hydrograph".
 [[nodiscard]] std::string method_title(PeakMethod method);
+/// Name of a tc method for the sheet: "Kirpich", "NRCS lag", "TR-55 segmental",
+/// "Kerby-Kirpich", "given by the engineer".
+[[nodiscard]] std::string method_title(TcMethod method);
 
 /// A return period for the sheet: 10 -> "10-yr", 2.33 -> "2.33-yr".
 [[nodiscard]] std::string return_period_title(double return_period_yr);
