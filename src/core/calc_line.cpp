@@ -95,6 +95,10 @@ std::string_view symbol(Unit u) noexcept {
         return "years";
     case Unit::us_ft:
         return "US ft";
+    case Unit::m_half_per_s:
+        return "m^0.5/s";
+    case Unit::ft_half_per_s:
+        return "ft^0.5/s";
     }
     return "";
 }

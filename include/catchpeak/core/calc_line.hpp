@@ -57,6 +57,8 @@ enum class Unit : std::uint8_t {
     ac_ft,
     years, ///< a count of years (the length of a record)
     us_ft, ///< US survey foot, of a coordinate in a CRS that uses it
+    m_half_per_s,  ///< m^0.5/s, of a weir coefficient in Q = Cd L H^1.5 (SI)
+    ft_half_per_s, ///< ft^0.5/s, of a weir coefficient in Q = Cd L H^1.5 (US customary)
 };
 
 /// The symbol of a unit as the sheet prints it ("ft3/s", "mm/h", "" for none).
