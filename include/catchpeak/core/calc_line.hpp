@@ -55,8 +55,8 @@ enum class Unit : std::uint8_t {
     ft3_per_s_per_in,
     m3_per_s_per_mm,
     ac_ft,
-    years, ///< a count of years (the length of a record)
-    us_ft, ///< US survey foot, of a coordinate in a CRS that uses it
+    years,         ///< a count of years (the length of a record)
+    us_ft,         ///< US survey foot, of a coordinate in a CRS that uses it
     m_half_per_s,  ///< m^0.5/s, of a weir coefficient in Q = Cd L H^1.5 (SI)
     ft_half_per_s, ///< ft^0.5/s, of a weir coefficient in Q = Cd L H^1.5 (US customary)
 };
