@@ -374,7 +374,7 @@ std::vector<CulvertSpec> read_culvert_table(const fs::path &path,
         s.id = r.text(c.id);
         if (s.id.empty()) {
             r.problem(c.id, "the id is empty", "a design point id");
-        } else if (known.count(s.id) == 0) {
+        } else if (!known.empty() && known.count(s.id) == 0) {
             const std::string hint = project::closest_match(s.id, known_ids);
             r.problem(c.id,
                       fmt::format("design point '{}' is not in the project{}", s.id,

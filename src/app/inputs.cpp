@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/inputs.hpp"
+#include "catchpeak/app/culverts.hpp"
 
 #include "catchpeak/app/catchment_land.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
@@ -361,6 +362,8 @@ void check_project(const Project &p, Problems &problems) {
     check_file(p.inputs.breach_lines, pf, "[inputs] breach_lines", problems);
     check_file(p.inputs.c_table, pf, "[inputs] c_table", problems);
     check_file(p.inputs.cn_table, pf, "[inputs] cn_table", problems);
+    check_file(p.inputs.culvert_table, pf, "[inputs] culvert_table", problems);
+    check_file(p.design.culvert_sizes, pf, "[design] culvert_sizes", problems);
     check_file(p.rainfall.idf, pf, "[rainfall] idf", problems);
     check_file(p.rainfall.annual_maximum_series, pf, "[rainfall] annual_maximum_series", problems);
     if (problems.size() != before) {
@@ -400,6 +403,18 @@ void check_project(const Project &p, Problems &problems) {
     }
     if (p.inputs.catchment_table) {
         check_catchment_table(p, problems);
+    }
+    if (p.inputs.culvert_table) {
+        // A DEM project's design point ids are checked by the run, after delineation.
+        std::vector<std::string> ids;
+        if (p.inputs.catchment_table) {
+            collect(problems, [&] {
+                for (const auto &c : read_catchment_table(p.inputs.catchment_table->resolved)) {
+                    ids.push_back(c.id);
+                }
+            });
+        }
+        check_culverts(p, ids, problems);
     }
 }
 

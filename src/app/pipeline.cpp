@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/pipeline.hpp"
 
+#include "catchpeak/app/culverts.hpp"
 #include "catchpeak/app/dem_project.hpp"
 #include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
@@ -11,6 +12,7 @@
 #include "catchpeak/core/version.hpp"
 #include "catchpeak/hydro/rational.hpp"
 #include "catchpeak/hydro/tc.hpp"
+#include "catchpeak/io/culvert_tables.hpp"
 #include "catchpeak/io/hydro_tables.hpp"
 #include "catchpeak/io/idf_csv.hpp"
 #include "catchpeak/report/outputs.hpp"
@@ -163,6 +165,8 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
     }
 
+    design_culverts(p, r);
+
     // The stamp: what was run, on what. Paths as written in the project file.
     r.stamp.tool_version = std::string(version());
     r.stamp.git_commit = std::string(git_commit());
@@ -188,6 +192,21 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
     }
     add("breach lines", p.inputs.breach_lines);
+    add("culvert table", p.inputs.culvert_table);
+    if (p.inputs.culvert_table) {
+        std::vector<std::pair<std::string, std::string>> shipped{
+            {"culvert inlet table", io::culvert_inlets_file}};
+        if (p.design.culvert_sizes) {
+            add("culvert sizes", p.design.culvert_sizes);
+        } else {
+            shipped.emplace_back("culvert sizes", io::culvert_sizes_file(
+                                                      p.info.units == units::System::us_customary));
+        }
+        for (const auto &[role, rel] : shipped) {
+            r.stamp.inputs.push_back({role, (fs::path("config") / rel).generic_string(),
+                                      sha256_file(config_dir() / rel)});
+        }
+    }
     // The land tables: the project's own, else the shipped ones, when land is weighted.
     if (!p.uses_table() || !land_parts.empty()) {
         for (const auto &[role, own, shipped] :

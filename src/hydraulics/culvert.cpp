@@ -72,7 +72,7 @@ double allowed_line(CalcLines &lines, const Site &site, const Section &s, const 
         const double a =
             std::min(u.len(*lim.elevation_m - site.inlet_invert_m), *lim.hw_over_d * d);
         lines.calc(allowed_both,
-                   {u.q_len("ELa", *lim.elevation_m), u.q_len("ELi", site.inlet_invert_m),
+                   {u.q_elev("ELa", *lim.elevation_m), u.q_elev("ELi", site.inlet_invert_m),
                     qty("ra", *lim.hw_over_d), u.sheet_len("D", d)},
                    u.sheet_len("HWa", a));
         return u.len_si(a);
@@ -80,7 +80,7 @@ double allowed_line(CalcLines &lines, const Site &site, const Section &s, const 
     if (lim.elevation_m) {
         const double a = u.len(*lim.elevation_m - site.inlet_invert_m);
         lines.calc(allowed_elevation,
-                   {u.q_len("ELa", *lim.elevation_m), u.q_len("ELi", site.inlet_invert_m)},
+                   {u.q_elev("ELa", *lim.elevation_m), u.q_elev("ELi", site.inlet_invert_m)},
                    u.sheet_len("HWa", a));
         return u.len_si(a);
     }
@@ -224,7 +224,14 @@ WithLines<Sizing> size_culvert(const Culvert &culvert, const std::vector<Section
         out.lines
             .note(size_smaller, size_quantities(sizes[*z.next_smaller], *z.next_smaller_result, u))
             .rows = size_rows(sizes[*z.next_smaller], u);
-        out.lines.append(previous->lines);
+        // Its failing is why it is not chosen (the note above), not a warning of the design.
+        CalcLines smaller = std::move(previous->lines);
+        for (auto &l : smaller.lines()) {
+            if (l.kind == LineKind::warning) {
+                l.kind = LineKind::note;
+            }
+        }
+        out.lines.append(smaller);
     }
     return out;
 }

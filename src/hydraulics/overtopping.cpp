@@ -89,16 +89,16 @@ WithLines<FlowSplit> split_with_road(const Culvert &c, double q_m3_s, const Site
     FlowSplit &s = out.value;
     auto alone = analyse(c, q_m3_s, site, system);
     const double el_alone = site.inlet_invert_m + alone.value.hw_m;
-    const std::vector<Quantity> alone_q{u.q_len("ELi", site.inlet_invert_m),
+    const std::vector<Quantity> alone_q{u.q_elev("ELi", site.inlet_invert_m),
                                         u.q_len("HW", alone.value.hw_m),
-                                        u.q_len("ELc", road.crest_elevation_m)};
+                                        u.q_elev("ELc", road.crest_elevation_m)};
     if (el_alone <= road.crest_elevation_m) {
-        out.lines.note(alone_below, alone_q).result = u.q_len("ELhw", el_alone);
+        out.lines.note(alone_below, alone_q).result = u.q_elev("ELhw", el_alone);
         s = {q_m3_s, 0.0, el_alone, 0.0, false, alone.value};
         out.lines.append(alone.lines);
         return out;
     }
-    out.lines.warn(alone_above, alone_q).result = u.q_len("ELhw", el_alone);
+    out.lines.warn(alone_above, alone_q).result = u.q_elev("ELhw", el_alone);
     const double qc = culvert_share(c, q_m3_s, site, road, system);
     auto shared = analyse(c, qc, site, system);
     const double el = site.inlet_invert_m + shared.value.hw_m;
@@ -107,10 +107,10 @@ WithLines<FlowSplit> split_with_road(const Culvert &c, double q_m3_s, const Site
     s = {qc, qr, el, std::max(0.0, el - road.crest_elevation_m), true, shared.value};
     out.lines.calc(over_road,
                    {weir_coefficient(road.weir_coefficient_si, u), u.q_len("L", road.length_m),
-                    u.q_len("ELhw", el), u.q_len("ELc", road.crest_elevation_m)},
+                    u.q_elev("ELhw", el), u.q_elev("ELc", road.crest_elevation_m)},
                    u.q_flow("Qr", road_flow_m3_s(road, el)));
     out.lines.calc(split,
-                   {u.q_flow("Q", q_m3_s), u.q_flow("Qr", qr), u.q_len("ELhw", el),
+                   {u.q_flow("Q", q_m3_s), u.q_flow("Qr", qr), u.q_elev("ELhw", el),
                     qty("tol", detail::root_tolerance)},
                    u.q_flow("Qc", qc));
     out.lines.append(shared.lines);

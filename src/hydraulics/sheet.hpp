@@ -44,6 +44,11 @@ struct Sheet {
     [[nodiscard]] Quantity q_len(std::string s, double m) const {
         return qty(std::move(s), len(m), u_len());
     }
+    /// An elevation, SI in: to the millimetre (SI) or the hundredth of a foot (US), whatever
+    /// its size (four significant digits would round 1234.56 m to 1235).
+    [[nodiscard]] Quantity q_elev(std::string s, double m) const {
+        return qty(std::move(s), len(m), u_len(), Shown::fixed(us() ? 2 : 3));
+    }
     [[nodiscard]] Quantity sheet_len(std::string s, double v) const {
         return qty(std::move(s), v, u_len());
     }

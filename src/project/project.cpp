@@ -388,6 +388,7 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     in.breach_lines = t.path("breach_lines", dir);
     in.c_table = t.path("c_table", dir);
     in.cn_table = t.path("cn_table", dir);
+    in.culvert_table = t.path("culvert_table", dir);
     t.finish();
 
     // A key that is present but wrong has been reported already: count it as present here.
@@ -709,9 +710,26 @@ void check_design_storm(const Project &p, Problems &problems) {
     }
 }
 
+void read_design(TableReader &t, const fs::path &dir, const Rainfall &rain, Design &d) {
+    d.culvert_return_period_yr = t.number("culvert_return_period_yr", 0.0, 1.0e4, false);
+    d.culvert_return_period_line = t.line_of("culvert_return_period_yr");
+    if (d.culvert_return_period_yr &&
+        std::find(rain.return_periods_yr.begin(), rain.return_periods_yr.end(),
+                  *d.culvert_return_period_yr) == rain.return_periods_yr.end()) {
+        t.problem(*t.get("culvert_return_period_yr"), "culvert_return_period_yr",
+                  fmt::format("{} years is not one of the return periods computed",
+                              *d.culvert_return_period_yr),
+                  "one of [rainfall] return_periods_yr");
+    }
+    d.culvert_sizes = t.path("culvert_sizes", dir);
+    d.outlet_velocity_max_m_per_s = t.number("outlet_velocity_max_m_per_s", 0.0, 30.0, false)
+                                        .value_or(d.outlet_velocity_max_m_per_s);
+    t.finish();
+}
+
 /// What a project file's top level holds, for messages.
 constexpr const char *section_hint = "the tables [project], [inputs], [rainfall], [methods], "
-                                     "[settings], [output]";
+                                     "[settings], [design], [output]";
 
 /// Takes the parsed file; reads its tables into `p` (a missing [project], [inputs] or
 /// [rainfall] is a problem), the output folder defaulting to reports/latest beside the file.
@@ -744,6 +762,10 @@ void read_sections(const toml::table &root, const std::string &name, Project &p,
         TableReader r(*t, "settings", name, problems);
         read_settings(r, p.rainfall, p.settings);
     }
+    if (const auto *t = sub_table(top, "design")) {
+        TableReader r(*t, "design", name, problems);
+        read_design(r, p.dir, p.rainfall, p.design);
+    }
     p.output_dir = p.dir / "reports" / "latest";
     if (const auto *t = sub_table(top, "output")) {
         TableReader r(*t, "output", name, problems);
@@ -758,8 +780,8 @@ void read_sections(const toml::table &root, const std::string &name, Project &p,
 void check_unknown_sections(const toml::table &root, const std::string &name, Problems &problems) {
     for (auto &&[k, v] : root) {
         const std::string key(k.str());
-        static const std::vector<std::string> sections = {"project", "inputs",   "rainfall",
-                                                          "methods", "settings", "output"};
+        static const std::vector<std::string> sections = {
+            "project", "inputs", "rainfall", "methods", "settings", "design", "output"};
         if (std::find(sections.begin(), sections.end(), key) != sections.end()) {
             continue;
         }

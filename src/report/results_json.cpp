@@ -6,6 +6,7 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
 
+#include <array>
 #include <nlohmann/json.hpp>
 
 #include <cmath>
@@ -137,6 +138,53 @@ Json line_json(const CalcLine &l) {
     return j;
 }
 
+Json culvert_json(const CulvertResult &c) {
+    Json j;
+    j["shape"] = c.shape;
+    j["barrels"] = c.barrels;
+    j["span_m"] = number(c.span_m);
+    j["rise_m"] = number(c.rise_m);
+    j["sized"] = c.sized;
+    j["size_found"] = c.size_found;
+    j["inlet"] = c.inlet;
+    j["inlet_invert_m"] = number(c.inlet_invert_m);
+    j["outlet_invert_m"] = number(c.outlet_invert_m);
+    j["length_m"] = number(c.length_m);
+    j["crest_elevation_m"] = c.crest_elevation_m ? number(*c.crest_elevation_m) : Json(nullptr);
+    Json cases = Json::array();
+    for (const auto &k : c.cases) {
+        Json kj;
+        kj["return_period_yr"] = number(k.return_period_yr);
+        kj["design"] = k.design;
+        kj["flow_m3_per_s"] = number(k.flow_m3_s);
+        kj["culvert_flow_m3_per_s"] = number(k.culvert_flow_m3_s);
+        kj["overtopping_flow_m3_per_s"] = number(k.overtopping_flow_m3_s);
+        kj["tailwater_m"] = number(k.tailwater_m);
+        kj["inlet_control_headwater_m"] = number(k.inlet_control_headwater_m);
+        kj["outlet_control_headwater_m"] = number(k.outlet_control_headwater_m);
+        kj["headwater_m"] = number(k.headwater_m);
+        kj["headwater_elevation_m"] = number(k.headwater_elevation_m);
+        kj["allowed_headwater_m"] = number(k.allowed_headwater_m);
+        kj["control"] = k.control;
+        kj["outlet_velocity_m_per_s"] = number(k.outlet_velocity_m_per_s);
+        kj["passes"] = k.passes;
+        cases.push_back(std::move(kj));
+    }
+    j["cases"] = std::move(cases);
+    Json curve = Json::array();
+    for (const auto &pt : c.curve) {
+        curve.push_back(
+            Json::array({number(pt.flow_m3_s), number(pt.headwater_elevation_m),
+                         number(pt.inlet_control_headwater_m),
+                         number(pt.outlet_control_headwater_m), number(pt.overtopping_flow_m3_s)}));
+    }
+    j["performance_curve_columns"] =
+        strings({"flow_m3_per_s", "headwater_elevation_m", "inlet_control_headwater_m",
+                 "outlet_control_headwater_m", "overtopping_flow_m3_per_s"});
+    j["performance_curve"] = std::move(curve);
+    return j;
+}
+
 Json point_json(const DesignPointResult &p) {
     Json j;
     j["id"] = p.id;
@@ -161,6 +209,9 @@ Json point_json(const DesignPointResult &p) {
         lines.push_back(line_json(l));
     }
     j["lines"] = std::move(lines);
+    if (p.culvert) { // only design points with a culvert have the member
+        j["culvert"] = culvert_json(*p.culvert);
+    }
     return j;
 }
 
@@ -331,6 +382,59 @@ LineKind parse_kind(const Reader &r) {
                       "\"calculation\", \"warning\" or \"note\"");
 }
 
+bool flag(const Reader &r, std::string_view key) {
+    const auto &v = r.member(key);
+    if (!v.is_boolean()) {
+        throw_input_error(r.sub(key), "has the wrong type", "true or false");
+    }
+    return v.get<bool>();
+}
+
+CulvertResult parse_culvert(const Reader &r) {
+    CulvertResult c;
+    c.shape = r.str("shape");
+    c.barrels = static_cast<int>(r.num("barrels"));
+    c.span_m = r.num("span_m");
+    c.rise_m = r.num("rise_m");
+    c.sized = flag(r, "sized");
+    c.size_found = flag(r, "size_found");
+    c.inlet = r.str("inlet");
+    c.inlet_invert_m = r.num("inlet_invert_m");
+    c.outlet_invert_m = r.num("outlet_invert_m");
+    c.length_m = r.num("length_m");
+    if (!r.member("crest_elevation_m").is_null()) {
+        c.crest_elevation_m = r.num("crest_elevation_m");
+    }
+    const auto &cases = r.array("cases");
+    for (std::size_t i = 0; i < cases.size(); ++i) {
+        const Reader k(cases[i], r.item("cases", i));
+        c.cases.push_back({k.num("return_period_yr"), flag(k, "design"), k.num("flow_m3_per_s"),
+                           k.num("culvert_flow_m3_per_s"), k.num("overtopping_flow_m3_per_s"),
+                           k.num("tailwater_m"), k.num("inlet_control_headwater_m"),
+                           k.num("outlet_control_headwater_m"), k.num("headwater_m"),
+                           k.num("headwater_elevation_m"), k.num("allowed_headwater_m"),
+                           k.str("control"), k.num("outlet_velocity_m_per_s"), flag(k, "passes")});
+    }
+    const auto &curve = r.array("performance_curve");
+    for (std::size_t i = 0; i < curve.size(); ++i) {
+        const auto &row = curve[i];
+        if (!row.is_array() || row.size() != 5) {
+            throw_input_error(r.item("performance_curve", i), "has the wrong type",
+                              "an array of 5 numbers");
+        }
+        std::array<double, 5> v{};
+        for (std::size_t k = 0; k < 5; ++k) {
+            if (!row[k].is_number()) {
+                throw_input_error(r.item("performance_curve", i), "has the wrong type",
+                                  "an array of 5 numbers");
+            }
+            v[k] = row[k].get<double>();
+        }
+        c.curve.push_back({v[0], v[1], v[2], v[3], v[4]});
+    }
+    return c;
+}
+
 DesignPointResult parse_point(const Reader &r) {
     DesignPointResult p;
     p.id = r.str("id");
@@ -419,6 +523,9 @@ DesignPointResult parse_point(const Reader &r) {
                           lr.str("source")};
         l.result.value = lr.num("value");
         p.lines.add(std::move(l));
+    }
+    if (r.json().contains("culvert")) {
+        p.culvert = parse_culvert(r.object("culvert"));
     }
     return p;
 }

@@ -37,7 +37,8 @@ struct CulvertSpec {
 };
 
 /// Reads the culvert table. Columns (the unit in the name):
-/// - `id` (a design point of `known_ids`), `shape` (circular, box), `barrels` (default 1);
+/// - `id` (a design point of `known_ids`; not checked when `known_ids` is empty), `shape`
+/// (circular, box), `barrels` (default 1);
 /// - size, optional: `diameter_mm|diameter_in` (circular) or `span_m|span_ft` with
 ///   `rise_m|rise_ft` (box);
 /// - `inlet` (a key of `inlets` of the culvert's shape), `manning_n`, `length_m|length_ft`;

@@ -47,6 +47,8 @@ struct Inputs {
     std::optional<InputPath> breach_lines;
     std::optional<InputPath> c_table;  ///< empty: the table shipped in config/
     std::optional<InputPath> cn_table; ///< empty: the table shipped in config/
+    /// Culverts to design (CSV, one row per culvert at a design point; app/culvert_inputs.hpp).
+    std::optional<InputPath> culvert_table;
 };
 
 /// [rainfall]
@@ -143,6 +145,19 @@ struct Settings {
     std::size_t storm_time_step_line = 0;
 };
 
+/// [design]: the choices that turn peak flows into structure sizes. SI, unit in every name.
+struct Design {
+    /// The return period a culvert is sized for when its row gives none; one of
+    /// [rainfall] return_periods_yr.
+    std::optional<double> culvert_return_period_yr;
+    std::size_t culvert_return_period_line = 0;
+    /// The list of standard culvert sizes; unset: config/culvert_sizes_si.csv or _us.csv.
+    std::optional<InputPath> culvert_sizes;
+    /// Outlet velocity above which a warning asks for outlet protection (common practice,
+    /// no source: 4.5 m/s, about 15 ft/s).
+    double outlet_velocity_max_m_per_s = 4.5;
+};
+
 struct Project {
     std::filesystem::path file; ///< the project file
     std::filesystem::path dir;  ///< its folder; relative paths are relative to it
@@ -151,6 +166,7 @@ struct Project {
     Rainfall rainfall;
     Methods methods;
     Settings settings;
+    Design design;
     std::filesystem::path output_dir; ///< resolved against the project file's folder
 
     [[nodiscard]] bool uses_table() const noexcept { return inputs.catchment_table.has_value(); }

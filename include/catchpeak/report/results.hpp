@@ -144,6 +144,50 @@ struct Peak {
     std::optional<Hydrograph> hydrograph;
 };
 
+/// A culvert at a design point checked for one flow (SI; HDS-5 (2012) terms).
+struct CulvertCase {
+    double return_period_yr = 0.0;
+    bool design = false; ///< the flow the culvert is sized or checked for
+    double flow_m3_s = 0.0;
+    double culvert_flow_m3_s = 0.0;     ///< through the barrels
+    double overtopping_flow_m3_s = 0.0; ///< over the road
+    double tailwater_m = 0.0;
+    double inlet_control_headwater_m = 0.0; ///< over the inlet invert
+    double outlet_control_headwater_m = 0.0;
+    double headwater_m = 0.0; ///< the larger, over the inlet invert
+    double headwater_elevation_m = 0.0;
+    double allowed_headwater_m = 0.0; ///< over the inlet invert
+    std::string control;              ///< "inlet" or "outlet"
+    double outlet_velocity_m_per_s = 0.0;
+    bool passes = false;
+};
+
+/// One point of a culvert's performance curve.
+struct CulvertCurvePoint {
+    double flow_m3_s = 0.0;
+    double headwater_elevation_m = 0.0;
+    double inlet_control_headwater_m = 0.0;
+    double outlet_control_headwater_m = 0.0;
+    double overtopping_flow_m3_s = 0.0;
+};
+
+/// The culvert at a design point: its size (chosen or given) and every flow checked.
+struct CulvertResult {
+    std::string shape; ///< "circular" or "box"
+    int barrels = 1;
+    double span_m = 0.0; ///< the diameter of a circular pipe
+    double rise_m = 0.0;
+    bool sized = false;     ///< chosen from the list of standard sizes (else given)
+    bool size_found = true; ///< false when no listed size passes (the largest is checked)
+    std::string inlet;      ///< the key of the inlet table
+    double inlet_invert_m = 0.0;
+    double outlet_invert_m = 0.0;
+    double length_m = 0.0;
+    std::optional<double> crest_elevation_m; ///< the road crest, when given
+    std::vector<CulvertCase> cases;
+    std::vector<CulvertCurvePoint> curve;
+};
+
 /// Everything about one design point.
 struct DesignPointResult {
     std::string id;
@@ -160,6 +204,7 @@ struct DesignPointResult {
     /// included, in the order they appear on the sheet.
     CalcLines lines;
     std::optional<MapData> map;
+    std::optional<CulvertResult> culvert; ///< when the culvert table has a row for this point
 };
 
 /// A published source the run used, for the references page.

@@ -1,0 +1,235 @@
+// SPDX-License-Identifier: MIT
+#include "catchpeak/app/culverts.hpp"
+
+#include "catchpeak/app/culvert_inputs.hpp"
+#include "catchpeak/app/inputs.hpp"
+#include "catchpeak/core/error.hpp"
+#include "catchpeak/hydraulics/crossing.hpp"
+#include "catchpeak/io/culvert_tables.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+namespace catchpeak::app {
+
+using project::Problems;
+using project::Project;
+
+namespace {
+
+// clang-format off
+constexpr Formula culvert_note{"culvert.design", "Culvert", "",
+                               "{shape}, {N} barrel(s), inlet {inlet}, L = {L} {L:u}, inverts "
+                               "{ELi} {ELi:u} (inlet) and {ELo} {ELo:u} (outlet), n = {n}; {size}",
+                               Ref::project_input, " (the culvert table)"};
+constexpr Formula barrel_slope{"culvert.slope", "Barrel slope", "So = (ELi - ELo)/L",
+                               "So = ({ELi} - {ELo})/{L}", Ref::none, "geometry of the barrel"};
+constexpr Formula case_note{"culvert.case", "Culvert, flow checked", "",
+                            "T = {T} {T:u}{design}: Q = {Q} {Q:u}, the largest of this design "
+                            "point's peaks for T ({method})", Ref::none,
+                            "the largest peak governs (conservative choice)"};
+// clang-format on
+
+struct Loaded {
+    hydraulics::InletTable inlets;
+    std::vector<hydraulics::Section> sizes;
+};
+
+Loaded load_tables(const Project &p) {
+    Loaded t;
+    t.inlets = io::read_culvert_inlet_table(config_dir() / io::culvert_inlets_file);
+    const bool us = p.info.units == units::System::us_customary;
+    t.sizes =
+        io::read_culvert_sizes(p.design.culvert_sizes ? p.design.culvert_sizes->resolved
+                                                      : config_dir() / io::culvert_sizes_file(us));
+    return t;
+}
+
+std::vector<CulvertSpec> read_specs(const Project &p, const Loaded &t,
+                                    const std::vector<std::string> &ids, Problems &problems) {
+    auto specs =
+        read_culvert_table(p.inputs.culvert_table->resolved, t.inlets, ids, false, problems);
+    const std::string where = p.inputs.culvert_table->resolved.string();
+    for (const auto &s : specs) {
+        const auto rp = s.design_return_period_yr ? s.design_return_period_yr
+                                                  : p.design.culvert_return_period_yr;
+        const auto &rps = p.rainfall.return_periods_yr;
+        if (!rp) {
+            problems.add(input_message(
+                fmt::format("{}:{}", where, s.line),
+                fmt::format("culvert '{}' has no design return period", s.id),
+                "a column design_return_period_yr, or [design] culvert_return_period_yr"));
+        } else if (std::find(rps.begin(), rps.end(), *rp) == rps.end()) {
+            problems.add(input_message(
+                fmt::format("{}:{}: column 'design_return_period_yr'", where, s.line),
+                fmt::format("{} years is not one of the return periods computed", *rp),
+                "one of [rainfall] return_periods_yr"));
+        }
+    }
+    return specs;
+}
+
+/// The largest peak of the point for each return period, and the method that gives it.
+std::map<double, const report::Peak *> largest_peaks(const report::DesignPointResult &dp) {
+    std::map<double, const report::Peak *> out;
+    for (const auto &pk : dp.peaks) {
+        auto &slot = out[pk.return_period_yr];
+        if (slot == nullptr || pk.q_m3_s > slot->q_m3_s) {
+            slot = &pk;
+        }
+    }
+    return out;
+}
+
+report::CulvertCase case_result(const hydraulics::CaseResult &c) {
+    report::CulvertCase out;
+    out.return_period_yr = c.flow.return_period_yr;
+    out.design = c.flow.design;
+    out.flow_m3_s = c.flow.q_m3_s;
+    out.culvert_flow_m3_s = c.split.culvert_flow_m3_s;
+    out.overtopping_flow_m3_s = c.split.road_flow_m3_s;
+    out.tailwater_m = c.tailwater_m;
+    const auto &r = c.split.culvert;
+    out.inlet_control_headwater_m = r.inlet.hw_m;
+    out.outlet_control_headwater_m = r.outlet.hw_m;
+    out.headwater_m = r.hw_m;
+    out.headwater_elevation_m = c.split.headwater_elevation_m;
+    out.allowed_headwater_m = r.allowed_hw_m;
+    out.control = std::string(hydraulics::to_string(r.control));
+    out.outlet_velocity_m_per_s = r.outlet_velocity_m_s;
+    out.passes = c.passes;
+    return out;
+}
+
+hydraulics::Crossing crossing_of(const Project &p, const CulvertSpec &s) {
+    hydraulics::Crossing x;
+    x.culvert.section = s.size.value_or(hydraulics::Section{});
+    x.culvert.barrels = s.barrels;
+    x.culvert.length_m = s.length_m;
+    x.culvert.slope_m_per_m = (*s.invert_in_m - *s.invert_out_m) / s.length_m;
+    x.culvert.manning_n = s.manning_n;
+    x.culvert.inlet = s.inlet_row;
+    x.size = s.size;
+    x.site.inlet_invert_m = *s.invert_in_m;
+    x.site.limit = s.limit;
+    x.tailwater_m = s.tailwater_m;
+    x.channel = s.channel;
+    x.road = s.road;
+    x.outlet_velocity_max_m_s = p.design.outlet_velocity_max_m_per_s;
+    return x;
+}
+
+std::string size_words(const hydraulics::Section &s, units::System sys) {
+    const bool us = sys == units::System::us_customary;
+    const auto len = [&](double m) {
+        return us ? fmt::format("{:g} in", std::round(units::m_to_ft(m) * 12.0 * 10.0) / 10.0)
+                  : fmt::format("{:g} mm", std::round(m * 1000.0));
+    };
+    return s.shape == hydraulics::Shape::circular
+               ? fmt::format("diameter {}", len(s.rise_m))
+               : fmt::format("span {} x rise {}", len(s.span_m), len(s.rise_m));
+}
+
+void design_one(const Project &p, const CulvertSpec &s,
+                const std::vector<hydraulics::Section> &sizes, report::DesignPointResult &dp) {
+    const units::System sys = p.info.units;
+    const double design_rp =
+        s.design_return_period_yr.value_or(p.design.culvert_return_period_yr.value_or(0.0));
+    const auto peaks = largest_peaks(dp);
+    std::vector<hydraulics::FlowCase> flows;
+    for (const auto &[rp, pk] : peaks) {
+        flows.push_back({rp, pk->q_m3_s, rp == design_rp});
+    }
+    const hydraulics::Crossing x = crossing_of(p, s);
+    const auto d = hydraulics::design_crossing(x, flows, sizes, sys);
+    CalcLines lines;
+    const bool us = sys == units::System::us_customary;
+    const Unit lu = us ? Unit::ft : Unit::m;
+    const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
+    const auto elev = [&](const char *sym, double m) {
+        return qty(sym, len(m), lu, Shown::fixed(us ? 2 : 3));
+    };
+    lines.note(culvert_note,
+               {word("shape", s.shape == hydraulics::Shape::box ? "box" : "circular"),
+                qty("N", s.barrels, Unit::none, Shown::integer()), word("inlet", s.inlet),
+                qty("L", len(s.length_m), lu), elev("ELi", *s.invert_in_m),
+                elev("ELo", *s.invert_out_m), qty("n", s.manning_n),
+                word("size", s.size ? "size given: " + size_words(*s.size, sys)
+                                    : fmt::format("size chosen for the {:g}-year flow from the "
+                                                  "list of standard sizes",
+                                                  design_rp))});
+    lines.calc(
+        barrel_slope,
+        {elev("ELi", *s.invert_in_m), elev("ELo", *s.invert_out_m), qty("L", len(s.length_m), lu)},
+        qty("So", x.culvert.slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m));
+    lines.append(d.sizing_lines);
+    report::CulvertResult out;
+    for (const auto &c : d.cases) {
+        const auto *pk = peaks.at(c.flow.return_period_yr);
+        lines.note(case_note, {qty("T", c.flow.return_period_yr, Unit::yr),
+                               word("design", c.flow.design ? " (design flow)" : ""),
+                               qty("Q", us ? units::m3s_to_cfs(c.flow.q_m3_s) : c.flow.q_m3_s,
+                                   us ? Unit::ft3_per_s : Unit::m3_per_s),
+                               word("method", std::string(key_of(pk->method)))});
+        lines.append(c.lines);
+        out.cases.push_back(case_result(c));
+    }
+    out.shape = d.size.shape == hydraulics::Shape::box ? "box" : "circular";
+    out.barrels = s.barrels;
+    out.span_m = d.size.span_m;
+    out.rise_m = d.size.rise_m;
+    out.sized = d.sized;
+    out.size_found = !d.sized || (d.sizing && d.sizing->chosen.has_value());
+    out.inlet = s.inlet;
+    out.inlet_invert_m = *s.invert_in_m;
+    out.outlet_invert_m = *s.invert_out_m;
+    out.length_m = s.length_m;
+    if (s.road) {
+        out.crest_elevation_m = s.road->crest_elevation_m;
+    }
+    for (const auto &pt : d.curve) {
+        out.curve.push_back(
+            {pt.flow_m3_s, pt.headwater_elevation_m, pt.hw_inlet_m, pt.hw_outlet_m, pt.road_m3_s});
+    }
+    number_lines(lines, dp.id, dp.lines.size() + 1);
+    dp.lines.append(lines);
+    dp.culvert = std::move(out);
+}
+
+} // namespace
+
+void check_culverts(const Project &p, const std::vector<std::string> &ids, Problems &problems) {
+    if (!p.inputs.culvert_table) {
+        return;
+    }
+    try {
+        const Loaded t = load_tables(p);
+        (void)read_specs(p, t, ids, problems);
+    } catch (const InputError &e) {
+        problems.add(e.what());
+    }
+}
+
+void design_culverts(const Project &p, report::RunResults &r) {
+    if (!p.inputs.culvert_table) {
+        return;
+    }
+    const Loaded t = load_tables(p);
+    std::vector<std::string> ids;
+    for (const auto &dp : r.points) {
+        ids.push_back(dp.id);
+    }
+    Problems problems;
+    const auto specs = read_specs(p, t, ids, problems);
+    problems.throw_if_any();
+    for (const auto &s : specs) {
+        auto it = std::find_if(r.points.begin(), r.points.end(),
+                               [&](const auto &dp) { return dp.id == s.id; });
+        design_one(p, s, t.sizes, *it);
+    }
+}
+
+} // namespace catchpeak::app
