@@ -119,6 +119,7 @@ struct ProjectToml {
     TomlTable rainfall;
     TomlTable methods;
     TomlTable settings;
+    TomlTable design;
     TomlTable output;
     /// Text put after [methods] (e.g. "[[methods.point]]" tables), before [settings].
     std::string methods_extra;
@@ -137,6 +138,7 @@ struct ProjectToml {
         table("rainfall", rainfall, "");
         table("methods", methods, methods_extra);
         table("settings", settings, "");
+        table("design", design, "");
         table("output", output, "");
         return s;
     }
