@@ -99,7 +99,10 @@ std::filesystem::path config_dir() {
 }
 
 std::vector<TableCatchment> read_catchment_table(const fs::path &path) {
-    const CsvTable t = read_csv(path);
+    return catchment_table_from_csv(read_csv(path));
+}
+
+std::vector<TableCatchment> catchment_table_from_csv(const CsvTable &t) {
     const std::size_t id_col = t.column("id");
     const auto area = area_column(t);
     const auto length = required_one_of(t, {"length_m", "length_ft"}, "the longest flow path");

@@ -7,6 +7,7 @@
 #include "catchpeak/report/sheet_units.hpp"
 
 #include <fmt/format.h>
+#include <glib.h>
 
 #include <algorithm>
 #include <cmath>
@@ -29,6 +30,55 @@ std::string short_method(PeakMethod m) {
         return "SCS UH";
     }
     return std::string(key_of(m));
+}
+
+/// Width of the point column, in terminal columns.
+constexpr std::size_t id_columns = 12;
+
+/// Terminal columns a character takes: 2 for East Asian wide and fullwidth characters, 0 for
+/// combining marks and other zero-width characters, 1 otherwise (glib's Unicode tables).
+std::size_t char_columns(gunichar c) {
+    if (g_unichar_iszerowidth(c)) {
+        return 0;
+    }
+    return g_unichar_iswide(c) ? 2 : 1;
+}
+
+/// An id cut into pieces of at most `columns` terminal columns each, never inside a character
+/// (a wide character that does not fit goes to the next piece), each piece padded with blanks
+/// to `columns`. Bytes that are not UTF-8 count one column each, as a terminal shows them as
+/// one replacement character.
+std::vector<std::string> id_pieces(const std::string &id, std::size_t columns) {
+    std::vector<std::string> pieces;
+    std::string piece;
+    std::size_t width = 0;
+    const auto close = [&] {
+        pieces.push_back(piece + std::string(columns - width, ' '));
+        piece.clear();
+        width = 0;
+    };
+    for (std::size_t i = 0; i < id.size();) {
+        const gchar *at = id.data() + i;
+        const gunichar c = g_utf8_get_char_validated(at, static_cast<gssize>(id.size() - i));
+        const bool valid = c != static_cast<gunichar>(-1) && c != static_cast<gunichar>(-2);
+        const std::size_t bytes = valid ? static_cast<std::size_t>(g_utf8_next_char(at) - at) : 1;
+        const std::size_t w = valid ? char_columns(c) : 1;
+        if (width + w > columns) {
+            close();
+        }
+        piece.append(id, i, bytes);
+        width += w;
+        i += bytes;
+    }
+    if (!piece.empty() || pieces.empty()) {
+        close();
+    }
+    return pieces;
+}
+
+/// A piece without its padding, for a line that holds nothing else.
+std::string trimmed(const std::string &piece) {
+    return piece.substr(0, piece.find_last_not_of(' ') + 1);
 }
 
 } // namespace
@@ -74,11 +124,16 @@ std::string summary_table(const report::RunResults &r) {
         }
         s += "  warnings\n";
         for (const auto &dp : r.points) {
-            s += fmt::format("{:<12} {:>10} {:>8}", dp.id, area(dp), sig(dp.tc_min));
+            // A long id goes on in the point column of the lines below its row.
+            const auto pieces = id_pieces(dp.id, id_columns);
+            s += fmt::format("{} {:>10} {:>8}", pieces[0], area(dp), sig(dp.tc_min));
             for (const double rp : periods) {
                 s += fmt::format(" {:>12}", methods.empty() ? "-" : peak(dp, rp, methods[0]));
             }
             s += fmt::format("  {}\n", dp.lines.warning_count());
+            for (std::size_t k = 1; k < pieces.size(); ++k) {
+                s += trimmed(pieces[k]) + "\n";
+            }
         }
         s += fmt::format("QT: peak flow of return period T years by {}; {}",
                          methods.empty() ? "no method" : "the " + report::method_title(methods[0]),
@@ -93,19 +148,27 @@ std::string summary_table(const report::RunResults &r) {
     }
     s += "  warnings\n";
     for (const auto &dp : r.points) {
-        bool first = true;
+        // A long id goes on in the point column of the rows below, and of lines of its own
+        // when the point has fewer rows than pieces.
+        const auto pieces = id_pieces(dp.id, id_columns);
+        const std::string blank(id_columns, ' ');
+        std::size_t k = 0;
         for (const double rp : periods) {
-            if (first) {
-                s += fmt::format("{:<12} {:>10} {:>8}", dp.id, area(dp), sig(dp.tc_min));
+            const std::string &name = k < pieces.size() ? pieces[k] : blank;
+            if (k == 0) {
+                s += fmt::format("{} {:>10} {:>8}", name, area(dp), sig(dp.tc_min));
             } else {
-                s += fmt::format("{:<12} {:>10} {:>8}", "", "", "");
+                s += fmt::format("{} {:>10} {:>8}", name, "", "");
             }
             s += fmt::format(" {:>6}", rp);
             for (const auto &m : methods) {
                 s += fmt::format(" {:>14}", peak(dp, rp, m));
             }
-            s += first ? fmt::format("  {}\n", dp.lines.warning_count()) : "\n";
-            first = false;
+            s += k == 0 ? fmt::format("  {}\n", dp.lines.warning_count()) : "\n";
+            ++k;
+        }
+        for (; k < pieces.size(); ++k) {
+            s += trimmed(pieces[k]) + "\n";
         }
     }
     s += "T: return period; " + warnings_note;

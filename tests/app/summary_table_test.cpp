@@ -2,6 +2,7 @@
 // The summary table printed at the end of a run: what a user reads first.
 #include "catchpeak/app/pipeline.hpp"
 
+#include <fmt/format.h>
 #include <gtest/gtest.h>
 
 #include <sstream>
@@ -87,6 +88,54 @@ TEST(SummaryTable, SeveralMethodsGiveARowPerReturnPeriodAndAColumnPerMethod) {
               (std::vector<std::string>{"IN-1", "2.000", "5.000", "2", "3.000", "-", "0"}));
     EXPECT_EQ(words(l[4]), (std::vector<std::string>{"100", "7.000", "-"}));
     EXPECT_NE(l[5].find("return period"), std::string::npos) << l[5];
+}
+
+TEST(SummaryTable, LongIdsWrapInThePointColumnByDisplayWidth) {
+    // Nine CJK ideographs: East Asian wide characters, two terminal columns each (Unicode
+    // Standard Annex #11, East Asian Width "W"), 18 columns in all: six fit in the 12 columns
+    // of the point column, three go on below. A 20-letter id: 12 on the row, 8 below.
+    report::RunResults r;
+    r.project.units = units::System::si;
+    auto a = point("\u6392\u6c34\u53e3\u4e1c\u897f\u5357\u5317\u4e2d\u592e", 25000.0, 7.5);
+    a.peaks = {peak(10, "rational", 0.5)};
+    auto b = point("ABCDEFGHIJKLMNOPQRST", 10000.0, 5.0);
+    b.peaks = {peak(10, "rational", 0.25)};
+    r.points = {a, b};
+    const auto table = summary_table(r);
+    const auto l = lines_of(table);
+    ASSERT_EQ(l.size(), 6u) << table;
+    // The area column ends where the header's does: the 12 columns of the point column, a
+    // blank, the 10 of the area column (the six ideographs take 18 bytes for 12 columns).
+    const std::string head_area = "area ha";
+    const std::size_t area_end = l[0].find(head_area) + head_area.size();
+    EXPECT_EQ(area_end, 12u + 1u + 10u) << l[0];
+    const std::string first_six = "\u6392\u6c34\u53e3\u4e1c\u897f\u5357";
+    ASSERT_EQ(l[1].rfind(first_six + " ", 0), 0u) << l[1];
+    EXPECT_EQ(l[1].substr(first_six.size() + 1, 10), fmt::format("{:>10}", "2.500")) << l[1];
+    EXPECT_EQ(l[2], "\u5317\u4e2d\u592e") << "the rest of the id on the line below";
+    ASSERT_EQ(l[3].rfind("ABCDEFGHIJKL ", 0), 0u) << l[3];
+    EXPECT_EQ(l[3].substr(13, 10), fmt::format("{:>10}", "1.000")) << l[3];
+    EXPECT_EQ(l[4], "MNOPQRST");
+}
+
+TEST(SummaryTable, AWideCharacterIsNeverSplitAcrossPieces) {
+    // "A" then six ideographs: 1 + 2 x 5 = 11 columns fit, the sixth would make 13, so the
+    // first piece holds 11 columns and a blank, and the sixth goes below, whole. With several
+    // methods the rest of the id goes in the point column of the point's next row.
+    report::RunResults r;
+    r.project.units = units::System::si;
+    auto a = point("A\u6392\u6c34\u53e3\u4e1c\u897f\u5357", 25000.0, 7.5);
+    a.peaks = {peak(2, "rational", 0.25), peak(2, "scs_unit_hydrograph", 0.3),
+               peak(10, "rational", 0.5), peak(10, "scs_unit_hydrograph", 0.6)};
+    r.points = {a};
+    const auto l = lines_of(summary_table(r));
+    ASSERT_EQ(l.size(), 4u) << summary_table(r);
+    const std::string first = "A\u6392\u6c34\u53e3\u4e1c\u897f";
+    ASSERT_EQ(l[1].rfind(first + "  ", 0), 0u) << l[1];
+    EXPECT_EQ(l[1].substr(first.size() + 2, 10), fmt::format("{:>10}", "2.500")) << l[1];
+    EXPECT_EQ(words(l[2]), (std::vector<std::string>{"\u5357", "10", "0.5000", "0.6000"}));
+    // The ideograph (2 columns) and 10 blanks fill the point column of the second row.
+    EXPECT_EQ(l[2].rfind("\u5357" + std::string(10, ' ') + " ", 0), 0u) << l[2];
 }
 
 } // namespace

@@ -10,6 +10,7 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <array>
 #include <chrono>
 #include <cstdio>
@@ -210,6 +211,46 @@ TEST(Sheet, SameResultsGiveTheSamePdfBytes) {
     EXPECT_TRUE(a == read_text_file(dir / "b.pdf")) << "the two PDFs differ";
     const auto info = run("pdfinfo '" + (dir / "a.pdf").string() + "'");
     EXPECT_NE(info.find(r.stamp.run_time_utc.substr(0, 4)), std::string::npos) << info;
+}
+
+/// The font names pdffonts lists for a PDF (first column, subset prefix "ABCDEF+" dropped).
+std::vector<std::string> pdf_font_names(const std::filesystem::path &pdf) {
+    std::istringstream fonts(run("pdffonts '" + pdf.string() + "'"));
+    std::vector<std::string> names;
+    std::string line;
+    std::getline(fonts, line); // header
+    std::getline(fonts, line); // dashes
+    while (std::getline(fonts, line)) {
+        std::istringstream cols(line);
+        std::string name;
+        if (cols >> name) {
+            const auto plus = name.find('+');
+            names.push_back(plus == std::string::npos ? name : name.substr(plus + 1));
+        }
+    }
+    return names;
+}
+
+TEST(Sheet, IdsAndNamesInAnyScriptAreDrawnWithRealGlyphs) {
+    // A design point id in CJK ideographs and a project name in Hangul: DejaVu Sans has no
+    // glyph for either, so the sheet's font list must fall back to a font that has them. A
+    // character without a glyph is drawn as a box (pango's hex box), which carries no text:
+    // pdftotext then does not find the id, and no CJK font is embedded.
+    auto r = test::sample_results(1, units::System::si, {10}, false);
+    const std::string id = "\u6392\u6c34\u53e3-7";        // three ideographs, "-7"
+    const std::string name = "\ubc30\uc218 \uacc4\ud68d"; // Hangul syllables
+    r.points[0].id = id;
+    r.project.name = name;
+    const auto dir = test::scratch_dir("sheet_scripts");
+    const auto pdf = dir / "calculation-sheet.pdf";
+    (void)write_sheet_pdf(r, pdf);
+    const auto text = fold(pdf_text(pdf));
+    EXPECT_NE(text.find("Design point " + id), std::string::npos) << text.substr(0, 2000);
+    EXPECT_NE(text.find(name), std::string::npos) << text.substr(0, 2000);
+    const auto names = pdf_font_names(pdf);
+    EXPECT_TRUE(std::any_of(names.begin(), names.end(), [](const std::string &n) {
+        return n.find("CJK") != std::string::npos;
+    })) << "no CJK font embedded";
 }
 
 TEST(Sheet, PageSize) {

@@ -37,6 +37,9 @@ struct TableCatchment {
 /// Throws InputError naming the file, the line and the column.
 [[nodiscard]] std::vector<TableCatchment> read_catchment_table(const std::filesystem::path &path);
 
+/// The same from a CSV table already read (read_csv, or parse_csv of text in memory).
+[[nodiscard]] std::vector<TableCatchment> catchment_table_from_csv(const CsvTable &table);
+
 /// One row of a catchment land table: one part (land-cover class on a soil group) of one
 /// catchment of the catchment table.
 struct TableLandPart {

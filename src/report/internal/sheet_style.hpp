@@ -35,16 +35,20 @@ inline constexpr std::string_view repeated_id_markup_colour = "#888888";
 
 // ----- fonts ------------------------------------------------------------------------------------
 enum class Style { body, small, tiny, mono, heading, subheading, title, big };
-/// Pango font descriptions of the styles, in the order of `Style`; sizes in points.
+/// Pango font descriptions of the styles, in the order of `Style`; sizes in points. Each names
+/// a list of families: DejaVu first (Latin, Greek, Cyrillic: the sheet's look), then Noto Sans
+/// CJK for Chinese, Japanese and Korean ids and names, then Noto Sans; a character none of them
+/// has is drawn with whatever font fontconfig finds for it (the other Noto families of
+/// fonts-noto-core), so that ids and names in any script show their glyphs, not boxes.
 inline constexpr std::array<const char *, 8> font_descriptions = {
-    "DejaVu Sans 8",        // body
-    "DejaVu Sans 7",        // small
-    "DejaVu Sans 6",        // tiny
-    "DejaVu Sans Mono 6",   // mono (checksums)
-    "DejaVu Sans Bold 12",  // heading
-    "DejaVu Sans Bold 9.5", // subheading
-    "DejaVu Sans Bold 17",  // title (project name)
-    "DejaVu Sans 13",       // big (name of the document)
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans 8",                // body
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans 7",                // small
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans 6",                // tiny
+    "DejaVu Sans Mono,Noto Sans Mono CJK JP,Noto Sans Mono 6", // mono (checksums)
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans Bold 12",          // heading
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans Bold 9.5",         // subheading
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans Bold 17",          // title (project name)
+    "DejaVu Sans,Noto Sans CJK JP,Noto Sans 13",               // big (name of the document)
 };
 /// Resolution of the text layout: 72 dpi, so that a point of text is a point of the page.
 inline constexpr double text_dpi = 72.0;
