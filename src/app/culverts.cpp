@@ -225,6 +225,13 @@ void design_culverts(const Project &p, report::RunResults &r) {
     Problems problems;
     const auto specs = read_specs(p, t, ids, problems);
     problems.throw_if_any();
+    if (!specs.empty()) {
+        r.caution_notes.emplace_back(
+            "Culverts are sized here by their hydraulics alone (HDS-5 inlet and outlet control, "
+            "flow over the road). Debris, sediment, fish and wildlife passage, structural "
+            "cover and the reviewing agency's headwater and freeboard criteria are outside the "
+            "calculation and must be checked by the engineer.");
+    }
     for (const auto &s : specs) {
         auto it = std::find_if(r.points.begin(), r.points.end(),
                                [&](const auto &dp) { return dp.id == s.id; });

@@ -82,6 +82,12 @@ TEST(CulvertRun, EachFlowIsTheLargestPeakAndTheDesignFlowPasses) {
         found = found || l.at("label") == "Size chosen";
     }
     EXPECT_TRUE(found);
+    bool caution = false;
+    for (const auto &n : j.at("caution_notes")) {
+        caution =
+            caution || n.get<std::string>().find("fish and wildlife passage") != std::string::npos;
+    }
+    EXPECT_TRUE(caution);
 }
 
 TEST(CulvertRun, CheckNamesEveryBadCell) {
