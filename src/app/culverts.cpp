@@ -6,6 +6,7 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/hydraulics/crossing.hpp"
 #include "catchpeak/io/culvert_tables.hpp"
+#include "catchpeak/report/sheet_units.hpp"
 
 #include <fmt/format.h>
 
@@ -22,7 +23,7 @@ namespace {
 
 // clang-format off
 constexpr Formula culvert_note{"culvert.design", "Culvert", "",
-                               "{shape}, {N} barrel(s), inlet {inlet}, L = {L} {L:u}, inverts "
+                               "{shape}, {N} barrel(s), inlet {inlet} ({desc}), L = {L} {L:u}, inverts "
                                "{ELi} {ELi:u} (inlet) and {ELo} {ELo:u} (outlet), n = {n}; {size}",
                                Ref::project_input, " (the culvert table)"};
 constexpr Formula barrel_slope{"culvert.slope", "Barrel slope", "So = (ELi - ELo)/L",
@@ -155,8 +156,8 @@ void design_one(const Project &p, const CulvertSpec &s,
     lines.note(culvert_note,
                {word("shape", s.shape == hydraulics::Shape::box ? "box" : "circular"),
                 qty("N", s.barrels, Unit::none, Shown::integer()), word("inlet", s.inlet),
-                qty("L", len(s.length_m), lu), elev("ELi", *s.invert_in_m),
-                elev("ELo", *s.invert_out_m), qty("n", s.manning_n),
+                word("desc", s.inlet_row.source), qty("L", len(s.length_m), lu),
+                elev("ELi", *s.invert_in_m), elev("ELo", *s.invert_out_m), qty("n", s.manning_n),
                 word("size", s.size ? "size given: " + size_words(*s.size, sys)
                                     : fmt::format("size chosen for the {:g}-year flow from the "
                                                   "list of standard sizes",
@@ -169,11 +170,11 @@ void design_one(const Project &p, const CulvertSpec &s,
     report::CulvertResult out;
     for (const auto &c : d.cases) {
         const auto *pk = peaks.at(c.flow.return_period_yr);
-        lines.note(case_note, {qty("T", c.flow.return_period_yr, Unit::yr),
+        lines.note(case_note, {qty("T", c.flow.return_period_yr, Unit::yr, Shown::exact()),
                                word("design", c.flow.design ? " (design flow)" : ""),
                                qty("Q", us ? units::m3s_to_cfs(c.flow.q_m3_s) : c.flow.q_m3_s,
                                    us ? Unit::ft3_per_s : Unit::m3_per_s),
-                               word("method", std::string(key_of(pk->method)))});
+                               word("method", report::method_title(pk->method))});
         lines.append(c.lines);
         out.cases.push_back(case_result(c));
     }
