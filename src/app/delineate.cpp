@@ -44,6 +44,9 @@ void check_options(const DelineateOptions &o) {
     }
 }
 
+/// What `delineate` writes into its output folder.
+const std::vector<std::string> delineate_file_names = {"catchments.json", "catchments.gpkg"};
+
 void prepare_out_dir(const std::filesystem::path &dir) {
     std::error_code ec;
     if (std::filesystem::exists(dir, ec) && !std::filesystem::is_directory(dir, ec)) {
@@ -379,10 +382,15 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
 }
 
 DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {
+    DelineateSummary summary;
+    // Temporary files a delineation killed while writing left behind.
+    for (const auto &f : remove_stale_temporaries(options.out_dir, delineate_file_names)) {
+        summary.notes.push_back(
+            fmt::format("removed {}, a temporary file left by an interrupted run", f.string()));
+    }
     Delineation d = delineate_catchments(options, progress);
     detail::ProgressBar bar(progress);
-    DelineateSummary summary;
-    summary.notes = d.notes;
+    summary.notes.insert(summary.notes.end(), d.notes.begin(), d.notes.end());
     const auto &grid = d.dem.elevation_m;
     const auto &dem = d.dem;
     const auto &result = d.result;
@@ -454,15 +462,13 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
 
     bar.start("writing results");
     prepare_out_dir(options.out_dir);
-    summary.json = options.out_dir / "catchments.json";
-    summary.gpkg = options.out_dir / "catchments.gpkg";
-    PendingFile gpkg_file(summary.gpkg);
-    PendingFile json_file(summary.json);
-    io::write_gpkg(gpkg_file.temp_path(), d.layers);
+    summary.json = options.out_dir / delineate_file_names[0];
+    summary.gpkg = options.out_dir / delineate_file_names[1];
+    PendingFiles files;
+    io::write_gpkg(files.add(summary.gpkg), d.layers);
     bar.update(0.9);
-    write_text_file_atomic(json_file.temp_path(), json_text);
-    gpkg_file.commit();
-    json_file.commit();
+    write_text_file_atomic(files.add(summary.json), json_text);
+    files.commit();
     bar.finish();
     summary.design_points = n;
     return summary;
