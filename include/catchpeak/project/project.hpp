@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/methods.hpp"
+#include "catchpeak/core/spelling.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/hydro/tc.hpp"
 #include "catchpeak/project/options.hpp"
@@ -187,11 +188,8 @@ class Problems {
 /// Reads and parses a project file; throws InputError listing every problem.
 [[nodiscard]] Project load_project(const std::filesystem::path &file);
 
-/// The Levenshtein distance between two strings (for "did you mean" suggestions).
-[[nodiscard]] std::size_t edit_distance(std::string_view a, std::string_view b);
-
-/// The closest of `candidates` to `word` when it is close enough to be a likely typo, else "".
-[[nodiscard]] std::string closest_match(std::string_view word,
-                                        const std::vector<std::string> &candidates);
+// "Did you mean" suggestions (core/spelling.hpp), as the project's readers use them.
+using catchpeak::closest_match;
+using catchpeak::edit_distance;
 
 } // namespace catchpeak::project
