@@ -89,17 +89,20 @@ void read_dem_into(const DelineateOptions &options, Delineation &out) {
     }
 }
 
-/// Takes the options and the DEM's CRS; gives the breach lines read (in that CRS), their notes
-/// added to `notes`; none when the options name no file.
+/// Takes the options and the delineation with its DEM; gives the breach lines read (in the
+/// DEM's CRS, over the DEM), their notes and reprojection added to `out`; none when the options
+/// name no file.
 std::vector<terrain::BreachLine> read_breach_lines(const DelineateOptions &options,
-                                                   const std::string &crs_wkt,
-                                                   detail::ProgressBar &bar,
-                                                   std::vector<std::string> &notes) {
+                                                   const io::Extent &dem_box,
+                                                   detail::ProgressBar &bar, Delineation &out) {
     std::vector<terrain::BreachLine> breach;
     if (options.breach_lines) {
         bar.start("reading breach lines");
-        const io::LineLayer lines = io::read_lines(*options.breach_lines, crs_wkt);
-        notes.insert(notes.end(), lines.notes.begin(), lines.notes.end());
+        const io::LineLayer lines =
+            io::read_lines(*options.breach_lines, out.dem.elevation_m.crs_wkt);
+        out.notes.insert(out.notes.end(), lines.notes.begin(), lines.notes.end());
+        out.breach_lines_reprojection = lines.reprojection;
+        require_over_dem(lines.extent, dem_box, lines.source, "breach lines");
         for (const auto &l : lines.lines) {
             breach.push_back(terrain::BreachLine{fmt::format("{}: feature {}", lines.source, l.fid),
                                                  l.vertices});
@@ -325,15 +328,17 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
 
     bar.start("reading design points");
     const io::DesignPointLayer points =
-        io::read_design_points(options.points, options.id_field, grid.crs_wkt);
+        io::read_design_points(options.points, options.id_field, grid.crs_wkt, options.points_crs);
     out.notes.insert(out.notes.end(), points.notes.begin(), points.notes.end());
+    out.points_reprojection = points.reprojection;
+    const io::Extent dem_box = dem_extent(grid);
+    require_over_dem(points.extent, dem_box, points.source, design_points_named(points));
     std::vector<terrain::DesignPoint> tpoints;
     tpoints.reserve(points.points.size());
     for (const auto &p : points.points) {
         tpoints.push_back(terrain::DesignPoint{p.id, p.x, p.y});
     }
-    const std::vector<terrain::BreachLine> breach =
-        read_breach_lines(options, grid.crs_wkt, bar, out.notes);
+    const std::vector<terrain::BreachLine> breach = read_breach_lines(options, dem_box, bar, out);
 
     terrain::TerrainSettings settings;
     settings.snap_radius_m = options.snap_radius_m;
@@ -379,6 +384,41 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
     out.all_upstream = std::move(all_up);
     bar.finish();
     return out;
+}
+
+std::string design_points_named(const io::DesignPointLayer &points) {
+    constexpr std::size_t listed = 5;
+    std::vector<std::string> ids;
+    for (std::size_t i = 0; i < points.points.size() && i < listed; ++i) {
+        ids.push_back(fmt::format("'{}'", points.points[i].id));
+    }
+    if (points.points.size() > listed) {
+        ids.push_back(fmt::format("and {} more", points.points.size() - listed));
+    }
+    return fmt::format("design points ({})", fmt::join(ids, ", "));
+}
+
+io::Extent dem_extent(const Grid<float> &dem) {
+    const auto &t = dem.transform;
+    return {t.origin_x, t.origin_y - static_cast<double>(dem.height()) * t.cell_dy(),
+            t.origin_x + static_cast<double>(dem.width()) * t.cell_dx(), t.origin_y};
+}
+
+void require_over_dem(const std::optional<io::Extent> &layer, const io::Extent &dem,
+                      const std::string &where, const std::string &what) {
+    if (!layer || layer->overlaps(dem)) {
+        return;
+    }
+    const auto box = [](const io::Extent &e) {
+        return fmt::format("x {:.3f} to {:.3f}, y {:.3f} to {:.3f}", e.min_x, e.max_x, e.min_y,
+                           e.max_y);
+    };
+    throw_input_error(where,
+                      fmt::format("the extent of the {} ({}, in the DEM's CRS) does not overlap "
+                                  "the DEM's extent ({})",
+                                  what, box(*layer), box(dem)),
+                      "a layer over the DEM; one that lies elsewhere is usually in another CRS "
+                      "than its file declares (declare the right one, or reproject it)");
 }
 
 DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {

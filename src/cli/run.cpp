@@ -141,6 +141,12 @@ void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::o
         ->required();
     delineate->add_option("--id-field", o.id_field, "Field holding the design point ids")
         ->required();
+    delineate->add_option("--points-crs", o.points_crs.text,
+                          "The CRS of the points' coordinates when their file does not declare "
+                          "it (e.g. EPSG:32617; a GeoJSON file without a \"crs\" member is "
+                          "WGS 84 longitude/latitude)");
+    o.points_crs.key = "--points-crs";
+    o.points_crs.where = "--points-crs";
     delineate
         ->add_option("--snap-radius", o.snap_radius_m,
                      "Metres: each point moves to the cell of largest flow accumulation "

@@ -334,6 +334,8 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     in.dem = t.path("dem", dir);
     in.design_points = t.path("design_points", dir);
     in.design_points_layer = t.text("design_points_layer").value_or("");
+    in.design_points_crs = t.text("design_points_crs").value_or("");
+    in.design_points_crs_line = t.line_of("design_points_crs");
     in.id_field = t.text("id_field").value_or("id");
     in.catchment_table = t.path("catchment_table", dir);
     in.catchment_land_table = t.path("catchment_land_table", dir);
@@ -371,6 +373,12 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
             "a land table is given without a catchment table",
             "'catchment_land_table' beside 'catchment_table' (a DEM project weights land-cover "
             "and soils layers instead)"));
+    }
+    if (in.design_points_crs_line != 0 && !has_points) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [inputs] design_points_crs", t.file(), in.design_points_crs_line),
+            "the CRS of design points is given without design points",
+            "'design_points_crs' beside 'design_points'"));
     }
     if (t.line_of("soils") != 0 && t.line_of("land_cover") == 0) {
         t.missing("land_cover", "a land-cover layer when 'soils' is given");

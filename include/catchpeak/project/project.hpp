@@ -32,6 +32,11 @@ struct Inputs {
     std::optional<InputPath> dem;
     std::optional<InputPath> design_points;
     std::string design_points_layer; ///< empty: the first layer
+    /// The CRS of the design points' coordinates when the file does not declare it right (a
+    /// GeoJSON file in a projected CRS without a "crs" member): "EPSG:32617", WKT or PROJ;
+    /// empty: the file's own.
+    std::string design_points_crs;
+    std::size_t design_points_crs_line = 0; ///< line of the key, 0 when not given
     std::string id_field = "id";
     std::optional<InputPath> catchment_table;
     /// Land parts of the catchments of the catchment table (CSV: id, class, soil_group and the
