@@ -44,6 +44,9 @@ void check_options(const DelineateOptions &o) {
     }
 }
 
+/// What `delineate` writes into its output folder.
+const std::vector<std::string> delineate_file_names = {"catchments.json", "catchments.gpkg"};
+
 void prepare_out_dir(const std::filesystem::path &dir) {
     std::error_code ec;
     if (std::filesystem::exists(dir, ec) && !std::filesystem::is_directory(dir, ec)) {
@@ -86,17 +89,20 @@ void read_dem_into(const DelineateOptions &options, Delineation &out) {
     }
 }
 
-/// Takes the options and the DEM's CRS; gives the breach lines read (in that CRS), their notes
-/// added to `notes`; none when the options name no file.
+/// Takes the options and the delineation with its DEM; gives the breach lines read (in the
+/// DEM's CRS, over the DEM), their notes and reprojection added to `out`; none when the options
+/// name no file.
 std::vector<terrain::BreachLine> read_breach_lines(const DelineateOptions &options,
-                                                   const std::string &crs_wkt,
-                                                   detail::ProgressBar &bar,
-                                                   std::vector<std::string> &notes) {
+                                                   const io::Extent &dem_box,
+                                                   detail::ProgressBar &bar, Delineation &out) {
     std::vector<terrain::BreachLine> breach;
     if (options.breach_lines) {
         bar.start("reading breach lines");
-        const io::LineLayer lines = io::read_lines(*options.breach_lines, crs_wkt);
-        notes.insert(notes.end(), lines.notes.begin(), lines.notes.end());
+        const io::LineLayer lines =
+            io::read_lines(*options.breach_lines, out.dem.elevation_m.crs_wkt);
+        out.notes.insert(out.notes.end(), lines.notes.begin(), lines.notes.end());
+        out.breach_lines_reprojection = lines.reprojection;
+        require_over_dem(lines.extent, dem_box, lines.source, "breach lines");
         for (const auto &l : lines.lines) {
             breach.push_back(terrain::BreachLine{fmt::format("{}: feature {}", lines.source, l.fid),
                                                  l.vertices});
@@ -322,15 +328,17 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
 
     bar.start("reading design points");
     const io::DesignPointLayer points =
-        io::read_design_points(options.points, options.id_field, grid.crs_wkt);
+        io::read_design_points(options.points, options.id_field, grid.crs_wkt, options.points_crs);
     out.notes.insert(out.notes.end(), points.notes.begin(), points.notes.end());
+    out.points_reprojection = points.reprojection;
+    const io::Extent dem_box = dem_extent(grid);
+    require_over_dem(points.extent, dem_box, points.source, design_points_named(points));
     std::vector<terrain::DesignPoint> tpoints;
     tpoints.reserve(points.points.size());
     for (const auto &p : points.points) {
         tpoints.push_back(terrain::DesignPoint{p.id, p.x, p.y});
     }
-    const std::vector<terrain::BreachLine> breach =
-        read_breach_lines(options, grid.crs_wkt, bar, out.notes);
+    const std::vector<terrain::BreachLine> breach = read_breach_lines(options, dem_box, bar, out);
 
     terrain::TerrainSettings settings;
     settings.snap_radius_m = options.snap_radius_m;
@@ -378,11 +386,51 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
     return out;
 }
 
+std::string design_points_named(const io::DesignPointLayer &points) {
+    constexpr std::size_t listed = 5;
+    std::vector<std::string> ids;
+    for (std::size_t i = 0; i < points.points.size() && i < listed; ++i) {
+        ids.push_back(fmt::format("'{}'", points.points[i].id));
+    }
+    if (points.points.size() > listed) {
+        ids.push_back(fmt::format("and {} more", points.points.size() - listed));
+    }
+    return fmt::format("design points ({})", fmt::join(ids, ", "));
+}
+
+io::Extent dem_extent(const Grid<float> &dem) {
+    const auto &t = dem.transform;
+    return {t.origin_x, t.origin_y - static_cast<double>(dem.height()) * t.cell_dy(),
+            t.origin_x + static_cast<double>(dem.width()) * t.cell_dx(), t.origin_y};
+}
+
+void require_over_dem(const std::optional<io::Extent> &layer, const io::Extent &dem,
+                      const std::string &where, const std::string &what) {
+    if (!layer || layer->overlaps(dem)) {
+        return;
+    }
+    const auto box = [](const io::Extent &e) {
+        return fmt::format("x {:.3f} to {:.3f}, y {:.3f} to {:.3f}", e.min_x, e.max_x, e.min_y,
+                           e.max_y);
+    };
+    throw_input_error(where,
+                      fmt::format("the extent of the {} ({}, in the DEM's CRS) does not overlap "
+                                  "the DEM's extent ({})",
+                                  what, box(*layer), box(dem)),
+                      "a layer over the DEM; one that lies elsewhere is usually in another CRS "
+                      "than its file declares (declare the right one, or reproject it)");
+}
+
 DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {
+    DelineateSummary summary;
+    // Temporary files a delineation killed while writing left behind.
+    for (const auto &f : remove_stale_temporaries(options.out_dir, delineate_file_names)) {
+        summary.notes.push_back(
+            fmt::format("removed {}, a temporary file left by an interrupted run", f.string()));
+    }
     Delineation d = delineate_catchments(options, progress);
     detail::ProgressBar bar(progress);
-    DelineateSummary summary;
-    summary.notes = d.notes;
+    summary.notes.insert(summary.notes.end(), d.notes.begin(), d.notes.end());
     const auto &grid = d.dem.elevation_m;
     const auto &dem = d.dem;
     const auto &result = d.result;
@@ -454,15 +502,13 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
 
     bar.start("writing results");
     prepare_out_dir(options.out_dir);
-    summary.json = options.out_dir / "catchments.json";
-    summary.gpkg = options.out_dir / "catchments.gpkg";
-    PendingFile gpkg_file(summary.gpkg);
-    PendingFile json_file(summary.json);
-    io::write_gpkg(gpkg_file.temp_path(), d.layers);
+    summary.json = options.out_dir / delineate_file_names[0];
+    summary.gpkg = options.out_dir / delineate_file_names[1];
+    PendingFiles files;
+    io::write_gpkg(files.add(summary.gpkg), d.layers);
     bar.update(0.9);
-    write_text_file_atomic(json_file.temp_path(), json_text);
-    gpkg_file.commit();
-    json_file.commit();
+    write_text_file_atomic(files.add(summary.json), json_text);
+    files.commit();
     bar.finish();
     summary.design_points = n;
     return summary;

@@ -22,6 +22,7 @@
 #include <map>
 #include <numbers>
 #include <set>
+#include <tuple>
 
 namespace catchpeak::app {
 
@@ -298,6 +299,85 @@ constexpr Formula local_weighting_note{
     Ref::none,
     d8_where};
 
+/// A layer reprojected to the DEM's CRS as it was read: `{layer}` the key and file as the
+/// project gives them, `{from}` its CRS (and who declared it), `{to}` the DEM's.
+constexpr Formula layer_reprojected{"inputs.reprojected",
+                                    "Layer reprojected to the DEM's CRS",
+                                    "",
+                                    "{layer}: from {from} to {to}",
+                                    Ref::none,
+                                    "coordinates transformed with PROJ (through GDAL)"};
+constexpr Formula raster_reprojected{
+    "inputs.reprojected_raster",
+    "Raster reprojected to the DEM's CRS",
+    "",
+    "{layer}: from {from} to {to}",
+    Ref::none,
+    "cells warped by nearest neighbour with GDAL (class codes are never averaged)"};
+
+/// "[inputs] land_cover 'land.gpkg'" for the sheet.
+std::string input_name(const std::string &key, const project::InputPath &in) {
+    return fmt::format("[inputs] {} '{}'", key, in.given);
+}
+
+/// The reprojection line of one layer, when it was reprojected.
+void add_reprojection(CalcLines &lines, const Formula &f, const std::string &layer,
+                      const std::optional<io::Reprojection> &r) {
+    if (!r) {
+        return;
+    }
+    const std::string from = r->declared_by.empty()
+                                 ? r->from
+                                 : fmt::format("{} (as {} declares)", r->from, r->declared_by);
+    lines.note(f, {word("layer", layer), word("from", from), word("to", r->to)});
+}
+
+/// The lines of every layer the run reprojected to the DEM's CRS: they head the lines of each
+/// design point, whose coordinates, catchment and land weighting they concern.
+CalcLines reprojection_lines(const Project &p, const Delineation &d,
+                             const io::LayerFacts &land_cover, const io::LayerFacts &soils) {
+    CalcLines lines;
+    add_reprojection(lines, layer_reprojected, input_name("design_points", *p.inputs.design_points),
+                     d.points_reprojection);
+    if (p.inputs.breach_lines) {
+        add_reprojection(lines, layer_reprojected,
+                         input_name("breach_lines", *p.inputs.breach_lines),
+                         d.breach_lines_reprojection);
+    }
+    for (const auto &[key, in, facts] :
+         {std::tuple{"land_cover", &*p.inputs.land_cover, &land_cover},
+          std::tuple{"soils", &*p.inputs.soils, &soils}}) {
+        const bool raster = io::data_kind(in->resolved) == io::DataKind::raster;
+        add_reprojection(lines, raster ? raster_reprojected : layer_reprojected,
+                         input_name(key, *in), facts->reprojection);
+    }
+    return lines;
+}
+
+/// The CRS the project declares for the design points' coordinates ([inputs]
+/// design_points_crs), for io.
+io::DeclaredCrs declared_points_crs(const Project &p) {
+    io::DeclaredCrs c;
+    c.text = p.inputs.design_points_crs;
+    c.key = "[inputs] design_points_crs";
+    c.where = fmt::format("{}:{}: {}", p.file.string(), p.inputs.design_points_crs_line, c.key);
+    return c;
+}
+
+/// The land-cover or soils input over `window`, refused when it does not overlap the DEM.
+io::VectorLayer land_input_over_dem(const Project &p, LandInput which, const std::string &crs,
+                                    const io::Extent &window, const io::Extent &dem,
+                                    io::LayerFacts &facts, bool polygons = true) {
+    io::VectorLayer layer = read_land_input(p, which, crs, window, polygons, &facts);
+    const bool soils = which == LandInput::soils;
+    const project::InputPath &in = soils ? *p.inputs.soils : *p.inputs.land_cover;
+    require_over_dem(facts.extent, dem,
+                     fmt::format("{}:{}: {}", p.file.string(), in.line,
+                                 input_name(soils ? "soils" : "land_cover", in)),
+                     soils ? "soils layer" : "land-cover layer");
+    return layer;
+}
+
 /// The unit of the DEM file's own CRS, in which the engineer's survey gives coordinates.
 Unit crs_unit(const std::string &horizontal_unit) {
     return horizontal_unit == "US survey foot"       ? Unit::us_ft
@@ -353,6 +433,21 @@ CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
     return lines;
 }
 
+/// The publications of the terrain lines, for the references page.
+std::vector<report::Reference> terrain_references() {
+    return {
+        {"O'Callaghan & Mark 1984",
+         "O'Callaghan, J.F. and Mark, D.M. (1984). The extraction of drainage networks from "
+         "digital elevation data. Computer Vision, Graphics, and Image Processing 28, 323-344."},
+        {"Barnes et al. 2014",
+         "Barnes, R., Lehman, C. and Mulla, D. (2014). Priority-flood: an optimal "
+         "depression-filling and watershed-labeling algorithm for digital elevation models. "
+         "Computers & Geosciences 62, 117-127."},
+        {"Horn (1981)", "Horn, B.K.P. (1981). Hill shading and the reflectance map. Proceedings "
+                        "of the IEEE 69(1), 14-47."},
+    };
+}
+
 } // namespace
 
 DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
@@ -362,6 +457,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
     o.dem = p.inputs.dem->resolved;
     o.points = p.inputs.design_points->resolved;
     o.id_field = p.inputs.id_field;
+    o.points_crs = declared_points_crs(p);
     o.snap_radius_m = p.settings.snap_radius_m;
     o.out_dir = p.output_dir; // not written to: delineate_catchments writes nothing
     if (p.inputs.breach_lines) {
@@ -375,23 +471,19 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
     }
     // Rasters of land cover or soils are read over the catchments' extent only.
     const io::Extent window = extent_of(d.total_wkb);
-    const io::VectorLayer land_cover = read_land_input(p, LandInput::land_cover, crs, window);
-    const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, window);
+    const io::Extent dem_box = dem_extent(d.dem.elevation_m);
+    io::LayerFacts land_cover_facts;
+    io::LayerFacts soils_facts;
+    const io::VectorLayer land_cover =
+        land_input_over_dem(p, LandInput::land_cover, crs, window, dem_box, land_cover_facts);
+    const io::VectorLayer soils =
+        land_input_over_dem(p, LandInput::soils, crs, window, dem_box, soils_facts);
     const land::LandOverlay overlay(land_cover, soils, project_land_tables(p), overlay_settings(p));
+    const CalcLines reprojections = reprojection_lines(p, d, land_cover_facts, soils_facts);
 
     DemPoints out;
     out.layers = d.layers;
-    out.references = {
-        {"O'Callaghan & Mark 1984",
-         "O'Callaghan, J.F. and Mark, D.M. (1984). The extraction of drainage networks from "
-         "digital elevation data. Computer Vision, Graphics, and Image Processing 28, 323-344."},
-        {"Barnes et al. 2014",
-         "Barnes, R., Lehman, C. and Mulla, D. (2014). Priority-flood: an optimal "
-         "depression-filling and watershed-labeling algorithm for digital elevation models. "
-         "Computers & Geosciences 62, 117-127."},
-        {"Horn (1981)", "Horn, B.K.P. (1981). Hill shading and the reflectance map. Proceedings "
-                        "of the IEEE 69(1), 14-47."},
-    };
+    out.references = terrain_references();
     const std::size_t n = d.result.points.size();
     for (std::size_t i = 0; i < n; ++i) {
         const auto &pt = d.result.points[i];
@@ -412,7 +504,8 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         for (auto k : d.all_upstream[i]) {
             dp.catchment.upstream_points.push_back(d.result.points[k].id);
         }
-        dp.lines = terrain_lines(p, d, i);
+        dp.lines = reprojections;
+        dp.lines.append(terrain_lines(p, d, i));
         if (i == 0) {
             dp.lines.append(overlay.layer_warnings());
         }
@@ -464,20 +557,15 @@ void check_dem_inputs(const Project &p, Problems &problems) {
         return;
     }
     std::string crs;
-    io::Extent dem_extent;
+    io::Extent dem_box;
     collect([&] {
         const io::Dem dem = io::read_dem(p.inputs.dem->resolved);
         crs = dem.elevation_m.crs_wkt;
-        const auto &t = dem.elevation_m.transform;
-        const double min_x = t.origin_x;
-        const double max_x =
-            t.origin_x + static_cast<double>(dem.elevation_m.width()) * t.cell_dx();
-        const double max_y = t.origin_y;
-        const double min_y =
-            t.origin_y - static_cast<double>(dem.elevation_m.height()) * t.cell_dy();
-        dem_extent = {min_x, min_y, max_x, max_y};
-        const io::DesignPointLayer pts =
-            io::read_design_points(p.inputs.design_points->resolved, p.inputs.id_field, crs);
+        dem_box = dem_extent(dem.elevation_m);
+        const auto [min_x, min_y, max_x, max_y] = dem_box;
+        const io::DesignPointLayer pts = io::read_design_points(
+            p.inputs.design_points->resolved, p.inputs.id_field, crs, declared_points_crs(p));
+        require_over_dem(pts.extent, dem_box, pts.source, design_points_named(pts));
         for (const auto &pt : pts.points) {
             if (!(pt.x >= min_x && pt.x < max_x && pt.y > min_y && pt.y <= max_y)) {
                 problems.add(input_message(
@@ -496,9 +584,11 @@ void check_dem_inputs(const Project &p, Problems &problems) {
     }
     collect([&] {
         // A raster is read over the DEM's extent and its codes checked, without polygons.
+        io::LayerFacts facts;
         const io::VectorLayer land_cover =
-            read_land_input(p, LandInput::land_cover, crs, dem_extent, false);
-        const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, dem_extent, false);
+            land_input_over_dem(p, LandInput::land_cover, crs, dem_box, dem_box, facts, false);
+        const io::VectorLayer soils =
+            land_input_over_dem(p, LandInput::soils, crs, dem_box, dem_box, facts, false);
         const land::LandOverlay overlay(land_cover, soils, project_land_tables(p),
                                         overlay_settings(p));
         (void)overlay;

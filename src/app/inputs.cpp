@@ -72,6 +72,31 @@ double positive(const CsvTable &t, const CsvTable::Row &row, std::size_t col) {
     return v;
 }
 
+/// A figure of a catchment in column `col`, whose unit is `unit` and `to_si` SI units, within
+/// the physical bound `range` (SI; core/limits.hpp). Gives it in SI; throws naming the cell,
+/// the value and the bound in the column's unit.
+double physical(const CsvTable &t, const CsvTable::Row &row, std::size_t col, double to_si,
+                std::string_view unit, const limits::Range &range) {
+    const double v = t.number(row, col);
+    const double si = v * to_si;
+    if (range.contains(si)) {
+        return si;
+    }
+    const std::string what = !std::isfinite(v) ? fmt::format("{} is not a finite number", v)
+                             : !(si > range.min)
+                                 ? fmt::format("{} is not positive", v)
+                                 : fmt::format("{} is beyond what is physically possible", v);
+    throw_input_error(t.where(row, col), what,
+                      fmt::format("a value above {:g} and at most {:g} {} ({})", range.min / to_si,
+                                  range.max / to_si, unit, range.reason));
+}
+
+/// The unit of a column named "<quantity>_<unit>": "ha" of "area_ha", "%" of "slope_percent".
+std::string unit_of(const std::string &column) {
+    const std::string u = column.substr(column.find('_') + 1);
+    return u == "percent" ? "%" : u == "m_per_m" ? "m/m" : u;
+}
+
 /// The area column of a table: one of the columns with the unit in the name.
 std::pair<std::string, std::size_t> area_column(const CsvTable &t) {
     return required_one_of(t, {"area_m2", "area_ha", "area_km2", "area_ac", "area_ft2", "area_mi2"},
@@ -86,6 +111,49 @@ double area_to_m2(const std::string &column, double a) {
            : column == "area_ac"  ? units::acre_to_m2(a)
            : column == "area_ft2" ? units::ft2_to_m2(a)
                                   : units::mi2_to_m2(a);
+}
+
+/// The columns of a catchment table's area, longest flow path and relief or slope.
+struct FigureColumns {
+    std::pair<std::string, std::size_t> area;
+    std::pair<std::string, std::size_t> length;
+    std::pair<std::string, std::size_t> fall;
+};
+
+/// Reads the area, longest flow path, relief and slope of a row into `c`, each within its
+/// physical bound (core/limits.hpp): the one given, and the one it gives (the slope of a relief
+/// over the path, the relief of a slope along it).
+void read_figures(const CsvTable &t, const CsvTable::Row &row, const FigureColumns &cols,
+                  TableCatchment &c) {
+    const auto &[area, length, fall] = cols;
+    c.area_m2 = physical(t, row, area.second, area_to_m2(area.first, 1.0), unit_of(area.first),
+                         limits::catchment_area_m2);
+    const double ft = units::ft_to_m(1.0);
+    c.longest_flow_path_m = physical(t, row, length.second, length.first == "length_m" ? 1.0 : ft,
+                                     unit_of(length.first), limits::flow_path_length_m);
+    const bool relief = fall.first == "relief_m" || fall.first == "relief_ft";
+    if (relief) {
+        c.relief_m = physical(t, row, fall.second, fall.first == "relief_m" ? 1.0 : ft,
+                              unit_of(fall.first), limits::relief_m);
+        c.slope = c.relief_m / c.longest_flow_path_m;
+    } else {
+        c.slope = physical(t, row, fall.second, fall.first == "slope_m_per_m" ? 1.0 : 0.01,
+                           unit_of(fall.first), limits::flow_path_slope);
+        c.relief_m = c.slope * c.longest_flow_path_m;
+    }
+    const auto &bound = relief ? limits::flow_path_slope : limits::relief_m;
+    const double derived = relief ? c.slope : c.relief_m;
+    if (!bound.contains(derived)) {
+        throw_input_error(
+            t.where(row),
+            fmt::format("{} = {} {} along a longest flow path of {} {} gives a {} of {:.4g} {}, "
+                        "beyond what is physically possible",
+                        fall.first, t.text(row, fall.second), unit_of(fall.first),
+                        t.text(row, length.second), unit_of(length.first),
+                        relief ? "slope" : "relief", derived, relief ? "m/m" : "m"),
+            fmt::format("a {} of at most {:g} {} ({})", relief ? "slope" : "relief", bound.max,
+                        relief ? "m/m" : "m", bound.reason));
+    }
 }
 
 } // namespace
@@ -129,22 +197,7 @@ std::vector<TableCatchment> catchment_table_from_csv(const CsvTable &t) {
             throw_input_error(t.where(row, id_col), fmt::format("id '{}' is used twice", c.id),
                               "a different id on every row");
         }
-        c.area_m2 = area_to_m2(area.first, positive(t, row, area.second));
-        const double l = positive(t, row, length.second);
-        c.longest_flow_path_m = length.first == "length_m" ? l : units::ft_to_m(l);
-        const double f = positive(t, row, fall.second);
-        if (fall.first == "relief_m" || fall.first == "relief_ft") {
-            c.relief_m = fall.first == "relief_m" ? f : units::ft_to_m(f);
-            c.slope = c.relief_m / c.longest_flow_path_m;
-        } else {
-            c.slope = fall.first == "slope_m_per_m" ? f : f / 100.0;
-            c.relief_m = c.slope * c.longest_flow_path_m;
-        }
-        if (c.slope > 1.0) {
-            throw_input_error(t.where(row, fall.second),
-                              fmt::format("slope {} m/m is steeper than 1:1", c.slope),
-                              "a slope between 0 and 1 m/m");
-        }
+        read_figures(t, row, {area, length, fall}, c);
         if (c_col && !t.text(row, *c_col).empty()) {
             c.c = t.number(row, *c_col);
             if (!limits::runoff_coefficient.contains(*c.c)) {
@@ -158,7 +211,7 @@ std::vector<TableCatchment> catchment_table_from_csv(const CsvTable &t) {
             if (!limits::curve_number.contains(*c.cn)) {
                 throw_input_error(t.where(row, *cn_col),
                                   fmt::format("CN = {} is out of range", *c.cn),
-                                  "a curve number in " + limits::curve_number.interval());
+                                  "a curve number " + limits::curve_number.accepted("CN"));
             }
         }
         if (tc_col && !t.text(row, *tc_col).empty()) {
@@ -201,8 +254,9 @@ std::vector<TableLandPart> read_catchment_land_table(const fs::path &path, bool 
         part.soil_group_text = t.text(row, group_col);
         part.soil = land::read_soil_group(part.soil_group_text, drained, t.where(row, group_col));
         part.area_column = area.first;
-        part.area_given = positive(t, row, area.second);
-        part.area_m2 = area_to_m2(area.first, part.area_given);
+        part.area_m2 = physical(t, row, area.second, area_to_m2(area.first, 1.0),
+                                unit_of(area.first), limits::catchment_area_m2);
+        part.area_given = t.number(row, area.second);
         out.push_back(std::move(part));
     }
     return out;

@@ -69,7 +69,8 @@ std::string as_given(const std::string &source, const InputPath &in) {
 
 /// A polygon layer in the DEM's CRS. A layer without a CRS is refused: C and CN of a catchment
 /// must not hang on a guess of where its polygons lie.
-io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::string &crs) {
+io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::string &crs,
+                                  io::LayerFacts *facts) {
     const std::string where =
         fmt::format("{}:{}: [inputs] {} '{}'", p.file.string(), k.input.line, k.key, k.input.given);
     if (k.codes) {
@@ -82,7 +83,7 @@ io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::st
                         k.key));
     }
     std::vector<std::string> notes;
-    io::VectorLayer layer = io::read_vector_layer(k.input.resolved, crs, {}, &notes);
+    io::VectorLayer layer = io::read_vector_layer(k.input.resolved, crs, {}, &notes, {}, facts);
     layer.source = as_given(layer.source, k.input);
     for (const auto &n : notes) {
         if (n.find("has no coordinate reference system") != std::string::npos) {
@@ -145,10 +146,10 @@ std::map<std::int64_t, std::string> read_code_table(const InputPath &table,
 }
 
 io::VectorLayer read_land_input(const Project &p, LandInput which, const std::string &crs_wkt,
-                                const io::Extent &window, bool polygons) {
+                                const io::Extent &window, bool polygons, io::LayerFacts *facts) {
     const Kind k = kind_of(p, which);
     if (io::data_kind(k.input.resolved) == io::DataKind::vector) {
-        return read_vector_input(p, k, crs_wkt);
+        return read_vector_input(p, k, crs_wkt, facts);
     }
     const io::ClassRaster r = io::read_class_raster(k.input.resolved, crs_wkt, window, k.field);
 
@@ -194,6 +195,13 @@ io::VectorLayer read_land_input(const Project &p, LandInput which, const std::st
     io::VectorLayer layer;
     layer.crs_wkt = crs_wkt;
     layer.feature_noun = "code";
+    if (facts != nullptr) {
+        facts->extent = r.extent;
+        facts->reprojection.reset();
+        if (r.reprojected) {
+            facts->reprojection = io::Reprojection{r.file_crs_name, io::crs_name(crs_wkt), {}};
+        }
+    }
     const std::string size = cells(r.cell_x_m, r.cell_y_m, "metre");
     layer.source =
         r.reprojected

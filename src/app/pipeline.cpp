@@ -235,13 +235,28 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     return r;
 }
 
+namespace {
+
+/// Removes the temporary files that a run killed while writing (kill -9, power lost) left in
+/// the output folder, and says so on `err`. A failing run leaves none of its own: each is
+/// removed when its write fails.
+void remove_stale_outputs(const fs::path &dir, std::ostream &err) {
+    for (const auto &f : remove_stale_temporaries(dir, report::output_file_names())) {
+        err << fmt::format("catchpeak: removed {}, a temporary file left by an interrupted run\n",
+                           f.string());
+    }
+}
+
+} // namespace
+
 fs::path run_project(const fs::path &project_file, const RunOptions &options, std::ostream &out,
                      std::ostream &err) {
     const Project p = load_project(project_file);
+    const fs::path dir = options.out_dir ? *options.out_dir : p.output_dir;
+    remove_stale_outputs(dir, err);
     std::vector<io::OutLayer> layers;
     report::RunResults r = compute_project(p, err, options.quiet, &layers);
     r.stamp.run_time_utc = options.run_time_utc.empty() ? utc_now() : options.run_time_utc;
-    const fs::path dir = options.out_dir ? *options.out_dir : p.output_dir;
     r.stamp.project_file_from_output = fs::absolute(p.file)
                                            .lexically_normal()
                                            .lexically_relative(fs::absolute(dir).lexically_normal())
@@ -249,19 +264,17 @@ fs::path run_project(const fs::path &project_file, const RunOptions &options, st
     if (!options.quiet) {
         err << "catchpeak: writing results and the calculation sheet\n";
     }
-    std::optional<PendingFile> gpkg;
+    PendingFiles gpkg;
     if (!layers.empty()) {
         std::error_code ec;
         fs::create_directories(dir, ec);
-        gpkg.emplace(dir / "catchments.gpkg");
-        io::write_gpkg(gpkg->temp_path(), layers);
-        // The temporary holds the final bytes: it is only renamed below.
-        r.stamp.outputs.push_back({"catchments.gpkg", sha256_file(gpkg->temp_path())});
+        const fs::path temp = gpkg.add(dir / report::catchments_file_name);
+        io::write_gpkg(temp, layers);
+        // The temporary holds the final bytes: it is only renamed, with the other outputs.
+        r.stamp.outputs.push_back({std::string(report::catchments_file_name), sha256_file(temp)});
     }
-    (void)report::write_outputs(r, dir, [](const fs::path &f) { return sha256_file(f); });
-    if (gpkg) {
-        gpkg->commit();
-    }
+    (void)report::write_outputs(
+        r, dir, [](const fs::path &f) { return sha256_file(f); }, std::move(gpkg));
     if (!options.quiet) {
         out << summary_table(r);
         out << fmt::format("outputs: {}\n", fs::absolute(dir).lexically_normal().string());

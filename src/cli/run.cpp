@@ -5,15 +5,19 @@
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/app/recheck.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/spelling.hpp"
 #include "catchpeak/core/version.hpp"
 
 #include <CLI/CLI.hpp>
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <exception>
 #include <filesystem>
 #include <functional>
 #include <optional>
+#include <string>
+#include <vector>
 
 namespace catchpeak::cli {
 
@@ -137,6 +141,12 @@ void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::o
         ->required();
     delineate->add_option("--id-field", o.id_field, "Field holding the design point ids")
         ->required();
+    delineate->add_option("--points-crs", o.points_crs.text,
+                          "The CRS of the points' coordinates when their file does not declare "
+                          "it (e.g. EPSG:32617; a GeoJSON file without a \"crs\" member is "
+                          "WGS 84 longitude/latitude)");
+    o.points_crs.key = "--points-crs";
+    o.points_crs.where = "--points-crs";
     delineate
         ->add_option("--snap-radius", o.snap_radius_m,
                      "Metres: each point moves to the cell of largest flow accumulation "
@@ -169,6 +179,82 @@ void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::o
     });
 }
 
+/// The options of a command ("--out", "-h", ...), as they are written on the command line.
+std::vector<std::string> option_names(const CLI::App &app) {
+    std::vector<std::string> names;
+    for (const auto *o : app.get_options()) {
+        for (const auto &l : o->get_lnames()) {
+            names.push_back("--" + l);
+        }
+        for (const auto &s : o->get_snames()) {
+            names.push_back("-" + s);
+        }
+    }
+    return names;
+}
+
+/// " (did you mean 'x'?)" when one of `candidates` is close to `word`, else "".
+std::string did_you_mean(const std::string &word, const std::vector<std::string> &candidates) {
+    const std::string hint = closest_match(word, candidates);
+    return hint.empty() ? std::string() : fmt::format(" (did you mean '{}'?)", hint);
+}
+
+/// The command the arguments chose (the application itself when none).
+const CLI::App &chosen_command(const CLI::App &app) {
+    const CLI::App *command = &app;
+    for (const auto *sub : app.get_subcommands()) {
+        command = sub;
+    }
+    return *command;
+}
+
+/// "catchpeak run", or "catchpeak" when no command was chosen.
+std::string command_name(const CLI::App &app, const CLI::App &command) {
+    return &command == &app ? std::string("catchpeak")
+                            : fmt::format("catchpeak {}", command.get_name());
+}
+
+/// The message for the first option that no one took, named as the user wrote it, with a
+/// suggestion and the options of its command; nullopt when every option was known.
+std::optional<std::string> unknown_option(const CLI::App &app) {
+    const CLI::App &command = chosen_command(app);
+    const std::vector<std::string> left = command.remaining();
+    const auto option = std::find_if(
+        left.begin(), left.end(), [](const std::string &a) { return a.size() > 1 && a[0] == '-'; });
+    if (option == left.end()) {
+        return std::nullopt;
+    }
+    const std::string name = command_name(app, command);
+    const std::string given = option->substr(0, option->find('='));
+    const std::vector<std::string> options = option_names(command);
+    return fmt::format("{}: unknown option '{}'{}; options: {}; see '{} --help'", name, given,
+                       did_you_mean(given, options), fmt::join(options, ", "), name);
+}
+
+/// The message for arguments no one took: the first unknown option, or the unknown command, or
+/// an argument too many.
+std::string extras_message(const CLI::App &app) {
+    if (auto m = unknown_option(app)) {
+        return *m;
+    }
+    const CLI::App &command = chosen_command(app);
+    const std::vector<std::string> left = command.remaining();
+    const std::string first = left.empty() ? std::string() : left.front();
+    if (&command == &app) {
+        std::vector<std::string> commands;
+        for (const auto *sub : app.get_subcommands([](const CLI::App *) { return true; })) {
+            commands.push_back(sub->get_name());
+        }
+        return fmt::format("catchpeak: unknown command '{}'{}; commands: {}; see 'catchpeak "
+                           "--help'",
+                           first, did_you_mean(first, commands), command_list(app));
+    }
+    const std::string name = command_name(app, command);
+    return fmt::format("{}: unexpected argument '{}' (the command takes no more); see '{} "
+                       "--help'",
+                       name, first, name);
+}
+
 /// Takes the application with its commands and the arguments; parses them. Gives the exit
 /// code when the parse ends the run (help shown, or a bad argument reported on `err`),
 /// nullopt when the run goes on.
@@ -180,13 +266,15 @@ std::optional<int> parse_arguments(CLI::App &app, const std::vector<std::string>
     } catch (const CLI::CallForHelp &) {
         out << app.help();
         return to_int(ExitCode::success);
-    } catch (const CLI::ExtrasError &e) {
-        const bool is_command = !args.empty() && !args.front().empty() && args.front()[0] != '-';
-        err << (is_command ? fmt::format("catchpeak: unknown command '{}'", args.front())
-                           : fmt::format("catchpeak: {}", e.what()))
-            << fmt::format("; commands: {}; see 'catchpeak --help'\n", command_list(app));
+    } catch (const CLI::ExtrasError &) {
+        err << extras_message(app) << '\n';
         return to_int(ExitCode::bad_input);
     } catch (const CLI::ParseError &e) {
+        // An unknown option first: "--pionts" is the cause of "--points is required".
+        if (auto m = unknown_option(app)) {
+            err << *m << '\n';
+            return to_int(ExitCode::bad_input);
+        }
         err << "catchpeak: " << e.what() << "; see 'catchpeak --help'\n";
         return to_int(ExitCode::bad_input);
     }

@@ -10,10 +10,16 @@
 #include <array>
 #include <charconv>
 #include <cmath>
+#include <utility>
 
 namespace catchpeak {
 
 namespace {
+
+/// What a CSV file of ours is separated by, for the messages about another separator.
+constexpr std::string_view comma_separated =
+    "columns separated by commas (','), with '.' as the decimal point (in a spreadsheet "
+    "program: save as \"CSV UTF-8 (comma delimited)\")";
 
 bool is_blank(char c) noexcept { return c == ' ' || c == '\t' || c == '\r'; }
 
@@ -50,6 +56,12 @@ std::vector<std::string> read_record(std::string_view text, std::size_t &pos, st
             }
             while (pos < text.size() && is_blank(text[pos])) {
                 ++pos;
+            }
+            if (pos < text.size() && (text[pos] == ';' || text[pos] == '\t')) {
+                throw_input_error(fmt::format("{}:{}", source, line_no),
+                                  fmt::format("the fields are separated by {}",
+                                              text[pos] == ';' ? "semicolons (';')" : "tabs"),
+                                  std::string(comma_separated));
             }
             if (pos < text.size() && text[pos] != ',' && text[pos] != '\n') {
                 throw_input_error(fmt::format("{}:{}", source, line_no),
@@ -123,9 +135,34 @@ double CsvTable::number(const Row &row, std::size_t col) const {
     return parse_number(text(row, col), where(row, col));
 }
 
+namespace {
+
+/// The byte-order mark that spreadsheet programs put before the text of a "CSV UTF-8" file.
+constexpr std::string_view utf8_bom = "\xEF\xBB\xBF";
+
+/// Throws when the header row is separated by something else than commas: a semicolon (what
+/// spreadsheet programs write where the decimal separator is a comma) or a tab.
+void check_separator(const CsvTable &table, std::size_t line) {
+    for (const auto &[sep, name] : {std::pair{';', "semicolons (';')"}, std::pair{'\t', "tabs"}}) {
+        const bool found = std::any_of(table.header.begin(), table.header.end(),
+                                       [sep](auto &h) { return h.find(sep) != std::string::npos; });
+        if (found) {
+            throw_input_error(fmt::format("{}:{}", table.source, line),
+                              fmt::format("the header '{}' is separated by {}",
+                                          fmt::join(table.header, ","), name),
+                              std::string(comma_separated));
+        }
+    }
+}
+
+} // namespace
+
 CsvTable parse_csv(std::string_view text, std::string source) {
     CsvTable table;
     table.source = std::move(source);
+    if (text.substr(0, utf8_bom.size()) == utf8_bom) {
+        text.remove_prefix(utf8_bom.size());
+    }
     std::size_t line_no = 1;
     std::size_t pos = 0;
     bool have_header = false;
@@ -145,6 +182,7 @@ CsvTable parse_csv(std::string_view text, std::string source) {
         if (!have_header) {
             table.header = std::move(cells);
             have_header = true;
+            check_separator(table, record_line);
             continue;
         }
         if (cells.size() > table.header.size()) {

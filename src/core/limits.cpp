@@ -10,4 +10,9 @@ std::string Range::interval() const {
                        max_inclusive ? ']' : ')');
 }
 
+std::string Range::accepted(std::string_view symbol) const {
+    return fmt::format("{} {} {} {} {} ({})", min, min_inclusive ? "<=" : "<", symbol,
+                       max_inclusive ? "<=" : "<", max, reason);
+}
+
 } // namespace catchpeak::limits

@@ -29,11 +29,11 @@ inline void require_non_negative(const std::string &quantity, double value, Unit
     }
 }
 
-/// Throws InputError unless CN is in limits::curve_number, [30, 100].
+/// Throws InputError unless CN is in limits::curve_number.
 inline void require_cn(double cn) {
     if (!limits::curve_number.contains(cn)) {
         throw_input_error("curve number CN", "value " + full(cn) + " is out of range",
-                          "30 <= CN <= 100 (TR-55 tables list CN 30 to 98)");
+                          limits::curve_number.accepted("CN"));
     }
 }
 

@@ -177,7 +177,8 @@ WithLines<double> nrcs_lag_tc_min(double flow_length_m, double cn, double slope_
     detail::require_positive("NRCS lag: catchment area", area_m2, Unit::m2);
     if (cn >= 100.0) {
         throw_input_error("NRCS lag: curve number CN", "value 100 gives S = 0 and no lag",
-                          "30 <= CN < 100");
+                          full(limits::curve_number.min) + " <= CN < " +
+                              full(limits::curve_number.max) + " (a surface that holds some rain)");
     }
     WithLines<double> out{};
     double l_ft = units::m_to_ft(flow_length_m);

@@ -15,6 +15,7 @@
 #include <cctype>
 #include <cmath>
 #include <limits>
+#include <utility>
 
 namespace catchpeak::io {
 
@@ -243,6 +244,38 @@ DataKind data_kind(const std::filesystem::path &path) {
     throw_input_error(file, "holds neither a vector layer nor a raster band", accepted);
 }
 
+namespace {
+
+/// The extent of the whole raster in the target CRS (unbounded when the transformation fails:
+/// the warp says why, later).
+Extent extent_in(GDALDataset &ds, const double gt[6], const OGRSpatialReference &own,
+                 const OGRSpatialReference &target) {
+    const double w = ds.GetRasterXSize();
+    const double h = ds.GetRasterYSize();
+    Extent e{std::numeric_limits<double>::infinity(), std::numeric_limits<double>::infinity(),
+             -std::numeric_limits<double>::infinity(), -std::numeric_limits<double>::infinity()};
+    for (const auto &[c, r] : {std::pair{0.0, 0.0}, {w, 0.0}, {0.0, h}, {w, h}}) {
+        const double x = gt[0] + c * gt[1] + r * gt[2];
+        const double y = gt[3] + c * gt[4] + r * gt[5];
+        e = {std::min(e.min_x, x), std::min(e.min_y, y), std::max(e.max_x, x),
+             std::max(e.max_y, y)};
+    }
+    if (own.IsSame(&target)) {
+        return e;
+    }
+    GdalErrorScope errors;
+    detail::TransformPtr t(OGRCreateCoordinateTransformation(&own, &target));
+    Extent out;
+    if (t && t->TransformBounds(e.min_x, e.min_y, e.max_x, e.max_y, &out.min_x, &out.min_y,
+                                &out.max_x, &out.max_y, 21) != 0) {
+        return out;
+    }
+    constexpr double inf = std::numeric_limits<double>::infinity();
+    return {-inf, -inf, inf, inf};
+}
+
+} // namespace
+
 ClassRaster read_class_raster(const std::filesystem::path &path, const std::string &target_crs_wkt,
                               const Extent &window, const std::string &name_column) {
     auto ds = detail::open_raster(path);
@@ -286,6 +319,8 @@ ClassRaster read_class_raster(const std::filesystem::path &path, const std::stri
     out.file_unit = unit != nullptr ? unit : "";
     out.file_cell_x = std::hypot(gt[1], gt[4]);
     out.file_cell_y = std::hypot(gt[2], gt[5]);
+
+    out.extent = extent_in(*ds, gt, *own, *target);
 
     const Cells cells = out.reprojected ? warp_window(*ds, target_crs_wkt, window, file)
                                         : read_window(*ds, gt, window, file);

@@ -3,12 +3,14 @@
 
 #include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/files.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
 #include <map>
+#include <optional>
 #include <set>
 
 namespace catchpeak::io {
@@ -25,26 +27,26 @@ struct OpenLayer {
     std::string crs_wkt;
     detail::TransformPtr to_target;
     std::vector<std::string> notes;
+    std::optional<Reprojection> reprojection;
 };
 
-OpenLayer open_layer(const std::filesystem::path &path, const std::string &target_crs_wkt,
-                     const std::string &layer_name) {
-    OpenLayer out;
-    out.ds = detail::open_vector(path);
-    const std::string file = path.string();
-    const int count = out.ds->GetLayerCount();
+/// The layer `layer_name` of the file (its only layer when the name is empty); throws naming
+/// the layers when there is none of that name or several and no name.
+OGRLayer *pick_layer(GDALDataset &ds, const std::string &file, const std::string &layer_name) {
+    const int count = ds.GetLayerCount();
     if (count == 0) {
         throw_input_error(file, "holds no vector layer", "a file with one vector layer");
     }
+    OGRLayer *layer = nullptr;
     if (!layer_name.empty()) {
-        out.layer = out.ds->GetLayerByName(layer_name.c_str());
+        layer = ds.GetLayerByName(layer_name.c_str());
     } else if (count == 1) {
-        out.layer = out.ds->GetLayer(0);
+        layer = ds.GetLayer(0);
     }
-    if (out.layer == nullptr) {
+    if (layer == nullptr) {
         std::string names;
         for (int i = 0; i < count; ++i) {
-            names += fmt::format("{}'{}'", i == 0 ? "" : ", ", out.ds->GetLayer(i)->GetName());
+            names += fmt::format("{}'{}'", i == 0 ? "" : ", ", ds.GetLayer(i)->GetName());
         }
         throw_input_error(file,
                           layer_name.empty()
@@ -54,25 +56,125 @@ OpenLayer open_layer(const std::filesystem::path &path, const std::string &targe
                               : fmt::format("has no layer '{}' (layers: {})", layer_name, names),
                           "a file with one layer");
     }
-    out.source = detail::source_name(path, out.layer->GetName(), count > 1);
+    return layer;
+}
 
-    const OGRSpatialReference *layer_srs =
-        detail::has_crs(out.layer->GetSpatialRef()) ? out.layer->GetSpatialRef() : nullptr;
+std::string name_of(const OGRSpatialReference &srs) {
+    return srs.GetName() != nullptr ? srs.GetName() : "unnamed CRS";
+}
+
+/// Whether GDAL's CRS of the layer is the WGS 84 it gives a GeoJSON file without a "crs" member
+/// (RFC 7946: GeoJSON is WGS 84 longitude/latitude), rather than one the file declares.
+bool crs_implied_by_geojson(GDALDataset &ds, const std::filesystem::path &path) {
+    const std::string driver = ds.GetDriver() != nullptr ? ds.GetDriver()->GetDescription() : "";
+    if (driver.rfind("GeoJSON", 0) != 0) {
+        return false;
+    }
+    return read_text_file(path).find("\"crs\"") == std::string::npos;
+}
+
+/// How the user declares the CRS of a layer's coordinates, for messages.
+std::string how_to_declare(const DeclaredCrs &declared) {
+    const std::string file_way = "a \"crs\" member in the GeoJSON file naming the CRS of its "
+                                 "coordinates (e.g. \"urn:ogc:def:crs:EPSG::32617\"), or the "
+                                 "layer saved as a GeoPackage with its CRS";
+    return declared.key.empty() ? file_way
+                                : fmt::format("the CRS of the coordinates declared with {} (e.g. "
+                                              "\"EPSG:32617\"); or {}",
+                                              declared.key, file_way);
+}
+
+/// The CRS the user declared; throws at `declared.where` when GDAL does not know it.
+detail::SpatialRefPtr declared_crs(const DeclaredCrs &declared) {
+    detail::SpatialRefPtr srs(new OGRSpatialReference());
+    srs->SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
+    GdalErrorScope errors;
+    if (srs->SetFromUserInput(declared.text.c_str()) != OGRERR_NONE) {
+        throw_input_error(declared.where,
+                          errors.describe(fmt::format("'{}' is not a coordinate reference system "
+                                                      "GDAL knows",
+                                                      declared.text)),
+                          "a CRS as \"EPSG:<code>\" (e.g. \"EPSG:32617\"), WKT or a PROJ string");
+    }
+    return srs;
+}
+
+/// The CRS of the layer's coordinates: the one the user declared (refused when the file
+/// declares another), else the layer's own; null when neither says.
+detail::SpatialRefPtr coordinates_crs(OpenLayer &l, const std::filesystem::path &path,
+                                      const DeclaredCrs &declared) {
+    const OGRSpatialReference *own =
+        detail::has_crs(l.layer->GetSpatialRef()) ? l.layer->GetSpatialRef() : nullptr;
+    detail::SpatialRefPtr file_srs;
+    if (own != nullptr) {
+        file_srs.reset(own->Clone());
+        file_srs->SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
+    }
+    if (declared.text.empty()) {
+        return file_srs;
+    }
+    auto srs = declared_crs(declared);
+    if (file_srs && !file_srs->IsSame(srs.get()) && !crs_implied_by_geojson(*l.ds, path)) {
+        throw_input_error(
+            declared.where,
+            fmt::format("declares the coordinates of '{}' to be in {}, but the file "
+                        "declares {}",
+                        l.source, name_of(*srs), name_of(*file_srs)),
+            fmt::format("one of the two: remove {} when the file's CRS is right", declared.key));
+    }
+    return srs;
+}
+
+/// Throws when the layer's CRS is geographic but its coordinates are not longitude and latitude
+/// (a GeoJSON file in a projected CRS without a "crs" member), saying how to declare its CRS.
+void require_longitude_latitude(OpenLayer &l, const std::filesystem::path &path,
+                                const OGRSpatialReference &srs, const DeclaredCrs &declared) {
+    OGREnvelope env;
+    if (!srs.IsGeographic() || l.layer->GetExtent(&env, TRUE) != OGRERR_NONE) {
+        return;
+    }
+    // Longitudes may run from -180 to 360 (some files count 0 to 360 degrees east).
+    if (env.MinX >= -180.0 && env.MaxX <= 360.0 && env.MinY >= -90.0 && env.MaxY <= 90.0) {
+        return;
+    }
+    const std::string coords =
+        fmt::format("x {} to {}, y {} to {}", env.MinX, env.MaxX, env.MinY, env.MaxY);
+    const bool geojson = declared.text.empty() && crs_implied_by_geojson(*l.ds, path);
+    throw_input_error(
+        l.source,
+        geojson ? fmt::format("a GeoJSON file without a \"crs\" member is in WGS 84 longitude "
+                              "and latitude (RFC 7946), but its coordinates ({}) are not "
+                              "longitudes and latitudes",
+                              coords)
+                : fmt::format("its CRS ({}) is geographic, but its coordinates ({}) are not "
+                              "longitudes and latitudes",
+                              name_of(srs), coords),
+        how_to_declare(declared));
+}
+
+OpenLayer open_layer(const std::filesystem::path &path, const std::string &target_crs_wkt,
+                     const std::string &layer_name, const DeclaredCrs &declared = {}) {
+    OpenLayer out;
+    out.ds = detail::open_vector(path);
+    out.layer = pick_layer(*out.ds, path.string(), layer_name);
+    out.source = detail::source_name(path, out.layer->GetName(), out.ds->GetLayerCount() > 1);
+
+    const detail::SpatialRefPtr source_srs = coordinates_crs(out, path, declared);
+    if (source_srs) {
+        require_longitude_latitude(out, path, *source_srs, declared);
+    }
     auto target = detail::spatial_ref_from_wkt(target_crs_wkt);
     if (!target) {
-        out.crs_wkt = detail::to_wkt(layer_srs);
+        out.crs_wkt = detail::to_wkt(source_srs.get());
         return out;
     }
     out.crs_wkt = target_crs_wkt;
-    if (layer_srs == nullptr) {
+    if (!source_srs) {
         out.notes.push_back(fmt::format("{}: the layer has no coordinate reference system; its "
                                         "coordinates are taken to be in the DEM's CRS ({})",
-                                        out.source,
-                                        target->GetName() != nullptr ? target->GetName() : "?"));
+                                        out.source, name_of(*target)));
         return out;
     }
-    detail::SpatialRefPtr source_srs(layer_srs->Clone());
-    source_srs->SetAxisMappingStrategy(OAMS_TRADITIONAL_GIS_ORDER);
     if (source_srs->IsSame(target.get())) {
         return out;
     }
@@ -80,16 +182,33 @@ OpenLayer open_layer(const std::filesystem::path &path, const std::string &targe
     out.to_target.reset(OGRCreateCoordinateTransformation(source_srs.get(), target.get()));
     if (!out.to_target) {
         throw_input_error(out.source,
-                          errors.describe(fmt::format(
-                              "cannot be reprojected from {} to the DEM's CRS",
-                              source_srs->GetName() != nullptr ? source_srs->GetName() : "?")),
+                          errors.describe(fmt::format("cannot be reprojected from {} to the "
+                                                      "DEM's CRS",
+                                                      name_of(*source_srs))),
                           "a layer in a CRS that PROJ can transform to the DEM's CRS");
     }
-    out.notes.push_back(
-        fmt::format("{}: reprojected from {} to {}", out.source,
-                    source_srs->GetName() != nullptr ? source_srs->GetName() : "its CRS",
-                    target->GetName() != nullptr ? target->GetName() : "the DEM's CRS"));
+    out.reprojection = Reprojection{name_of(*source_srs), name_of(*target),
+                                    declared.text.empty() ? std::string() : declared.key};
+    out.notes.push_back(fmt::format("{}: reprojected from {} to {}", out.source,
+                                    name_of(*source_srs), name_of(*target)));
     return out;
+}
+
+/// Widens `extent` to hold `g`.
+void grow(std::optional<Extent> &extent, const OGRGeometry &g) {
+    if (g.IsEmpty()) {
+        return;
+    }
+    OGREnvelope env;
+    g.getEnvelope(&env);
+    if (!extent) {
+        extent = Extent{env.MinX, env.MinY, env.MaxX, env.MaxY};
+        return;
+    }
+    extent->min_x = std::min(extent->min_x, env.MinX);
+    extent->min_y = std::min(extent->min_y, env.MinY);
+    extent->max_x = std::max(extent->max_x, env.MaxX);
+    extent->max_y = std::max(extent->max_y, env.MaxY);
 }
 
 /// The feature's geometry in the target CRS (null when the feature has none).
@@ -146,18 +265,27 @@ std::string feature_where(const std::string &source, std::int64_t fid) {
 
 } // namespace
 
+std::string crs_name(const std::string &wkt) {
+    const auto srs = detail::spatial_ref_from_wkt(wkt);
+    return srs ? name_of(*srs) : std::string();
+}
+
 VectorLayer read_vector_layer(const std::filesystem::path &path, const std::string &target_crs_wkt,
-                              const std::string &layer_name, std::vector<std::string> *notes) {
-    auto l = open_layer(path, target_crs_wkt, layer_name);
+                              const std::string &layer_name, std::vector<std::string> *notes,
+                              const DeclaredCrs &declared, LayerFacts *facts) {
+    auto l = open_layer(path, target_crs_wkt, layer_name, declared);
     VectorLayer out;
     out.source = l.source;
     out.crs_wkt = l.crs_wkt;
+    LayerFacts found;
+    found.reprojection = l.reprojection;
     OGRFeatureDefn *defn = l.layer->GetLayerDefn();
     l.layer->ResetReading();
     for (auto &f : *l.layer) {
         VectorFeature vf;
         vf.fid = f->GetFID();
         if (auto g = geometry_of(l, *f)) {
+            grow(found.extent, *g);
             vf.wkb = detail::to_iso_wkb(*g);
         }
         for (int i = 0; i < defn->GetFieldCount(); ++i) {
@@ -170,17 +298,22 @@ VectorLayer read_vector_layer(const std::filesystem::path &path, const std::stri
     if (notes != nullptr) {
         notes->insert(notes->end(), l.notes.begin(), l.notes.end());
     }
+    if (facts != nullptr) {
+        *facts = std::move(found);
+    }
     return out;
 }
 
 DesignPointLayer read_design_points(const std::filesystem::path &path, const std::string &id_field,
-                                    const std::string &target_crs_wkt) {
-    auto l = open_layer(path, target_crs_wkt, {});
+                                    const std::string &target_crs_wkt,
+                                    const DeclaredCrs &declared) {
+    auto l = open_layer(path, target_crs_wkt, {}, declared);
     const int id_index = require_field(l, id_field, "design point ids");
     DesignPointLayer out;
     out.source = l.source;
     out.crs_wkt = l.crs_wkt;
     out.notes = l.notes;
+    out.reprojection = l.reprojection;
     std::map<std::string, std::int64_t> seen;
     l.layer->ResetReading();
     for (auto &f : *l.layer) {
@@ -214,6 +347,7 @@ DesignPointLayer read_design_points(const std::filesystem::path &path, const std
             throw_input_error(dp_where, fmt::format("has a {} geometry", type_name(type)),
                               "Point geometries (or a MultiPoint of one point)");
         }
+        grow(out.extent, *p);
         out.points.push_back(DesignPoint{id, p->getX(), p->getY(), fid});
     }
     if (out.points.empty()) {
@@ -229,6 +363,7 @@ LineLayer read_lines(const std::filesystem::path &path, const std::string &targe
     out.source = l.source;
     out.crs_wkt = l.crs_wkt;
     out.notes = l.notes;
+    out.reprojection = l.reprojection;
     l.layer->ResetReading();
     for (auto &f : *l.layer) {
         const std::int64_t fid = f->GetFID();
@@ -246,6 +381,7 @@ LineLayer read_lines(const std::filesystem::path &path, const std::string &targe
             }
             out.lines.push_back(std::move(pl));
         };
+        grow(out.extent, *g);
         const auto type = wkbFlatten(g->getGeometryType());
         if (type == wkbLineString) {
             add(*g->toLineString());
@@ -301,6 +437,7 @@ PolygonLayer read_polygons(const std::filesystem::path &path, const std::string 
     out.source = l.source;
     out.crs_wkt = l.crs_wkt;
     out.notes = l.notes;
+    out.reprojection = l.reprojection;
     l.layer->ResetReading();
     for (auto &f : *l.layer) {
         const std::int64_t fid = f->GetFID();
@@ -338,6 +475,7 @@ PolygonLayer read_polygons(const std::filesystem::path &path, const std::string 
                                             where, cls));
             g = std::move(fixed);
         }
+        grow(out.extent, *g);
         out.polygons.push_back(ClassPolygon{fid, cls, detail::to_iso_wkb(*g)});
     }
     if (out.polygons.empty()) {

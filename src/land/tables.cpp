@@ -265,7 +265,7 @@ CurveNumberTable CurveNumberTable::from_csv(const CsvTable &csv) {
             const double cn = csv.number(r, cols[g]);
             if (!limits::curve_number.contains(cn)) {
                 throw_input_error(csv.where(r, cols[g]), fmt::format("CN = {} is out of range", cn),
-                                  "a curve number from 30 to 100");
+                                  "a curve number " + limits::curve_number.accepted("CN"));
             }
             row.cn[g] = cn;
         }

@@ -68,48 +68,6 @@ void Problems::throw_if_any() const {
     throw InputError(text);
 }
 
-std::size_t edit_distance(std::string_view a, std::string_view b) {
-    std::vector<std::size_t> prev(b.size() + 1);
-    std::vector<std::size_t> cur(b.size() + 1);
-    for (std::size_t j = 0; j <= b.size(); ++j) {
-        prev[j] = j;
-    }
-    for (std::size_t i = 1; i <= a.size(); ++i) {
-        cur[0] = i;
-        for (std::size_t j = 1; j <= b.size(); ++j) {
-            const std::size_t subst = prev[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1);
-            cur[j] = std::min({prev[j] + 1, cur[j - 1] + 1, subst});
-        }
-        std::swap(prev, cur);
-    }
-    return prev[b.size()];
-}
-
-std::string closest_match(std::string_view word, const std::vector<std::string> &candidates) {
-    std::string best;
-    std::size_t best_d = static_cast<std::size_t>(-1);
-    for (const auto &c : candidates) {
-        const std::size_t d = edit_distance(word, c);
-        if (d < best_d) {
-            best_d = d;
-            best = c;
-        }
-    }
-    // Close enough to be a typo: at most a third of the word's letters, and at least one.
-    const std::size_t limit = std::max<std::size_t>(1, std::max(word.size(), best.size()) / 3);
-    if (best_d <= limit) {
-        return best;
-    }
-    // Or one starts with the other ("tc_minutes" for "tc_min").
-    for (const auto &c : candidates) {
-        const std::size_t n = std::min(word.size(), c.size());
-        if (n >= 4 && word.substr(0, n) == std::string_view(c).substr(0, n)) {
-            return c;
-        }
-    }
-    return {};
-}
-
 namespace {
 
 std::string join(const std::vector<std::string> &items, std::string_view sep = ", ") {
@@ -376,6 +334,8 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     in.dem = t.path("dem", dir);
     in.design_points = t.path("design_points", dir);
     in.design_points_layer = t.text("design_points_layer").value_or("");
+    in.design_points_crs = t.text("design_points_crs").value_or("");
+    in.design_points_crs_line = t.line_of("design_points_crs");
     in.id_field = t.text("id_field").value_or("id");
     in.catchment_table = t.path("catchment_table", dir);
     in.catchment_land_table = t.path("catchment_land_table", dir);
@@ -414,6 +374,12 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
             "a land table is given without a catchment table",
             "'catchment_land_table' beside 'catchment_table' (a DEM project weights land-cover "
             "and soils layers instead)"));
+    }
+    if (in.design_points_crs_line != 0 && !has_points) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [inputs] design_points_crs", t.file(), in.design_points_crs_line),
+            "the CRS of design points is given without design points",
+            "'design_points_crs' beside 'design_points'"));
     }
     if (t.line_of("soils") != 0 && t.line_of("land_cover") == 0) {
         t.missing("land_cover", "a land-cover layer when 'soils' is given");

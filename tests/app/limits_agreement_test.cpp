@@ -122,3 +122,37 @@ TEST(LimitsAgreement, FrequencyFactorAtItsBoundaries) {
             << "hydro, Cf " << cf;
     }
 }
+
+namespace {
+
+std::string refusal(const std::function<void()> &f) {
+    try {
+        f();
+    } catch (const InputError &e) {
+        return e.what();
+    }
+    return "(accepted)";
+}
+
+} // namespace
+
+// The curve number accepted differed between inputs; every reader and hydro now name one range,
+// in the same words (limits::curve_number).
+TEST(LimitsAgreement, EveryCurveNumberRefusalNamesTheSameRange) {
+    const std::string range = catchpeak::limits::curve_number.accepted("CN");
+    EXPECT_NE(range.find("30 <= CN <= 100"), std::string::npos) << range;
+    const auto table = write("catchments.csv", "id,area_ha,length_m,slope_m_per_m,cn\n"
+                                               "A,2,300,0.02,29\n");
+    const std::string messages[] = {
+        refusal([&] { (void)catchpeak::app::read_catchment_table(table); }),
+        refusal([] {
+            (void)catchpeak::land::CurveNumberTable::from_csv(
+                catchpeak::parse_csv("class,A,B,C,D\nx,29,40,50,60\n", "cn.csv"));
+        }),
+        refusal([] { (void)catchpeak::hydro::cn_runoff(100.0, 29.0, System::si); }),
+    };
+    for (const auto &m : messages) {
+        EXPECT_NE(m.find(range), std::string::npos) << m;
+        EXPECT_NE(m.find("29"), std::string::npos) << m;
+    }
+}

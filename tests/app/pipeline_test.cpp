@@ -5,6 +5,7 @@
 #include "catchpeak/app/pipeline.hpp"
 
 #include "catchpeak/core/error.hpp"
+#include "support/killed_writer.hpp"
 #include "support/results_json.hpp"
 #include "support/test_project.hpp"
 
@@ -173,4 +174,52 @@ TEST(Pipeline, InitWritesTheTemplateAndRefusesToOverwrite) {
     write_file(file, "edited");
     EXPECT_THROW(init_project(dir / "new"), catchpeak::InputError);
     EXPECT_EQ(read_file(file), "edited");
+}
+
+// A failed run left part of its output set: when results.json could not be written, a new
+// calculation-sheet.pdf and summary.csv were already under their final names.
+TEST(Pipeline, ARunThatCannotWriteResultsJsonPutsNoOutputInPlace) {
+    auto p = si_project("pipeline_results_blocked");
+    fs::create_directories(p.out_dir() / "results.json" / "in-the-way");
+    try {
+        (void)p.run_app();
+        FAIL() << "expected an InputError";
+    } catch (const catchpeak::InputError &e) {
+        EXPECT_NE(std::string(e.what()).find("results.json"), std::string::npos) << e.what();
+    }
+    for (const char *name : {"calculation-sheet.pdf", "summary.csv", "run-record.json"}) {
+        EXPECT_FALSE(fs::exists(p.out_dir() / name)) << name;
+    }
+    EXPECT_TRUE(catchpeak::test::pending_files(p.out_dir()).empty());
+}
+
+// After a run killed with kill -9 its hidden temporary files stayed in the output folder, and
+// later runs did not remove them.
+TEST(Pipeline, ARunRemovesTheTemporaryFilesOfAKilledRun) {
+    auto p = si_project("pipeline_killed_before");
+    fs::create_directories(p.out_dir());
+    const auto sheet =
+        catchpeak::test::temporary_of_killed_writer(p.out_dir() / "calculation-sheet.pdf");
+    const auto json = catchpeak::test::temporary_of_killed_writer(p.out_dir() / "results.json");
+    write_file(p.out_dir() / "my-notes.txt", "the engineer's own file");
+    std::ostringstream out;
+    std::ostringstream err;
+    (void)p.run_app(TestProject::quiet_options(), out, err);
+    EXPECT_FALSE(fs::exists(sheet));
+    EXPECT_FALSE(fs::exists(json));
+    EXPECT_NE(err.str().find(sheet.filename().string()), std::string::npos) << err.str();
+    EXPECT_TRUE(catchpeak::test::pending_files(p.out_dir()).empty());
+    EXPECT_EQ(read_file(p.out_dir() / "my-notes.txt"), "the engineer's own file");
+}
+
+// A run that fails before it writes anything removes them too.
+TEST(Pipeline, AFailingRunRemovesTheTemporaryFilesOfAKilledRun) {
+    auto p = si_project("pipeline_killed_then_fails");
+    p.catchments("id,area_ha,length_m,relief_m,c,tc_min\nIN-1,-1,80,1.6,0.5,10\n");
+    fs::create_directories(p.out_dir());
+    const auto sheet =
+        catchpeak::test::temporary_of_killed_writer(p.out_dir() / "calculation-sheet.pdf");
+    EXPECT_THROW((void)p.run_app(), catchpeak::InputError);
+    EXPECT_FALSE(fs::exists(sheet));
+    EXPECT_TRUE(catchpeak::test::pending_files(p.out_dir()).empty());
 }

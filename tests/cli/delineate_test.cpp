@@ -10,6 +10,7 @@
 #include "io/gdal_test_data.hpp"
 #include "support/test_env.hpp"
 
+#include <fmt/format.h>
 #include <gdal_utils.h>
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
@@ -122,6 +123,15 @@ void make_inputs() {
                    "EPSG:32633");
     t::make_points(data / "points_nodata.gpkg", {{cell_centre_x(2), cell_centre_y(2), "DP-5"}},
                    "EPSG:32633");
+    // The two points in UTM coordinates in a GeoJSON file without a "crs" member (RFC 7946:
+    // GeoJSON is WGS 84 longitude/latitude), and breach lines 100 km north of the DEM.
+    std::ofstream(data / "points_utm.geojson")
+        << fmt::format("{{\"type\":\"FeatureCollection\",\"features\":[{{\"type\":"
+                       "\"Feature\",\"properties\":{{\"id\":\"DP-1\"}},\"geometry\":{{"
+                       "\"type\":\"Point\",\"coordinates\":[{:.3f},{:.3f}]}}}}]}}\n",
+                       x_off, cell_centre_y(70));
+    t::make_layer(data / "breach_far.gpkg", "breach", {"name"},
+                  {{"LINESTRING (500250 4100100, 500350 4100100)", {"culvert"}}}, "EPSG:32633");
     // The same two points in WGS 84 longitude/latitude, reprojected with GDAL here.
     {
         OGRSpatialReference utm;
@@ -230,6 +240,18 @@ const std::vector<DelineateCase> &cases() {
          args_with({"--points", "{in}/points_wgs84.geojson"}),
          ExitCode::success,
          {"reprojected", "100 - done."}},
+        {"geojson_in_utm_without_crs_member",
+         args_with({"--points", "{in}/points_utm.geojson"}),
+         ExitCode::bad_input,
+         {"points_utm.geojson", "without a \"crs\" member", "RFC 7946", "--points-crs"}},
+        {"geojson_in_utm_declared",
+         args_with({"--points", "{in}/points_utm.geojson", "--points-crs", "EPSG:32633"}),
+         ExitCode::success,
+         {"writing results: 0"}},
+        {"breach_lines_off_the_dem",
+         args_with({"--breach-lines", "{in}/breach_far.gpkg"}),
+         ExitCode::bad_input,
+         {"breach_far.gpkg", "breach lines", "does not overlap the DEM's extent"}},
         {"breach_lines_used",
          args_with({"--breach-lines", "{in}/breach.gpkg"}),
          ExitCode::success,

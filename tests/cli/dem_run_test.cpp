@@ -49,7 +49,8 @@ const std::vector<DemCase> &dem_cases() {
              o.points = {{t::cell_x(S::axis_col) + 5000.0, t::cell_y(S::outlet_row), "DP-FAR"}};
          },
          "check",
-         {"DP-FAR", "lies outside the DEM extent"}},
+         // The only point: the layer does not overlap the DEM.
+         {"DP-FAR", "does not overlap the DEM's extent (x 500000.000 to "}},
         {"land_cover_without_crs",
          [](auto &o) { o.land_crs = ""; },
          "run",

@@ -54,6 +54,35 @@ TEST(Csv, MessagesNameFileLineAndColumn) {
     EXPECT_NE(missing.find("d_min, i_mm_per_h"), std::string::npos) << missing;
 }
 
+// A CSV saved as "CSV UTF-8" by a spreadsheet program starts with a byte-order mark; it was
+// refused with "no column 'id'" while the columns listed showed `id`.
+TEST(Csv, AByteOrderMarkBeforeTheHeaderIsNotPartOfTheFirstColumn) {
+    const auto t = parse_csv("\xEF\xBB\xBFid,area_ha\r\nA,2\r\n", "catchments.csv");
+    EXPECT_EQ(t.column("id"), 0u);
+    EXPECT_EQ(t.header[0], "id");
+    ASSERT_EQ(t.rows.size(), 1u);
+    EXPECT_EQ(t.rows[0].line, 2u);
+    // Before a comment line too.
+    const auto c = parse_csv("\xEF\xBB\xBF# source: invented\nid\nA\n", "c.csv");
+    EXPECT_EQ(c.metadata.at("source"), "invented");
+    EXPECT_EQ(c.column("id"), 0u);
+}
+
+TEST(Csv, ASemicolonOrTabSeparatedFileIsToldTheSeparatorMustBeAComma) {
+    for (const std::string text : {"id;area_ha;c\nA;2,5;0,4\n", "\xEF\xBB\xBFid;area_ha\nA;2\n",
+                                   "\"id\";\"area_ha\"\n\"A\";2\n", "# t\nid\tarea_ha\nA\t2\n"}) {
+        const auto msg =
+            catchpeak::test::input_error_of([&] { (void)parse_csv(text, "catchments.csv"); });
+        EXPECT_NE(msg.find("catchments.csv:"), std::string::npos) << msg;
+        EXPECT_NE(msg.find("separated by"), std::string::npos) << msg;
+        EXPECT_NE(msg.find("commas (',')"), std::string::npos) << msg;
+    }
+    const auto msg = catchpeak::test::input_error_of(
+        [&] { (void)parse_csv("# t\nid;area_ha\nA;2\n", "catchments.csv"); });
+    EXPECT_NE(msg.find("catchments.csv:2"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("semicolons"), std::string::npos) << msg;
+}
+
 TEST(Csv, MalformedInputIsRefused) {
     EXPECT_THROW((void)parse_csv("", "e.csv"), InputError);
     EXPECT_THROW((void)parse_csv("# only a comment\n", "e.csv"), InputError);

@@ -208,3 +208,31 @@ TEST(ReadClassRaster, AnotherCrsIsWarpedByNearestNeighbourToTheTarget) {
         }
     }
 }
+
+// For the check that a layer overlaps the DEM: the whole raster's extent, in the target CRS.
+TEST(ReadClassRaster, TheExtentOfTheWholeRasterIsGivenInTheTargetCrs) {
+    const auto dir = t::scratch_dir("class_raster_extent");
+    t::ClassRasterSpec same;
+    same.crs_wkt = utm33();
+    same.codes = t::codes_of(4, 4, [](int, int) { return 1; });
+    const auto a = read_class_raster(t::make_class_raster(dir / "same.tif", same), utm33(),
+                                     {500000.0, 4000000.0, 500010.0, 4000010.0}, "");
+    // 4 x 4 cells of 10 m from (500000, 4000040) down and right (ClassRasterSpec).
+    EXPECT_DOUBLE_EQ(a.extent.min_x, 500000.0);
+    EXPECT_DOUBLE_EQ(a.extent.max_x, 500040.0);
+    EXPECT_DOUBLE_EQ(a.extent.min_y, 4000000.0);
+    EXPECT_DOUBLE_EQ(a.extent.max_y, 4000040.0);
+
+    // UTM 33N in US survey feet: the same square, a change of unit only. Tolerance 1 mm:
+    // rounding of the unit conversion.
+    constexpr double ft = 1200.0 / 3937.0; // US survey foot, m (exact by definition)
+    t::ClassRasterSpec feet = same;
+    feet.gt = {500000.0 / ft, 10.0 / ft, 0.0, 4000040.0 / ft, 0.0, -10.0 / ft};
+    feet.crs_wkt = t::utm_in_unit("US survey foot", ft);
+    const auto b = read_class_raster(t::make_class_raster(dir / "feet.tif", feet), utm33(),
+                                     {500000.0, 4000000.0, 500010.0, 4000010.0}, "");
+    EXPECT_NEAR(b.extent.min_x, 500000.0, 1e-3);
+    EXPECT_NEAR(b.extent.max_x, 500040.0, 1e-3);
+    EXPECT_NEAR(b.extent.min_y, 4000000.0, 1e-3);
+    EXPECT_NEAR(b.extent.max_y, 4000040.0, 1e-3);
+}

@@ -10,6 +10,9 @@
 #include <gtest/gtest.h>
 #include <ogr_geometry.h>
 
+#include <fmt/format.h>
+
+#include <fstream>
 #include <memory>
 
 using catchpeak::InputError;
@@ -252,4 +255,101 @@ TEST(ReadDesignPoints, PointsInAFeetCrsComeInTheMetreCrsOfAFeetDem) {
     // 1 ft = 0.3048 m exactly; tolerance 1 mm: rounding through PROJ's unit conversion.
     EXPECT_NEAR(dp.points[0].x, 1500.0 * 0.3048, 1e-3);
     EXPECT_NEAR(dp.points[0].y, 19000.0 * 0.3048, 1e-3);
+}
+
+namespace {
+
+/// A GeoJSON file without a "crs" member holding one point at (x, y) with id "DP-1".
+std::filesystem::path geojson_point(const std::filesystem::path &path, double x, double y) {
+    std::ofstream(path) << fmt::format(
+        "{{\"type\":\"FeatureCollection\",\"features\":[{{\"type\":\"Feature\","
+        "\"properties\":{{\"id\":\"DP-1\"}},\"geometry\":{{\"type\":\"Point\","
+        "\"coordinates\":[{:.3f},{:.3f}]}}}}]}}\n",
+        x, y);
+    return path;
+}
+
+io::DeclaredCrs declared(const std::string &text) {
+    return {text, "[inputs] design_points_crs", "project.toml:7: [inputs] design_points_crs"};
+}
+
+} // namespace
+
+// A GeoJSON file in UTM without a "crs" member gave a PROJ error that did not say what to do.
+TEST(ReadDesignPoints, AGeoJsonWithoutCrsMemberWhoseCoordinatesAreNotLonLatIsToldHowToDeclare) {
+    const auto dir = t::scratch_dir("geojson_utm");
+    const auto p = geojson_point(dir / "points.geojson", 500100.0, 4000200.0);
+    // RFC 7946, section 4: GeoJSON coordinates are WGS 84 longitude and latitude.
+    const auto msg = t::input_error_of(
+        [&] { (void)io::read_design_points(p, "id", t::crs_wkt(utm33), declared("")); });
+    EXPECT_NE(msg.find("points.geojson"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("without a \"crs\" member"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("RFC 7946"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("x 500100 to 500100, y 4000200 to 4000200"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("[inputs] design_points_crs"), std::string::npos) << msg;
+    // Without a key to declare it (the land layers): the file's own ways.
+    const auto plain =
+        t::input_error_of([&] { (void)io::read_vector_layer(p, t::crs_wkt(utm33)); });
+    EXPECT_NE(plain.find("a \"crs\" member"), std::string::npos) << plain;
+    EXPECT_EQ(plain.find("[inputs]"), std::string::npos) << plain;
+}
+
+TEST(ReadDesignPoints, ADeclaredCrsReplacesTheWgs84OfAGeoJsonWithoutCrsMember) {
+    const auto dir = t::scratch_dir("geojson_declared");
+    const auto p = geojson_point(dir / "points.geojson", 500100.0, 4000200.0);
+    const auto same = io::read_design_points(p, "id", t::crs_wkt(utm33), declared(utm33));
+    ASSERT_EQ(same.points.size(), 1u);
+    EXPECT_DOUBLE_EQ(same.points[0].x, 500100.0);
+    EXPECT_DOUBLE_EQ(same.points[0].y, 4000200.0);
+    EXPECT_FALSE(same.reprojection.has_value());
+    ASSERT_TRUE(same.extent.has_value());
+    EXPECT_DOUBLE_EQ(same.extent->min_x, 500100.0);
+    EXPECT_DOUBLE_EQ(same.extent->max_y, 4000200.0);
+    // Declared in zone 33N, read into zone 34N: reprojected, and the line says who declared it.
+    const auto other = io::read_design_points(p, "id", t::crs_wkt("EPSG:32634"), declared(utm33));
+    ASSERT_TRUE(other.reprojection.has_value());
+    EXPECT_EQ(other.reprojection->from, "WGS 84 / UTM zone 33N");
+    EXPECT_EQ(other.reprojection->to, "WGS 84 / UTM zone 34N");
+    EXPECT_EQ(other.reprojection->declared_by, "[inputs] design_points_crs");
+}
+
+TEST(ReadDesignPoints, AReprojectionIsReportedWithBothCrss) {
+    const auto dir = t::scratch_dir("points_reprojected");
+    const auto p = t::make_points(dir / "p.gpkg", {{15.0, 45.0, "DP-1"}}, "EPSG:4326");
+    const auto dp = io::read_design_points(p, "id", t::crs_wkt(utm33));
+    ASSERT_TRUE(dp.reprojection.has_value());
+    EXPECT_EQ(dp.reprojection->from, "WGS 84");
+    EXPECT_EQ(dp.reprojection->to, "WGS 84 / UTM zone 33N");
+    EXPECT_TRUE(dp.reprojection->declared_by.empty());
+    const auto same = io::read_design_points(p, "id", t::crs_wkt("EPSG:4326"));
+    EXPECT_FALSE(same.reprojection.has_value());
+}
+
+TEST(ReadDesignPoints, ADeclaredCrsThatTheFileContradictsIsRefusedAtTheKey) {
+    const auto dir = t::scratch_dir("declared_contradicted");
+    const auto p = t::make_points(dir / "p.gpkg", {{500100.0, 4000200.0, "DP-1"}}, utm33);
+    const auto msg = t::input_error_of(
+        [&] { (void)io::read_design_points(p, "id", t::crs_wkt(utm33), declared("EPSG:32634")); });
+    EXPECT_NE(msg.find("project.toml:7: [inputs] design_points_crs"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("UTM zone 34N"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("UTM zone 33N"), std::string::npos) << msg;
+    // The same CRS as the file's is no contradiction.
+    EXPECT_EQ(io::read_design_points(p, "id", t::crs_wkt(utm33), declared(utm33)).points.size(),
+              1u);
+}
+
+TEST(ReadVectorLayer, FactsGiveTheExtentInTheTargetCrsAndTheReprojection) {
+    const auto dir = t::scratch_dir("vector_facts");
+    const auto p = t::make_layer(
+        dir / "a.gpkg", "things", {"id"},
+        {{"POINT (500100 4000200)", {"A"}}, {"LINESTRING (500000 4000000, 500300 4000100)", {"B"}}},
+        utm33);
+    io::LayerFacts facts;
+    (void)io::read_vector_layer(p, t::crs_wkt(utm33), {}, nullptr, {}, &facts);
+    ASSERT_TRUE(facts.extent.has_value());
+    EXPECT_DOUBLE_EQ(facts.extent->min_x, 500000.0);
+    EXPECT_DOUBLE_EQ(facts.extent->max_x, 500300.0);
+    EXPECT_DOUBLE_EQ(facts.extent->min_y, 4000000.0);
+    EXPECT_DOUBLE_EQ(facts.extent->max_y, 4000200.0);
+    EXPECT_FALSE(facts.reprojection.has_value());
 }

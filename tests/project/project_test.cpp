@@ -124,3 +124,39 @@ TEST(Project, SyntaxErrorNamesLineAndColumn) {
     EXPECT_EQ(problems.list()[0].rfind("dir/p.toml:3:", 0), 0u) << problems.list()[0];
     EXPECT_NE(problems.list()[0].find("not valid TOML"), std::string::npos);
 }
+
+TEST(Project, DesignPointsCrsIsReadWithItsLineAndNeedsDesignPoints) {
+    Problems problems;
+    const Project p = parse(R"([project]
+name = "x"
+
+[inputs]
+dem = "dem.tif"
+design_points = "points.geojson"
+design_points_crs = "EPSG:32617"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [10]
+)",
+                            problems);
+    EXPECT_TRUE(problems.empty()) << all(problems);
+    EXPECT_EQ(p.inputs.design_points_crs, "EPSG:32617");
+    EXPECT_EQ(p.inputs.design_points_crs_line, 7u);
+
+    Problems table;
+    (void)parse(R"([project]
+name = "x"
+
+[inputs]
+catchment_table = "catchments.csv"
+design_points_crs = "EPSG:32617"
+
+[rainfall]
+idf = "idf.csv"
+return_periods_yr = [10]
+)",
+                table);
+    EXPECT_NE(all(table).find("dir/p.toml:6: [inputs] design_points_crs"), std::string::npos)
+        << all(table);
+}

@@ -5,8 +5,11 @@
 
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/report/results_json.hpp"
+#include "catchpeak/report/sheet.hpp"
+#include "catchpeak/report/summary_csv.hpp"
 #include "report/sample_results.hpp"
 #include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
@@ -38,6 +41,22 @@ TEST(Outputs, WritesTheFourFilesAndNothingPartial) {
         EXPECT_NE(o.path, std::string(run_record_file_name));
         EXPECT_EQ(o.sha256, app::sha256_file(dir / o.path)) << o.path;
     }
+}
+
+// A failed run left part of its output set: when results.json could not be written, a new
+// calculation-sheet.pdf and summary.csv were already under their final names.
+TEST(Outputs, WhenResultsJsonCannotBeWrittenNoOutputOfTheRunIsPutInPlace) {
+    const auto dir = test::scratch_dir("outputs_results_blocked");
+    std::ofstream(dir / sheet_file_name) << "older sheet";
+    std::ofstream(dir / summary_file_name) << "older summary";
+    std::filesystem::create_directories(dir / results_file_name / "in-the-way");
+    const auto r = test::sample_results(1, units::System::si, {10}, false);
+    EXPECT_THROW((void)write_outputs(r, dir, [](const auto &f) { return app::sha256_file(f); }),
+                 InputError);
+    EXPECT_EQ(test::read_file(dir / sheet_file_name), "older sheet");
+    EXPECT_EQ(test::read_file(dir / summary_file_name), "older summary");
+    EXPECT_FALSE(std::filesystem::exists(dir / run_record_file_name));
+    EXPECT_TRUE(test::pending_files(dir).empty());
 }
 
 TEST(Outputs, UnwritableFolderIsAnInputError) {

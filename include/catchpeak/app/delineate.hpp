@@ -3,6 +3,7 @@
 
 #include "catchpeak/io/gpkg.hpp"
 #include "catchpeak/io/raster.hpp"
+#include "catchpeak/io/vector.hpp"
 #include "catchpeak/terrain/delineation.hpp"
 
 #include <cstddef>
@@ -18,6 +19,7 @@ namespace catchpeak::app {
 struct DelineateOptions {
     std::filesystem::path dem;    ///< DEM raster (projected CRS in m or ft)
     std::filesystem::path points; ///< design points (vector layer)
+    io::DeclaredCrs points_crs;   ///< the CRS of their coordinates when the file does not say
     std::string id_field;         ///< field of the design point ids
     double snap_radius_m = 0.0;   ///< search radius for snapping to the largest accumulation
     std::filesystem::path out_dir;
@@ -50,7 +52,22 @@ struct Delineation {
     /// streams.
     std::vector<io::OutLayer> layers;
     std::vector<std::string> notes; ///< conversions and assumptions (units, CRS)
+    /// The design points' and the breach lines' reprojections to the DEM's CRS, when they were.
+    std::optional<io::Reprojection> points_reprojection;
+    std::optional<io::Reprojection> breach_lines_reprojection;
 };
+
+/// "design points ('DP-1', 'DP-2', and 7 more)", for messages.
+[[nodiscard]] std::string design_points_named(const io::DesignPointLayer &points);
+
+/// The extent of a DEM (its cells' outer edges), in its CRS.
+[[nodiscard]] io::Extent dem_extent(const Grid<float> &dem);
+
+/// Throws InputError at `where` when a layer's extent (in the DEM's CRS) does not overlap the
+/// DEM's, naming both: such a layer is almost always in another CRS than its file declares.
+/// A layer without extent (no geometry) passes.
+void require_over_dem(const std::optional<io::Extent> &layer, const io::Extent &dem,
+                      const std::string &where, const std::string &what);
 
 /// Reads the DEM, the design points and the breach lines, runs the terrain analysis, and
 /// polygonizes the local and total catchments. Checks the options as `delineate` does.

@@ -41,9 +41,12 @@ enum class LandInput { land_cover, soils };
 ///   covered. Refused: a raster without CRS, a code in the window that the names do not
 ///   cover (naming the code, the raster and the table), a raster with neither a code table
 ///   nor names of its own, and (soils) a name that is not a hydrologic soil group.
+/// - `facts`, when given, gets the extent of the layer (of the whole raster) in the DEM's CRS and
+///   its reprojection, if it was reprojected.
 [[nodiscard]] io::VectorLayer read_land_input(const project::Project &project, LandInput which,
                                               const std::string &crs_wkt, const io::Extent &window,
-                                              bool polygons = true);
+                                              bool polygons = true,
+                                              io::LayerFacts *facts = nullptr);
 
 /// The land tables of a project: the shipped tables (config/land/), with the project's own
 /// `c_table` and `cn_table` in their place when given.

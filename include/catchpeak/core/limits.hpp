@@ -25,6 +25,8 @@ struct Range {
     }
     /// "[30, 100]", "(0, 1]".
     [[nodiscard]] std::string interval() const;
+    /// What is accepted, for a message: "30 <= CN <= 100 (<reason>)" for symbol "CN".
+    [[nodiscard]] std::string accepted(std::string_view symbol) const;
 };
 
 /// Curve number CN of a catchment or of a land-cover class and soil group. TR-55 (1986) Tables
@@ -49,5 +51,33 @@ inline constexpr Range percent{0.0, 100.0, true, true, "a share of an area"};
 /// Frequency factor Cf of the Rational Method, in its table and in the Rational Method alike:
 /// 1 (no increase) up to 2, a bound of our own that leaves room for a local table.
 inline constexpr Range frequency_factor{1.0, 2.0, true, true, "our choice, no source"};
+
+// Physical bounds: what no catchment on Earth lies outside. A value outside them is a mistake
+// of the input (a unit, a misplaced decimal point), refused with the bound in the message; within
+// them, the methods warn outside their own ranges of applicability.
+
+/// Catchment area, m2: above 0, at most 10 million km2, more than the largest river basin on
+/// Earth (the Amazon's, about 7 million km2; value from memory, not checked).
+inline constexpr Range catchment_area_m2{
+    0.0, 1.0e13, false, true,
+    "10 million km2, more than the largest river basin on Earth (the Amazon's, about 7 million "
+    "km2)"};
+
+/// Longest flow path length, m: above 0, at most 7,000 km, longer than the longest river on
+/// Earth (the Nile, about 6,650 km; value from memory, not checked).
+inline constexpr Range flow_path_length_m{
+    0.0, 7.0e6, false, true, "7,000 km, longer than the longest river on Earth (about 6,650 km)"};
+
+/// Relief of the longest flow path (top minus outlet), m: above 0, at most 10,000 m, more than
+/// the height of the highest mountain above the lowest shore (about 8,850 m + 430 m; values
+/// from memory, not checked).
+inline constexpr Range relief_m{0.0, 1.0e4, false, true,
+                                "10,000 m, more than the highest summit above the lowest shore "
+                                "on Earth (about 9,300 m)"};
+
+/// Slope of the longest flow path, m/m: above 0 (a flat path has no tc), at most 10 m/m (84
+/// degrees, a cliff: our choice, no source).
+inline constexpr Range flow_path_slope{0.0, 10.0, false, true,
+                                       "10 m/m (84 degrees, a cliff; our choice, no source)"};
 
 } // namespace catchpeak::limits

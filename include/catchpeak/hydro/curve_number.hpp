@@ -24,11 +24,12 @@ struct CnRunoff {
 
 /// TR-55 runoff: Q = (P - Ia)^2 / (P - Ia + S) for P > Ia, else 0; S = 1000/CN - 10 (in) or
 /// 25400/CN - 254 (mm). With Ia = 0.05 S: S0.05 = 1.33 S0.20^1.15 (S in in; Hawkins et al.
-/// 2002, from memory). CN accepted in (30, 100]; P >= 0.
+/// 2002, from memory). CN accepted in limits::curve_number ([30, 100]); P >= 0.
 [[nodiscard]] WithLines<CnRunoff> cn_runoff(double rainfall_mm, double cn, units::System system,
                                             IaRatio ratio = IaRatio::r020);
 
-/// Potential maximum retention in inches, S = 1000/CN - 10 (TR-55 eq. 2-4); CN in [30, 100].
+/// Potential maximum retention in inches, S = 1000/CN - 10 (TR-55 eq. 2-4); CN in
+/// limits::curve_number.
 [[nodiscard]] double cn_retention_in(double cn);
 
 /// The runoff depth only (no lines): for hyetographs, where each step would need a line.

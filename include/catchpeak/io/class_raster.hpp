@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/grid.hpp"
+#include "catchpeak/io/feature.hpp"
 
 #include <cstdint>
 #include <filesystem>
@@ -24,14 +25,6 @@ enum class DataKind {
 /// Throws InputError naming the file when it is missing or GDAL reads it as neither.
 [[nodiscard]] DataKind data_kind(const std::filesystem::path &path);
 
-/// A rectangle in the target CRS.
-struct Extent {
-    double min_x = 0.0;
-    double min_y = 0.0;
-    double max_x = 0.0;
-    double max_y = 0.0;
-};
-
 /// A window of a raster of integer class codes, on a grid in the target CRS.
 struct ClassRaster {
     std::string source; ///< the file, for messages
@@ -52,6 +45,7 @@ struct ClassRaster {
     double cell_y_m = 0.0;     ///< cell height of `labels`, metres (target CRS)
     bool reprojected = false;  ///< warped from another CRS (nearest neighbour)
     std::string file_crs_name; ///< name of the file's CRS
+    Extent extent;             ///< the whole raster's extent in the target CRS
 };
 
 /// Cells of margin read around the window on every side (of the grid read), so that the

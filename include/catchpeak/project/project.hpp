@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/methods.hpp"
+#include "catchpeak/core/spelling.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/hydro/tc.hpp"
 #include "catchpeak/project/options.hpp"
@@ -31,6 +32,11 @@ struct Inputs {
     std::optional<InputPath> dem;
     std::optional<InputPath> design_points;
     std::string design_points_layer; ///< empty: the first layer
+    /// The CRS of the design points' coordinates when the file does not declare it right (a
+    /// GeoJSON file in a projected CRS without a "crs" member): "EPSG:32617", WKT or PROJ;
+    /// empty: the file's own.
+    std::string design_points_crs;
+    std::size_t design_points_crs_line = 0; ///< line of the key, 0 when not given
     std::string id_field = "id";
     std::optional<InputPath> catchment_table;
     /// Land parts of the catchments of the catchment table (CSV: id, class, soil_group and the
@@ -203,11 +209,8 @@ class Problems {
 /// Reads and parses a project file; throws InputError listing every problem.
 [[nodiscard]] Project load_project(const std::filesystem::path &file);
 
-/// The Levenshtein distance between two strings (for "did you mean" suggestions).
-[[nodiscard]] std::size_t edit_distance(std::string_view a, std::string_view b);
-
-/// The closest of `candidates` to `word` when it is close enough to be a likely typo, else "".
-[[nodiscard]] std::string closest_match(std::string_view word,
-                                        const std::vector<std::string> &candidates);
+// "Did you mean" suggestions (core/spelling.hpp), as the project's readers use them.
+using catchpeak::closest_match;
+using catchpeak::edit_distance;
 
 } // namespace catchpeak::project
