@@ -205,6 +205,7 @@ land::OverlaySettings overlay_settings(const Project &p) {
         s.default_class = c->land_class;
     }
     s.units = p.info.units;
+    s.min_part_area_m2 = p.settings.min_land_part_m2;
     return s;
 }
 
@@ -496,12 +497,20 @@ void check_dem_inputs(const Project &p, Problems &problems) {
     }
     collect([&] {
         // A raster is read over the DEM's extent and its codes checked, without polygons.
+        LandClasses classes;
         const io::VectorLayer land_cover =
-            read_land_input(p, LandInput::land_cover, crs, dem_extent, false);
+            read_land_input(p, LandInput::land_cover, crs, dem_extent, false, &classes);
         const io::VectorLayer soils = read_land_input(p, LandInput::soils, crs, dem_extent, false);
-        const land::LandOverlay overlay(land_cover, soils, project_land_tables(p),
-                                        overlay_settings(p));
+        const land::LandTables tables = project_land_tables(p);
+        const land::LandOverlay overlay(land_cover, soils, tables, overlay_settings(p));
         (void)overlay;
+        // Every class of the layer, and the class of uncovered land, in every table, before
+        // any computation (a run would stop at the first catchment that holds one).
+        if (const auto *c = std::get_if<project::UncoveredAsClass>(&p.settings.uncovered_land)) {
+            classes.uses.push_back({c->land_class, 0, std::nan(""),
+                                    fmt::format("{}: [settings] uncovered_land", p.file.string())});
+        }
+        check_classes_in_tables(classes, tables, p.info.units, problems);
     });
 }
 

@@ -361,6 +361,7 @@ void check_project(const Project &p, Problems &problems) {
     check_file(p.inputs.breach_lines, pf, "[inputs] breach_lines", problems);
     check_file(p.inputs.c_table, pf, "[inputs] c_table", problems);
     check_file(p.inputs.cn_table, pf, "[inputs] cn_table", problems);
+    check_file(p.inputs.impervious_table, pf, "[inputs] impervious_table", problems);
     check_file(p.rainfall.idf, pf, "[rainfall] idf", problems);
     check_file(p.rainfall.annual_maximum_series, pf, "[rainfall] annual_maximum_series", problems);
     if (problems.size() != before) {
