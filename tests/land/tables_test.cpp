@@ -222,8 +222,7 @@ TEST(Tables, MissingClassNamesClassAndTable) {
     msg =
         catchpeak::test::input_error_of([&] { (void)t.c->lookup("moon_dust", SoilGroup::a, 1.0); });
     EXPECT_NE(msg.find("runoff_coefficients.csv"), std::string::npos) << msg;
-    msg = catchpeak::test::input_error_of(
-        [&] { (void)t.impervious->lookup("street_paved_ditched"); });
+    msg = catchpeak::test::input_error_of([&] { (void)t.impervious->lookup("moon_dust"); });
     EXPECT_NE(msg.find("impervious_shares.csv"), std::string::npos) << msg;
 }
 
