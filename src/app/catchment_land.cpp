@@ -9,6 +9,7 @@
 #include <fmt/format.h>
 
 #include <cmath>
+#include <map>
 #include <set>
 #include <utility>
 
@@ -44,32 +45,30 @@ std::string lines_of(const std::vector<TableLandPart> &parts) {
     return fmt::format("lines {} and {}", fmt::join(lines, ", "), last);
 }
 
-/// The class is in every land table that is given, and the C table has one row for its soil
-/// group at the catchment's slope. Adds a problem naming the land table's line otherwise.
+/// The classes of the parts, with how many parts and how much area each has (the classes'
+/// absence from a table is checked by check_classes_in_tables).
+LandClasses part_classes(const std::vector<const TableLandPart *> &parts,
+                         const std::string &land_file) {
+    LandClasses out;
+    out.noun = "part";
+    std::map<std::string, std::size_t, std::less<>> index;
+    for (const TableLandPart *part : parts) {
+        const auto [it, added] = index.emplace(part->land_class, out.uses.size());
+        if (added) {
+            out.uses.push_back({part->land_class, 0, 0.0,
+                                fmt::format("{}:{}: column 'class'", land_file, part->line)});
+        }
+        ++out.uses[it->second].count;
+        out.uses[it->second].area_m2 += part->area_m2;
+    }
+    return out;
+}
+
+/// The C table has one row for the part's soil group at the catchment's slope. Adds a problem
+/// naming the land table's line otherwise.
 void check_class(const TableLandPart &part, const TableCatchment &c, const land::LandTables &tables,
                  const std::string &land_file, Problems &problems) {
-    const std::string where = fmt::format("{}:{}: column 'class'", land_file, part.line);
-    const auto missing = [&](const land::TableInfo &info, std::string_view kind,
-                             std::string_view key) {
-        problems.add(input_message(
-            where,
-            fmt::format("land-cover class '{}' (catchment '{}') is not in the {} table {}",
-                        part.land_class, part.id, kind, info.name),
-            fmt::format("a class of that table (a project may point to its own table{})", key)));
-    };
-    if (tables.c && !tables.c->has_class(part.land_class)) {
-        missing(tables.c->info(), "runoff coefficient", " with 'c_table'");
-        return;
-    }
-    if (tables.cn && !tables.cn->has_class(part.land_class)) {
-        missing(tables.cn->info(), "curve number", " with 'cn_table'");
-        return;
-    }
-    if (tables.impervious && !tables.impervious->has_class(part.land_class)) {
-        missing(tables.impervious->info(), "impervious share", "");
-        return;
-    }
-    if (tables.c) {
+    if (tables.c && tables.c->has_class(part.land_class)) {
         try {
             (void)tables.c->lookup(part.land_class, part.soil.group, 100.0 * c.slope);
         } catch (const InputError &e) {
@@ -97,6 +96,7 @@ LandPartsById check_land_parts(const Project &p, const std::vector<TableCatchmen
         ids.push_back(c.id);
     }
     LandPartsById out;
+    std::vector<const TableLandPart *> known;
     for (const auto &part : parts) {
         const auto it = by_id.find(part.id);
         if (it == by_id.end()) {
@@ -110,8 +110,10 @@ LandPartsById check_land_parts(const Project &p, const std::vector<TableCatchmen
             continue;
         }
         check_class(part, *it->second, tables, land_file, problems);
+        known.push_back(&part);
         out[part.id].push_back(part);
     }
+    check_classes_in_tables(part_classes(known, land_file), tables, p.info.units, problems);
     for (const auto &[id, own] : out) {
         const TableCatchment &c = *by_id.at(id);
         if (c.c || c.cn) {
@@ -195,6 +197,7 @@ land::PartsWeighting weight_table_catchment(const Project &p, const TableCatchme
                     "the catchment)";
     pc.slope_source = fmt::format("project input ({}, line {})", table_given, c.line);
     pc.units = p.info.units;
+    pc.min_part_area_m2 = p.settings.min_land_part_m2;
     return land::weight_parts(areas, tables, pc);
 }
 

@@ -206,6 +206,7 @@ land::OverlaySettings overlay_settings(const Project &p) {
         s.default_class = c->land_class;
     }
     s.units = p.info.units;
+    s.min_part_area_m2 = p.settings.min_land_part_m2;
     return s;
 }
 
@@ -367,8 +368,9 @@ io::DeclaredCrs declared_points_crs(const Project &p) {
 /// The land-cover or soils input over `window`, refused when it does not overlap the DEM.
 io::VectorLayer land_input_over_dem(const Project &p, LandInput which, const std::string &crs,
                                     const io::Extent &window, const io::Extent &dem,
-                                    io::LayerFacts &facts, bool polygons = true) {
-    io::VectorLayer layer = read_land_input(p, which, crs, window, polygons, &facts);
+                                    io::LayerFacts &facts, bool polygons = true,
+                                    LandClasses *classes = nullptr) {
+    io::VectorLayer layer = read_land_input(p, which, crs, window, polygons, &facts, classes);
     const bool soils = which == LandInput::soils;
     const project::InputPath &in = soils ? *p.inputs.soils : *p.inputs.land_cover;
     require_over_dem(facts.extent, dem,
@@ -585,13 +587,21 @@ void check_dem_inputs(const Project &p, Problems &problems) {
     collect([&] {
         // A raster is read over the DEM's extent and its codes checked, without polygons.
         io::LayerFacts facts;
-        const io::VectorLayer land_cover =
-            land_input_over_dem(p, LandInput::land_cover, crs, dem_box, dem_box, facts, false);
+        LandClasses classes;
+        const io::VectorLayer land_cover = land_input_over_dem(
+            p, LandInput::land_cover, crs, dem_box, dem_box, facts, false, &classes);
         const io::VectorLayer soils =
             land_input_over_dem(p, LandInput::soils, crs, dem_box, dem_box, facts, false);
-        const land::LandOverlay overlay(land_cover, soils, project_land_tables(p),
-                                        overlay_settings(p));
+        const land::LandTables tables = project_land_tables(p);
+        const land::LandOverlay overlay(land_cover, soils, tables, overlay_settings(p));
         (void)overlay;
+        // Every class of the layer, and the class of uncovered land, in every table, before
+        // any computation (a run would stop at the first catchment that holds one).
+        if (const auto *c = std::get_if<project::UncoveredAsClass>(&p.settings.uncovered_land)) {
+            classes.uses.push_back({c->land_class, 0, std::nan(""),
+                                    fmt::format("{}: [settings] uncovered_land", p.file.string())});
+        }
+        check_classes_in_tables(classes, tables, p.info.units, problems);
     });
 }
 

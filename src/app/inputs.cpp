@@ -421,6 +421,7 @@ void check_project(const Project &p, Problems &problems) {
     check_file(p.inputs.cn_table, pf, "[inputs] cn_table", problems);
     check_file(p.inputs.culvert_table, pf, "[inputs] culvert_table", problems);
     check_file(p.design.culvert_sizes, pf, "[design] culvert_sizes", problems);
+    check_file(p.inputs.impervious_table, pf, "[inputs] impervious_table", problems);
     check_file(p.rainfall.idf, pf, "[rainfall] idf", problems);
     check_file(p.rainfall.annual_maximum_series, pf, "[rainfall] annual_maximum_series", problems);
     if (problems.size() != before) {

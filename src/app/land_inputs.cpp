@@ -6,6 +6,7 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/units.hpp"
 #include "catchpeak/io/polygonize.hpp"
 #include "catchpeak/io/vector.hpp"
 #include "catchpeak/io/wkb.hpp"
@@ -16,10 +17,12 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <map>
 
 namespace catchpeak::app {
 
 using project::InputPath;
+using project::Problems;
 using project::Project;
 
 namespace {
@@ -95,7 +98,100 @@ io::VectorLayer read_vector_input(const Project &p, const Kind &k, const std::st
     return layer;
 }
 
+/// The area of polygons given as ISO WKB (outer rings less holes); NaN when it cannot be read.
+double wkb_area_m2(const std::vector<unsigned char> &wkb) {
+    try {
+        double area = 0.0;
+        for (const auto &poly : io::wkb_polygon_rings(wkb)) {
+            for (std::size_t r = 0; r < poly.size(); ++r) {
+                double twice = 0.0;
+                const auto &ring = poly[r];
+                for (std::size_t i = 0; i + 1 < ring.size(); ++i) {
+                    twice +=
+                        ring[i].first * ring[i + 1].second - ring[i + 1].first * ring[i].second;
+                }
+                area += (r == 0 ? 0.5 : -0.5) * std::abs(twice);
+            }
+        }
+        return area;
+    } catch (const std::exception &) {
+        return std::numeric_limits<double>::quiet_NaN(); // the overlay names the feature
+    }
+}
+
+/// The classes of a polygon layer's class field, in the order first found.
+LandClasses vector_classes(const io::VectorLayer &layer, const std::string &field) {
+    LandClasses out;
+    out.noun = "feature";
+    std::map<std::string, std::size_t, std::less<>> index;
+    for (const auto &f : layer.features) {
+        const auto attr = f.attributes.find(field);
+        if (attr == f.attributes.end() || attr->second.empty()) {
+            continue; // the overlay refuses it, naming the feature
+        }
+        const auto [it, added] = index.emplace(attr->second, out.uses.size());
+        if (added) {
+            out.uses.push_back({attr->second, 0, 0.0,
+                                fmt::format("{}: {} {}", layer.source, layer.feature_noun, f.fid)});
+        }
+        auto &use = out.uses[it->second];
+        ++use.count;
+        use.area_m2 += wkb_area_m2(f.wkb);
+    }
+    return out;
+}
+
+/// "12.34 ha" or "30.49 ac", as the sheet gives areas; "area not known" for NaN.
+std::string area_text(double area_m2, units::System system) {
+    if (!std::isfinite(area_m2)) {
+        return "area not known";
+    }
+    return system == units::System::si ? fmt::format("{} ha", sig(units::m2_to_ha(area_m2)))
+                                       : fmt::format("{} ac", sig(units::m2_to_acre(area_m2)));
+}
+
 } // namespace
+
+void check_classes_in_tables(const LandClasses &classes, const land::LandTables &tables,
+                             units::System system, Problems &problems) {
+    struct Table {
+        std::vector<std::string> names;
+        const land::TableInfo *info;
+        std::string_view kind;
+        std::string_view key;
+    };
+    std::vector<Table> list;
+    if (tables.c) {
+        list.push_back({tables.c->classes(), &tables.c->info(), "runoff coefficient", "c_table"});
+    }
+    if (tables.cn) {
+        list.push_back({tables.cn->classes(), &tables.cn->info(), "curve number", "cn_table"});
+    }
+    if (tables.impervious) {
+        list.push_back({tables.impervious->classes(), &tables.impervious->info(),
+                        "impervious share", "impervious_table"});
+    }
+    for (const auto &use : classes.uses) {
+        for (const auto &t : list) {
+            if (std::binary_search(t.names.begin(), t.names.end(), use.land_class)) {
+                continue;
+            }
+            const std::string hint = project::closest_match(use.land_class, t.names);
+            const std::string amount =
+                use.count == 0
+                    ? std::string()
+                    : fmt::format(" ({} {}{}, {})", use.count, classes.noun,
+                                  use.count == 1 ? "" : "s", area_text(use.area_m2, system));
+            problems.add(input_message(
+                use.where,
+                fmt::format("land-cover class '{}'{} is not in the {} table {}{}", use.land_class,
+                            amount, t.kind, t.info->name,
+                            hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                fmt::format("a class of that table, or the project's own table ([inputs] {})",
+                            t.key)));
+        }
+    }
+}
 
 io::Extent extent_of(const std::vector<std::vector<unsigned char>> &polygons) {
     constexpr double inf = std::numeric_limits<double>::infinity();
@@ -146,10 +242,15 @@ std::map<std::int64_t, std::string> read_code_table(const InputPath &table,
 }
 
 io::VectorLayer read_land_input(const Project &p, LandInput which, const std::string &crs_wkt,
-                                const io::Extent &window, bool polygons, io::LayerFacts *facts) {
+                                const io::Extent &window, bool polygons, io::LayerFacts *facts,
+                                LandClasses *classes) {
     const Kind k = kind_of(p, which);
     if (io::data_kind(k.input.resolved) == io::DataKind::vector) {
-        return read_vector_input(p, k, crs_wkt, facts);
+        io::VectorLayer layer = read_vector_input(p, k, crs_wkt, facts);
+        if (classes != nullptr) {
+            *classes = vector_classes(layer, k.field);
+        }
+        return layer;
     }
     const io::ClassRaster r = io::read_class_raster(k.input.resolved, crs_wkt, window, k.field);
 
@@ -202,6 +303,16 @@ io::VectorLayer read_land_input(const Project &p, LandInput which, const std::st
             facts->reprojection = io::Reprojection{r.file_crs_name, io::crs_name(crs_wkt), {}};
         }
     }
+    if (classes != nullptr) {
+        classes->noun = "cell";
+        classes->uses.clear();
+        for (std::size_t i = 0; i < r.codes.size(); ++i) {
+            const auto n = r.cell_counts[i];
+            classes->uses.push_back(
+                {names.at(r.codes[i]), n, static_cast<double>(n) * r.cell_x_m * r.cell_y_m,
+                 fmt::format("{}: code {}", as_given(r.source, k.input), r.codes[i])});
+        }
+    }
     const std::string size = cells(r.cell_x_m, r.cell_y_m, "metre");
     layer.source =
         r.reprojected
@@ -226,16 +337,13 @@ io::VectorLayer read_land_input(const Project &p, LandInput which, const std::st
 }
 
 land::LandTables project_land_tables(const Project &p) {
-    land::LandTables tables = land::read_default_land_tables(config_dir());
-    if (p.inputs.c_table || p.inputs.cn_table) {
-        const auto base = config_dir() / "land";
-        const auto own = land::read_land_tables(
-            p.inputs.c_table ? p.inputs.c_table->resolved : base / "runoff_coefficients.csv",
-            p.inputs.cn_table ? p.inputs.cn_table->resolved : base / "curve_numbers.csv",
-            base / "impervious_shares.csv");
-        tables = own;
-    }
-    return tables;
+    const auto base = config_dir() / "land";
+    const auto own = [&](const std::optional<InputPath> &table, const char *shipped) {
+        return table ? table->resolved : base / shipped;
+    };
+    return land::read_land_tables(own(p.inputs.c_table, "runoff_coefficients.csv"),
+                                  own(p.inputs.cn_table, "curve_numbers.csv"),
+                                  own(p.inputs.impervious_table, "impervious_shares.csv"));
 }
 
 std::vector<LandPart> land_parts_of(const report::LandWeighting &w) {

@@ -212,7 +212,7 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         for (const auto &[role, own, shipped] :
              {std::tuple{"C table", p.inputs.c_table, "runoff_coefficients.csv"},
               std::tuple{"CN table", p.inputs.cn_table, "curve_numbers.csv"},
-              std::tuple{"impervious share table", std::optional<InputPath>{},
+              std::tuple{"impervious share table", p.inputs.impervious_table,
                          "impervious_shares.csv"}}) {
             if (own) {
                 add(role, own);
@@ -225,6 +225,7 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     } else {
         add("C table", p.inputs.c_table);
         add("CN table", p.inputs.cn_table);
+        add("impervious share table", p.inputs.impervious_table);
     }
     add("IDF", p.rainfall.idf);
     add("annual maximum series", p.rainfall.annual_maximum_series);

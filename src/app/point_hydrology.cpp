@@ -792,8 +792,14 @@ std::optional<PeakOut> rational_peak(const PeakContext &c, const ScsRain *, doub
     out.peak.return_period_yr = rp;
     out.peak.method = PeakMethod::rational;
     out.peak.q_m3_s = q.value;
+    // The product Cf C the peak used, after the cap Cf C <= 1, so that Q follows from the
+    // stored figures: Q = cf_c_used x i x A.
+    const CalcLine *capped = q.lines.find_last(hydro::keys::rational_cf_c_capped);
+    const CalcLine *product =
+        capped != nullptr ? capped : q.lines.find_last(hydro::keys::rational_cf_c);
     out.peak.intermediates = {{"c", *c.in.c},
                               {"cf", cf.value},
+                              {"cf_c_used", product != nullptr ? product->value() : std::nan("")},
                               {"intensity_mm_per_h", i.value},
                               {"duration_min", c.tc_min}};
     return out;

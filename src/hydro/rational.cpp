@@ -13,6 +13,10 @@ using units::System;
 
 namespace {
 
+/// 1 acre-inch per hour in ft3/s: 43560 ft2 x 1/12 ft per 3600 s (exact; the rounded 1.008 of
+/// many manuals gives peaks 0.033 % low).
+constexpr double ft3_per_s_per_ac_in_per_h = 43560.0 / 43200.0;
+
 // clang-format off
 constexpr Formula cf_row{"rational.frequency_factor", "Frequency factor", "Cf from table",
     "Cf: row {Trow} years", Ref::none, "{table}"};
@@ -21,17 +25,17 @@ constexpr Formula cf_next_row{"rational.frequency_factor", "Frequency factor", "
     "{table}"};
 constexpr Formula cf_last_row{"rational.frequency_factor", "Frequency factor", "Cf from table",
     "Cf: {T} years beyond the table; its last row, {Trow} years", Ref::none, "{table}"};
-constexpr Formula cf_c{"rational.cf_c", "Runoff coefficient with frequency factor", "Cf C",
+constexpr Formula cf_c{keys::rational_cf_c, "Runoff coefficient with frequency factor", "Cf C",
     "Cf C = {Cf} x {C}", Ref::none,
     "Rational Method frequency factor (many US manuals; from memory)"};
-constexpr Formula cf_c_capped{"rational.cf_c_capped", "Cf C capped at 1.0",
+constexpr Formula cf_c_capped{keys::rational_cf_c_capped, "Cf C capped at 1.0",
     "Cf C = min(Cf C, 1.0)", "Cf C = min({CfC}, 1.0)", Ref::none,
     "Rational Method: C Cf <= 1.0 (many US manuals; from memory)"};
 constexpr Formula peak_us{"rational.peak_us", "Peak flow, Rational Method",
     "Q = Cf C i A (i in/h, A ac)", "Q = {CfC} x {i} x {A}", Ref::none, "Rational Method"};
 constexpr Formula peak_cfs{"rational.peak_cfs", "Peak flow in ft3/s",
-    "Q = 1.008 x Q[ac-in/h] (1 ac-in/h = 1.008 ft3/s)", "Q = 1.008 x {Q[ac-in/h]}", Ref::none,
-    "1 acre-in/h = 43560/12/3600 = 1.008 ft3/s"};
+    "Q = Q[ac-in/h] x 43560/43200 (1 ac-in/h = 1.00833 ft3/s)", "Q = {Q[ac-in/h]} x 43560/43200",
+    Ref::none, "1 acre-in/h = 43560 ft3 / 12 / 3600 s = 1.00833 ft3/s (exact conversion)"};
 constexpr Formula peak_si{"rational.peak_si", "Peak flow, Rational Method",
     "Q = Cf C i A / 360 (i mm/h, A ha)", "Q = {CfC} x {i} x {A} / 360", Ref::none,
     "Rational Method, SI form (1 mm/h on 1 ha = 1/360 m3/s)"};
@@ -99,7 +103,7 @@ WithLines<double> rational_peak_m3_s(double c, double cf, double intensity_mm_pe
         out.lines.calc(peak_us,
                        {qty("CfC", c_eff), qty("i", i_in_h, Unit::in_per_h), qty("A", a, au)},
                        qty("Q", q_ac_in_h, Unit::ac_in_per_h));
-        const double q_cfs = 1.008 * q_ac_in_h;
+        const double q_cfs = q_ac_in_h * ft3_per_s_per_ac_in_per_h;
         out.lines.calc(peak_cfs, {qty("Q[ac-in/h]", q_ac_in_h, Unit::ac_in_per_h)},
                        qty("Q", q_cfs, Unit::ft3_per_s));
         out.value = units::cfs_to_m3s(q_cfs);

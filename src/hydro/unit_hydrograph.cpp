@@ -33,7 +33,8 @@ constexpr Formula unit_peak_us{"uh.unit_peak_us", "Unit hydrograph peak per inch
     "NRCS NEH 630 ch. 16 (2007), peak rate factor 484"};
 constexpr Formula unit_peak_si{"uh.unit_peak_si", "Unit hydrograph peak per mm of runoff",
     "qp = 0.208 A Q / tp (Q = 1 mm)", "qp = 0.208 x {A} x 1 / {tp}", Ref::none,
-    "NRCS NEH 630 ch. 16 (2007), SI form 2.08 A Q / tp with Q in cm, i.e. 0.208 with Q in mm"};
+    "NRCS NEH 630 ch. 16 (2007), SI form 2.08 A Q / tp with Q in cm, i.e. 0.208 with Q in mm "
+    "(the published rounding, used as printed; 484 converted exactly is 0.20833)"};
 constexpr Formula runoff_sum{"uh.runoff", "Runoff depth (sum of excess)", "Q = sum of excess",
     "Q = {Q} {Q:u}", Ref::tr55_1986, " eq. 2-1 on the cumulative rainfall"};
 constexpr Formula peak{keys::uh_peak, "Peak flow, SCS unit hydrograph",

@@ -653,6 +653,7 @@ struct LandOverlay::Impl {
             pc.slope_percent = *mean_slope * 100.0;
         }
         pc.units = s.units;
+        pc.min_part_area_m2 = s.min_part_area_m2;
         return pc;
     }
 };

@@ -105,6 +105,15 @@ auto class_rows(const CsvTable &csv, std::size_t col_class, const TableInfo &inf
     return rows;
 }
 
+template <typename Row> std::vector<std::string> class_names(const RowsByClass<Row> &rows) {
+    std::vector<std::string> out;
+    out.reserve(rows.size());
+    for (const auto &[cls, row] : rows) {
+        out.push_back(cls);
+    }
+    return out;
+}
+
 /// The row of a class; throws InputError naming the class and the `what` table when missing.
 template <typename Row>
 const Row &class_row(const RowsByClass<Row> &rows, std::string_view land_class,
@@ -193,6 +202,16 @@ bool RunoffCoefficientTable::has_class(std::string_view land_class) const {
                        [&](const Row &r) { return r.land_class == land_class; });
 }
 
+std::vector<std::string> RunoffCoefficientTable::classes() const {
+    std::vector<std::string> out;
+    for (const auto &r : rows_) {
+        out.push_back(r.land_class);
+    }
+    std::sort(out.begin(), out.end());
+    out.erase(std::unique(out.begin(), out.end()), out.end());
+    return out;
+}
+
 bool RunoffCoefficientTable::uses_slope(std::string_view land_class) const {
     return std::any_of(rows_.begin(), rows_.end(),
                        [&](const Row &r) { return r.land_class == land_class && r.has_band(); });
@@ -278,6 +297,8 @@ bool CurveNumberTable::has_class(std::string_view land_class) const {
     return rows_.find(land_class) != rows_.end();
 }
 
+std::vector<std::string> CurveNumberTable::classes() const { return class_names(rows_); }
+
 const CurveNumberTable::Row &CurveNumberTable::lookup(std::string_view land_class) const {
     return class_row(rows_, land_class, info_, "curve number");
 }
@@ -310,6 +331,8 @@ ImperviousShareTable ImperviousShareTable::from_csv(const CsvTable &csv) {
 bool ImperviousShareTable::has_class(std::string_view land_class) const {
     return rows_.find(land_class) != rows_.end();
 }
+
+std::vector<std::string> ImperviousShareTable::classes() const { return class_names(rows_); }
 
 const ImperviousShareTable::Row &ImperviousShareTable::lookup(std::string_view land_class) const {
     return class_row(rows_, land_class, info_, "impervious share");

@@ -40,6 +40,14 @@ constexpr Formula dual_groups_undrained{"land.dual_groups_undrained",
                                         ""};
 constexpr Formula slope_note{
     "land.slope", "Slope for the C slope bands", "", "{what}", Ref::none, ""};
+constexpr Formula parts_merged{
+    "land.parts_merged",
+    "Parts below the minimum area added to the largest part",
+    "",
+    "{[{class}, soil group {group}: {a} {a:u}|; ]} added to {into}, soil group {into_group} "
+    "(parts below {Amin} {Amin:u})",
+    Ref::project_setting,
+    " min_land_part_m2"};
 constexpr Formula area_check{"land.area_check",
                              "Parts do not add up to the catchment",
                              "",
@@ -124,6 +132,53 @@ PartSums sum_parts(const std::vector<PartArea> &parts, const std::string &label)
         }
     }
     return sums;
+}
+
+/// A part added to the largest part of its catchment.
+struct MergedPart {
+    std::string land_class;
+    SoilGroup group = SoilGroup::d;
+    double area_m2 = 0.0;
+};
+
+/// Adds the parts below `min_m2` to the largest part (the first of equal ones); returns them,
+/// and the key of the part they went to.
+std::pair<std::vector<MergedPart>, PartSums::key_type> merge_small_parts(PartSums &sums,
+                                                                         double min_m2) {
+    auto largest = sums.begin();
+    for (auto it = sums.begin(); it != sums.end(); ++it) {
+        if (it->second.area_m2 > largest->second.area_m2) {
+            largest = it;
+        }
+    }
+    std::vector<MergedPart> merged;
+    for (auto it = sums.begin(); it != sums.end();) {
+        if (it != largest && it->second.area_m2 < min_m2) {
+            merged.push_back({it->first.first, it->first.second, it->second.area_m2});
+            largest->second.area_m2 += it->second.area_m2;
+            it = sums.erase(it);
+        } else {
+            ++it;
+        }
+    }
+    return {std::move(merged), largest->first};
+}
+
+/// The line naming the parts added to the largest part.
+void merged_line(CalcLines &lines, const std::vector<MergedPart> &merged,
+                 const PartSums::key_type &into, const PartsContext &context) {
+    if (merged.empty()) {
+        return;
+    }
+    auto &l =
+        lines.note(parts_merged, {word("into", into.first),
+                                  word("into_group", std::string(to_string(into.second))),
+                                  sheet_area("Amin", context.min_part_area_m2, context.units)});
+    for (const auto &m : merged) {
+        l.rows.push_back({word("class", m.land_class),
+                          word("group", std::string(to_string(m.group))),
+                          sheet_area("a", m.area_m2, context.units)});
+    }
 }
 
 /// C, CN and impervious share of one part from the tables given (NaN for a table not given).
@@ -299,7 +354,8 @@ Quantity sheet_area(std::string symbol, double area_m2, units::System system) {
 
 PartsWeighting weight_parts(const std::vector<PartArea> &parts, const LandTables &tables,
                             const PartsContext &context) {
-    const PartSums sums = sum_parts(parts, context.label);
+    PartSums sums = sum_parts(parts, context.label);
+    const auto [merged, into] = merge_small_parts(sums, context.min_part_area_m2);
     bool slope_used = false;
     PartsWeighting out;
     auto &w = out.weighting;
@@ -310,6 +366,7 @@ PartsWeighting weight_parts(const std::vector<PartArea> &parts, const LandTables
     }
     weight(w, tables, total_m2);
     input_lines(out.lines, tables, context, slope_used, total_m2);
+    merged_line(out.lines, merged, into, context);
     part_lines(out.lines, w, tables, context, total_m2);
     weighted_lines(out.lines, w, tables, context.units, total_m2);
     return out;

@@ -349,6 +349,7 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     in.c_table = t.path("c_table", dir);
     in.cn_table = t.path("cn_table", dir);
     in.culvert_table = t.path("culvert_table", dir);
+    in.impervious_table = t.path("impervious_table", dir);
     t.finish();
 
     // A key that is present but wrong has been reported already: count it as present here.
@@ -592,6 +593,7 @@ void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {
             s.initial_abstraction_ratio = *r;
         }
     }
+    s.min_land_part_m2 = t.number("min_land_part_m2", 0.0, 1.0e4).value_or(s.min_land_part_m2);
     s.dual_soil_group =
         t.choice("dual_soil_group", dual_soil_group_options).value_or(s.dual_soil_group);
     if (auto u = t.text("uncovered_land")) {

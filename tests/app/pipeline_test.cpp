@@ -12,6 +12,7 @@
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
 
+#include <algorithm>
 #include <fstream>
 #include <sstream>
 #include <string>
@@ -134,19 +135,57 @@ TEST(Pipeline, UsCustomarySheetUsesThePublishedUsForm) {
     (void)p.run_app(options, out, err);
     EXPECT_TRUE(out.str().empty());
     const auto j = nlohmann::json::parse(read_file(dir / "out" / "results.json"));
-    // Q = 1.008 Cf C i A (1 acre-in/h = 1.008 ft3/s), Cf = 1.0 for 10 years (config table):
-    // 1.008 x 0.6 x 4.0 x 2.0 = 4.8384 ft3/s = 4.8384 x 0.028316846592 = 0.137008 m3/s
-    // (computed by hand).
-    EXPECT_NEAR(q(point(j, "LOT-1"), 10.0), 0.137008, 1e-6); // hand rounding at 6 figures
+    // Q = Cf C i A x 43560/43200 (1 acre-in/h = 43560 ft3 / 43200 s, exact), Cf = 1.0 for 10
+    // years (config table): 0.6 x 4.0 x 2.0 = 4.8 ac-in/h x 1.008333 = 4.84 ft3/s
+    // = 4.84 x 0.028316846592 = 0.137054 m3/s (computed by hand).
+    EXPECT_NEAR(q(point(j, "LOT-1"), 10.0), 0.137054, 1e-6); // hand rounding at 6 figures
     // The sheet's line in ft3/s shows the US form.
     bool found = false;
     for (const auto &l : point(j, "LOT-1").at("lines")) {
         if (l.at("unit") == "ft3/s") {
             found = true;
-            EXPECT_NEAR(l.at("value").get<double>(), 4.8384, 1e-9); // exact arithmetic
+            EXPECT_NEAR(l.at("value").get<double>(), 4.84, 1e-9); // exact arithmetic
         }
     }
     EXPECT_TRUE(found);
+}
+
+TEST(Pipeline, RationalPeaksFollowFromTheStoredFigures) {
+    // Issue 17: results.json stored C and Cf but not the capped product, so Q recomputed from
+    // them came out high wherever C Cf > 1. A checker takes cf_c_used, the intensity and the
+    // area: Q = Cf C i A / 360 (SI form, i mm/h, A ha; Rational Method), on both sheets (the US
+    // form converts exactly: 1 acre-in/h = 43560/43200 ft3/s). Cf 1.25 for 100 years
+    // (config/rational_frequency_factors.csv) makes 0.9 x 1.25 = 1.125 capped at 1.0.
+    for (const char *units : {"SI", "US"}) {
+        TestProject p(std::string("pipeline_recompute_") + units);
+        p.project.text("units", units);
+        p.rainfall.set("return_periods_yr", "[10, 100]");
+        p.catchments("id,area_ha,length_m,relief_m,c,tc_min\nPAVED,1.5,90,1.8,0.9,10\n");
+        p.idf("# unit: mm/h\nduration_min,10,100\n5,150,210\n10,120,170\n60,40,60\n");
+        std::ostringstream out;
+        std::ostringstream err;
+        RunOptions options;
+        options.quiet = true;
+        (void)p.run_app(options, out, err);
+        const auto j = nlohmann::json::parse(read_file(p.dir() / "out" / "results.json"));
+        const auto &pt = point(j, "PAVED");
+        const double area_ha = pt.at("catchment").at("area_m2").get<double>() / 1e4;
+        int peaks = 0;
+        for (const auto &pk : pt.at("peaks")) {
+            const auto &in = pk.at("intermediates");
+            const double used = in.at("cf_c_used").get<double>();
+            const double product = in.at("c").get<double>() * in.at("cf").get<double>();
+            EXPECT_DOUBLE_EQ(used, std::min(product, 1.0)) << units;
+            const double q = used * in.at("intensity_mm_per_h").get<double>() * area_ha / 360.0;
+            // Tolerance: floating point of the unit conversions only.
+            EXPECT_NEAR(pk.at("q_m3_s").get<double>(), q, q * 1e-12) << units;
+            ++peaks;
+        }
+        EXPECT_EQ(peaks, 2) << units;
+        // The 100-year peak is the capped one: 1.0 x 170 x 1.5 / 360 = 0.708333 m3/s.
+        EXPECT_NEAR(pt.at("peaks").at(1).at("q_m3_s").get<double>(), 170.0 * 1.5 / 360.0, 1e-9)
+            << units;
+    }
 }
 
 TEST(Pipeline, TwoRunsGiveByteIdenticalResults) {

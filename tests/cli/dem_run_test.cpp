@@ -63,6 +63,18 @@ const std::vector<DemCase> &dem_cases() {
          [](auto &o) { o.residential_class = "residential_on_the_moon"; },
          "run",
          {"residential_on_the_moon"}},
+        // Issue 17: a class spelled differently from the tables passed `check` and failed only
+        // in `run`. `check` names it for every table, with the closest class and the feature
+        // count and area (the residential rectangle: 410 m x 450 m = 18.45 ha).
+        {"land_class_misspelt_check",
+         [](auto &o) { o.residential_class = "Residential_1_4_ac"; },
+         "check",
+         {"land.gpkg: feature 2: land-cover class 'Residential_1_4_ac' (1 feature, 18.45 ha) is "
+          "not in the runoff coefficient table runoff_coefficients.csv",
+          "is not in the curve number table curve_numbers.csv",
+          "is not in the impervious share table impervious_shares.csv",
+          "(did you mean 'residential_1_4_ac'?)", "[inputs] c_table", "[inputs] cn_table",
+          "[inputs] impervious_table"}},
         {"geographic_dem",
          [](auto &o) { o.dem_crs = "EPSG:4326"; },
          "run",

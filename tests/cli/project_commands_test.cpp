@@ -261,8 +261,31 @@ const std::vector<BadCase> &cases() {
          {{"catchments.csv\"\n", "catchments.csv\"\ncatchment_land_table = \"land.csv\"\n"}},
          {{"catchments.csv", "id,area_ha,length_m,relief_m,c,cn\nIN-1,0.8,120,3.6,,\n"},
           {"land.csv", "id,class,soil_group,area_ha\nIN-1,parking_deck,C,0.8\n"}},
-         {"land.csv:2: column 'class'", "land-cover class 'parking_deck' (catchment 'IN-1')",
+         {"land.csv:2: column 'class'", "land-cover class 'parking_deck' (1 part, 0.8000 ha)",
           "runoff coefficient table"}},
+        // Issue 17: every table that misses the class is named (the check stopped at the
+        // first), with the closest class, the parts and their area.
+        {"land_class_misspelt_in_every_table",
+         "check",
+         {{"catchments.csv\"\n", "catchments.csv\"\ncatchment_land_table = \"land.csv\"\n"}},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c,cn\nIN-1,0.8,120,3.6,,\n"},
+          {"land.csv", "id,class,soil_group,area_ha\nIN-1,paved_parking_roof,C,0.5\n"
+                       "IN-1,paved_parking_roof,B,0.3\n"}},
+         {"land.csv:2: column 'class': land-cover class 'paved_parking_roof' (2 parts, 0.8000 "
+          "ha) is not in the runoff coefficient table runoff_coefficients.csv",
+          "is not in the curve number table curve_numbers.csv",
+          "is not in the impervious share table impervious_shares.csv",
+          "(did you mean 'paved_parking_roofs'?)", "[inputs] impervious_table"}},
+        // Issue 17: the project's own impervious share table ([inputs] impervious_table).
+        {"own_impervious_table_is_read",
+         "check",
+         {{"catchments.csv\"\n", "catchments.csv\"\ncatchment_land_table = \"land.csv\"\n"
+                                 "impervious_table = \"imp.csv\"\n"}},
+         {{"catchments.csv", "id,area_ha,length_m,relief_m,c,cn\nIN-1,0.8,120,3.6,,\n"},
+          {"land.csv", "id,class,soil_group,area_ha\nIN-1,paved_parking_roofs,C,0.8\n"},
+          {"imp.csv", "class,impervious_percent\ncommercial,85\n"}},
+         {"land.csv:2: column 'class': land-cover class 'paved_parking_roofs' (1 part, 0.8000 "
+          "ha) is not in the impervious share table imp.csv"}},
         {"land_soil_group_unknown",
          "run",
          {{"catchments.csv\"\n", "catchments.csv\"\ncatchment_land_table = \"land.csv\"\n"}},

@@ -33,8 +33,9 @@ TEST(Rational, SiFormByHand) {
     EXPECT_EQ(r.lines.warning_count(), 0u);
 }
 
-TEST(Rational, UsFormShowsThe1008FactorAsItsOwnLine) {
-    // 0.5 x 2 in/h x 10 ac = 10 ac-in/h = 10.08 ft3/s.
+TEST(Rational, UsFormShowsTheExactAcreInchFactorAsItsOwnLine) {
+    // 0.5 x 2 in/h x 10 ac = 10 ac-in/h = 10 x 43560 ft2 x 1/12 ft / 3600 s = 10.0833 ft3/s
+    // (exact conversion; issue 17: the rounded 1.008 gave 10.08).
     const auto r = h::rational_peak_m3_s(0.5, 1.0, u::in_per_h_to_mm_per_h(2.0),
                                          u::acre_to_m2(10.0), System::us_customary);
     const auto &lines = r.lines.lines();
@@ -42,16 +43,18 @@ TEST(Rational, UsFormShowsThe1008FactorAsItsOwnLine) {
     EXPECT_EQ(catchpeak::test::text(lines[lines.size() - 2]).unit, "ac-in/h");
     EXPECT_NEAR(lines[lines.size() - 2].value(), 10.0, 1e-9);
     EXPECT_EQ(catchpeak::test::text(lines.back()).unit, "ft3/s");
-    EXPECT_EQ(catchpeak::test::text(lines.back()).numbers, "Q = 1.008 x 10.00");
-    EXPECT_NEAR(u::m3s_to_cfs(r.value), 10.08, 1e-9);
+    EXPECT_EQ(catchpeak::test::text(lines.back()).numbers, "Q = 10.00 x 43560/43200");
+    EXPECT_NEAR(u::m3s_to_cfs(r.value), 10.0 * 43560.0 / 43200.0, 1e-9);
 }
 
-TEST(Rational, SheetsDifferOnlyByTheRounded1008) {
-    // 1 acre-in/h is 1.00833 ft3/s (43560/12/3600, computed); the US form uses 1.008.
+TEST(Rational, UsAndSiSheetsGiveTheSamePeak) {
+    // Both forms use exact conversions (1 acre-in/h = 43560/12/3600 ft3/s; 1 mm/h on 1 ha =
+    // 1/360 m3/s), so the peaks agree to floating point (issue 17: the US form used 1.008 and
+    // was 0.033 % low).
     const double a = u::ha_to_m2(20.0);
     const double us = h::rational_peak_m3_s(0.6, 1.0, 80.0, a, System::us_customary).value;
     const double si = h::rational_peak_m3_s(0.6, 1.0, 80.0, a, System::si).value;
-    EXPECT_NEAR(us / si, 1.008 / (43560.0 / 12.0 / 3600.0), 1e-9);
+    EXPECT_NEAR(us / si, 1.0, 1e-12);
 }
 
 TEST(Rational, CfCIsCappedAtOne) {

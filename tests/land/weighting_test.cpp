@@ -224,6 +224,43 @@ TEST(WeightParts, TheOverlayGivesTheSameWeightingAsItsPartsGivenAsAreas) {
     EXPECT_EQ(compared, 5u); // two parts, C, CN, impervious share
 }
 
+// Issue 17: a land part of 1 m2 (0.0002471 ac) was listed as a part of a 12.68-ac catchment.
+// Parts below the minimum area are added to the largest part, in a line that says so. By hand:
+// 12.68 ac = 51 314.2 m2; roof 20 000 m2 on C, lawn on B the rest less 1 m2, lawn on D 1 m2
+// (below 10 m2): merged into lawn B, so C = (20 000 x 0.9 + 31 314.2 x 0.15) / 51 314.2.
+TEST(WeightParts, PartsBelowTheMinimumAreaJoinTheLargestPart) {
+    const double total_m2 = 12.68 * units::m2_per_acre;
+    const double roof_m2 = 20000.0;
+    const double lawn_m2 = total_m2 - roof_m2 - 1.0;
+    auto ctx = context(total_m2);
+    ctx.min_part_area_m2 = 10.0;
+    const auto r = weight_parts({{"roof", SoilGroup::c, roof_m2, "land.gpkg, feature 1"},
+                                 {"lawn", SoilGroup::b, lawn_m2, "land.gpkg, feature 2"},
+                                 {"lawn", SoilGroup::d, 1.0, "land.gpkg, feature 3"}},
+                                test_tables(), ctx);
+    const auto &w = r.weighting;
+    ASSERT_EQ(w.parts.size(), 2u);
+    EXPECT_EQ(w.parts[0].land_class, "lawn");
+    EXPECT_EQ(w.parts[0].soil_group, "B");
+    EXPECT_NEAR(w.parts[0].area_m2, lawn_m2 + 1.0, (lawn_m2 + 1.0) * rounding);
+    const double c = (roof_m2 * 0.9 + (lawn_m2 + 1.0) * 0.15) / total_m2;
+    EXPECT_NEAR(w.c_weighted, c, c * rounding);
+    const auto t = catchpeak::test::text(line_keyed(r.lines, "land.parts_merged"));
+    EXPECT_NE(t.numbers.find("lawn, soil group D: 0.0002471 ac added to lawn, soil group B"),
+              std::string::npos)
+        << t.numbers;
+    EXPECT_NE(t.numbers.find("parts below 0.002471 ac"), std::string::npos) << t.numbers;
+    EXPECT_NE(t.source.find("min_land_part_m2"), std::string::npos) << t.source;
+    // Without a minimum the 1 m2 part stays a part, and no line says anything was merged.
+    ctx.min_part_area_m2 = 0.0;
+    const auto kept = weight_parts({{"roof", SoilGroup::c, roof_m2, "a"},
+                                    {"lawn", SoilGroup::b, lawn_m2, "b"},
+                                    {"lawn", SoilGroup::d, 1.0, "c"}},
+                                   test_tables(), ctx);
+    EXPECT_EQ(kept.weighting.parts.size(), 3u);
+    EXPECT_FALSE(kept.lines.has("land.parts_merged"));
+}
+
 // Every line a weighting writes, on both sheets, renders without a template error
 // (report::text_of throws std::logic_error on a placeholder the line does not fill) and leaves
 // no brace in its text. Together the cases below write every kind of line of the module: the
@@ -239,6 +276,7 @@ TEST(WeightParts, EveryLineRendersInBothUnitSystems) {
                                           "land.dual_groups_undrained",
                                           "land.slope",
                                           "land.area_check",
+                                          "land.parts_merged",
                                           "land.part",
                                           "land.c_weighted",
                                           "land.cn_composite",
@@ -263,8 +301,10 @@ TEST(WeightParts, EveryLineRendersInBothUnitSystems) {
                 {catchpeak::word("file", "land.csv"),
                  catchpeak::qty("first", 2.0, catchpeak::Unit::none, catchpeak::Shown::integer()),
                  catchpeak::qty("last", 3.0, catchpeak::Unit::none, catchpeak::Shown::integer())}};
+            ctx.min_part_area_m2 = 10.0;
             all.push_back(weight_parts({{"lawn", SoilGroup::a, 3000.0, "a"},
-                                        {"roof", SoilGroup::d, 6900.0, "b"}},
+                                        {"roof", SoilGroup::d, 6900.0, "b"},
+                                        {"lawn", SoilGroup::c, 0.5, "c"}},
                                        test_tables(), ctx)
                               .lines);
         }

@@ -42,6 +42,7 @@ struct OverlaySettings {
     /// (about 2.3 times slower in land_bench).
     bool exact_coverage_check = false;
     units::System units = units::System::si; ///< unit system of the calculation lines
+    double min_part_area_m2 = 0.0;           ///< PartsContext::min_part_area_m2 of the weighting
 };
 
 /// The weighting of one catchment polygon.

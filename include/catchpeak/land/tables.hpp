@@ -69,6 +69,8 @@ class RunoffCoefficientTable {
 
     [[nodiscard]] const TableInfo &info() const noexcept { return info_; }
     [[nodiscard]] bool has_class(std::string_view land_class) const;
+    /// The classes of the table, sorted, each once.
+    [[nodiscard]] std::vector<std::string> classes() const;
     /// True when some row of the class has a slope band (then a slope is needed to look it up).
     [[nodiscard]] bool uses_slope(std::string_view land_class) const;
 
@@ -100,6 +102,8 @@ class CurveNumberTable {
 
     [[nodiscard]] const TableInfo &info() const noexcept { return info_; }
     [[nodiscard]] bool has_class(std::string_view land_class) const;
+    /// The classes of the table, sorted.
+    [[nodiscard]] std::vector<std::string> classes() const;
     /// Throws InputError naming the class and the table when the class is missing.
     [[nodiscard]] const Row &lookup(std::string_view land_class) const;
     [[nodiscard]] double cn(std::string_view land_class, SoilGroup group) const;
@@ -123,6 +127,8 @@ class ImperviousShareTable {
 
     [[nodiscard]] const TableInfo &info() const noexcept { return info_; }
     [[nodiscard]] bool has_class(std::string_view land_class) const;
+    /// The classes of the table, sorted.
+    [[nodiscard]] std::vector<std::string> classes() const;
     /// Throws InputError naming the class and the table when the class is missing.
     [[nodiscard]] const Row &lookup(std::string_view land_class) const;
 

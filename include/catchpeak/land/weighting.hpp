@@ -72,6 +72,9 @@ struct PartsContext {
     LineSource slope_source{Ref::none, "terrain"};
     /// Warning lines of the caller, placed after the table notes (coverage of layers).
     CalcLines warnings;
+    /// Parts below this area (after parts of the same class and group are added) are added
+    /// to the largest part, with a line naming each; 0: none.
+    double min_part_area_m2 = 0.0;
     units::System units = units::System::si; ///< unit system of the lines
 };
 

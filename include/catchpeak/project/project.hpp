@@ -51,8 +51,9 @@ struct Inputs {
     std::optional<InputPath> land_cover_codes;
     std::optional<InputPath> soil_group_codes;
     std::optional<InputPath> breach_lines;
-    std::optional<InputPath> c_table;  ///< empty: the table shipped in config/
-    std::optional<InputPath> cn_table; ///< empty: the table shipped in config/
+    std::optional<InputPath> c_table;          ///< empty: the table shipped in config/
+    std::optional<InputPath> cn_table;         ///< empty: the table shipped in config/
+    std::optional<InputPath> impervious_table; ///< empty: the table shipped in config/
     /// Culverts to design (CSV, one row per culvert at a design point; app/culvert_inputs.hpp).
     std::optional<InputPath> culvert_table;
 };
@@ -141,6 +142,10 @@ struct Settings {
     double initial_abstraction_ratio = 0.2; ///< Ia/S: 0.2 (TR-55) or 0.05 (Hawkins 2002)
     DualSoilGroup dual_soil_group = DualSoilGroup::undrained;
     UncoveredLand uncovered_land = RefuseUncovered{};
+    /// Land parts (class on soil group) of a catchment smaller than this are added to its
+    /// largest part, with a line that says so: slivers of the overlay, not land uses (our
+    /// choice: 10 m2, about 108 ft2, an absolute area so that no real patch is lost).
+    double min_land_part_m2 = 10.0;
     /// Share of the catchment in ponds and swamps, %, for the TR-55 graphical method's Fp;
     /// unset: 0 % (Fp = 1), said in a note.
     std::optional<double> pond_swamp_percent;
