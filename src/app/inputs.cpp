@@ -424,6 +424,7 @@ void check_project(const Project &p, Problems &problems) {
     check_file(p.inputs.impervious_table, pf, "[inputs] impervious_table", problems);
     check_file(p.rainfall.idf, pf, "[rainfall] idf", problems);
     check_file(p.rainfall.annual_maximum_series, pf, "[rainfall] annual_maximum_series", problems);
+    check_file(p.rainfall.storm_table, pf, "[rainfall] storm_table", problems);
     if (problems.size() != before) {
         return; // the tables below cannot be read
     }
@@ -433,6 +434,9 @@ void check_project(const Project &p, Problems &problems) {
             (void)read_annual_maximum_series(p.rainfall.annual_maximum_series->resolved,
                                              p.rainfall.annual_maximum_series->given);
         });
+    }
+    if (p.rainfall.storm_table) {
+        collect(problems, [&] { (void)read_project_storm_table(*p.rainfall.storm_table); });
     }
     if (p.rainfall.idf) {
         collect(problems, [&] {

@@ -228,6 +228,9 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         add("impervious share table", p.inputs.impervious_table);
     }
     add("IDF", p.rainfall.idf);
+    if (needs_of(p).design_storm && !p.rainfall.alternating_block()) {
+        add("design storm", p.rainfall.storm_table);
+    }
     add("annual maximum series", p.rainfall.annual_maximum_series);
     for (const auto &[role, rel] : tables.config_files) {
         r.stamp.inputs.push_back(

@@ -956,7 +956,11 @@ const PeakRegistration &registration(PeakMethod m) {
 
 /// The publication of the design storm a method's hyetograph follows.
 Ref design_storm_ref(const Project &p) {
-    return p.rainfall.alternating_block() ? Ref::chow_1988 : Ref::tp149_1973;
+    if (p.rainfall.alternating_block()) {
+        return Ref::chow_1988;
+    }
+    // A project's own table names its source on its line; it is no publication of ours.
+    return p.rainfall.storm_table ? Ref::none : Ref::tp149_1973;
 }
 
 /// Restates the catchment's figures (area, flow path, slope, C and CN, or the land weighting).
@@ -1140,6 +1144,16 @@ void check_storm_idf(const Project &p, const rain::Idf &idf, Problems &problems)
                     sig(hi), sig(lo), sig(dt), sig(td))));
 }
 
+rain::StormDistribution read_project_storm_table(const project::InputPath &file) {
+    try {
+        rain::StormDistribution d = io::read_storm_table(file.resolved, 24.0);
+        d.project_file = file.given;
+        return d;
+    } catch (const InputError &e) {
+        throw InputError(fmt::format("[rainfall] storm_table \"{}\": {}", file.given, e.what()));
+    }
+}
+
 HydrologyTables LoadedTables::view() const {
     HydrologyTables t;
     t.idf = idf ? &*idf : nullptr;
@@ -1180,7 +1194,9 @@ LoadedTables load_hydrology_tables(const Project &p, const std::filesystem::path
         read("dimensionless unit hydrograph", "scs_dimensionless_unit_hydrograph.csv",
              io::read_dimensionless_unit_hydrograph, t.unit_hydrograph);
     }
-    if (needs.design_storm && !p.rainfall.alternating_block()) {
+    if (needs.design_storm && p.rainfall.storm_table && !p.rainfall.alternating_block()) {
+        t.storm = read_project_storm_table(*p.rainfall.storm_table);
+    } else if (needs.design_storm && !p.rainfall.alternating_block()) {
         const auto file =
             io::nrcs_storm_file(config, p.rainfall.required_storm_type(p.file.string()));
         t.storm = io::read_storm_table(file);

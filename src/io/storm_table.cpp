@@ -77,8 +77,24 @@ rain::StormDistribution storm_from_csv(const CsvTable &t) {
     return d;
 }
 
+rain::StormDistribution storm_from_csv(const CsvTable &t, double duration_h) {
+    rain::StormDistribution d = storm_from_csv(t);
+    if (std::abs(d.duration_h() - duration_h) > 1e-9 * duration_h) {
+        throw_input_error(t.where(t.rows.back(), t.column("hour")),
+                          fmt::format("the table ends at {} h", sig(d.duration_h())),
+                          fmt::format("a {}-hour distribution: a last row at {} h with fraction 1 "
+                                      "(it is scaled by the {}-hour depth)",
+                                      sig(duration_h), sig(duration_h), sig(duration_h)));
+    }
+    return d;
+}
+
 rain::StormDistribution read_storm_table(const std::filesystem::path &path) {
     return storm_from_csv(read_csv(path));
+}
+
+rain::StormDistribution read_storm_table(const std::filesystem::path &path, double duration_h) {
+    return storm_from_csv(read_csv(path), duration_h);
 }
 
 std::filesystem::path nrcs_storm_file(const std::filesystem::path &config_dir,

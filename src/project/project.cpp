@@ -419,6 +419,7 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
         t.missing("return_periods_yr", "a list of return periods in years, e.g. [2, 10, 100]");
     }
     r.storm_type = t.choice("storm_type", hydro::storm_type_options);
+    r.storm_table = t.path("storm_table", dir);
     r.design_storm_line = t.line_of("design_storm");
     if (auto d = t.choice("design_storm", design_storm_options)) {
         r.design_storm = *d;
@@ -471,6 +472,14 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
             fmt::format("both 24-hour depths and an annual maximum series (line {}) are given",
                         ams_line),
             "either 'depths_24h_mm' / 'depths_24h_in' or 'annual_maximum_series', not both"));
+    }
+    if (r.storm_table && t.line_of("storm_type") != 0) {
+        t.problems().add(input_message(
+            fmt::format("{}:{}: [rainfall] storm_table", t.file(), r.storm_table->line),
+            fmt::format("both a storm table and a storm type (storm_type, line {}) are given",
+                        t.line_of("storm_type")),
+            "either 'storm_table' (the project's own 24-hour distribution) or 'storm_type' (a "
+            "shipped NRCS distribution), not both"));
     }
     if (r.ams_distribution_line != 0 && ams_line == 0) {
         t.problems().add(input_message(
@@ -623,6 +632,13 @@ void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {
 void check_design_storm(const Project &p, Problems &problems) {
     const std::string name = p.file.string();
     const Rainfall &r = p.rainfall;
+    if (r.alternating_block() && r.storm_table) {
+        problems.add(input_message(
+            fmt::format("{}:{}: [rainfall] storm_table", name, r.storm_table->line),
+            "a 24-hour storm table is given but the design storm is the alternating block",
+            fmt::format("'storm_table' only with design_storm = \"{}\"",
+                        option_key(design_storm_options, DesignStorm::nrcs_24h))));
+    }
     if (!r.alternating_block()) {
         if (r.design_storm == DesignStorm::nrcs_24h && r.storm_duration_line != 0) {
             problems.add(input_message(
@@ -788,10 +804,25 @@ void check_rainfall_needs(const Project &p, const std::string &name, Problems &p
             "TR-55 sheet flow needs the 2-year 24-hour rainfall depth P2, none is given",
             "a \"2\" entry in depths_24h_mm or depths_24h_in, or annual_maximum_series"));
     }
-    if (nrcs_storm && !p.rainfall.storm_type) {
-        problems.add(input_message(name + ": [rainfall] storm_type",
-                                   "the SCS Curve Number methods need a storm type",
-                                   quoted_or_list(option_keys(hydro::storm_type_options))));
+    if (p.rainfall.storm_table && p.uses_method(PeakMethod::tr55_graphical)) {
+        problems.add(input_message(
+            fmt::format("{}:{}: [rainfall] storm_table", name, p.rainfall.storm_table->line),
+            "the TR-55 graphical method cannot use a project's own storm table: its unit peak "
+            "discharge table was derived for the NRCS 24-hour rainfall distributions (Type I, "
+            "IA, II, III) only (TR-55 1986, ch. 4)",
+            fmt::format("storm_type with \"{}\", or the peak methods \"{}\" and \"{}\" with "
+                        "storm_table",
+                        key_of(PeakMethod::tr55_graphical), key_of(PeakMethod::rational),
+                        key_of(PeakMethod::scs_unit_hydrograph))));
+    }
+    if (nrcs_storm && !p.rainfall.storm_type && !p.rainfall.storm_table) {
+        problems.add(input_message(
+            name + ": [rainfall] storm_type", "the SCS Curve Number methods need a storm type",
+            quoted_or_list(option_keys(hydro::storm_type_options)) +
+                (p.uses_method(PeakMethod::tr55_graphical)
+                     ? std::string()
+                     : ", or storm_table = \"<file>.csv\" (the project's own 24-hour "
+                       "distribution)")));
     }
     if (nrcs_storm && !p.rainfall.depth_24h_mm.empty()) {
         for (double rp : p.rainfall.return_periods_yr) {

@@ -23,7 +23,9 @@ constexpr std::size_t max_block_lines = 12;
 constexpr std::size_t few_block_lines = 6;
 
 std::string where_storm(const StormDistribution &d) {
-    return fmt::format("storm distribution '{}'", d.name);
+    return d.project_file.empty()
+               ? fmt::format("storm distribution '{}'", d.name)
+               : fmt::format("{}: storm distribution '{}'", d.project_file, d.name);
 }
 
 /// Number of whole steps in `total`; throws when `step` does not divide it.
@@ -123,6 +125,15 @@ constexpr Formula distribution_note{"storm.distribution",
                                     "linearly between the table's {points} points",
                                     Ref::none,
                                     table_source};
+constexpr Formula distribution_note_project{"storm.distribution_project",
+                                            "Design storm distribution",
+                                            "",
+                                            "{storm}, the project's table {file} ([rainfall] "
+                                            "storm_table), {D} {D:u}, cumulative fractions "
+                                            "interpolated linearly between the table's {points} "
+                                            "points",
+                                            Ref::none,
+                                            table_source};
 constexpr Formula not_checked{"storm.not_checked",
                               "Storm distribution not checked",
                               "",
@@ -224,8 +235,14 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
     const auto source = word("source", d.source);
     const auto status = word("status", d.status);
     const auto storm = word("storm", d.name);
-    lines.note(distribution_note, {storm, qty("D", d.duration_h(), Unit::h),
-                                   detail::count_qty("points", d.hours.size()), source, status});
+    std::vector<Quantity> about{storm, qty("D", d.duration_h(), Unit::h),
+                                detail::count_qty("points", d.hours.size()), source, status};
+    if (d.project_file.empty()) {
+        lines.note(distribution_note, std::move(about));
+    } else {
+        about.push_back(word("file", d.project_file));
+        lines.note(distribution_note_project, std::move(about));
+    }
     if (!is_checked(d)) {
         lines.warn(not_checked, {storm, source, status});
     }

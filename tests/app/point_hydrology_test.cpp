@@ -9,7 +9,9 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/report/sheet.hpp"
+#include "support/input_error.hpp"
 #include "support/test_env.hpp"
+#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
@@ -389,4 +391,100 @@ TEST(PointHydrology, UnitHydrographOfTheAlternatingBlockStorm) {
     // The Chow et al. reference is listed.
     EXPECT_TRUE(std::any_of(r.references.begin(), r.references.end(),
                             [](auto &ref) { return ref.key == "Chow, Maidment & Mays (1988)"; }));
+}
+
+namespace {
+
+/// The project of scs_project with the unit hydrograph alone and, in place of storm_type, the
+/// project's own 24-hour table storm.csv (invented): 30 % of the depth by 11 h, 80 % by 13 h.
+fs::path storm_table_project(const fs::path &dir, const std::string &table) {
+    const fs::path file = scs_project(dir);
+    catchpeak::test::replace_in_file(file, "storm_type = \"II\"", "storm_table = \"storm.csv\"");
+    catchpeak::test::replace_in_file(file, "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]",
+                                     "peak = [\"scs_unit_hydrograph\"]");
+    write(dir / "storm.csv", table);
+    return file;
+}
+
+const std::string regional_storm = "# name: Regional 24-hour storm\n"
+                                   "# source: invented for this test\n"
+                                   "# status: checked (invented)\n"
+                                   "hour,cumulative_fraction\n"
+                                   "0,0\n11,0.3\n13,0.8\n24,1\n";
+
+} // namespace
+
+TEST(PointHydrology, ProjectStormTableInPlaceOfTheNrcsOne) {
+    const auto dir = catchpeak::test::scratch_dir("point_storm_table");
+    const Project p = load_project(storm_table_project(dir, regional_storm));
+    ASSERT_TRUE(p.rainfall.storm_table.has_value());
+    EXPECT_FALSE(p.rainfall.storm_type.has_value());
+    std::ostringstream progress;
+    const auto r = compute_project(p, progress, true);
+    const auto &dp = point(r, "SP-1");
+    // The sheet names the table as given, with its own name and source.
+    const auto *note = dp.lines.find_last("storm.distribution_project");
+    ASSERT_NE(note, nullptr);
+    const auto text = catchpeak::test::text(*note);
+    EXPECT_NE(text.numbers.find("Regional 24-hour storm"), std::string::npos) << text.numbers;
+    EXPECT_NE(text.numbers.find("storm.csv"), std::string::npos) << text.numbers;
+    EXPECT_NE(text.numbers.find("[rainfall] storm_table"), std::string::npos) << text.numbers;
+    EXPECT_NE(text.source.find("invented for this test"), std::string::npos) << text.source;
+    EXPECT_EQ(dp.lines.find_last("storm.distribution"), nullptr);
+    // The hyetograph follows the table: the steepest interval is 11 to 13 h, 0.5 of the depth
+    // in 2 h, so a 6-min step there holds 127 mm x 0.5 x 0.1 / 2 = 3.175 mm (linear
+    // interpolation between the table's points; floating point only).
+    const auto *largest = dp.lines.find_last("storm.largest_step");
+    ASSERT_NE(largest, nullptr);
+    EXPECT_NEAR(largest->value(), 127.0 * 0.5 * 0.1 / 2.0, 1e-9);
+    // Not the TP-149 reference (the table is the project's), and the run record holds the file
+    // as given.
+    EXPECT_FALSE(std::any_of(r.references.begin(), r.references.end(),
+                             [](auto &ref) { return ref.key == "TP-149 (1973)"; }));
+    EXPECT_TRUE(std::any_of(r.stamp.inputs.begin(), r.stamp.inputs.end(), [](auto &in) {
+        return in.role == "design storm" && in.path == "storm.csv";
+    }));
+}
+
+TEST(PointHydrology, StormTableAndStormTypeTogetherAreRefused) {
+    const auto dir = catchpeak::test::scratch_dir("point_storm_table_both");
+    const fs::path file = storm_table_project(dir, regional_storm);
+    catchpeak::test::replace_in_file(file, "storm_table = ", "storm_type = \"II\"\nstorm_table = ");
+    const std::string msg = catchpeak::test::input_error_of([&] { (void)load_project(file); });
+    EXPECT_NE(msg.find("[rainfall] storm_table"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("storm_type"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("not both"), std::string::npos) << msg;
+}
+
+TEST(PointHydrology, StormTableWithTheTr55GraphicalMethodIsRefused) {
+    const auto dir = catchpeak::test::scratch_dir("point_storm_table_tr55");
+    const fs::path file = storm_table_project(dir, regional_storm);
+    catchpeak::test::replace_in_file(file, "peak = [\"scs_unit_hydrograph\"]",
+                                     "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]");
+    const std::string msg = catchpeak::test::input_error_of([&] { (void)load_project(file); });
+    EXPECT_NE(msg.find("[rainfall] storm_table"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("TR-55 graphical"), std::string::npos) << msg;
+}
+
+TEST(PointHydrology, BadStormTableNamesTheFileAndLine) {
+    // Line 7 of the file (three comment lines, the header, "0,0", "11,0.3", then "13,0.2")
+    // decreases.
+    const std::string decreasing = "# name: Bad storm\n# source: invented\n# status: checked\n"
+                                   "hour,cumulative_fraction\n0,0\n11,0.3\n13,0.2\n24,1\n";
+    const auto dir = catchpeak::test::scratch_dir("point_storm_table_bad");
+    const fs::path file = storm_table_project(dir, decreasing);
+    const auto check = catchpeak::test::cli({"check", file.string()});
+    EXPECT_EQ(check.code, static_cast<int>(catchpeak::ExitCode::bad_input));
+    EXPECT_NE(check.err.find("storm.csv:7"), std::string::npos) << check.err;
+    EXPECT_NE(check.err.find("[rainfall] storm_table"), std::string::npos) << check.err;
+    EXPECT_NE(check.err.find("never decrease"), std::string::npos) << check.err;
+    // A table that is not 24 hours long: the last row's line is named.
+    write(dir / "storm.csv", "# name: Short storm\n# source: invented\n# status: checked\n"
+                             "hour,cumulative_fraction\n0,0\n6,0.5\n12,1\n");
+    const std::string msg = catchpeak::test::input_error_of([&] {
+        std::ostringstream progress;
+        (void)compute_project(load_project(file), progress, true);
+    });
+    EXPECT_NE(msg.find("storm.csv:7"), std::string::npos) << msg;
+    EXPECT_NE(msg.find("ends at 12 h"), std::string::npos) << msg;
 }

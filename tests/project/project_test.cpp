@@ -160,3 +160,33 @@ return_periods_yr = [10]
     EXPECT_NE(all(table).find("dir/p.toml:6: [inputs] design_points_crs"), std::string::npos)
         << all(table);
 }
+
+TEST(Project, StormTableIsAPathAndOnlyWithThe24HourStorm) {
+    const std::string head = "[project]\nname = \"x\"\n\n[inputs]\ncatchment_table = \"c.csv\"\n\n"
+                             "[rainfall]\nidf = \"idf.csv\"\nreturn_periods_yr = [10]\n"
+                             "depths_24h_mm = { \"10\" = 100.0 }\n";
+    const std::string uh = "\n[methods]\npeak = [\"scs_unit_hydrograph\"]\n";
+    Problems ok;
+    const Project p = parse(head + "storm_table = \"storms/regional.csv\"\n" + uh, ok);
+    EXPECT_TRUE(ok.empty()) << all(ok); // no storm_type needed
+    ASSERT_TRUE(p.rainfall.storm_table.has_value());
+    EXPECT_EQ(p.rainfall.storm_table->given, "storms/regional.csv");
+    EXPECT_EQ(p.rainfall.storm_table->resolved, std::filesystem::path("dir/storms/regional.csv"));
+    EXPECT_EQ(p.rainfall.storm_table->line, 11u);
+
+    Problems block;
+    (void)parse(head +
+                    "storm_table = \"regional.csv\"\ndesign_storm = \"alternating_block\"\n"
+                    "storm_duration_min = 60\n" +
+                    uh,
+                block);
+    ASSERT_EQ(block.size(), 1u) << all(block);
+    EXPECT_NE(all(block).find("dir/p.toml:11: [rainfall] storm_table"), std::string::npos)
+        << all(block);
+    EXPECT_NE(all(block).find("alternating block"), std::string::npos) << all(block);
+
+    Problems none; // the unit hydrograph needs a storm type or a storm table
+    (void)parse(head + uh, none);
+    ASSERT_EQ(none.size(), 1u) << all(none);
+    EXPECT_NE(all(none).find("storm_table"), std::string::npos) << all(none);
+}

@@ -82,7 +82,7 @@ struct HydrologyTables {
     const hydro::PeakCoefficientTable *peak_coefficients = nullptr;      ///< TR-55 graphical
     const hydro::PondFactorTable *pond_factors = nullptr;                ///< TR-55 graphical
     const hydro::DimensionlessUnitHydrograph *unit_hydrograph = nullptr; ///< SCS UH
-    const rain::StormDistribution *storm = nullptr; ///< the project's NRCS 24-hour storm
+    const rain::StormDistribution *storm = nullptr; ///< the 24-hour storm (NRCS or the project's)
     const AnnualMaximumSeries *ams = nullptr;       ///< [rainfall] annual_maximum_series
 };
 
@@ -103,6 +103,11 @@ struct LoadedTables {
 };
 [[nodiscard]] LoadedTables load_hydrology_tables(const project::Project &project,
                                                  const std::filesystem::path &config);
+
+/// The project's own 24-hour storm distribution ([rainfall] storm_table), named by its path as
+/// given; throws InputError naming the file and line of a bad table or of one that does not end
+/// at 24 h.
+[[nodiscard]] rain::StormDistribution read_project_storm_table(const project::InputPath &file);
 
 /// Adds a problem when the project's alternating-block storm needs durations the IDF does not
 /// cover: blocks from storm_time_step_min to storm_duration_min (a table's durations, or a

@@ -26,7 +26,13 @@ namespace catchpeak::io {
 
 [[nodiscard]] rain::StormDistribution storm_from_csv(const CsvTable &table);
 
+/// The same, and the table must end at `duration_h` (a 24-hour storm scaled by the 24-hour
+/// depth): otherwise an InputError naming the last row's line.
+[[nodiscard]] rain::StormDistribution storm_from_csv(const CsvTable &table, double duration_h);
+
 [[nodiscard]] rain::StormDistribution read_storm_table(const std::filesystem::path &path);
+[[nodiscard]] rain::StormDistribution read_storm_table(const std::filesystem::path &path,
+                                                       double duration_h);
 
 /// The file of an NRCS 24-hour distribution in the config folder:
 /// config/storms/nrcs_type_<type>.csv, the type's text in lower case ("i", "ia", "ii", "iii").

@@ -15,7 +15,7 @@ namespace catchpeak::project {
 
 /// [rainfall] design_storm: the storm of the SCS unit hydrograph.
 enum class DesignStorm {
-    nrcs_24h,          ///< the NRCS 24-hour distribution of storm_type with the 24-hour depth
+    nrcs_24h, ///< a 24-hour distribution (storm_type's, or storm_table) with the 24-hour depth
     alternating_block, ///< from the IDF, lasting storm_duration_min
 };
 

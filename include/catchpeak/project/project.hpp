@@ -63,6 +63,9 @@ struct Rainfall {
     std::optional<InputPath> idf;
     std::vector<double> return_periods_yr;
     std::optional<hydro::StormType> storm_type; ///< unset when not given
+    /// The project's own 24-hour storm distribution (CSV, io/storm_table.hpp) in place of the
+    /// shipped NRCS one of storm_type; never both.
+    std::optional<InputPath> storm_table;
     /// 24-hour design depth per return period, mm (given in mm or in inches in the file).
     std::map<double, double> depth_24h_mm;
     std::string depth_24h_key;      ///< "depths_24h_mm" or "depths_24h_in" as written; "" if none

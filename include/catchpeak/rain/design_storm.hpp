@@ -19,6 +19,9 @@ struct StormDistribution {
     std::vector<double> cumulative_fraction; ///< from 0 to 1, never decreasing
     std::string source;                      ///< where the table comes from
     std::string status;                      ///< how sure we are: "checked (primary)", "memory" ...
+    /// The project's own table as written in the project file ([rainfall] storm_table), named
+    /// on the sheet beside the distribution; empty for a table shipped in config/storms/.
+    std::string project_file;
 
     [[nodiscard]] double duration_h() const { return hours.empty() ? 0.0 : hours.back(); }
 };
