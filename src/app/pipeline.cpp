@@ -165,6 +165,9 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         }
     }
 
+    if (auto note = storm_averaging_caution(tables.view(), r.points)) {
+        r.caution_notes.push_back(std::move(*note));
+    }
     design_culverts(p, r);
 
     // The stamp: what was run, on what. Paths as written in the project file.

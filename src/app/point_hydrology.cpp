@@ -247,6 +247,19 @@ constexpr Formula ponds_none{"point.ponds_none",
                              "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
                              Ref::project_input,
                              " ([settings] pond_swamp_percent not given)"};
+/// The short line of a unit-hydrograph peak whose storm's most intense rain the table spreads
+/// over more than one of the unit hydrograph's steps; the caution note of the run says why.
+constexpr std::string_view peak_averaged_key = "point.peak_averaged";
+constexpr std::string_view averaging_caution_title = "Storm table averaging";
+constexpr Formula peak_averaged{
+    peak_averaged_key,
+    "Peak averaged over a table interval",
+    "",
+    "{T}-year peak: the storm's most intense rain, {h0} to {h1} {h1:u} of the table ({gap} "
+    "{gap:u}), is spread evenly over more than one unit hydrograph step D = {D} {D:u}, so the "
+    "peak may be too low; see the caution '{title}' on the cover",
+    Ref::none,
+    "linear interpolation of the storm table (property of the method)"};
 constexpr Formula storm_shorter_than_tc{
     "point.storm_shorter_than_tc",
     "Storm shorter than the time of concentration",
@@ -865,6 +878,15 @@ report::Hydrograph hydrograph_plot(const hydro::Hydrograph &hg, const rain::Hyet
     return plot;
 }
 
+/// True when the table interval lies inside one step of the unit hydrograph (steps of `d_s`
+/// from the start of the storm): the unit hydrograph takes the interval's rain as one block
+/// anyway, and spreading it inside the interval changes nothing.
+bool within_one_step(const rain::TableInterval &interval, double d_s) {
+    const double first = interval.start_h * units::s_per_h / d_s;
+    const double last = interval.end_h * units::s_per_h / d_s;
+    return std::floor(first + 1e-9) == std::floor(last - 1e-9);
+}
+
 std::optional<PeakOut> unit_hydrograph_peak(const PeakContext &c, const ScsRain *r, double rp,
                                             CalcLines &lines) {
     const auto &t = c.tables;
@@ -881,15 +903,23 @@ std::optional<PeakOut> unit_hydrograph_peak(const PeakContext &c, const ScsRain 
     auto h = hydro::unit_hydrograph_from_rainfall(*t.unit_hydrograph, rain.value, cn, c.in.area_m2,
                                                   c.tc_min, p.info.units, {}, c.ratio);
     const double tp_min = h.value.tp_h * 60.0;
-    // Where the storm table itself is coarser than the step around the peak, its own warning
-    // says so, and a shorter step would not help.
-    const bool table_coarser =
-        std::any_of(rain.lines.lines().begin(), rain.lines.lines().end(), [](const CalcLine &l) {
-            return l.kind == LineKind::warning && l.flags.averaged;
-        });
-    if (step_min > 0.2 * tp_min && !table_coarser) {
+    // Where the storm table is coarser than the step around the peak, a shorter step would not
+    // help: the averaging line below applies instead of the step's.
+    const auto interval =
+        r->block_storm ? std::nullopt : rain::peak_table_interval(*t.storm, rain.value);
+    if (step_min > 0.2 * tp_min && !interval) {
         h.lines.warn(storm_step_long, {minutes("dt", step_min), minutes("tp", tp_min),
                                        minutes("tp02", 0.2 * tp_min)});
+    }
+    if (interval && !within_one_step(*interval, h.value.step_s)) {
+        h.lines
+            .warn(peak_averaged,
+                  {qty("T", rp, Unit::yr, Shown::exact()), qty("h0", interval->start_h, Unit::h),
+                   qty("h1", interval->end_h, Unit::h),
+                   minutes("gap", units::h_to_min(interval->end_h - interval->start_h)),
+                   minutes("D", h.value.step_s / 60.0),
+                   word("title", std::string(averaging_caution_title))})
+            .flags.averaged = true;
     }
     PeakOut out;
     out.q_line = calculation_index(lines, h.lines, hydro::keys::uh_peak);
@@ -1117,6 +1147,51 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     const auto &chosen =
         (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
     assemble_peaks(point_peaks(c, chosen, dp.id, lines, ams_shown), dp);
+}
+
+std::optional<std::string>
+storm_averaging_caution(const HydrologyTables &tables,
+                        const std::vector<report::DesignPointResult> &points) {
+    const CalcLine *first = nullptr;
+    std::size_t peaks = 0;
+    std::size_t affected_points = 0;
+    for (const auto &dp : points) {
+        const auto n = static_cast<std::size_t>(
+            std::count_if(dp.lines.lines().begin(), dp.lines.lines().end(),
+                          [](const CalcLine &l) { return l.key == peak_averaged_key; }));
+        if (n > 0 && first == nullptr) {
+            first = dp.lines.find_last(peak_averaged_key);
+        }
+        peaks += n;
+        affected_points += n > 0 ? 1 : 0;
+    }
+    if (first == nullptr || tables.storm == nullptr) {
+        return std::nullopt;
+    }
+    auto value_of = [&](std::string_view symbol) {
+        for (const auto &q : first->inputs) {
+            if (q.symbol == symbol) {
+                return q.value;
+            }
+        }
+        return std::nan("");
+    };
+    const rain::StormDistribution &d = *tables.storm;
+    return fmt::format(
+        "{}: {} unit-hydrograph peak{} at {} design point{} carry the warning 'Peak averaged over "
+        "a table interval'. The storm table '{}' ({}) gives the cumulative rainfall at {} h and "
+        "{} h around the storm's most intense part and no point between: between its points the "
+        "rain is interpolated linearly, that is spread evenly, so the most intense {} min of the "
+        "storm fall at their average intensity. The unit hydrograph of these catchments computes "
+        "in steps D shorter than that (D about 0.133 tc) and would answer a sharper burst, so "
+        "their peaks are lower than a table with more points near the peak would give. A shorter "
+        "or longer storm_time_step_min does not change this; a storm table with more points "
+        "near its peak ([rainfall] storm_table) does. Peaks of catchments whose unit hydrograph "
+        "takes the interval as one step are not affected and carry no such warning.",
+        averaging_caution_title, peaks, peaks == 1 ? "" : "s", affected_points,
+        affected_points == 1 ? "" : "s", d.project_file.empty() ? d.name : d.project_file, d.source,
+        sig(value_of("h0")), sig(value_of("h1")),
+        sig(units::h_to_min(value_of("h1") - value_of("h0"))));
 }
 
 void check_storm_idf(const Project &p, const rain::Idf &idf, Problems &problems) {

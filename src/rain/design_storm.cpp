@@ -158,18 +158,6 @@ constexpr Formula storm_peak{"storm.peak_intensity",
                              "i = {dP} / ({dt} / 60)",
                              Ref::none,
                              table_source};
-constexpr Formula peak_averaged{"storm.peak_averaged",
-                                "Peak averaged over a table interval",
-                                "",
-                                "the largest step lies between the table's points at {h0} "
-                                "{h0:u} and {h1} {h1:u} ({gap} {gap:u} apart, {dt} {dt:u} "
-                                "steps): the rain of that interval is spread evenly over its "
-                                "steps, so the peak intensity is the interval's average; a "
-                                "table with more points near the peak would give a higher peak",
-                                Ref::none,
-                                "linear interpolation of the storm table (property of the "
-                                "method)"};
-
 /// The largest step of a storm: its index and the cumulative fractions at its ends.
 struct LargestStep {
     std::size_t index = 0;
@@ -177,45 +165,28 @@ struct LargestStep {
     double f1 = 0.0;
 };
 
-LargestStep fill_steps(const StormDistribution &d, double depth_mm, double step_min,
-                       std::vector<double> &depth) {
-    const std::size_t n = depth.size();
-    double prev_f = 0.0;
-    LargestStep peak;
-    for (std::size_t k = 0; k < n; ++k) {
-        const double t1_h = units::min_to_h(static_cast<double>(k + 1) * step_min);
-        const double f1 = k + 1 == n ? 1.0 : cumulative_fraction_at(d, t1_h);
-        depth[k] = depth_mm * (f1 - prev_f);
-        // The first of equal steps (within round-off) is reported as the largest.
-        if (k == 0 || depth[k] > depth[peak.index] * (1.0 + 1e-9)) {
-            peak = {k, prev_f, f1};
+/// Index of the largest step; the first of equal steps (within round-off).
+std::size_t largest_step_index(const std::vector<double> &depth) {
+    std::size_t peak = 0;
+    for (std::size_t k = 1; k < depth.size(); ++k) {
+        if (depth[k] > depth[peak] * (1.0 + 1e-9)) {
+            peak = k;
         }
-        prev_f = f1;
     }
     return peak;
 }
 
-/// Linear interpolation spreads the rain of one table interval evenly over the steps inside
-/// it: when the largest step lies inside an interval longer than a step, the peak intensity
-/// is that interval's average, lower than a finer table would give. Warns when it does.
-void warn_when_averaged(const StormDistribution &d, double peak_start_h, double peak_end_h,
-                        double step_min, CalcLines &lines) {
-    const auto hi = static_cast<std::size_t>(
-        std::upper_bound(d.hours.begin(), d.hours.end(), peak_start_h * (1.0 + 1e-12)) -
-        d.hours.begin());
-    if (hi == 0 || hi >= d.hours.size()) {
-        return;
+LargestStep fill_steps(const StormDistribution &d, double depth_mm, double step_min,
+                       std::vector<double> &depth) {
+    const std::size_t n = depth.size();
+    std::vector<double> f(n + 1, 0.0); // cumulative fraction at the end of each step
+    for (std::size_t k = 0; k < n; ++k) {
+        const double t1_h = units::min_to_h(static_cast<double>(k + 1) * step_min);
+        f[k + 1] = k + 1 == n ? 1.0 : cumulative_fraction_at(d, t1_h);
+        depth[k] = depth_mm * (f[k + 1] - f[k]);
     }
-    const double h0 = d.hours[hi - 1];
-    const double h1 = d.hours[hi];
-    const double interval_min = units::h_to_min(h1 - h0);
-    if (peak_end_h <= h1 * (1.0 + 1e-12) && interval_min > step_min * (1.0 + 1e-9)) {
-        lines
-            .warn(peak_averaged,
-                  {qty("h0", h0, Unit::h), qty("h1", h1, Unit::h),
-                   qty("gap", interval_min, Unit::min), qty("dt", step_min, Unit::min)})
-            .flags.averaged = true;
-    }
+    const std::size_t peak = largest_step_index(depth);
+    return {peak, f[peak], f[peak + 1]};
 }
 
 } // namespace
@@ -263,8 +234,27 @@ WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_
                dp);
     lines.calc(storm_peak, {dp, dt, source, status},
                detail::intensity_qty("i", peak_mm / units::min_to_h(step_min), sheet_units));
-    warn_when_averaged(d, peak_start_h, peak_end_h, step_min, lines);
     return out;
+}
+
+std::optional<TableInterval> peak_table_interval(const StormDistribution &d, const Hyetograph &h) {
+    if (h.depth_mm.empty() || !(h.step_s > 0.0)) {
+        return std::nullopt;
+    }
+    const std::size_t peak = largest_step_index(h.depth_mm);
+    const double step_h = h.step_s / units::s_per_h;
+    const double start_h = static_cast<double>(peak) * step_h;
+    const double end_h = start_h + step_h;
+    const auto hi = static_cast<std::size_t>(
+        std::upper_bound(d.hours.begin(), d.hours.end(), start_h * (1.0 + 1e-12)) -
+        d.hours.begin());
+    if (hi == 0 || hi >= d.hours.size()) {
+        return std::nullopt;
+    }
+    const TableInterval interval{d.hours[hi - 1], d.hours[hi]};
+    const bool inside = end_h <= interval.end_h * (1.0 + 1e-12);
+    const bool longer = interval.end_h - interval.start_h > step_h * (1.0 + 1e-9);
+    return inside && longer ? std::optional(interval) : std::nullopt;
 }
 
 namespace {

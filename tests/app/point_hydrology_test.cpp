@@ -222,7 +222,12 @@ TEST(PointHydrology, ReferencesAndCautionNotes) {
     }
     // Kirpich is not used by this project.
     EXPECT_EQ(std::count(keys.begin(), keys.end(), "Kirpich (1940)"), 0);
-    EXPECT_EQ(r.caution_notes, catchpeak::report::default_caution_notes());
+    // The default notes, and one more: SP-1's unit-hydrograph peak is averaged over the storm
+    // table's 11.5-12 h interval (StormTableAveraging below).
+    const auto &defaults = catchpeak::report::default_caution_notes();
+    ASSERT_EQ(r.caution_notes.size(), defaults.size() + 1);
+    EXPECT_TRUE(std::equal(defaults.begin(), defaults.end(), r.caution_notes.begin()));
+    EXPECT_EQ(r.caution_notes.back().rfind("Storm table averaging: ", 0), 0u);
 }
 
 TEST(PointHydrology, CompositeRunoffOfLandParts) {
@@ -487,4 +492,59 @@ TEST(PointHydrology, BadStormTableNamesTheFileAndLine) {
     });
     EXPECT_NE(msg.find("storm.csv:7"), std::string::npos) << msg;
     EXPECT_NE(msg.find("ends at 12 h"), std::string::npos) << msg;
+}
+
+TEST(PointHydrology, StormTableAveragingOnlyWhereItMattersAndExplainedOnce) {
+    // TP-149 Table 1 (config/storms/nrcs_type_ii.csv) has points at 11.5 h and 12 h and none
+    // between: linear interpolation spreads the storm's most intense half hour evenly.
+    //   SP-1, tc 30 min: D = 6 min / 2 = 3 min (D <= 0.133 tc = 3.99 min, NEH 630 ch. 16 as
+    //     coded): the interval spans ten unit-hydrograph steps, and its peak is averaged.
+    //   SP-4, tc 240 min: D = 5 x 6 = 30 min (0.133 tc = 31.9 min): 11.5-12 h is exactly its
+    //     24th step, taken as one block whatever the rain does inside it; no averaging.
+    // Before, every unit-hydrograph peak carried the warning whenever the 6-min storm step was
+    // finer than the table, SP-4's too.
+    const auto dir = catchpeak::test::scratch_dir("point_storm_averaging");
+    const fs::path file = scs_project(dir);
+    catchpeak::test::replace_in_file(file, "return_periods_yr = [25]",
+                                     "return_periods_yr = [10, 25]");
+    catchpeak::test::replace_in_file(file, "depths_24h_mm = { \"25\" = 127.0 }",
+                                     "depths_24h_mm = { \"10\" = 110.0, \"25\" = 127.0 }");
+    catchpeak::test::replace_in_file(file, "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]",
+                                     "peak = [\"scs_unit_hydrograph\"]");
+    write(dir / "catchments.csv", "id,area_ac,length_m,slope_percent,cn,tc_min\n"
+                                  "SP-1,640,3000,2,80,30\n"
+                                  "SP-4,6400,30000,1,80,240\n");
+    std::ostringstream progress;
+    const auto r = compute_project(load_project(file), progress, true);
+    auto averaged = [](const catchpeak::report::DesignPointResult &dp) {
+        std::vector<const catchpeak::CalcLine *> found;
+        for (const auto &l : dp.lines.lines()) {
+            if (l.kind == catchpeak::LineKind::warning && l.flags.averaged) {
+                found.push_back(&l);
+            }
+        }
+        return found;
+    };
+    const auto sp1 = averaged(point(r, "SP-1"));
+    ASSERT_EQ(sp1.size(), 2u); // one short line for each peak, 10- and 25-year
+    for (const auto *l : sp1) {
+        const auto t = catchpeak::test::text(*l);
+        EXPECT_EQ(t.label, "Peak averaged over a table interval");
+        EXPECT_NE(t.numbers.find("11.50 to 12.00 h"), std::string::npos) << t.numbers;
+        EXPECT_NE(t.numbers.find("Storm table averaging"), std::string::npos) << t.numbers;
+    }
+    EXPECT_NE(catchpeak::test::text(*sp1[0]).numbers.find("10-year"), std::string::npos);
+    EXPECT_NE(catchpeak::test::text(*sp1[1]).numbers.find("25-year"), std::string::npos);
+    EXPECT_DOUBLE_EQ(peak(point(r, "SP-4"), "scs_unit_hydrograph").intermediates.at("step_min"),
+                     30.0);
+    EXPECT_TRUE(averaged(point(r, "SP-4")).empty());
+    // Why, once for the run: one caution note naming the table and the interval.
+    const auto notes = std::count_if(r.caution_notes.begin(), r.caution_notes.end(), [](auto &n) {
+        return n.rfind("Storm table averaging: ", 0) == 0;
+    });
+    ASSERT_EQ(notes, 1);
+    const std::string &note = r.caution_notes.back();
+    EXPECT_NE(note.find("2 unit-hydrograph peaks at 1 design point"), std::string::npos) << note;
+    EXPECT_NE(note.find("NRCS 24-hour Type II"), std::string::npos) << note;
+    EXPECT_NE(note.find("11.50 h and 12.00 h"), std::string::npos) << note;
 }

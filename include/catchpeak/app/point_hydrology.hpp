@@ -116,6 +116,13 @@ struct LoadedTables {
 void check_storm_idf(const project::Project &project, const rain::Idf &idf,
                      project::Problems &problems);
 
+/// The caution note of a run (printed once, on the cover) when unit-hydrograph peaks carry the
+/// line "Peak averaged over a table interval": why the storm table averages their peak, which
+/// each such line refers to by the note's title. Empty when no peak carries it.
+[[nodiscard]] std::optional<std::string>
+storm_averaging_caution(const HydrologyTables &tables,
+                        const std::vector<report::DesignPointResult> &points);
+
 /// Adds the published sources the design point's methods used to `refs`, each once (by key).
 void add_method_references(const project::Project &project, const report::DesignPointResult &dp,
                            std::vector<report::Reference> &refs);

@@ -6,6 +6,7 @@
 #include "catchpeak/rain/hyetograph.hpp"
 #include "catchpeak/rain/idf.hpp"
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -43,10 +44,25 @@ void validate(const StormDistribution &d);
 /// LINEARLY between the table's points (a smoother curve would invent values the table does not
 /// give). The step must divide the storm duration into a whole number of steps. The lines show
 /// the distribution and its status, P, the step, and the largest step with its two cumulative
-/// fractions. Throws InputError for a non-positive depth or step, or a step that does not
-/// divide the duration.
+/// fractions (peak_table_interval() tells whether that step is an interval's average). Throws
+/// InputError for a non-positive depth or step, or a step that does not divide the duration.
 [[nodiscard]] WithLines<Hyetograph> storm_hyetograph(const StormDistribution &d, double depth_mm,
                                                      double step_min, units::System sheet_units);
+
+/// An interval between two consecutive points of a storm table, h.
+struct TableInterval {
+    double start_h = 0.0;
+    double end_h = 0.0;
+};
+
+/// The interval of the table `d` that holds the largest step of `h` (a storm_hyetograph of `d`)
+/// when the interval is longer than the step. Linear interpolation spreads the rain of an
+/// interval evenly over its steps, so there the storm's peak intensity is the interval's
+/// average, whatever the step: a table with more points near the peak would give a higher one.
+/// Empty when the largest step spans a point of the table or the interval is no longer than a
+/// step.
+[[nodiscard]] std::optional<TableInterval> peak_table_interval(const StormDistribution &d,
+                                                               const Hyetograph &h);
 
 /// Alternating-block hyetograph (Chow, Maidment & Mays 1988, Applied Hydrology, sec. 14.4):
 /// block depths D_k = i(k dt) k dt for k = 1..n, increments D_k - D_(k-1) sorted in descending
