@@ -247,6 +247,16 @@ constexpr Formula ponds_none{"point.ponds_none",
                              "no share of ponds and swamps is given in the project: 0 %, Fp = 1",
                              Ref::project_input,
                              " ([settings] pond_swamp_percent not given)"};
+constexpr Formula cn_weighting_runoff{
+    "point.cn_weighting_runoff",
+    "Curve number weighting: runoff of the land parts",
+    "",
+    "the runoff depth Q of every return period is the area-weighted runoff of the {n} land "
+    "parts, each from its own CN, not the runoff of the composite CN {CN}{methods}",
+    Ref::project_input,
+    " ({file}, [methods] cn_weighting = \"runoff\"; TR-55 (1986) ch. 2 and NRCS NEH 630 ch. 10 "
+    "discuss weighting the runoff of the parts, from memory, not checked)"};
+
 /// The short line of a unit-hydrograph peak whose storm's most intense rain the table spreads
 /// over more than one of the unit hydrograph's steps; the caution note of the run says why.
 constexpr std::string_view peak_averaged_key = "point.peak_averaged";
@@ -735,7 +745,23 @@ struct PeakContext {
     hydro::IaRatio ratio = hydro::IaRatio::r020;
     hydro::RationalSettings rational;
     double pond_percent = 0.0; ///< set by the TR-55 graphical method's preparation
+    /// [methods] cn_weighting = "runoff" and the catchment has land parts: the SCS runoff is the
+    /// area-weighted runoff of the parts (set by point_peaks).
+    bool weighted_runoff = false;
+    /// With weighted_runoff: the composite CN's S and Ia are shown, for the TR-55 graphical
+    /// method's Ia/P.
+    bool composite_ia_shown = false;
 };
+
+/// The land parts of a catchment with their curve numbers, for the weighted runoff.
+std::vector<hydro::CnPart> cn_parts(const PointInputs &in) {
+    std::vector<hydro::CnPart> parts;
+    parts.reserve(in.land_parts.size());
+    for (const auto &lp : in.land_parts) {
+        parts.push_back({lp.area_m2, lp.cn, lp.name});
+    }
+    return parts;
+}
 
 /// The design storm of one return period and its SCS runoff, shared by the Curve Number methods:
 /// the alternating block from the IDF (then only the unit hydrograph uses it: the project
@@ -772,15 +798,23 @@ ScsRain scs_rain(const PeakContext &c, double rp, CalcLines &lines, CalcLines &s
     } else {
         r.p_mm = design_depth_24h_mm(p, c.tables, rp, lines, shown);
     }
+    if (c.weighted_runoff) {
+        // Ia of the catchment from its composite CN; Q from the parts (the note of point_peaks).
+        auto ia = hydro::cn_initial_abstraction(r.p_mm, *c.in.cn, p.info.units, c.ratio);
+        if (c.composite_ia_shown) {
+            lines.append(ia.lines);
+        }
+        r.runoff = ia.value;
+        auto q = hydro::weighted_runoff(cn_parts(c.in), r.p_mm, p.info.units, c.ratio);
+        lines.append(q.lines);
+        r.runoff.runoff_mm = q.value;
+        return r;
+    }
     auto runoff = hydro::cn_runoff(r.p_mm, *c.in.cn, p.info.units, c.ratio);
     lines.append(runoff.lines);
     r.runoff = runoff.value;
     if (!c.in.land_parts.empty()) {
-        std::vector<hydro::CnPart> parts;
-        for (const auto &lp : c.in.land_parts) {
-            parts.push_back({lp.area_m2, lp.cn});
-        }
-        auto comp = hydro::composite_runoff(parts, r.p_mm, p.info.units, c.ratio);
+        auto comp = hydro::composite_runoff(cn_parts(c.in), r.p_mm, p.info.units, c.ratio);
         lines.append(comp.lines);
     }
     return r;
@@ -868,13 +902,13 @@ std::optional<PeakOut> tr55_graphical_peak(const PeakContext &c, const ScsRain *
 
 /// The hydrograph's figures for the report: flow, and rainfall and excess re-binned to its step.
 report::Hydrograph hydrograph_plot(const hydro::Hydrograph &hg, const rain::Hyetograph &rain,
-                                   double cn, hydro::IaRatio ratio) {
+                                   const rain::Hyetograph &excess) {
     report::Hydrograph plot;
     plot.step_s = hg.step_s;
     plot.q_m3_s = hg.flow_m3_s;
     const std::size_t n = hg.flow_m3_s.size();
     plot.rain_mm = rebin(rain, hg.step_s, n);
-    plot.excess_mm = rebin(hydro::excess_hyetograph(rain, cn, ratio), hg.step_s, n);
+    plot.excess_mm = rebin(excess, hg.step_s, n);
     return plot;
 }
 
@@ -900,8 +934,12 @@ std::optional<PeakOut> unit_hydrograph_peak(const PeakContext &c, const ScsRain 
     auto rain = r->block_storm ? WithLines<rain::Hyetograph>{*r->block_storm, {}}
                                : rain::storm_hyetograph(*t.storm, r->p_mm, step_min, p.info.units);
     lines.append(rain.lines);
-    auto h = hydro::unit_hydrograph_from_rainfall(*t.unit_hydrograph, rain.value, cn, c.in.area_m2,
-                                                  c.tc_min, p.info.units, {}, c.ratio);
+    auto h =
+        c.weighted_runoff
+            ? hydro::unit_hydrograph_from_parts(*t.unit_hydrograph, rain.value, cn_parts(c.in),
+                                                c.in.area_m2, c.tc_min, p.info.units, {}, c.ratio)
+            : hydro::unit_hydrograph_from_rainfall(*t.unit_hydrograph, rain.value, cn, c.in.area_m2,
+                                                   c.tc_min, p.info.units, {}, c.ratio);
     const double tp_min = h.value.tp_h * 60.0;
     // Where the storm table is coarser than the step around the peak, a shorter step would not
     // help: the averaging line below applies instead of the step's.
@@ -936,7 +974,10 @@ std::optional<PeakOut> unit_hydrograph_peak(const PeakContext &c, const ScsRain 
                               {"step_min", hg.step_s / 60.0},
                               {"volume_m3", hg.volume_m3},
                               {"tc_min", c.tc_min}};
-    out.peak.hydrograph = hydrograph_plot(hg, rain.value, cn, c.ratio);
+    out.peak.hydrograph = hydrograph_plot(
+        hg, rain.value,
+        c.weighted_runoff ? hydro::weighted_excess_hyetograph(rain.value, cn_parts(c.in), c.ratio)
+                          : hydro::excess_hyetograph(rain.value, cn, c.ratio));
     return out;
 }
 
@@ -1053,6 +1094,34 @@ double point_tc_min(const TcContext &c, TcMethod method, const std::string &id, 
     return m.value;
 }
 
+/// With [methods] cn_weighting = "runoff" and land parts: sets the context's choice and states
+/// it once, before the return periods, with what each chosen SCS method takes from it.
+void state_cn_weighting(PeakContext &c, const std::vector<const PeakRegistration *> &used,
+                        CalcLines &lines) {
+    const bool scs = std::any_of(used.begin(), used.end(), [](auto *r) { return r->needs.cn; });
+    c.weighted_runoff =
+        scs && c.p.methods.cn_weighting == project::CnWeighting::runoff && !c.in.land_parts.empty();
+    if (!c.weighted_runoff) {
+        return;
+    }
+    auto uses = [&](PeakMethod m) {
+        return std::any_of(used.begin(), used.end(), [&](auto *r) { return r->method == m; });
+    };
+    c.composite_ia_shown = uses(PeakMethod::tr55_graphical);
+    std::string methods;
+    if (c.composite_ia_shown) {
+        methods += "; the TR-55 graphical method takes Ia, for its ratio Ia/P, from the composite "
+                   "CN (its unit peak table is entered with the catchment's Ia) and this Q";
+    }
+    if (uses(PeakMethod::scs_unit_hydrograph)) {
+        methods += "; the unit hydrograph convolves the area-weighted incremental excess of the "
+                   "parts, whose sum is this Q";
+    }
+    lines.note(cn_weighting_runoff,
+               {qty("n", static_cast<double>(c.in.land_parts.size()), Unit::none, Shown::integer()),
+                qty("CN", *c.in.cn), word("methods", methods), file_word(c.p)});
+}
+
 /// The peaks of every return period by the point's peak methods, in the order of the return
 /// periods and, within one, of PeakMethod. Appends the lines; `shown` holds the
 /// frequency-analysis lines already on the sheet.
@@ -1074,6 +1143,7 @@ std::vector<PeakOut> point_peaks(PeakContext &c, const std::vector<PeakMethod> &
             r->prepare(c, lines);
         }
     }
+    state_cn_weighting(c, used, lines);
     std::vector<PeakOut> out;
     for (double rp : c.p.rainfall.return_periods_yr) {
         std::optional<ScsRain> rain;
@@ -1144,6 +1214,9 @@ void compute_point_hydrology(const Project &p, const PointInputs &in, const Hydr
     hydro::RationalSettings rational;
     rational.max_area_m2 = units::ha_to_m2(p.settings.rational_area_limit_ha);
     PeakContext c{p, in, o, tables, tc, ia_ratio(p), rational, 0.0};
+    if (!in.land_parts.empty()) {
+        dp.land.cn_weighting = option_key(project::cn_weighting_options, p.methods.cn_weighting);
+    }
     const auto &chosen =
         (o != nullptr && o->peak_methods) ? *o->peak_methods : p.methods.peak_methods;
     assemble_peaks(point_peaks(c, chosen, dp.id, lines, ams_shown), dp);

@@ -54,8 +54,10 @@ constexpr Formula composite_differs{"cn.composite_differs",
     "Composite CN and weighted runoff differ", "",
     "runoff of the composite CN differs from the area-weighted runoff of the parts by {d} % "
     "(more than {max} %); the composite CN misrepresents parts with very different CN, prefer "
-    "the weighted runoff",
+    "the weighted runoff ([methods] cn_weighting = \"runoff\")",
     Ref::project_setting, " (common practice, no source)"};
+constexpr Formula part_note{"cn.part", "Land part {k} of {n}", "",
+    "{part}: CN = {CN}, A = {A} {A:u}", Ref::none, "the land parts of the catchment above"};
 constexpr Formula amc_i{"cn.amc_i", "Curve number, dry antecedent moisture (AMC I)",
     "CN(I) = 4.2 CN / (10 - 0.058 CN)", "CN(I) = 4.2 x {CN} / (10 - 0.058 x {CN})", Ref::none,
     "Chow, Maidment and Mays (1988) eq. 5.5.4 (from memory, not checked)"};
@@ -101,9 +103,10 @@ CnEvaluation evaluate_cn(double rainfall_mm, double cn, System system, IaRatio r
     return e;
 }
 
-/// The lines of an evaluation, in the order of the computation.
-void add_cn_lines(CalcLines &lines, const CnEvaluation &e, double cn, System system,
-                  IaRatio ratio) {
+/// The lines of an evaluation, in the order of the computation; without the runoff line when
+/// `with_runoff` is false.
+void add_cn_lines(CalcLines &lines, const CnEvaluation &e, double cn, System system, IaRatio ratio,
+                  bool with_runoff = true) {
     const bool us = detail::is_us(system);
     const Unit u = detail::depth_unit(system);
     lines.calc(us ? retention_us : retention_si, {qty("CN", cn)}, qty("S", e.s20, u));
@@ -116,6 +119,9 @@ void add_cn_lines(CalcLines &lines, const CnEvaluation &e, double cn, System sys
     }
     lines.calc(hawkins ? initial_abstraction_hawkins : initial_abstraction, {qty("S", e.s, u)},
                qty("Ia", e.ia, u));
+    if (!with_runoff) {
+        return;
+    }
     if (e.p <= e.ia) {
         lines.calc(runoff_none, {qty("P", e.p, u), qty("Ia", e.ia, u)}, qty("Q", 0.0, u));
     } else {
@@ -152,16 +158,30 @@ double cn_runoff_depth_mm(double rainfall_mm, double cn, IaRatio ratio) {
     return evaluate_cn(rainfall_mm, cn, System::si, ratio).q;
 }
 
-WithLines<CnRunoff> cn_runoff(double rainfall_mm, double cn, System system, IaRatio ratio) {
+namespace {
+
+WithLines<CnRunoff> cn_evaluation(double rainfall_mm, double cn, System system, IaRatio ratio,
+                                  bool with_runoff) {
     const CnEvaluation e = evaluate_cn(rainfall_mm, cn, system, ratio);
     const bool us = detail::is_us(system);
     WithLines<CnRunoff> out{};
-    add_cn_lines(out.lines, e, cn, system, ratio);
+    add_cn_lines(out.lines, e, cn, system, ratio, with_runoff);
     out.value.runoff_mm = us ? units::in_to_mm(e.q) : e.q;
     out.value.s_mm = us ? units::in_to_mm(e.s) : e.s;
     out.value.ia_mm = us ? units::in_to_mm(e.ia) : e.ia;
     out.value.cn_used = e.cn_used;
     return out;
+}
+
+} // namespace
+
+WithLines<CnRunoff> cn_runoff(double rainfall_mm, double cn, System system, IaRatio ratio) {
+    return cn_evaluation(rainfall_mm, cn, system, ratio, true);
+}
+
+WithLines<CnRunoff> cn_initial_abstraction(double rainfall_mm, double cn, System system,
+                                           IaRatio ratio) {
+    return cn_evaluation(rainfall_mm, cn, system, ratio, false);
 }
 
 WithLines<double> composite_cn(const std::vector<CnPart> &parts, System system) {
@@ -219,6 +239,40 @@ WithLines<CompositeRunoff> composite_runoff(const std::vector<CnPart> &parts, do
                        {qty("d", 100.0 * out.value.relative_difference, Unit::percent),
                         qty("max", 100.0 * warn_relative_difference, Unit::percent)});
     }
+    return out;
+}
+
+WithLines<double> weighted_runoff(const std::vector<CnPart> &parts, double rainfall_mm,
+                                  System system, IaRatio ratio) {
+    (void)composite_cn(parts, system); // the same checks of the parts
+    WithLines<double> out{};
+    std::vector<double> q_mm;
+    q_mm.reserve(parts.size());
+    const auto n = qty("n", static_cast<double>(parts.size()), Unit::none, Shown::integer());
+    for (std::size_t k = 0; k < parts.size(); ++k) {
+        const auto &p = parts[k];
+        out.lines.note(
+            part_note,
+            {qty("k", static_cast<double>(k + 1), Unit::none, Shown::integer()), n,
+             word("part", p.name.empty() ? "part" : p.name), qty("CN", p.cn),
+             qty("A", detail::sheet_area(p.area_m2, system), detail::area_unit(system))});
+        auto q = cn_runoff(rainfall_mm, p.cn, system, ratio);
+        out.lines.append(q.lines);
+        q_mm.push_back(q.value.runoff_mm);
+    }
+    std::vector<std::vector<Quantity>> rows;
+    std::size_t i = 0;
+    out.value = area_weighted(
+        parts, system, "Q", detail::depth_unit(system),
+        [&](const CnPart &) {
+            const double qi_mm = q_mm[i++];
+            return std::pair{qi_mm, detail::sheet_depth(qi_mm, system)};
+        },
+        rows);
+    out.lines
+        .calc(runoff_weighted, {},
+              qty("Q", detail::sheet_depth(out.value, system), detail::depth_unit(system)))
+        .rows = std::move(rows);
     return out;
 }
 

@@ -50,6 +50,12 @@ constexpr Formula volume_si{"uh.volume_si", "Hydrograph volume", "V = sum(q) D",
 constexpr Formula rainfall_excess{"uh.rainfall_excess", "Rainfall excess", "",
     "excess per step = runoff of the cumulative rainfall (CN {CN}) minus that of the step before; "
     "{n} steps of {dt} {dt:u}, rainfall {P} {P:u}", Ref::tr55_1986, " eq. 2-1 on the mass curve"};
+constexpr Formula rainfall_excess_parts{"uh.rainfall_excess_parts",
+    "Rainfall excess, area-weighted over the land parts",
+    "e = sum(e_i A_i) / sum(A_i)",
+    "excess per step = area-weighted excess of the {parts} land parts, each the runoff of the "
+    "cumulative rainfall by its own CN minus that of the step before; {n} steps of {dt} {dt:u}, "
+    "rainfall {P} {P:u}", Ref::tr55_1986, " eq. 2-1 on the mass curve, for each part"};
 // clang-format on
 
 Quantity count(std::string symbol, std::size_t n) {
@@ -277,6 +283,47 @@ WithLines<Hydrograph> unit_hydrograph_from_rainfall(const DimensionlessUnitHydro
         rainfall_excess,
         {qty("CN", cn), count("n", rainfall.steps()), qty("dt", rainfall.step_s / 60.0, Unit::min),
          qty("P", detail::sheet_depth(rainfall.total_mm(), system), detail::depth_unit(system))});
+    lines.append(out.lines);
+    out.lines = std::move(lines);
+    return out;
+}
+
+rain::Hyetograph weighted_excess_hyetograph(const rain::Hyetograph &rainfall,
+                                            const std::vector<CnPart> &parts, IaRatio ratio) {
+    check_hyetograph(rainfall, "rainfall hyetograph");
+    if (parts.empty()) {
+        throw_input_error("weighted rainfall excess", "no parts given", "at least one part");
+    }
+    rain::Hyetograph out;
+    out.step_s = rainfall.step_s;
+    out.depth_mm.assign(rainfall.steps(), 0.0);
+    double sum_a = 0.0;
+    for (const auto &p : parts) {
+        detail::require_positive("weighted rainfall excess: part area", p.area_m2, Unit::m2);
+        sum_a += p.area_m2;
+    }
+    for (const auto &p : parts) {
+        const rain::Hyetograph e = excess_hyetograph(rainfall, p.cn, ratio);
+        for (std::size_t k = 0; k < e.steps(); ++k) {
+            out.depth_mm[k] += e.depth_mm[k] * p.area_m2 / sum_a;
+        }
+    }
+    return out;
+}
+
+WithLines<Hydrograph> unit_hydrograph_from_parts(const DimensionlessUnitHydrograph &table,
+                                                 const rain::Hyetograph &rainfall,
+                                                 const std::vector<CnPart> &parts, double area_m2,
+                                                 double tc_min, System system,
+                                                 const UnitHydrographSettings &settings,
+                                                 IaRatio ratio) {
+    const rain::Hyetograph excess = weighted_excess_hyetograph(rainfall, parts, ratio);
+    auto out = unit_hydrograph_from_excess(table, excess, area_m2, tc_min, system, settings);
+    CalcLines lines;
+    lines.note(rainfall_excess_parts, {count("parts", parts.size()), count("n", rainfall.steps()),
+                                       qty("dt", rainfall.step_s / 60.0, Unit::min),
+                                       qty("P", detail::sheet_depth(rainfall.total_mm(), system),
+                                           detail::depth_unit(system))});
     lines.append(out.lines);
     out.lines = std::move(lines);
     return out;

@@ -530,6 +530,9 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
         read_kerby(r, m.kerby_kirpich);
         r.finish();
     }
+    if (auto w = t.choice("cn_weighting", cn_weighting_options)) {
+        m.cn_weighting = *w;
+    }
     bool found = false;
     auto peaks = method_list(t, "peak", peak_method_options, found);
     if (found) {

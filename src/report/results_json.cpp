@@ -84,6 +84,7 @@ Json land_json(const LandWeighting &w) {
     j["cn_table"] = w.cn_table;
     j["c_weighted"] = number(w.c_weighted);
     j["cn_weighted"] = number(w.cn_weighted);
+    j["cn_weighting"] = w.cn_weighting.empty() ? Json(nullptr) : Json(w.cn_weighting);
     j["impervious_share"] = number(w.impervious_share);
     Json parts = Json::array();
     for (const auto &p : w.parts) {
@@ -234,6 +235,12 @@ class Reader {
                               "a file written by catchpeak run");
         }
         return *it;
+    }
+
+    /// True when the member is there and not null (members added in later versions).
+    [[nodiscard]] bool given(std::string_view key) const {
+        auto it = j_.find(key);
+        return it != j_.end() && !it->is_null();
     }
 
     [[nodiscard]] std::string str(std::string_view key) const {
@@ -467,6 +474,9 @@ DesignPointResult parse_point(const Reader &r) {
     p.land.c_weighted = w.num("c_weighted");
     p.land.cn_weighted = w.num("cn_weighted");
     p.land.impervious_share = w.num("impervious_share");
+    if (w.given("cn_weighting")) { // not written before the option
+        p.land.cn_weighting = w.str("cn_weighting");
+    }
     const auto &parts = w.array("parts");
     for (std::size_t i = 0; i < parts.size(); ++i) {
         const Reader pr(parts[i], w.item("parts", i));

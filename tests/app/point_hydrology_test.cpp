@@ -548,3 +548,94 @@ TEST(PointHydrology, StormTableAveragingOnlyWhereItMattersAndExplainedOnce) {
     EXPECT_NE(note.find("NRCS 24-hour Type II"), std::string::npos) << note;
     EXPECT_NE(note.find("11.50 h and 12.00 h"), std::string::npos) << note;
 }
+
+namespace {
+
+/// An invented two-part catchment: 0.6 ha of roofs (CN 98) and 1.4 ha of pasture (CN 61),
+/// tc given 10 min, with the composite CN 0.3 x 98 + 0.7 x 61 = 72.1 (TR-55 Ex. 2-1's
+/// area-weighting), through both SCS methods of scs_project (P = 127 mm = 5.0 in).
+catchpeak::report::DesignPointResult two_part_point(const Project &p) {
+    PointInputs in;
+    in.area_m2 = 20000.0;
+    in.longest_flow_path_m = 200.0;
+    in.slope = 0.02;
+    in.cn = 0.3 * 98.0 + 0.7 * 61.0;
+    in.tc_min = 10.0;
+    in.land_parts = {{"roofs, soil group B", 6000.0, 98.0},
+                     {"pasture, soil group B", 14000.0, 61.0}};
+    in.source = "test input";
+    const auto loaded = load_hydrology_tables(p, config_dir());
+    catchpeak::report::DesignPointResult dp;
+    dp.id = "TP-1";
+    compute_point_hydrology(p, in, loaded.view(), dp);
+    return dp;
+}
+
+/// TR-55 eq. 2-3 and 2-4 in inches: S = 1000/CN - 10, Q = (P - 0.2 S)^2 / (P + 0.8 S).
+double runoff_in(double p, double cn) {
+    const double s = 1000.0 / cn - 10.0;
+    return p > 0.2 * s ? (p - 0.2 * s) * (p - 0.2 * s) / (p + 0.8 * s) : 0.0;
+}
+
+} // namespace
+
+TEST(PointHydrology, CnWeightingRunoffTakesTheWeightedRunoffOfTheParts) {
+    const auto dir = catchpeak::test::scratch_dir("point_cn_weighting_runoff");
+    Project p = load_project(scs_project(dir));
+    p.methods.cn_weighting = CnWeighting::runoff;
+    const auto dp = two_part_point(p);
+    // By hand: Q = 0.3 Q(98) + 0.7 Q(61), P = 5.0 in; Ia of the composite CN 72.1.
+    const double q_weighted_mm = (0.3 * runoff_in(5.0, 98.0) + 0.7 * runoff_in(5.0, 61.0)) * 25.4;
+    const double ia_mm = 0.2 * (1000.0 / 72.1 - 10.0) * 25.4;
+    const auto &tr55 = peak(dp, "tr55_graphical");
+    // Tolerance 1e-6 mm: floating point only (the SI sheet evaluates in mm, 25400/CN - 254).
+    EXPECT_NEAR(tr55.intermediates.at("runoff_depth_mm"), q_weighted_mm, 1e-6);
+    EXPECT_NEAR(tr55.intermediates.at("initial_abstraction_mm"), ia_mm, 1e-6);
+    EXPECT_NEAR(tr55.intermediates.at("ia_over_p"), ia_mm / 127.0, 1e-9);
+    // The unit hydrograph convolves the weighted excess: its sum is the same Q.
+    const auto &uh = peak(dp, "scs_unit_hydrograph");
+    EXPECT_NEAR(uh.intermediates.at("runoff_depth_mm"), q_weighted_mm, 1e-6);
+    ASSERT_TRUE(uh.hydrograph.has_value());
+    EXPECT_NEAR(
+        std::accumulate(uh.hydrograph->excess_mm.begin(), uh.hydrograph->excess_mm.end(), 0.0),
+        q_weighted_mm, 1e-6);
+    // The sheet: the choice stated once, each part's Q on its own line, the weighted Q.
+    std::size_t notes = 0;
+    std::vector<double> part_q_mm;
+    for (const auto &l : dp.lines.lines()) {
+        notes += l.key == "point.cn_weighting_runoff" ? 1 : 0;
+        if (l.key == "cn.runoff") {
+            part_q_mm.push_back(l.value());
+        }
+    }
+    EXPECT_EQ(notes, 1u);
+    ASSERT_EQ(part_q_mm.size(), 2u); // one return period, two parts; no composite-CN runoff
+    EXPECT_NEAR(part_q_mm[0], runoff_in(5.0, 98.0) * 25.4, 1e-6);
+    EXPECT_NEAR(part_q_mm[1], runoff_in(5.0, 61.0) * 25.4, 1e-6);
+    EXPECT_NEAR(dp.lines.find_last("cn.runoff_weighted")->value(), q_weighted_mm, 1e-6);
+    EXPECT_TRUE(dp.lines.has("uh.rainfall_excess_parts"));
+    EXPECT_FALSE(dp.lines.has("cn.composite_differs"));
+    EXPECT_EQ(dp.land.cn_weighting, "runoff");
+}
+
+TEST(PointHydrology, CnWeightingDefaultIsTheCompositeCnAsBefore) {
+    const auto dir = catchpeak::test::scratch_dir("point_cn_weighting_default");
+    const Project p = load_project(scs_project(dir));
+    EXPECT_EQ(p.methods.cn_weighting, CnWeighting::composite);
+    const auto dp = two_part_point(p);
+    // Both peaks take the runoff of the composite CN 72.1 (TR-55 eq. 2-3, 2-4 by hand).
+    const double q_composite_mm = runoff_in(5.0, 72.1) * 25.4;
+    EXPECT_NEAR(peak(dp, "tr55_graphical").intermediates.at("runoff_depth_mm"), q_composite_mm,
+                1e-6);
+    EXPECT_NEAR(peak(dp, "scs_unit_hydrograph").intermediates.at("runoff_depth_mm"), q_composite_mm,
+                1e-6);
+    EXPECT_FALSE(dp.lines.has("point.cn_weighting_runoff"));
+    EXPECT_FALSE(dp.lines.has("cn.part"));
+    EXPECT_FALSE(dp.lines.has("uh.rainfall_excess_parts"));
+    // The weighted runoff is still shown beside it, with the warning when they differ: here
+    // 0.3 Q(98) + 0.7 Q(61) against Q(72.1), by hand 7.6 % apart (over 5 %).
+    const double q_weighted_in = 0.3 * runoff_in(5.0, 98.0) + 0.7 * runoff_in(5.0, 61.0);
+    EXPECT_GT(std::abs(q_weighted_in * 25.4 - q_composite_mm) / (q_weighted_in * 25.4), 0.05);
+    EXPECT_TRUE(dp.lines.has("cn.composite_differs"));
+    EXPECT_EQ(dp.land.cn_weighting, "composite");
+}

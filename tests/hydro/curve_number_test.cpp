@@ -106,6 +106,48 @@ TEST(CompositeRunoff, BothWaysComputedAndCompared) {
     EXPECT_THROW((void)h::composite_cn({{0.0, 70.0}}, System::si), InputError);
 }
 
+TEST(WeightedRunoff, TwoPartsByHand) {
+    // An invented two-part catchment, 3 ha of CN 98 and 7 ha of CN 61, P = 4.0 in. Each part's
+    // runoff by TR-55 eq. 2-3 and 2-4 (inches): S = 1000/CN - 10, Q = (P - 0.2 S)^2 /
+    // (P + 0.8 S); the catchment's depth is their area-weighted mean.
+    const double p_in = 4.0;
+    auto q_in = [&](double cn) {
+        const double s = 1000.0 / cn - 10.0;
+        return (p_in - 0.2 * s) * (p_in - 0.2 * s) / (p_in + 0.8 * s);
+    };
+    const double expected_in = (3.0 * q_in(98.0) + 7.0 * q_in(61.0)) / 10.0;
+    const std::vector<h::CnPart> parts = {{3.0e4, 98.0, "roofs, soil group B"},
+                                          {7.0e4, 61.0, "pasture, soil group B"}};
+    const auto w = h::weighted_runoff(parts, u::in_to_mm(p_in), System::us_customary);
+    // Tolerance 1e-9 in: floating point only.
+    EXPECT_NEAR(u::mm_to_in(w.value), expected_in, 1e-9);
+    // Each part's Q is its own line (in, the sheet's unit), after a note naming the part.
+    std::vector<double> part_q;
+    std::vector<std::string> notes;
+    for (const auto &l : w.lines.lines()) {
+        if (l.key == "cn.runoff") {
+            part_q.push_back(l.value());
+        }
+        if (l.key == "cn.part") {
+            notes.push_back(catchpeak::test::text(l).numbers);
+        }
+    }
+    ASSERT_EQ(part_q.size(), 2u);
+    EXPECT_NEAR(part_q[0], q_in(98.0), 1e-9);
+    EXPECT_NEAR(part_q[1], q_in(61.0), 1e-9);
+    ASSERT_EQ(notes.size(), 2u);
+    EXPECT_NE(notes[1].find("pasture, soil group B"), std::string::npos) << notes[1];
+    const auto &weighted = catchpeak::test::line_keyed(w.lines, "cn.runoff_weighted");
+    EXPECT_NEAR(weighted.value(), expected_in, 1e-9);
+    EXPECT_EQ(weighted.rows.size(), 2u);
+    // The Ia of the composite CN alone, without a runoff line.
+    const auto ia = h::cn_initial_abstraction(u::in_to_mm(p_in), 72.1, System::us_customary);
+    EXPECT_NEAR(u::mm_to_in(ia.value.ia_mm), 0.2 * (1000.0 / 72.1 - 10.0), 1e-9);
+    EXPECT_TRUE(ia.lines.has("cn.initial_abstraction"));
+    EXPECT_FALSE(ia.lines.has("cn.runoff"));
+    EXPECT_THROW((void)h::weighted_runoff({}, 100.0, System::si), InputError);
+}
+
 TEST(AntecedentMoisture, ChowFormulas) {
     // Chow, Maidment and Mays (1988) eq. 5.5.4 and 5.5.5 (from memory), CN 75 by hand.
     EXPECT_NEAR(h::cn_amc_i(75.0).value, 4.2 * 75.0 / (10.0 - 0.058 * 75.0), 1e-12);

@@ -134,6 +134,37 @@ TEST(UnitHydrograph, FromRainfallStartsWithANoteAndUsesTheExcess) {
     EXPECT_NEAR(r.value.runoff_mm, h::cn_runoff_depth_mm(75.0, 75.0), 1e-9);
 }
 
+TEST(UnitHydrograph, ExcessOfPartsIsWeightedStepByStep) {
+    // Two invented parts, 1/4 of the area CN 98 and 3/4 CN 70: each step's excess is the
+    // area-weighted excess of the parts, each from its own CN (TR-55 eq. 2-1 on the mass
+    // curve), so the whole excess is the area-weighted runoff of the total depth.
+    Hyetograph rain;
+    rain.step_s = 600.0;
+    rain.depth_mm = {5.0, 5.0, 20.0, 30.0, 10.0, 0.0, 5.0};
+    const std::vector<h::CnPart> parts = {{2.5e4, 98.0}, {7.5e4, 70.0}};
+    const auto e = h::weighted_excess_hyetograph(rain, parts);
+    const auto e98 = h::excess_hyetograph(rain, 98.0);
+    const auto e70 = h::excess_hyetograph(rain, 70.0);
+    ASSERT_EQ(e.steps(), rain.steps());
+    for (std::size_t k = 0; k < e.steps(); ++k) {
+        EXPECT_NEAR(e.depth_mm[k], 0.25 * e98.depth_mm[k] + 0.75 * e70.depth_mm[k], 1e-12) << k;
+    }
+    // Total rainfall 75 mm; by hand in mm (S = 25400/CN - 254, Q = (P - 0.2 S)^2 / (P + 0.8 S)).
+    auto q = [](double p, double cn) {
+        const double s = 25400.0 / cn - 254.0;
+        return p > 0.2 * s ? (p - 0.2 * s) * (p - 0.2 * s) / (p + 0.8 * s) : 0.0;
+    };
+    double sum = 0.0;
+    for (double d : e.depth_mm) {
+        sum += d;
+    }
+    EXPECT_NEAR(sum, 0.25 * q(75.0, 98.0) + 0.75 * q(75.0, 70.0), 1e-9);
+    const auto hg = h::unit_hydrograph_from_parts(triangle(), rain, parts, 1.0e6, 60.0, System::si);
+    EXPECT_TRUE(hg.lines.has("uh.rainfall_excess_parts"));
+    EXPECT_FALSE(hg.lines.has("uh.rainfall_excess"));
+    EXPECT_NEAR(hg.value.runoff_mm, sum, 1e-9);
+}
+
 TEST(UnitHydrograph, RefusesBadInput) {
     Hyetograph e;
     e.step_s = 60.0;

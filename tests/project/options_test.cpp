@@ -63,6 +63,8 @@ TEST(OptionTables, EveryValueRoundTripsThroughItsText) {
                       static_cast<std::size_t>(report::PageSize::a4) + 1);
     expect_round_trip(project::design_storm_options,
                       static_cast<std::size_t>(project::DesignStorm::alternating_block) + 1);
+    expect_round_trip(project::cn_weighting_options,
+                      static_cast<std::size_t>(project::CnWeighting::runoff) + 1);
     expect_round_trip(project::ams_distribution_options,
                       static_cast<std::size_t>(project::AmsDistribution::gev) + 1);
     expect_round_trip(project::dual_soil_group_options,
@@ -106,4 +108,18 @@ TEST(OptionTables, TheParserTakesEveryPeakMethodText) {
         EXPECT_TRUE(problems.empty()) << key << ": " << problems.list().front();
         EXPECT_EQ(p.methods.peak_methods, std::vector<PeakMethod>{value}) << key;
     }
+}
+
+TEST(OptionTables, TheParserTakesEveryCnWeightingText) {
+    for (const auto &[key, value] : project::cn_weighting_options) {
+        project::Problems problems;
+        auto toml = two_year_project();
+        toml.methods.text("cn_weighting", std::string(key));
+        const auto p = project::parse_project(toml.toml(), "dir/p.toml", problems);
+        EXPECT_TRUE(problems.empty()) << key << ": " << problems.list().front();
+        EXPECT_EQ(p.methods.cn_weighting, value) << key;
+    }
+    project::Problems problems; // not given: the composite CN, as before the option
+    const auto p = project::parse_project(two_year_project().toml(), "dir/p.toml", problems);
+    EXPECT_EQ(p.methods.cn_weighting, project::CnWeighting::composite);
 }

@@ -4,6 +4,7 @@
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/units.hpp"
 
+#include <string>
 #include <vector>
 
 /// SCS Curve Number runoff (TR-55 ch. 2).
@@ -40,6 +41,7 @@ struct CnRunoff {
 struct CnPart {
     double area_m2 = 0.0;
     double cn = 0.0;
+    std::string name{}; ///< e.g. "meadow, soil group B", for the sheet; may be empty
 };
 
 struct CompositeRunoff {
@@ -60,6 +62,20 @@ struct CompositeRunoff {
                                                           double rainfall_mm, units::System system,
                                                           IaRatio ratio = IaRatio::r020,
                                                           double warn_relative_difference = 0.05);
+
+/// The retention S and initial abstraction Ia of `cn` with their lines (TR-55 eq. 2-4, 2-2),
+/// without the runoff: the Ia of a catchment whose runoff is weighted over its parts. The value
+/// holds the runoff of `cn` too, which no line shows.
+[[nodiscard]] WithLines<CnRunoff> cn_initial_abstraction(double rainfall_mm, double cn,
+                                                         units::System system,
+                                                         IaRatio ratio = IaRatio::r020);
+
+/// The runoff depth of each part from its own CN, each with its lines (a note naming the part,
+/// then TR-55 eq. 2-4, 2-2 and 2-1), and their area-weighted depth Q = sum(Q A) / sum(A), mm
+/// (the line with one row per part). Parts as for composite_cn.
+[[nodiscard]] WithLines<double> weighted_runoff(const std::vector<CnPart> &parts,
+                                                double rainfall_mm, units::System system,
+                                                IaRatio ratio = IaRatio::r020);
 
 /// Antecedent moisture condition I (dry): CN(I) = 4.2 CN / (10 - 0.058 CN) (Chow et al. 1988
 /// eq. 5.5.4, from memory).

@@ -55,4 +55,17 @@ unit_hydrograph_from_excess(const DimensionlessUnitHydrograph &table,
     double area_m2, double tc_min, units::System system,
     const UnitHydrographSettings &settings = {}, IaRatio ratio = IaRatio::r020);
 
+/// The area-weighted excess of a catchment's parts: each part's excess_hyetograph() by its own
+/// CN, weighted by area step by step (its sum is the area-weighted runoff of the parts).
+[[nodiscard]] rain::Hyetograph weighted_excess_hyetograph(const rain::Hyetograph &rainfall,
+                                                          const std::vector<CnPart> &parts,
+                                                          IaRatio ratio = IaRatio::r020);
+
+/// The same from RAINFALL and the catchment's PARTS: the excess is weighted_excess_hyetograph(),
+/// said in a note line.
+[[nodiscard]] WithLines<Hydrograph> unit_hydrograph_from_parts(
+    const DimensionlessUnitHydrograph &table, const rain::Hyetograph &rainfall,
+    const std::vector<CnPart> &parts, double area_m2, double tc_min, units::System system,
+    const UnitHydrographSettings &settings = {}, IaRatio ratio = IaRatio::r020);
+
 } // namespace catchpeak::hydro

@@ -24,6 +24,18 @@ inline constexpr OptionTable<DesignStorm, 2> design_storm_options{{
     {"alternating_block", DesignStorm::alternating_block},
 }};
 
+/// [methods] cn_weighting: how the SCS runoff of a catchment made of land parts with their own
+/// curve numbers is weighted (TR-55 ch. 2 and NRCS NEH 630 ch. 10 discuss both).
+enum class CnWeighting {
+    composite, ///< the area-weighted (composite) CN, then the runoff of it (TR-55 Ex. 2-1)
+    runoff,    ///< the runoff depth of each part from its own CN, weighted by area
+};
+
+inline constexpr OptionTable<CnWeighting, 2> cn_weighting_options{{
+    {"composite", CnWeighting::composite},
+    {"runoff", CnWeighting::runoff},
+}};
+
 /// [rainfall] ams_distribution: the distribution fitted to an annual maximum series.
 enum class AmsDistribution {
     gumbel, ///< by moments

@@ -131,6 +131,9 @@ struct PointOverride {
 struct Methods {
     TcMethod tc_method = TcMethod::kirpich;
     std::vector<PeakMethod> peak_methods{PeakMethod::rational};
+    /// The SCS runoff of a catchment with land parts: of the composite CN (default) or the
+    /// area-weighted runoff of the parts.
+    CnWeighting cn_weighting = CnWeighting::composite;
     SegmentalParameters tr55_segmental;
     KerbyParameters kerby_kirpich;
     std::vector<PointOverride> points;

@@ -120,6 +120,9 @@ struct LandWeighting {
     double impervious_share = 0.0;
     std::string c_table;  ///< which table the C values came from
     std::string cn_table; ///< which table the CN values came from
+    /// How the SCS runoff weighted the parts ([methods] cn_weighting: "composite" or "runoff");
+    /// empty when the runoff did not come from parts.
+    std::string cn_weighting;
 };
 
 /// A hydrograph: flow at equal time steps from the start of the storm.
