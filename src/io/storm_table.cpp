@@ -81,10 +81,10 @@ rain::StormDistribution storm_from_csv(const CsvTable &t, double duration_h) {
     rain::StormDistribution d = storm_from_csv(t);
     if (std::abs(d.duration_h() - duration_h) > 1e-9 * duration_h) {
         throw_input_error(t.where(t.rows.back(), t.column("hour")),
-                          fmt::format("the table ends at {} h", sig(d.duration_h())),
-                          fmt::format("a {}-hour distribution: a last row at {} h with fraction 1 "
-                                      "(it is scaled by the {}-hour depth)",
-                                      sig(duration_h), sig(duration_h), sig(duration_h)));
+                          fmt::format("the table ends at {:g} h", d.duration_h()),
+                          fmt::format("a {:g}-hour distribution: a last row at {:g} h with "
+                                      "fraction 1 (it is scaled by the {:g}-hour depth)",
+                                      duration_h, duration_h, duration_h));
     }
     return d;
 }

@@ -242,9 +242,10 @@ std::optional<TableInterval> peak_table_interval(const StormDistribution &d, con
         return std::nullopt;
     }
     const std::size_t peak = largest_step_index(h.depth_mm);
+    // Whole steps times the step in s, then to h: exact for steps of whole seconds.
+    const double start_h = static_cast<double>(peak) * h.step_s / units::s_per_h;
+    const double end_h = static_cast<double>(peak + 1) * h.step_s / units::s_per_h;
     const double step_h = h.step_s / units::s_per_h;
-    const double start_h = static_cast<double>(peak) * step_h;
-    const double end_h = start_h + step_h;
     const auto hi = static_cast<std::size_t>(
         std::upper_bound(d.hours.begin(), d.hours.end(), start_h * (1.0 + 1e-12)) -
         d.hours.begin());

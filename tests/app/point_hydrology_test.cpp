@@ -11,7 +11,6 @@
 #include "catchpeak/report/sheet.hpp"
 #include "support/input_error.hpp"
 #include "support/test_env.hpp"
-#include "support/test_project.hpp"
 
 #include <gtest/gtest.h>
 
@@ -32,6 +31,20 @@ namespace {
 
 void write(const fs::path &path, const std::string &text) {
     std::ofstream(path, std::ios::binary) << text;
+}
+
+/// Replaces the first `from` in a file by `to`; throws when `from` is not in it.
+void replace_in_file(const fs::path &path, const std::string &from, const std::string &to) {
+    std::ifstream in(path, std::ios::binary);
+    std::ostringstream s;
+    s << in.rdbuf();
+    std::string text = s.str();
+    const auto at = text.find(from);
+    if (at == std::string::npos) {
+        throw std::runtime_error("test set-up: text not found: " + from);
+    }
+    text.replace(at, from.size(), to);
+    write(path, text);
 }
 
 /// Invented project: SP-1 (640 ac = 1 mi2, CN 80, tc given 30 min) and SP-2 (NRCS lag tc:
@@ -404,9 +417,9 @@ namespace {
 /// project's own 24-hour table storm.csv (invented): 30 % of the depth by 11 h, 80 % by 13 h.
 fs::path storm_table_project(const fs::path &dir, const std::string &table) {
     const fs::path file = scs_project(dir);
-    catchpeak::test::replace_in_file(file, "storm_type = \"II\"", "storm_table = \"storm.csv\"");
-    catchpeak::test::replace_in_file(file, "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]",
-                                     "peak = [\"scs_unit_hydrograph\"]");
+    replace_in_file(file, "storm_type = \"II\"", "storm_table = \"storm.csv\"");
+    replace_in_file(file, "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]",
+                    "peak = [\"scs_unit_hydrograph\"]");
     write(dir / "storm.csv", table);
     return file;
 }
@@ -454,7 +467,7 @@ TEST(PointHydrology, ProjectStormTableInPlaceOfTheNrcsOne) {
 TEST(PointHydrology, StormTableAndStormTypeTogetherAreRefused) {
     const auto dir = catchpeak::test::scratch_dir("point_storm_table_both");
     const fs::path file = storm_table_project(dir, regional_storm);
-    catchpeak::test::replace_in_file(file, "storm_table = ", "storm_type = \"II\"\nstorm_table = ");
+    replace_in_file(file, "storm_table = ", "storm_type = \"II\"\nstorm_table = ");
     const std::string msg = catchpeak::test::input_error_of([&] { (void)load_project(file); });
     EXPECT_NE(msg.find("[rainfall] storm_table"), std::string::npos) << msg;
     EXPECT_NE(msg.find("storm_type"), std::string::npos) << msg;
@@ -464,8 +477,8 @@ TEST(PointHydrology, StormTableAndStormTypeTogetherAreRefused) {
 TEST(PointHydrology, StormTableWithTheTr55GraphicalMethodIsRefused) {
     const auto dir = catchpeak::test::scratch_dir("point_storm_table_tr55");
     const fs::path file = storm_table_project(dir, regional_storm);
-    catchpeak::test::replace_in_file(file, "peak = [\"scs_unit_hydrograph\"]",
-                                     "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]");
+    replace_in_file(file, "peak = [\"scs_unit_hydrograph\"]",
+                    "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]");
     const std::string msg = catchpeak::test::input_error_of([&] { (void)load_project(file); });
     EXPECT_NE(msg.find("[rainfall] storm_table"), std::string::npos) << msg;
     EXPECT_NE(msg.find("TR-55 graphical"), std::string::npos) << msg;
@@ -478,11 +491,14 @@ TEST(PointHydrology, BadStormTableNamesTheFileAndLine) {
                                    "hour,cumulative_fraction\n0,0\n11,0.3\n13,0.2\n24,1\n";
     const auto dir = catchpeak::test::scratch_dir("point_storm_table_bad");
     const fs::path file = storm_table_project(dir, decreasing);
-    const auto check = catchpeak::test::cli({"check", file.string()});
-    EXPECT_EQ(check.code, static_cast<int>(catchpeak::ExitCode::bad_input));
-    EXPECT_NE(check.err.find("storm.csv:7"), std::string::npos) << check.err;
-    EXPECT_NE(check.err.find("[rainfall] storm_table"), std::string::npos) << check.err;
-    EXPECT_NE(check.err.find("never decrease"), std::string::npos) << check.err;
+    // `catchpeak check` finds it (InputError: exit 2).
+    const std::string check = catchpeak::test::input_error_of([&] {
+        std::ostringstream out;
+        check_project_file(file, out);
+    });
+    EXPECT_NE(check.find("storm.csv:7"), std::string::npos) << check;
+    EXPECT_NE(check.find("[rainfall] storm_table"), std::string::npos) << check;
+    EXPECT_NE(check.find("never decrease"), std::string::npos) << check;
     // A table that is not 24 hours long: the last row's line is named.
     write(dir / "storm.csv", "# name: Short storm\n# source: invented\n# status: checked\n"
                              "hour,cumulative_fraction\n0,0\n6,0.5\n12,1\n");
@@ -505,12 +521,11 @@ TEST(PointHydrology, StormTableAveragingOnlyWhereItMattersAndExplainedOnce) {
     // finer than the table, SP-4's too.
     const auto dir = catchpeak::test::scratch_dir("point_storm_averaging");
     const fs::path file = scs_project(dir);
-    catchpeak::test::replace_in_file(file, "return_periods_yr = [25]",
-                                     "return_periods_yr = [10, 25]");
-    catchpeak::test::replace_in_file(file, "depths_24h_mm = { \"25\" = 127.0 }",
-                                     "depths_24h_mm = { \"10\" = 110.0, \"25\" = 127.0 }");
-    catchpeak::test::replace_in_file(file, "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]",
-                                     "peak = [\"scs_unit_hydrograph\"]");
+    replace_in_file(file, "return_periods_yr = [25]", "return_periods_yr = [10, 25]");
+    replace_in_file(file, "depths_24h_mm = { \"25\" = 127.0 }",
+                    "depths_24h_mm = { \"10\" = 110.0, \"25\" = 127.0 }");
+    replace_in_file(file, "peak = [\"tr55_graphical\", \"scs_unit_hydrograph\"]",
+                    "peak = [\"scs_unit_hydrograph\"]");
     write(dir / "catchments.csv", "id,area_ac,length_m,slope_percent,cn,tc_min\n"
                                   "SP-1,640,3000,2,80,30\n"
                                   "SP-4,6400,30000,1,80,240\n");

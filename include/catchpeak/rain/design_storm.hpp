@@ -22,7 +22,7 @@ struct StormDistribution {
     std::string status;                      ///< how sure we are: "checked (primary)", "memory" ...
     /// The project's own table as written in the project file ([rainfall] storm_table), named
     /// on the sheet beside the distribution; empty for a table shipped in config/storms/.
-    std::string project_file;
+    std::string project_file{};
 
     [[nodiscard]] double duration_h() const { return hours.empty() ? 0.0 : hours.back(); }
 };
