@@ -127,50 +127,11 @@ report::RunResults compute_from_table(const Project &p, const std::vector<TableC
     return r;
 }
 
-report::RunResults compute_project(const Project &p, std::ostream &progress, bool quiet,
-                                   std::vector<io::OutLayer> *gpkg_layers) {
-    Problems problems;
-    check_project(p, problems);
-    not_yet_available(p, problems);
-    problems.throw_if_any();
+namespace {
 
-    std::vector<TableCatchment> rows;
-    if (p.uses_table()) {
-        if (!quiet) {
-            progress << "catchpeak: reading " << p.inputs.catchment_table->given << '\n';
-        }
-        rows = read_catchment_table(p.inputs.catchment_table->resolved);
-    }
-    Problems land_problems;
-    const LandPartsById land_parts = read_land_parts(p, rows, land_problems);
-    land_problems.throw_if_any();
-    const LoadedTables tables = load_hydrology_tables(p, config_dir());
-    report::RunResults r;
-    if (p.uses_table()) {
-        if (!quiet) {
-            progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
-                                    rows.size(), p.rainfall.return_periods_yr.size());
-        }
-        r = compute_from_table(p, rows, tables.view(), land_parts);
-    } else {
-        r = compute_from_table(p, {}, tables.view()); // project info, references, notes
-        DemPoints dem = compute_dem_points(p, tables.view(), quiet ? nullptr : &progress);
-        r.points = std::move(dem.points);
-        for (const auto &dp : r.points) {
-            add_method_references(p, dp, r.references);
-        }
-        r.references.insert(r.references.end(), dem.references.begin(), dem.references.end());
-        if (gpkg_layers != nullptr) {
-            *gpkg_layers = std::move(dem.layers);
-        }
-    }
-
-    if (auto note = storm_averaging_caution(tables.view(), r.points)) {
-        r.caution_notes.push_back(std::move(*note));
-    }
-    design_culverts(p, r);
-
-    // The stamp: what was run, on what. Paths as written in the project file.
+/// The stamp: what was run, on what. Paths as written in the project file.
+void stamp_inputs(const Project &p, const LoadedTables &tables, const LandPartsById &land_parts,
+                  report::RunResults &r) {
     r.stamp.tool_version = std::string(version());
     r.stamp.git_commit = std::string(git_commit());
     r.stamp.inputs.push_back({"project file", p.file.filename().string(), sha256_file(p.file)});
@@ -239,6 +200,54 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         r.stamp.inputs.push_back(
             {role, (fs::path("config") / rel).generic_string(), sha256_file(config_dir() / rel)});
     }
+}
+
+} // namespace
+
+report::RunResults compute_project(const Project &p, std::ostream &progress, bool quiet,
+                                   std::vector<io::OutLayer> *gpkg_layers) {
+    Problems problems;
+    check_project(p, problems);
+    not_yet_available(p, problems);
+    problems.throw_if_any();
+
+    std::vector<TableCatchment> rows;
+    if (p.uses_table()) {
+        if (!quiet) {
+            progress << "catchpeak: reading " << p.inputs.catchment_table->given << '\n';
+        }
+        rows = read_catchment_table(p.inputs.catchment_table->resolved);
+    }
+    Problems land_problems;
+    const LandPartsById land_parts = read_land_parts(p, rows, land_problems);
+    land_problems.throw_if_any();
+    const LoadedTables tables = load_hydrology_tables(p, config_dir());
+    report::RunResults r;
+    if (p.uses_table()) {
+        if (!quiet) {
+            progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
+                                    rows.size(), p.rainfall.return_periods_yr.size());
+        }
+        r = compute_from_table(p, rows, tables.view(), land_parts);
+    } else {
+        r = compute_from_table(p, {}, tables.view()); // project info, references, notes
+        DemPoints dem = compute_dem_points(p, tables.view(), quiet ? nullptr : &progress);
+        r.points = std::move(dem.points);
+        for (const auto &dp : r.points) {
+            add_method_references(p, dp, r.references);
+        }
+        r.references.insert(r.references.end(), dem.references.begin(), dem.references.end());
+        if (gpkg_layers != nullptr) {
+            *gpkg_layers = std::move(dem.layers);
+        }
+    }
+
+    if (auto note = storm_averaging_caution(tables.view(), r.points)) {
+        r.caution_notes.push_back(std::move(*note));
+    }
+    design_culverts(p, r);
+
+    stamp_inputs(p, tables, land_parts, r);
     return r;
 }
 

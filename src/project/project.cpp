@@ -387,6 +387,8 @@ void read_inputs(TableReader &t, const fs::path &dir, Inputs &in) {
     }
 }
 
+void check_rainfall_keys(TableReader &t, const Rainfall &r);
+
 void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
     r.idf = t.path("idf", dir);
     r.annual_maximum_series = t.path("annual_maximum_series", dir);
@@ -464,6 +466,11 @@ void read_rainfall(TableReader &t, const fs::path &dir, Rainfall &r) {
         }
     }
     t.finish();
+    check_rainfall_keys(t, r);
+}
+
+/// The keys of [rainfall] that exclude or need each other.
+void check_rainfall_keys(TableReader &t, const Rainfall &r) {
     const std::size_t ams_line = t.line_of("annual_maximum_series");
     const std::size_t depth_line = std::max(t.line_of("depths_24h_mm"), t.line_of("depths_24h_in"));
     if (ams_line != 0 && depth_line != 0) {
