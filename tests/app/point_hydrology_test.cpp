@@ -517,8 +517,8 @@ TEST(PointHydrology, StormTableAveragingOnlyWhereItMattersAndExplainedOnce) {
     //     coded): the interval spans ten unit-hydrograph steps, and its peak is averaged.
     //   SP-4, tc 240 min: D = 5 x 6 = 30 min (0.133 tc = 31.9 min): 11.5-12 h is exactly its
     //     24th step, taken as one block whatever the rain does inside it; no averaging.
-    // Before, every unit-hydrograph peak carried the warning whenever the 6-min storm step was
-    // finer than the table, SP-4's too.
+    // Before, the warning was given whenever the 6-min storm step was finer than the table,
+    // SP-4's too, and no caution note said why.
     const auto dir = catchpeak::test::scratch_dir("point_storm_averaging");
     const fs::path file = scs_project(dir);
     replace_in_file(file, "return_periods_yr = [25]", "return_periods_yr = [10, 25]");
