@@ -470,7 +470,7 @@ void add_snap_lines(CalcLines &lines, const Project &p, const terrain::DesignPoi
     const Quantity smallest = area("Amin", pt.min_area_within_radius_m2);
     const Quantity largest = area("Amax", pt.max_area_within_radius_m2);
     const Quantity radius = len("r", s.snap_radius_m);
-    const Quantity factor = qty("k", s.snap_area_factor, Unit::none, Shown::sig(3));
+    const Quantity factor = qty("k", s.snap_area_factor, Unit::none, Shown::exact());
     lines.note(snap_areas_note, {given, snapped, radius, smallest, largest});
     const SnapChecks checks = snap_checks(pt, s.snap_area_factor);
     if (checks.no_stream) {
