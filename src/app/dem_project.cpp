@@ -6,6 +6,7 @@
 #include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/spelling.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
@@ -615,9 +616,23 @@ void check_expected_areas(const Project &p, const Delineation &d) {
     for (const ExpectedArea &e : expected_areas(p, d)) {
         const auto it = std::find_if(d.result.points.begin(), d.result.points.end(),
                                      [&](const auto &pt) { return pt.id == e.id; });
-        if (it == d.result.points.end() ||
-            std::abs(it->area_m2 - e.area_m2) <= tol / 100.0 * e.area_m2) {
-            continue; // a table for a point the layer does not hold is reported elsewhere
+        if (it == d.result.points.end()) { // never silently unchecked
+            std::vector<std::string> ids;
+            for (const auto &pt : d.result.points) {
+                ids.push_back(pt.id);
+            }
+            const std::string hint = closest_match(e.id, ids);
+            problems.add(input_message(
+                e.where,
+                fmt::format("an expected area is given for design point '{}', which is not in "
+                            "{}{}",
+                            e.id, d.points_source,
+                            hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                "the id of a design point of [inputs] design_points"));
+            continue;
+        }
+        if (std::abs(it->area_m2 - e.area_m2) <= tol / 100.0 * e.area_m2) {
+            continue;
         }
         problems.add(input_message(
             e.where,

@@ -577,6 +577,12 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                 o.kerby_kirpich = m.kerby_kirpich;
                 read_kerby(pt, o.kerby_kirpich);
                 read_expected_area(pt, o);
+                if (o.expected_area_m2 && p.uses_table()) {
+                    pt.problem(*pt.get(o.expected_area_key), o.expected_area_key,
+                               "an expected area is given for a catchment of the catchment table, "
+                               "whose area is given",
+                               "expected areas for design points of a DEM ([inputs] dem)");
+                }
                 if (o.tc_method == TcMethod::given && !o.tc_min) {
                     pt.missing("tc_min", fmt::format("a time of concentration in minutes with tc = "
                                                      "\"{}\"",
@@ -595,7 +601,6 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                         key_of(TcMethod::given)),
             "use it in [[methods.point]] with 'tc_min'"));
     }
-    (void)p;
 }
 
 void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {

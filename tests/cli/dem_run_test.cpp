@@ -160,6 +160,16 @@ TEST(DemRunSnap, AnExpectedAreaOutsideTheToleranceIsAnErrorNamingBothAreasAndThe
                     "[settings] expected_area_tolerance_percent", "2.250 ha to 3.750 ha"});
 }
 
+TEST(DemRunSnap, AnExpectedAreaForAnUnknownDesignPointIsNotSilentlyIgnored) {
+    expect_refused(
+        "dem_expected_area_unknown", "run",
+        [](auto &p) {
+            p.methods_extra = "\n[[methods.point]]\nid = \"DP-UPP\"\n"
+                              "expected_area_ha = 6.2\n";
+        },
+        {"[[methods.point]] expected_area_ha", "design point 'DP-UPP'", "(did you mean 'DP-UP'?)"});
+}
+
 TEST(DemRunSnap, AnExpectedAreaInTheDesignPointLayerIsCheckedToo) {
     using S = t::DemProjectSpec;
     expect_refused(
