@@ -538,6 +538,9 @@ Json point_json(const DelineateOptions &options, const Delineation &d, std::size
     j["min_area_within_radius_m2"] = p.min_area_within_radius_m2;
     j["max_area_within_radius_m2"] = p.max_area_within_radius_m2;
     j["no_stream_within_radius"] = p.no_stream_within_radius;
+    // The layer's expected area, for the engineer to compare (a project run checks it).
+    const auto &expected = d.given_points[i].expected_area_m2;
+    j["expected_area_m2"] = expected ? Json(*expected) : Json(nullptr);
     std::vector<std::string> warnings = p.warnings;
     for (auto &w : snap_warnings(options, p)) {
         warnings.push_back(std::move(w));

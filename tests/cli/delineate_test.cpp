@@ -412,6 +412,7 @@ TEST(DelineateSnap, NearestStreamByDefaultMovesThePointStraightOntoTheChannel) {
     // The figures of the snap are in the file, and the move onto the channel is warned of.
     EXPECT_LT(dp1.at("given_cell_area_m2").get<double>(), 1.0e4);
     EXPECT_GE(dp1.at("max_area_within_radius_m2").get<double>(), dp1.at("area_m2").get<double>());
+    EXPECT_TRUE(dp1.at("expected_area_m2").is_null()); // the layer has no such field
     EXPECT_NE(err.str().find("design point 'DP-1': the snap moved the point 12.0 m to the west"),
               std::string::npos)
         << err.str();
