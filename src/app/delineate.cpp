@@ -1,8 +1,10 @@
 // SPDX-License-Identifier: MIT
 #include "catchpeak/app/delineate.hpp"
 
+#include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/core/spelling.hpp"
 #include "catchpeak/core/threads.hpp"
 #include "catchpeak/io/gpkg.hpp"
 #include "catchpeak/io/polygonize.hpp"
@@ -29,8 +31,16 @@ using Json = nlohmann::ordered_json;
 
 void check_options(const DelineateOptions &o) {
     if (!std::isfinite(o.snap_radius_m) || o.snap_radius_m < 0.0) {
-        throw_input_error("--snap-radius", fmt::format("{} m", o.snap_radius_m),
+        throw_input_error(o.snap_radius_key, fmt::format("{} m", o.snap_radius_m),
                           "a distance in metres >= 0");
+    }
+    if (!std::isfinite(o.snap_area_factor) || o.snap_area_factor <= 1.0) {
+        throw_input_error("--snap-area-factor", fmt::format("{}", o.snap_area_factor),
+                          "a factor > 1");
+    }
+    if (!std::isfinite(o.snap_stream_threshold_m2) || o.snap_stream_threshold_m2 < 0.0) {
+        throw_input_error("--snap-stream-threshold",
+                          fmt::format("{} m2", o.snap_stream_threshold_m2), "an area in m2 >= 0");
     }
     if (!std::isfinite(o.stream_threshold_m2) || o.stream_threshold_m2 < 0.0) {
         throw_input_error("--stream-threshold", fmt::format("{} m2", o.stream_threshold_m2),
@@ -80,7 +90,7 @@ void read_dem_into(const DelineateOptions &options, Delineation &out) {
     const double extent_y_m = static_cast<double>(grid.height()) * grid.transform.cell_dy();
     const double max_radius_m = 0.5 * std::min(extent_x_m, extent_y_m);
     if (options.snap_radius_m > max_radius_m) {
-        throw_input_error("--snap-radius",
+        throw_input_error(options.snap_radius_key,
                           fmt::format("{} m is more than half the DEM's extent ({:.1f} m x "
                                       "{:.1f} m in {})",
                                       options.snap_radius_m, extent_x_m, extent_y_m,
@@ -342,6 +352,9 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
 
     terrain::TerrainSettings settings;
     settings.snap_radius_m = options.snap_radius_m;
+    settings.snap_rule = options.snap_rule;
+    settings.snap_stream_threshold_m2 = options.snap_stream_threshold_m2;
+    settings.snap_radius_key = options.snap_radius_key;
     settings.stream_threshold_m2 = options.stream_threshold_m2;
     settings.threads = options.threads;
     std::string current_step;
@@ -355,6 +368,8 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
         },
         points.source);
     out.points_source = points.source;
+    out.given_points = points.points;
+    out.expected_area_field = points.expected_area_field;
     const terrain::TerrainResult &result = out.result;
 
     bar.start("polygonizing catchments");
@@ -384,6 +399,26 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
     out.all_upstream = std::move(all_up);
     bar.finish();
     return out;
+}
+
+SnapRule snap_rule_option(const std::string &text) {
+    if (const auto rule = find_option(snap_rule_options, text)) {
+        return *rule;
+    }
+    const std::vector<std::string> keys = option_keys(snap_rule_options);
+    const std::string hint = closest_match(text, keys);
+    throw_input_error("--snap",
+                      fmt::format("'{}' is not known{}", text,
+                                  hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                      fmt::format("one of {}", fmt::join(keys, ", ")));
+}
+
+SnapChecks snap_checks(const terrain::DesignPointTerrain &p, double area_factor) {
+    SnapChecks c;
+    c.no_stream = p.no_stream_within_radius;
+    c.grew = p.accumulation_m2 > area_factor * p.given_cell_area_m2;
+    c.spread = p.max_area_within_radius_m2 > area_factor * p.min_area_within_radius_m2;
+    return c;
 }
 
 std::string design_points_named(const io::DesignPointLayer &points) {
@@ -421,6 +456,104 @@ void require_over_dem(const std::optional<io::Extent> &layer, const io::Extent &
                       "than its file declares (declare the right one, or reproject it)");
 }
 
+namespace {
+
+/// The warnings of one design point's snap, for `delineate` (areas in m2 and ha).
+std::vector<std::string> snap_warnings(const DelineateOptions &o,
+                                       const terrain::DesignPointTerrain &p) {
+    const auto area = [](double m2) { return fmt::format("{:.1f} m2 ({} ha)", m2, sig(m2 / 1e4)); };
+    const SnapChecks c = snap_checks(p, o.snap_area_factor);
+    std::vector<std::string> out;
+    if (c.no_stream) {
+        out.push_back(fmt::format(
+            "no cell draining at least {} (--snap-stream-threshold) lies within {} m ({}); the "
+            "point stays on the cell under it, whose catchment is {}: check that it lies on the "
+            "intended channel",
+            area(o.snap_stream_threshold_m2), o.snap_radius_m, o.snap_radius_key,
+            area(p.accumulation_m2)));
+    }
+    if (c.grew) {
+        const std::string dir =
+            terrain::compass_direction(p.snapped_x - p.given_x, p.snapped_y - p.given_y);
+        out.push_back(fmt::format(
+            "the snap moved the point {:.1f} m{} to a catchment of {}, more than {} times the {} "
+            "of the cell under the given point (--snap-area-factor): check that the snapped cell "
+            "lies on the intended channel (--snap, --snap-radius)",
+            p.snap_distance_m, dir.empty() ? "" : " to the " + dir, area(p.accumulation_m2),
+            sig(o.snap_area_factor), area(p.given_cell_area_m2)));
+    }
+    if (c.spread) {
+        out.push_back(fmt::format(
+            "the cells within {} m ({}) drain from {} to {}, more than {} times apart "
+            "(--snap-area-factor): the catchment depends on where within the radius the point "
+            "lies",
+            o.snap_radius_m, o.snap_radius_key, area(p.min_area_within_radius_m2),
+            area(p.max_area_within_radius_m2), sig(o.snap_area_factor)));
+    }
+    return out;
+}
+
+/// One design point of catchments.json; its warnings are added to `all_warnings` too.
+Json point_json(const DelineateOptions &options, const Delineation &d, std::size_t i,
+                std::vector<std::string> &all_warnings) {
+    const auto &result = d.result;
+    const auto &all_up = d.all_upstream;
+    const auto &p = result.points[i];
+    const auto &fp = p.longest_flow_path;
+    Json j;
+    j["id"] = p.id;
+    j["given_x_m"] = p.given_x;
+    j["given_y_m"] = p.given_y;
+    j["snapped_x_m"] = p.snapped_x;
+    j["snapped_y_m"] = p.snapped_y;
+    j["snap_distance_m"] = p.snap_distance_m;
+    j["accumulation_cells"] = p.accumulation;
+    j["accumulation_m2"] = p.accumulation_m2;
+    j["total_cells"] = p.total_cells;
+    j["area_m2"] = p.area_m2;
+    j["local_cells"] = p.local_cells;
+    j["local_area_m2"] = p.local_area_m2;
+    j["longest_flow_path_m"] = fp.length_m;
+    j["elevation_top_m"] = fp.elevation_top_m;
+    j["elevation_outlet_m"] = fp.elevation_outlet_m;
+    j["slope_flow_path_m_per_m"] = fp.slope_m_per_m;
+    j["elevation_10_m"] = fp.elevation_10_m;
+    j["elevation_85_m"] = fp.elevation_85_m;
+    j["slope_10_85_m_per_m"] = fp.slope_10_85_m_per_m;
+    j["mean_slope_m_per_m"] = p.mean_slope_m_per_m;
+    j["touches_dem_edge"] = p.touches_dem_edge;
+    j["downstream_design_point"] =
+        p.downstream_point ? Json(result.points[*p.downstream_point].id) : Json(nullptr);
+    Json up = Json::array();
+    for (auto k : p.upstream_points) {
+        up.push_back(result.points[k].id);
+    }
+    j["upstream_design_points"] = up;
+    Json all = Json::array();
+    for (auto k : all_up[i]) {
+        all.push_back(result.points[k].id);
+    }
+    j["all_upstream_design_points"] = all;
+    j["given_cell_area_m2"] = p.given_cell_area_m2;
+    j["min_area_within_radius_m2"] = p.min_area_within_radius_m2;
+    j["max_area_within_radius_m2"] = p.max_area_within_radius_m2;
+    j["no_stream_within_radius"] = p.no_stream_within_radius;
+    // The layer's expected area, for the engineer to compare (a project run checks it).
+    const auto &expected = d.given_points[i].expected_area_m2;
+    j["expected_area_m2"] = expected ? Json(*expected) : Json(nullptr);
+    std::vector<std::string> warnings = p.warnings;
+    for (auto &w : snap_warnings(options, p)) {
+        warnings.push_back(std::move(w));
+    }
+    j["warnings"] = warnings;
+    for (const auto &w : warnings) {
+        all_warnings.push_back(fmt::format("design point '{}': {}", p.id, w));
+    }
+    return j;
+}
+
+} // namespace
+
 DelineateSummary delineate(const DelineateOptions &options, std::ostream *progress) {
     DelineateSummary summary;
     // Temporary files a delineation killed while writing left behind.
@@ -433,9 +566,7 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
     summary.notes.insert(summary.notes.end(), d.notes.begin(), d.notes.end());
     const auto &grid = d.dem.elevation_m;
     const auto &dem = d.dem;
-    const auto &result = d.result;
-    const auto &all_up = d.all_upstream;
-    const std::size_t n = result.points.size();
+    const std::size_t n = d.result.points.size();
     // catchments.json
     Json doc;
     doc["dem_file"] = options.dem.string();
@@ -451,51 +582,14 @@ DelineateSummary delineate(const DelineateOptions &options, std::ostream *progre
     doc["breach_lines_file"] =
         options.breach_lines ? Json(options.breach_lines->string()) : Json(nullptr);
     doc["snap_radius_m"] = options.snap_radius_m;
+    doc["snap_rule"] = option_key(snap_rule_options, options.snap_rule);
+    doc["snap_stream_threshold_m2"] = options.snap_stream_threshold_m2;
+    doc["snap_area_factor"] = options.snap_area_factor;
     doc["stream_threshold_m2"] = options.stream_threshold_m2;
     doc["notes"] = summary.notes;
     Json list = Json::array();
     for (std::size_t i = 0; i < n; ++i) {
-        const auto &p = result.points[i];
-        const auto &fp = p.longest_flow_path;
-        Json j;
-        j["id"] = p.id;
-        j["given_x_m"] = p.given_x;
-        j["given_y_m"] = p.given_y;
-        j["snapped_x_m"] = p.snapped_x;
-        j["snapped_y_m"] = p.snapped_y;
-        j["snap_distance_m"] = p.snap_distance_m;
-        j["accumulation_cells"] = p.accumulation;
-        j["accumulation_m2"] = p.accumulation_m2;
-        j["total_cells"] = p.total_cells;
-        j["area_m2"] = p.area_m2;
-        j["local_cells"] = p.local_cells;
-        j["local_area_m2"] = p.local_area_m2;
-        j["longest_flow_path_m"] = fp.length_m;
-        j["elevation_top_m"] = fp.elevation_top_m;
-        j["elevation_outlet_m"] = fp.elevation_outlet_m;
-        j["slope_flow_path_m_per_m"] = fp.slope_m_per_m;
-        j["elevation_10_m"] = fp.elevation_10_m;
-        j["elevation_85_m"] = fp.elevation_85_m;
-        j["slope_10_85_m_per_m"] = fp.slope_10_85_m_per_m;
-        j["mean_slope_m_per_m"] = p.mean_slope_m_per_m;
-        j["touches_dem_edge"] = p.touches_dem_edge;
-        j["downstream_design_point"] =
-            p.downstream_point ? Json(result.points[*p.downstream_point].id) : Json(nullptr);
-        Json up = Json::array();
-        for (auto k : p.upstream_points) {
-            up.push_back(result.points[k].id);
-        }
-        j["upstream_design_points"] = up;
-        Json all = Json::array();
-        for (auto k : all_up[i]) {
-            all.push_back(result.points[k].id);
-        }
-        j["all_upstream_design_points"] = all;
-        j["warnings"] = p.warnings;
-        for (const auto &w : p.warnings) {
-            summary.warnings.push_back(fmt::format("design point '{}': {}", p.id, w));
-        }
-        list.push_back(std::move(j));
+        list.push_back(point_json(options, d, i, summary.warnings));
     }
     doc["design_points"] = std::move(list);
     const std::string json_text = doc.dump(2) + "\n";

@@ -6,6 +6,7 @@
 #include "catchpeak/app/land_inputs.hpp"
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/spelling.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/io/raster.hpp"
 #include "catchpeak/io/vector.hpp"
@@ -18,6 +19,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
+#include <functional>
 #include <limits>
 #include <map>
 #include <numbers>
@@ -231,11 +233,61 @@ constexpr std::string_view dem_where = "DEM as given (before conditioning)";
 constexpr Formula point_given{
     "terrain.point_given",          "Design point as given", "",
     "x = {x} {x:u}, y = {y} {y:u}", Ref::project_input,      " ({points})"};
-constexpr Formula point_snapped{
+// One label per snap rule ([settings] snap), the same key and numbers.
+constexpr std::string_view snapped_numbers = "x = {x} {x:u}, y = {y} {y:u}; moved {d} {d:u}{dir}";
+constexpr Formula point_snapped_nearest{
+    "terrain.point_snapped",
+    "Design point snapped to the nearest stream cell within the snap radius",
+    "",
+    snapped_numbers,
+    Ref::none,
+    d8_where};
+constexpr Formula point_snapped_largest{
     "terrain.point_snapped",
     "Design point snapped to the cell of largest flow accumulation within the snap radius",
     "",
-    "x = {x} {x:u}, y = {y} {y:u}; moved {d} {d:u}",
+    snapped_numbers,
+    Ref::none,
+    d8_where};
+constexpr Formula point_not_snapped{"terrain.point_snapped",
+                                    "Design point kept on the cell under it (not snapped)",
+                                    "",
+                                    snapped_numbers,
+                                    Ref::none,
+                                    d8_where};
+constexpr Formula snap_areas_note{
+    "terrain.snap_areas",
+    "Catchments around the design point (flow accumulation)",
+    "",
+    "cell under the given point {Ag} {Ag:u}; snapped cell {As} {As:u}; cells within r = {r} "
+    "{r:u}: smallest {Amin} {Amin:u}, largest {Amax} {Amax:u}",
+    Ref::none,
+    d8_where};
+constexpr Formula snap_no_stream_warning{
+    "terrain.snap_no_stream",
+    "No stream cell within the snap radius",
+    "",
+    "no cell draining at least {T} {T:u} ([settings] snap_stream_threshold_m2) lies within {r} "
+    "{r:u} ([settings] snap_radius_m) of the given point; the point stays on the cell under it, "
+    "whose catchment is {A} {A:u}: check that it lies on the intended channel",
+    Ref::none,
+    d8_where};
+constexpr Formula snap_grew_warning{
+    "terrain.snap_grew",
+    "Snapped catchment much larger than at the given point",
+    "",
+    "the snap moved the point {d} {d:u}{dir} to a catchment of {As} {As:u}, more than {k} times "
+    "the {Ag} {Ag:u} of the cell under the given point ([settings] snap_area_factor = {k}): "
+    "check that the snapped cell lies on the intended channel ([settings] snap, snap_radius_m)",
+    Ref::none,
+    d8_where};
+constexpr Formula snap_spread_warning{
+    "terrain.snap_spread",
+    "Catchments within the snap radius differ widely",
+    "",
+    "the cells within {r} {r:u} ([settings] snap_radius_m) drain from {Amin} {Amin:u} to {Amax} "
+    "{Amax:u}, more than {k} times apart ([settings] snap_area_factor = {k}): the catchment "
+    "depends on where within the radius the point lies; check the snapped cell on the map",
     Ref::none,
     d8_where};
 constexpr Formula area_note{
@@ -387,6 +439,53 @@ Unit crs_unit(const std::string &horizontal_unit) {
                                                      : Unit::m;
 }
 
+/// " to the north-east" for a move from the given point to the snapped cell; "" for none.
+std::string move_direction(const terrain::DesignPointTerrain &pt) {
+    const std::string dir =
+        terrain::compass_direction(pt.snapped_x - pt.given_x, pt.snapped_y - pt.given_y);
+    return dir.empty() ? dir : " to the " + dir;
+}
+
+/// The snap of one design point: where it moved, the catchments around it, and the warnings
+/// when the snap or the point's place within the radius changes the catchment a lot.
+void add_snap_lines(CalcLines &lines, const Project &p, const terrain::DesignPointTerrain &pt,
+                    const std::function<Quantity(std::string, double)> &coord) {
+    const bool us = p.info.units == units::System::us_customary;
+    const auto len = [&](std::string symbol, double m) {
+        return us ? qty(std::move(symbol), units::m_to_ft(m), Unit::ft)
+                  : qty(std::move(symbol), m, Unit::m);
+    };
+    const auto area = [&](std::string symbol, double m2) {
+        return us ? qty(std::move(symbol), units::m2_to_acre(m2), Unit::ac)
+                  : qty(std::move(symbol), units::m2_to_ha(m2), Unit::ha);
+    };
+    const auto &s = p.settings;
+    const Formula &moved = s.snap == SnapRule::nearest_stream ? point_snapped_nearest
+                           : s.snap == SnapRule::largest_flow ? point_snapped_largest
+                                                              : point_not_snapped;
+    const Quantity dir = word("dir", move_direction(pt));
+    lines.note(moved, {coord("x", pt.snapped_x), coord("y", pt.snapped_y), dir},
+               len("d", pt.snap_distance_m));
+    const Quantity given = area("Ag", pt.given_cell_area_m2);
+    const Quantity snapped = area("As", pt.accumulation_m2);
+    const Quantity smallest = area("Amin", pt.min_area_within_radius_m2);
+    const Quantity largest = area("Amax", pt.max_area_within_radius_m2);
+    const Quantity radius = len("r", s.snap_radius_m);
+    const Quantity factor = qty("k", s.snap_area_factor, Unit::none, Shown::exact());
+    lines.note(snap_areas_note, {given, snapped, radius, smallest, largest});
+    const SnapChecks checks = snap_checks(pt, s.snap_area_factor);
+    if (checks.no_stream) {
+        lines.warn(snap_no_stream_warning,
+                   {area("T", s.snap_stream_threshold_m2), radius, area("A", pt.accumulation_m2)});
+    }
+    if (checks.grew) {
+        lines.warn(snap_grew_warning, {len("d", pt.snap_distance_m), dir, snapped, factor, given});
+    }
+    if (checks.spread) {
+        lines.warn(snap_spread_warning, {radius, smallest, largest, factor});
+    }
+}
+
 /// The lines of the terrain figures of one design point (not numbered yet).
 CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
     const bool us = p.info.units == units::System::us_customary;
@@ -410,8 +509,7 @@ CalcLines terrain_lines(const Project &p, const Delineation &d, std::size_t i) {
     };
     lines.note(point_given, {coord("x", pt.given_x), coord("y", pt.given_y),
                              word("points", p.inputs.design_points->given)});
-    lines.note(point_snapped, {coord("x", pt.snapped_x), coord("y", pt.snapped_y)},
-               len("d", pt.snap_distance_m));
+    add_snap_lines(lines, p, pt, coord);
     lines.note(area_note, {}, area("A", pt.area_m2));
     if (!pt.upstream_points.empty()) {
         std::vector<std::vector<Quantity>> upstream;
@@ -450,6 +548,108 @@ std::vector<report::Reference> terrain_references() {
     };
 }
 
+/// "project.toml:45: [settings] snap_radius_m" (no line when the key is not given).
+std::string settings_key(const Project &p, std::string_view key, std::size_t line) {
+    return line == 0 ? fmt::format("{}: [settings] {}", p.file.string(), key)
+                     : fmt::format("{}:{}: [settings] {}", p.file.string(), line, key);
+}
+
+/// The figures of one design point's snap, for results.json and the sheet.
+report::SnapFigures snap_figures(const Project &p, const terrain::DesignPointTerrain &pt) {
+    report::SnapFigures f;
+    f.rule = p.settings.snap;
+    f.radius_m = p.settings.snap_radius_m;
+    f.stream_threshold_m2 = p.settings.snap_stream_threshold_m2;
+    f.given_cell_area_m2 = pt.given_cell_area_m2;
+    f.snapped_area_m2 = pt.accumulation_m2;
+    f.min_area_within_radius_m2 = pt.min_area_within_radius_m2;
+    f.max_area_within_radius_m2 = pt.max_area_within_radius_m2;
+    f.no_stream_within_radius = pt.no_stream_within_radius;
+    f.direction = terrain::compass_direction(pt.snapped_x - pt.given_x, pt.snapped_y - pt.given_y);
+    f.area_factor = p.settings.snap_area_factor;
+    return f;
+}
+
+/// An area the engineer expects for a design point, and where it is given.
+struct ExpectedArea {
+    std::string id;
+    double area_m2 = 0.0;
+    std::string where; ///< for the message: the key or field with its file and line or feature
+    std::string key;   ///< the key or field alone
+};
+
+/// Every expected area: from [[methods.point]] and from the design point layer's field.
+std::vector<ExpectedArea> expected_areas(const Project &p, const Delineation &d) {
+    std::vector<ExpectedArea> out;
+    for (const auto &o : p.methods.points) {
+        if (o.expected_area_m2) {
+            out.push_back({o.id, *o.expected_area_m2,
+                           fmt::format("{}:{}: [[methods.point]] {}", p.file.string(), o.line,
+                                       o.expected_area_key),
+                           o.expected_area_key});
+        }
+    }
+    for (const auto &pt : d.given_points) {
+        if (pt.expected_area_m2) {
+            out.push_back({pt.id, *pt.expected_area_m2,
+                           fmt::format("{}: feature {}: field '{}'", d.points_source, pt.fid,
+                                       d.expected_area_field),
+                           d.expected_area_field});
+        }
+    }
+    return out;
+}
+
+/// Refuses (all at once) the design points whose delineated catchment lies outside [settings]
+/// expected_area_tolerance_percent of an area the project expects.
+void check_expected_areas(const Project &p, const Delineation &d) {
+    const bool us = p.info.units == units::System::us_customary;
+    const auto area = [&](double m2) {
+        return us ? fmt::format("{} ac", sig(units::m2_to_acre(m2)))
+                  : fmt::format("{} ha", sig(units::m2_to_ha(m2)));
+    };
+    const auto length = [&](double m) {
+        return us ? fmt::format("{:.1f} ft", units::m_to_ft(m)) : fmt::format("{:.1f} m", m);
+    };
+    const double tol = p.settings.expected_area_tolerance_percent;
+    Problems problems;
+    for (const ExpectedArea &e : expected_areas(p, d)) {
+        const auto it = std::find_if(d.result.points.begin(), d.result.points.end(),
+                                     [&](const auto &pt) { return pt.id == e.id; });
+        if (it == d.result.points.end()) { // never silently unchecked
+            std::vector<std::string> ids;
+            for (const auto &pt : d.result.points) {
+                ids.push_back(pt.id);
+            }
+            const std::string hint = closest_match(e.id, ids);
+            problems.add(input_message(
+                e.where,
+                fmt::format("an expected area is given for design point '{}', which is not in "
+                            "{}{}",
+                            e.id, d.points_source,
+                            hint.empty() ? "" : fmt::format(" (did you mean '{}'?)", hint)),
+                "the id of a design point of [inputs] design_points"));
+            continue;
+        }
+        if (std::abs(it->area_m2 - e.area_m2) <= tol / 100.0 * e.area_m2) {
+            continue;
+        }
+        problems.add(input_message(
+            e.where,
+            fmt::format("design point '{}': the delineated catchment is {}, {} than the expected "
+                        "{} by more than {} % ([settings] expected_area_tolerance_percent); the "
+                        "point was snapped {}{} ([settings] snap = \"{}\")",
+                        e.id, area(it->area_m2), it->area_m2 > e.area_m2 ? "larger" : "smaller",
+                        area(e.area_m2), tol, length(it->snap_distance_m), move_direction(*it),
+                        option_key(snap_rule_options, p.settings.snap)),
+            fmt::format("a catchment from {} to {}: check the point's location and [settings] "
+                        "snap and snap_radius_m, or correct {}",
+                        area(std::max(0.0, e.area_m2 * (1.0 - tol / 100.0))),
+                        area(e.area_m2 * (1.0 + tol / 100.0)), e.key)));
+    }
+    problems.throw_if_any();
+}
+
 } // namespace
 
 DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
@@ -461,11 +661,16 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
     o.id_field = p.inputs.id_field;
     o.points_crs = declared_points_crs(p);
     o.snap_radius_m = p.settings.snap_radius_m;
+    o.snap_rule = p.settings.snap;
+    o.snap_stream_threshold_m2 = p.settings.snap_stream_threshold_m2;
+    o.snap_area_factor = p.settings.snap_area_factor;
+    o.snap_radius_key = settings_key(p, "snap_radius_m", p.settings.snap_radius_line);
     o.out_dir = p.output_dir; // not written to: delineate_catchments writes nothing
     if (p.inputs.breach_lines) {
         o.breach_lines = p.inputs.breach_lines->resolved;
     }
     const Delineation d = delineate_catchments(o, progress);
+    check_expected_areas(p, d);
     const std::string &crs = d.dem.elevation_m.crs_wkt;
 
     if (progress != nullptr) {
@@ -495,6 +700,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         dp.given_xy = {pt.given_x, pt.given_y};
         dp.snapped_xy = {pt.snapped_x, pt.snapped_y};
         dp.snap_distance_m = pt.snap_distance_m;
+        dp.snap = snap_figures(p, pt);
         dp.catchment.area_m2 = pt.area_m2;
         dp.catchment.local_area_m2 = pt.local_area_m2;
         dp.catchment.longest_flow_path_m = fp.length_m;

@@ -5,6 +5,7 @@
 #include "catchpeak/app/pipeline.hpp"
 #include "catchpeak/app/recheck.hpp"
 #include "catchpeak/core/error.hpp"
+#include "catchpeak/core/snap_rule.hpp"
 #include "catchpeak/core/spelling.hpp"
 #include "catchpeak/core/version.hpp"
 
@@ -54,6 +55,7 @@ struct Commands {
     std::string recheck_dir;
     std::string recheck_project;
     app::DelineateOptions delineate_options;
+    std::string delineate_snap{option_key(snap_rule_options, SnapRule::nearest_stream)};
     bool delineate_quiet = false;
 };
 
@@ -127,6 +129,26 @@ void add_recheck_command(CLI::App &app, Commands &c, std::ostream &out) {
 
 /// Takes the application and the commands' values; adds the subcommand "delineate", setting
 /// c.action.
+/// The snapping options of `delineate`.
+void add_snap_options(CLI::App &delineate, Commands &c) {
+    app::DelineateOptions &o = c.delineate_options;
+    delineate.add_option("--snap", c.delineate_snap,
+                         "How a point moves: nearest_stream (the nearest cell draining at least "
+                         "--snap-stream-threshold), largest_flow (the cell of largest flow "
+                         "accumulation) or none (the cell under it); default nearest_stream");
+    delineate
+        .add_option("--snap-stream-threshold", o.snap_stream_threshold_m2,
+                    "M2: with --snap nearest_stream, cells draining at least this area are "
+                    "streams")
+        ->capture_default_str();
+    delineate
+        .add_option("--snap-area-factor", o.snap_area_factor,
+                    "Warn when the snapped catchment is more than this many times the "
+                    "catchment of the cell under the point, or when the catchments within the "
+                    "radius differ more")
+        ->capture_default_str();
+}
+
 void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::ostream &err) {
     app::DelineateOptions &o = c.delineate_options;
     auto *delineate = app.add_subcommand(
@@ -149,9 +171,9 @@ void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::o
     o.points_crs.where = "--points-crs";
     delineate
         ->add_option("--snap-radius", o.snap_radius_m,
-                     "Metres: each point moves to the cell of largest flow accumulation "
-                     "within this distance")
+                     "Metres: each point may move within this distance (see --snap)")
         ->required();
+    add_snap_options(*delineate, c);
     delineate->add_option("--out", o.out_dir, "Folder to write the results to")->required();
     delineate->add_option("--breach-lines", o.breach_lines,
                           "Lines (culverts under embankments) along which the DEM is lowered");
@@ -162,6 +184,7 @@ void add_delineate_command(CLI::App &app, Commands &c, std::ostream &out, std::o
     delineate->add_flag("--quiet", c.delineate_quiet, "No progress on stderr");
     delineate->callback([&c, &out, &err] {
         c.action = [&c, &out, &err] {
+            c.delineate_options.snap_rule = app::snap_rule_option(c.delineate_snap);
             const auto summary =
                 app::delineate(c.delineate_options, c.delineate_quiet ? nullptr : &err);
             if (!c.delineate_quiet) {

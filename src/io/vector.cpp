@@ -4,11 +4,13 @@
 #include "catchpeak/core/csv.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/core/units.hpp"
 #include "gdal_handles.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <cmath>
 #include <map>
 #include <optional>
 #include <set>
@@ -304,6 +306,58 @@ VectorLayer read_vector_layer(const std::filesystem::path &path, const std::stri
     return out;
 }
 
+namespace {
+
+/// The field of expected catchment areas of a design point layer, its index (-1: none) and
+/// m2 per its unit; throws when the layer has both.
+struct ExpectedAreaField {
+    std::string name;
+    int index = -1;
+    double m2_per_unit = 1.0;
+};
+
+ExpectedAreaField expected_area_field(const OpenLayer &l) {
+    ExpectedAreaField out;
+    for (const auto &[name, m2] :
+         {std::pair<std::string, double>{"expected_area_ha", units::m2_per_ha},
+          {"expected_area_ac", units::m2_per_acre}}) {
+        const int index = l.layer->GetLayerDefn()->GetFieldIndex(name.c_str());
+        if (index < 0) {
+            continue;
+        }
+        if (out.index >= 0) {
+            throw_input_error(l.source, "has both fields 'expected_area_ha' and 'expected_area_ac'",
+                              "one field of expected catchment areas, in ha or in ac");
+        }
+        out = {name, index, m2};
+    }
+    return out;
+}
+
+/// The expected area of one feature, m2; none when the field is empty.
+std::optional<double> expected_area_of(OGRFeature &f, const ExpectedAreaField &field,
+                                       const std::string &where) {
+    if (field.index < 0) {
+        return std::nullopt;
+    }
+    const std::string text = text_of(f, field.index);
+    if (text.empty()) {
+        return std::nullopt;
+    }
+    double v = std::nan("");
+    try {
+        v = parse_number(text, field.name);
+    } catch (const InputError &) {
+    }
+    if (!(std::isfinite(v) && v > 0.0)) {
+        throw_input_error(where, fmt::format("field '{}' holds '{}'", field.name, text),
+                          "an area > 0 (or nothing, for no expected area)");
+    }
+    return v * field.m2_per_unit;
+}
+
+} // namespace
+
 DesignPointLayer read_design_points(const std::filesystem::path &path, const std::string &id_field,
                                     const std::string &target_crs_wkt,
                                     const DeclaredCrs &declared) {
@@ -314,6 +368,8 @@ DesignPointLayer read_design_points(const std::filesystem::path &path, const std
     out.crs_wkt = l.crs_wkt;
     out.notes = l.notes;
     out.reprojection = l.reprojection;
+    const ExpectedAreaField expected = expected_area_field(l);
+    out.expected_area_field = expected.name;
     std::map<std::string, std::int64_t> seen;
     l.layer->ResetReading();
     for (auto &f : *l.layer) {
@@ -348,7 +404,8 @@ DesignPointLayer read_design_points(const std::filesystem::path &path, const std
                               "Point geometries (or a MultiPoint of one point)");
         }
         grow(out.extent, *p);
-        out.points.push_back(DesignPoint{id, p->getX(), p->getY(), fid});
+        out.points.push_back(
+            DesignPoint{id, p->getX(), p->getY(), fid, expected_area_of(*f, expected, dp_where)});
     }
     if (out.points.empty()) {
         throw_input_error(l.source, "holds no design point (the layer is empty)",

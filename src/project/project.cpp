@@ -5,6 +5,7 @@
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
 #include "catchpeak/core/limits.hpp"
+#include "catchpeak/core/units.hpp"
 
 #include <fmt/format.h>
 #include <toml++/toml.h>
@@ -521,6 +522,25 @@ void read_kerby(TableReader &t, KerbyParameters &k) {
     k.retardance_n = t.number("retardance_n", 0.0, 1.0, false).value_or(k.retardance_n);
 }
 
+/// A point's expected catchment area: expected_area_ha or expected_area_ac, not both.
+void read_expected_area(TableReader &t, PointOverride &o) {
+    for (const auto &[key, m2_per_unit] :
+         {std::pair<std::string, double>{"expected_area_ha", units::m2_per_ha},
+          {"expected_area_ac", units::m2_per_acre}}) {
+        const auto v = t.number(key, 0.0, 1.0e9, false);
+        if (!v) {
+            continue;
+        }
+        if (o.expected_area_m2) {
+            t.problem(*t.get(key), key, "an expected area is given twice",
+                      "either 'expected_area_ha' or 'expected_area_ac'");
+            continue;
+        }
+        o.expected_area_m2 = *v * m2_per_unit;
+        o.expected_area_key = key;
+    }
+}
+
 void read_methods(TableReader &t, const Project &p, Methods &m, Problems &problems) {
     if (auto v = t.choice("tc", tc_method_options)) {
         m.tc_method = *v;
@@ -575,6 +595,13 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                 read_segmental(pt, o.tr55_segmental);
                 o.kerby_kirpich = m.kerby_kirpich;
                 read_kerby(pt, o.kerby_kirpich);
+                read_expected_area(pt, o);
+                if (o.expected_area_m2 && p.uses_table()) {
+                    pt.problem(*pt.get(o.expected_area_key), o.expected_area_key,
+                               "an expected area is given for a catchment of the catchment table, "
+                               "whose area is given",
+                               "expected areas for design points of a DEM ([inputs] dem)");
+                }
                 if (o.tc_method == TcMethod::given && !o.tc_min) {
                     pt.missing("tc_min", fmt::format("a time of concentration in minutes with tc = "
                                                      "\"{}\"",
@@ -593,11 +620,19 @@ void read_methods(TableReader &t, const Project &p, Methods &m, Problems &proble
                         key_of(TcMethod::given)),
             "use it in [[methods.point]] with 'tc_min'"));
     }
-    (void)p;
 }
 
 void read_settings(TableReader &t, const Rainfall &rain, Settings &s) {
     s.snap_radius_m = t.number("snap_radius_m", 0.0, 10000.0).value_or(s.snap_radius_m);
+    s.snap_radius_line = t.line_of("snap_radius_m");
+    s.snap = t.choice("snap", snap_rule_options).value_or(s.snap);
+    s.snap_stream_threshold_m2 =
+        t.number("snap_stream_threshold_m2", 0.0, 1.0e10).value_or(s.snap_stream_threshold_m2);
+    s.snap_area_factor =
+        t.number("snap_area_factor", 1.0, 1.0e6, false).value_or(s.snap_area_factor);
+    s.expected_area_tolerance_percent =
+        t.number("expected_area_tolerance_percent", 0.0, 1000.0, false)
+            .value_or(s.expected_area_tolerance_percent);
     s.minimum_tc_min = t.number("minimum_tc_min", 0.0, 60.0).value_or(s.minimum_tc_min);
     s.rational_area_limit_ha =
         t.number("rational_area_limit_ha", 0.0, 1.0e6, false).value_or(s.rational_area_limit_ha);

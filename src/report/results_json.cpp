@@ -186,6 +186,21 @@ Json culvert_json(const CulvertResult &c) {
     return j;
 }
 
+Json snap_json(const SnapFigures &s) {
+    Json j;
+    j["rule"] = option_key(snap_rule_options, s.rule);
+    j["radius_m"] = number(s.radius_m);
+    j["stream_threshold_m2"] = number(s.stream_threshold_m2);
+    j["given_cell_area_m2"] = number(s.given_cell_area_m2);
+    j["snapped_area_m2"] = number(s.snapped_area_m2);
+    j["min_area_within_radius_m2"] = number(s.min_area_within_radius_m2);
+    j["max_area_within_radius_m2"] = number(s.max_area_within_radius_m2);
+    j["no_stream_within_radius"] = s.no_stream_within_radius;
+    j["direction"] = s.direction;
+    j["area_factor"] = number(s.area_factor);
+    return j;
+}
+
 Json point_json(const DesignPointResult &p) {
     Json j;
     j["id"] = p.id;
@@ -194,6 +209,9 @@ Json point_json(const DesignPointResult &p) {
     j["snapped_x_m"] = number(p.snapped_xy.first);
     j["snapped_y_m"] = number(p.snapped_xy.second);
     j["snap_distance_m"] = number(p.snap_distance_m);
+    if (p.snap) { // only design points of a DEM have the member
+        j["snap"] = snap_json(*p.snap);
+    }
     j["catchment_source"] = p.from_table ? "table" : "dem";
     j["catchment"] = catchment_json(p.catchment);
     j["land"] = land_json(p.land);
@@ -442,12 +460,32 @@ CulvertResult parse_culvert(const Reader &r) {
     return c;
 }
 
+SnapFigures parse_snap(const Reader &r) {
+    SnapFigures s;
+    s.rule = r.option("rule", snap_rule_options);
+    using S = SnapFigures;
+    read_members<double>(r, s,
+                         {{"radius_m", &S::radius_m},
+                          {"stream_threshold_m2", &S::stream_threshold_m2},
+                          {"given_cell_area_m2", &S::given_cell_area_m2},
+                          {"snapped_area_m2", &S::snapped_area_m2},
+                          {"min_area_within_radius_m2", &S::min_area_within_radius_m2},
+                          {"max_area_within_radius_m2", &S::max_area_within_radius_m2},
+                          {"area_factor", &S::area_factor}});
+    s.no_stream_within_radius = flag(r, "no_stream_within_radius");
+    s.direction = r.str("direction");
+    return s;
+}
+
 DesignPointResult parse_point(const Reader &r) {
     DesignPointResult p;
     p.id = r.str("id");
     p.given_xy = {r.num("given_x_m"), r.num("given_y_m")};
     p.snapped_xy = {r.num("snapped_x_m"), r.num("snapped_y_m")};
     p.snap_distance_m = r.num("snap_distance_m");
+    if (r.json().contains("snap")) {
+        p.snap = parse_snap(r.object("snap"));
+    }
     const auto source = r.str("catchment_source");
     if (source != "dem" && source != "table") {
         throw_input_error(r.sub("catchment_source"), "unknown value '" + source + "'",

@@ -304,15 +304,39 @@ void calc_lines(const DesignPointResult &p, std::vector<SheetBlock> &out) {
     out.emplace_back(std::move(t));
 }
 
+/// How a design point of a DEM was snapped, after its snap distance: the move's direction,
+/// the rule, and the catchments under the given point, at the snapped cell and within the
+/// radius.
+std::string snap_text(const SnapFigures &s, const Formats &f) {
+    const std::string radius = f.length(s.radius_m);
+    std::string rule;
+    if (s.rule == SnapRule::none) {
+        rule = "not snapped: the cell under the point";
+    } else if (s.no_stream_within_radius) {
+        rule = "no stream cell within " + radius + ": the cell under the point";
+    } else if (s.rule == SnapRule::nearest_stream) {
+        rule = "to the nearest stream cell within " + radius;
+    } else {
+        rule = "to the cell of largest flow accumulation within " + radius;
+    }
+    return fmt::format("{}, {} ([settings] snap = \"{}\"). Catchment of the cell under the "
+                       "given point {}, of the snapped cell {}; within the snap radius smallest "
+                       "{}, largest {}.",
+                       s.direction.empty() ? "" : " to the " + s.direction, rule,
+                       option_key(snap_rule_options, s.rule), f.area(s.given_cell_area_m2),
+                       f.area(s.snapped_area_m2), f.area(s.min_area_within_radius_m2),
+                       f.area(s.max_area_within_radius_m2));
+}
+
 SheetSection design_point(const DesignPointResult &p, const Formats &f) {
     SheetSection s{"Design point " + p.id, {}};
     s.blocks.emplace_back(HeadingBlock{"Design point " + p.id});
     s.blocks.emplace_back(ParagraphBlock{
         esc(fmt::format("Given at ({}, {}); snapped to ({}, {}) (grid coordinates, m); snap "
-                        "distance {}. Catchment {}.",
+                        "distance {}{} Catchment {}.",
                         coord(p.given_xy.first), coord(p.given_xy.second),
                         coord(p.snapped_xy.first), coord(p.snapped_xy.second),
-                        f.length(p.snap_distance_m),
+                        f.length(p.snap_distance_m), p.snap ? snap_text(*p.snap, f) : ".",
                         p.from_table ? "from the catchment table" : "delineated from the DEM")),
         Style::small, style::dark_grey});
     s.blocks.emplace_back(SpaceBlock{style::note_gap_after_pt});

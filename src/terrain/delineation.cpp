@@ -40,13 +40,14 @@ void check_inputs(const Grid<float> &dem, const TerrainSettings &s) {
         throw_input_error("DEM", fmt::format("cell size {} x {} m", dx, dy),
                           "positive, finite cell sizes");
     }
-    const auto check = [](double v, const char *name) {
+    const auto check = [](double v, std::string_view name) {
         if (!std::isfinite(v) || v < 0.0) {
             throw_input_error("terrain settings", fmt::format("{} = {}", name, v),
                               "a finite value >= 0");
         }
     };
-    check(s.snap_radius_m, "snap radius (m)");
+    check(s.snap_radius_m, s.snap_radius_key + " (m)");
+    check(s.snap_stream_threshold_m2, "stream threshold of snapping (m2)");
     check(s.far_snap_warning_m, "far snap warning distance (m)");
     check(s.tiny_catchment_m2, "tiny catchment area (m2)");
     if (!std::isfinite(s.stream_threshold_m2)) {
@@ -120,7 +121,10 @@ Outlets snap_points(const Grid<std::uint32_t> &accumulation, const std::vector<D
     Outlets outlets;
     std::unordered_map<std::size_t, std::uint32_t> label_of_cell;
     for (std::size_t p = 0; p < points.size(); ++p) {
-        const SnappedPoint s = snap_point(accumulation, points[p], settings.snap_radius_m, where);
+        const SnappedPoint s = snap_point(accumulation, points[p],
+                                          SnapSettings{settings.snap_rule, settings.snap_radius_m,
+                                                       settings.snap_stream_threshold_m2},
+                                          where);
         DesignPointTerrain &r = out[p];
         r.id = points[p].id;
         r.given_x = points[p].x;
@@ -131,6 +135,10 @@ Outlets snap_points(const Grid<std::uint32_t> &accumulation, const std::vector<D
         r.cell = s.cell;
         r.accumulation = s.accumulation;
         r.accumulation_m2 = s.accumulation_m2;
+        r.given_cell_area_m2 = s.given_accumulation_m2;
+        r.min_area_within_radius_m2 = s.min_accumulation_m2;
+        r.max_area_within_radius_m2 = s.max_accumulation_m2;
+        r.no_stream_within_radius = s.no_stream_within_radius;
         const auto [it, inserted] =
             label_of_cell.try_emplace(s.cell, static_cast<std::uint32_t>(outlets.cells.size() + 1));
         if (inserted) {

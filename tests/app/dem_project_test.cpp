@@ -10,12 +10,14 @@
 #include "catchpeak/app/sha256.hpp"
 #include "catchpeak/core/error.hpp"
 #include "catchpeak/core/files.hpp"
+#include "catchpeak/report/results_json.hpp"
 #include "support/results_json.hpp"
 #include "support/test_env.hpp"
 
 #include <gtest/gtest.h>
 #include <nlohmann/json.hpp>
 
+#include <cmath>
 #include <fstream>
 #include <map>
 #include <optional>
@@ -184,4 +186,120 @@ TEST(DemProject, ResultsAreTheSameWhateverFolderItRunsFrom) {
     EXPECT_FALSE(a.empty());
     EXPECT_TRUE(a == catchpeak::read_text_file(dir / "by_relative" / "results.json"));
     EXPECT_EQ(a.find(dir.string()), std::string::npos) << "a path of this machine in the results";
+}
+
+namespace {
+
+/// The valley project with one design point given on the cell beside the axis (column 21) at
+/// row 24, a snap radius of 15 m (its 8 neighbours) and the snap rule `rule`.
+/// Hand computation (geometry of dem_project_data.hpp): a cell d columns east of the axis
+/// drains the cells d..15 of its row, 16 - d cells of 100 m2 (cell (21, 24): 1500 m2, (22, r):
+/// 1400 m2); the axis cell of row r drains 31 x (r - 4) cells: row 24 62,000 m2, row 25
+/// 65,100 m2.
+fs::path run_beside_axis(const std::string &scratch, const std::string &rule) {
+    using S = t::DemProjectSpec;
+    t::DemProjectOptions opt;
+    opt.points = {{t::cell_x(S::axis_col + 1), t::cell_y(S::upper_row), "DP-1"}};
+    auto dp = t::dem_project(scratch, opt);
+    dp.settings.set("snap_radius_m", "15.0").text("snap", rule);
+    return run_quiet(dp.write());
+}
+
+/// The warning lines of a design point of results.json, by label.
+std::vector<std::string> warning_numbers(const nlohmann::json &p, const std::string &label) {
+    std::vector<std::string> out;
+    for (const auto &l : p.at("lines")) {
+        if (l.at("kind") == "warning" && l.at("label") == label) {
+            out.push_back(l.at("numbers"));
+        }
+    }
+    return out;
+}
+
+} // namespace
+
+TEST(DemProjectSnap, NearestStreamMovesTheCellBesideTheAxisOntoTheAxis) {
+    const auto doc =
+        read_json(run_beside_axis("dem_snap_nearest", "nearest_stream") / "results.json");
+    const auto &p = point(doc, "DP-1");
+    // Stream cells (>= 1 ha) within 15 m: the axis cells of rows 23 to 25; the nearest is the
+    // axis cell of row 24, 10 m west.
+    EXPECT_NEAR(p.at("catchment").at("area_m2").get<double>(), 62000.0, 1e-6);
+    EXPECT_NEAR(p.at("snap_distance_m").get<double>(), 10.0, 1e-9);
+    const auto &s = p.at("snap");
+    EXPECT_EQ(s.at("rule"), "nearest_stream");
+    EXPECT_EQ(s.at("direction"), "west");
+    EXPECT_NEAR(s.at("given_cell_area_m2").get<double>(), 1500.0, 1e-9);
+    EXPECT_NEAR(s.at("snapped_area_m2").get<double>(), 62000.0, 1e-9);
+    EXPECT_NEAR(s.at("min_area_within_radius_m2").get<double>(), 1400.0, 1e-9);
+    EXPECT_NEAR(s.at("max_area_within_radius_m2").get<double>(), 65100.0, 1e-9);
+    EXPECT_FALSE(s.at("no_stream_within_radius").get<bool>());
+    // 6.2 ha is more than 4 times 0.15 ha: the move is a warning naming both areas, the
+    // distance and the direction.
+    const auto grew = warning_numbers(p, "Snapped catchment much larger than at the given point");
+    ASSERT_EQ(grew.size(), 1u) << p.at("lines").dump(1);
+    EXPECT_NE(grew[0].find("10.00 m to the west"), std::string::npos) << grew[0];
+    EXPECT_NE(grew[0].find("6.200 ha"), std::string::npos) << grew[0];
+    EXPECT_NE(grew[0].find("0.1500 ha"), std::string::npos) << grew[0];
+    EXPECT_NE(grew[0].find("[settings] snap_area_factor"), std::string::npos) << grew[0];
+    // 6.51 ha and 0.14 ha within the radius: more than 4 times apart.
+    const auto spread = warning_numbers(p, "Catchments within the snap radius differ widely");
+    ASSERT_EQ(spread.size(), 1u);
+    EXPECT_NE(spread[0].find("0.1400 ha"), std::string::npos) << spread[0];
+    EXPECT_NE(spread[0].find("6.510 ha"), std::string::npos) << spread[0];
+}
+
+TEST(DemProjectSnap, LargestFlowTakesTheAxisCellDownstream) {
+    const auto doc =
+        read_json(run_beside_axis("dem_snap_largest", "largest_flow") / "results.json");
+    const auto &p = point(doc, "DP-1");
+    // The largest accumulation within 15 m: the axis cell of row 25, 14.14 m south-west.
+    EXPECT_NEAR(p.at("catchment").at("area_m2").get<double>(), 65100.0, 1e-6);
+    EXPECT_NEAR(p.at("snap_distance_m").get<double>(), std::hypot(10.0, 10.0), 1e-9);
+    EXPECT_EQ(p.at("snap").at("direction"), "south-west");
+    EXPECT_EQ(p.at("snap").at("rule"), "largest_flow");
+    const auto grew = warning_numbers(p, "Snapped catchment much larger than at the given point");
+    ASSERT_EQ(grew.size(), 1u);
+    EXPECT_NE(grew[0].find("to the south-west"), std::string::npos) << grew[0];
+}
+
+TEST(DemProjectSnap, NoneKeepsTheCellUnderThePointWithoutTheGrowthWarning) {
+    const auto doc = read_json(run_beside_axis("dem_snap_none", "none") / "results.json");
+    const auto &p = point(doc, "DP-1");
+    EXPECT_NEAR(p.at("catchment").at("area_m2").get<double>(), 1500.0, 1e-6);
+    EXPECT_NEAR(p.at("snap_distance_m").get<double>(), 0.0, 1e-9);
+    EXPECT_EQ(p.at("snap").at("direction"), "");
+    EXPECT_TRUE(
+        warning_numbers(p, "Snapped catchment much larger than at the given point").empty());
+    // The catchments within the radius still differ widely: a warning.
+    EXPECT_EQ(warning_numbers(p, "Catchments within the snap radius differ widely").size(), 1u);
+}
+
+TEST(DemProjectSnap, NoStreamWithinTheRadiusKeepsTheCellWithAWarningNamingTheKeys) {
+    // Radius 5 m reaches no other cell centre: the cell beside the axis (0.15 ha) is no
+    // stream (< 1 ha), so the point stays there, with a warning.
+    using S = t::DemProjectSpec;
+    t::DemProjectOptions opt;
+    opt.points = {{t::cell_x(S::axis_col + 1), t::cell_y(S::upper_row), "DP-1"}};
+    auto dp = t::dem_project("dem_snap_no_stream", opt);
+    const auto doc = read_json(run_quiet(dp.write()) / "results.json");
+    const auto &p = point(doc, "DP-1");
+    EXPECT_NEAR(p.at("catchment").at("area_m2").get<double>(), 1500.0, 1e-6);
+    EXPECT_TRUE(p.at("snap").at("no_stream_within_radius").get<bool>());
+    const auto w = warning_numbers(p, "No stream cell within the snap radius");
+    ASSERT_EQ(w.size(), 1u) << p.at("lines").dump(1);
+    EXPECT_NE(w[0].find("[settings] snap_radius_m"), std::string::npos) << w[0];
+    EXPECT_NE(w[0].find("[settings] snap_stream_threshold_m2"), std::string::npos) << w[0];
+}
+
+TEST(DemProjectSnap, TheSnapFiguresReadBackFromResultsJson) {
+    const fs::path out = run_beside_axis("dem_snap_read_back", "nearest_stream");
+    const auto r = catchpeak::report::read_results_json(out);
+    ASSERT_EQ(r.points.size(), 1u);
+    ASSERT_TRUE(r.points[0].snap.has_value());
+    const auto &s = *r.points[0].snap;
+    EXPECT_EQ(s.rule, catchpeak::SnapRule::nearest_stream);
+    EXPECT_NEAR(s.given_cell_area_m2, 1500.0, 1e-9);
+    EXPECT_NEAR(s.max_area_within_radius_m2, 65100.0, 1e-9);
+    EXPECT_EQ(s.direction, "west");
 }

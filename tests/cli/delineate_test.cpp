@@ -227,6 +227,19 @@ const std::vector<DelineateCase> &cases() {
          args_with({"--snap-radius", "400"}),
          ExitCode::bad_input,
          {"--snap-radius", "more than half the DEM's extent", "600.0 m x 800.0 m"}},
+        {"snap_rule_unknown",
+         args_with({"--snap", "largest_flw"}),
+         ExitCode::bad_input,
+         {"--snap", "'largest_flw' is not known (did you mean 'largest_flow'?)",
+          "nearest_stream, largest_flow, none"}},
+        {"snap_stream_threshold_negative",
+         args_with({"--snap-stream-threshold", "-1"}),
+         ExitCode::bad_input,
+         {"--snap-stream-threshold", "-1 m2"}},
+        {"snap_area_factor_one",
+         args_with({"--snap-area-factor", "1"}),
+         ExitCode::bad_input,
+         {"--snap-area-factor", "a factor > 1"}},
         {"stream_threshold_negative",
          args_with({"--stream-threshold", "-1"}),
          ExitCode::bad_input,
@@ -332,7 +345,9 @@ class DelineateResults : public ::testing::Test {
         std::ostringstream out;
         std::ostringstream err;
         const int code = catchpeak::cli::run(
-            expand(args_with({"--dem", "{in}/valley_ringed.tif"}), out_dir), out, err);
+            expand(args_with({"--dem", "{in}/valley_ringed.tif", "--snap", "largest_flow"}),
+                   out_dir),
+            out, err);
         ASSERT_EQ(code, 0) << err.str();
         std::ifstream in(out_dir / "catchments.json");
         json = nlohmann::json::parse(in);
@@ -370,6 +385,38 @@ double area_of(const OGRGeometry &g) {
 }
 
 } // namespace
+
+TEST(DelineateSnap, NearestStreamByDefaultMovesThePointStraightOntoTheChannel) {
+    if (data.empty()) {
+        make_inputs();
+    }
+    // DP-1 was given 12 m east of the channel cell of row 70. The channel drains the valley
+    // above (tens of hectares); the side cells drain their row's side slope, far below 1 ha.
+    // The nearest stream cell is the channel cell of row 70, 12 m west; largest_flow (the
+    // fixture above) takes row 72 instead.
+    const auto out_dir = t::scratch_dir("snap_default") / "out";
+    std::ostringstream out;
+    std::ostringstream err;
+    ASSERT_EQ(catchpeak::cli::run(expand(args_with({"--dem", "{in}/valley_ringed.tif"}), out_dir),
+                                  out, err),
+              0)
+        << err.str();
+    std::ifstream in(out_dir / "catchments.json");
+    const auto doc = nlohmann::json::parse(in);
+    EXPECT_EQ(doc.at("snap_rule"), "nearest_stream");
+    const auto &dp1 = doc.at("design_points").at(0);
+    ASSERT_EQ(dp1.at("id"), "DP-1");
+    EXPECT_DOUBLE_EQ(dp1.at("snapped_x_m").get<double>(), cell_centre_x(channel_col));
+    EXPECT_DOUBLE_EQ(dp1.at("snapped_y_m").get<double>(), cell_centre_y(70));
+    EXPECT_NEAR(dp1.at("snap_distance_m").get<double>(), 12.0, 1e-9); // rounding only
+    // The figures of the snap are in the file, and the move onto the channel is warned of.
+    EXPECT_LT(dp1.at("given_cell_area_m2").get<double>(), 1.0e4);
+    EXPECT_GE(dp1.at("max_area_within_radius_m2").get<double>(), dp1.at("area_m2").get<double>());
+    EXPECT_TRUE(dp1.at("expected_area_m2").is_null()); // the layer has no such field
+    EXPECT_NE(err.str().find("design point 'DP-1': the snap moved the point 12.0 m to the west"),
+              std::string::npos)
+        << err.str();
+}
 
 TEST_F(DelineateResults, SnapsToTheChannelAndNestsTheUpstreamPoint) {
     const auto &dp1 = point("DP-1");

@@ -111,3 +111,99 @@ TEST_P(DemRunBadInput, ExitTwoWithMessageAndNothingWritten) {
 
 INSTANTIATE_TEST_SUITE_P(Cases, DemRunBadInput, ::testing::ValuesIn(dem_cases()),
                          [](const auto &param_info) { return param_info.param.name; });
+
+// ----- snapping and expected areas (issue 17) ----------------------------------------------
+
+namespace {
+
+/// Runs `command` on the valley project after `change`; checks exit code 2, that every piece
+/// is on stderr, and that nothing was written.
+void expect_refused(const std::string &scratch, const std::string &command,
+                    const std::function<void(t::TestProject &)> &change,
+                    const std::vector<std::string> &pieces,
+                    const std::vector<std::string> &absent = {},
+                    const t::DemProjectOptions &o = {}) {
+    auto p = t::dem_project(scratch, o);
+    change(p);
+    const auto r = command == "run" ? p.command("run", {"--quiet"}) : p.command("check");
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::bad_input)) << r.out << r.err;
+    for (const auto &piece : pieces) {
+        EXPECT_NE(r.err.find(piece), std::string::npos) << "missing '" << piece << "' in:\n"
+                                                        << r.err;
+    }
+    for (const auto &piece : absent) {
+        EXPECT_EQ(r.err.find(piece), std::string::npos) << "'" << piece << "' in:\n" << r.err;
+    }
+    EXPECT_FALSE(fs::exists(p.dir() / "out" / "results.json"));
+    EXPECT_FALSE(fs::exists(p.dir() / "out" / "catchments.gpkg"));
+}
+
+} // namespace
+
+TEST(DemRunSnap, AnUnknownSnapRuleIsRefusedWithASuggestion) {
+    expect_refused(
+        "dem_snap_unknown", "check", [](auto &p) { p.settings.text("snap", "nearest_streams"); },
+        {"[settings] snap", "'nearest_streams' is not known (did you mean 'nearest_stream'?)",
+         "\"nearest_stream\", \"largest_flow\", \"none\""});
+}
+
+TEST(DemRunSnap, AnExpectedAreaOutsideTheToleranceIsAnErrorNamingBothAreasAndTheKey) {
+    // DP-UP drains 31 x 20 cells of 100 m2 = 6.2 ha (dem_project_data.hpp); 3 ha +- 25 % is
+    // 2.25 to 3.75 ha.
+    expect_refused("dem_expected_area", "run",
+                   [](auto &p) {
+                       p.methods_extra = "\n[[methods.point]]\nid = \"DP-UP\"\n"
+                                         "expected_area_ha = 3.0\n";
+                   },
+                   {"[[methods.point]] expected_area_ha", "design point 'DP-UP'", "6.200 ha",
+                    "expected 3.000 ha by more than 25 %",
+                    "[settings] expected_area_tolerance_percent", "2.250 ha to 3.750 ha"});
+}
+
+TEST(DemRunSnap, AnExpectedAreaForAnUnknownDesignPointIsNotSilentlyIgnored) {
+    expect_refused(
+        "dem_expected_area_unknown", "run",
+        [](auto &p) {
+            p.methods_extra = "\n[[methods.point]]\nid = \"DP-UPP\"\n"
+                              "expected_area_ha = 6.2\n";
+        },
+        {"[[methods.point]] expected_area_ha", "design point 'DP-UPP'", "(did you mean 'DP-UP'?)"});
+}
+
+TEST(DemRunSnap, AnExpectedAreaInTheDesignPointLayerIsCheckedToo) {
+    using S = t::DemProjectSpec;
+    expect_refused(
+        "dem_expected_area_field", "run",
+        [](auto &p) {
+            // The same points with a field expected_area_ac: DP-OUT expects 10 ac (4.05 ha)
+            // where it drains 31 x 50 cells = 15.5 ha; DP-UP gives none.
+            fs::remove(p.dir() / "points.gpkg");
+            t::make_layer(
+                p.dir() / "points.gpkg", "points", {"id", "expected_area_ac"},
+                {{fmt::format("POINT({} {})", t::cell_x(S::axis_col), t::cell_y(S::upper_row)),
+                  {"DP-UP", ""}},
+                 {fmt::format("POINT({} {})", t::cell_x(S::axis_col), t::cell_y(S::outlet_row)),
+                  {"DP-OUT", "10"}}},
+                "EPSG:32633");
+        },
+        {"points.gpkg", "field 'expected_area_ac'", "design point 'DP-OUT'", "15.50 ha",
+         "expected 4.047 ha"},
+        {"DP-UP'"});
+}
+
+TEST(DemRunSnap, AnExpectedAreaWithinTheToleranceRuns) {
+    auto p = t::dem_project("dem_expected_area_ok");
+    // 6.2 ha delineated, 5.5 ha expected: 12.7 % off, within 25 %.
+    p.methods_extra = "\n[[methods.point]]\nid = \"DP-UP\"\nexpected_area_ha = 5.5\n";
+    const auto r = p.command("run", {"--quiet"});
+    EXPECT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.err;
+}
+
+TEST(DemRunSnap, ASnapRadiusMessageOfAProjectNamesTheSettingsKey) {
+    // Before: "--snap-radius", the option of `delineate`, even for a project. The valley is
+    // 410 m x 600 m: a radius above 205 m is refused.
+    expect_refused("dem_snap_radius_key", "run",
+                   [](auto &p) { p.settings.set("snap_radius_m", "300.0"); },
+                   {"[settings] snap_radius_m", "300 m is more than half the DEM's extent"},
+                   {"--snap-radius"});
+}

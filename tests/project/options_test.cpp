@@ -4,6 +4,7 @@
 #include "catchpeak/project/options.hpp"
 
 #include "catchpeak/core/methods.hpp"
+#include "catchpeak/core/snap_rule.hpp"
 #include "catchpeak/core/units.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/project/project.hpp"
@@ -69,6 +70,7 @@ TEST(OptionTables, EveryValueRoundTripsThroughItsText) {
                       static_cast<std::size_t>(project::AmsDistribution::gev) + 1);
     expect_round_trip(project::dual_soil_group_options,
                       static_cast<std::size_t>(project::DualSoilGroup::undrained) + 1);
+    expect_round_trip(snap_rule_options, static_cast<std::size_t>(SnapRule::none) + 1);
     // hydro::ShallowSurface { paved, unpaved }.
     expect_round_trip(project::shallow_surface_options,
                       static_cast<std::size_t>(hydro::ShallowSurface::unpaved) + 1);
@@ -95,6 +97,17 @@ TEST(OptionTables, TheParserTakesEveryTcMethodText) {
         const auto p = project::parse_project(toml.toml(), "dir/p.toml", problems);
         EXPECT_TRUE(problems.empty()) << key << ": " << problems.list().front();
         EXPECT_EQ(p.methods.tc_method, value) << key;
+    }
+}
+
+TEST(OptionTables, TheParserTakesEverySnapRuleText) {
+    for (const auto &[key, value] : snap_rule_options) {
+        project::Problems problems;
+        auto toml = two_year_project();
+        toml.settings.text("snap", std::string(key));
+        const auto p = project::parse_project(toml.toml(), "dir/p.toml", problems);
+        EXPECT_TRUE(problems.empty()) << key << ": " << problems.list().front();
+        EXPECT_EQ(p.settings.snap, value) << key;
     }
 }
 

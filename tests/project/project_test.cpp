@@ -190,3 +190,47 @@ TEST(Project, StormTableIsAPathAndOnlyWithThe24HourStorm) {
     ASSERT_EQ(none.size(), 1u) << all(none);
     EXPECT_NE(all(none).find("storm_table"), std::string::npos) << all(none);
 }
+
+TEST(Project, SnapSettingsAndExpectedAreasAreRead) {
+    catchpeak::test::ProjectToml toml;
+    toml.inputs.remove("catchment_table").text("dem", "dem.tif").text("design_points", "p.gpkg");
+    toml.settings.text("snap", "largest_flow")
+        .set("snap_stream_threshold_m2", "5000")
+        .set("snap_area_factor", "3")
+        .set("expected_area_tolerance_percent", "10");
+    toml.methods_extra = "[[methods.point]]\nid = \"A\"\nexpected_area_ac = 2.0\n";
+    Problems problems;
+    const Project p = parse(toml.toml(), problems);
+    EXPECT_TRUE(problems.empty()) << all(problems);
+    EXPECT_EQ(p.settings.snap, catchpeak::SnapRule::largest_flow);
+    EXPECT_EQ(p.settings.snap_stream_threshold_m2, 5000.0);
+    EXPECT_EQ(p.settings.snap_area_factor, 3.0);
+    EXPECT_EQ(p.settings.expected_area_tolerance_percent, 10.0);
+    ASSERT_EQ(p.methods.points.size(), 1u);
+    // 1 acre = 4046.8564224 m2 exactly (international foot, NIST SP 811).
+    EXPECT_DOUBLE_EQ(*p.methods.points[0].expected_area_m2, 2.0 * 4046.8564224);
+    EXPECT_EQ(p.methods.points[0].expected_area_key, "expected_area_ac");
+    // The defaults: nearest_stream, 1 ha, 4, 25 %.
+    Problems none;
+    const Project d = parse(catchpeak::test::ProjectToml{}.toml(), none);
+    EXPECT_EQ(d.settings.snap, catchpeak::SnapRule::nearest_stream);
+    EXPECT_EQ(d.settings.snap_stream_threshold_m2, 1.0e4);
+    EXPECT_EQ(d.settings.snap_area_factor, 4.0);
+    EXPECT_EQ(d.settings.expected_area_tolerance_percent, 25.0);
+}
+
+TEST(Project, AnExpectedAreaIsRefusedTwiceOrForATableCatchment) {
+    catchpeak::test::ProjectToml toml; // a catchment table project
+    toml.methods_extra =
+        "[[methods.point]]\nid = \"A\"\nexpected_area_ha = 2.0\nexpected_area_ac = 5.0\n";
+    Problems problems;
+    (void)parse(toml.toml(), problems);
+    const std::string s = all(problems);
+    EXPECT_NE(s.find("[methods.point] expected_area_ac: an expected area is given twice"),
+              std::string::npos)
+        << s;
+    EXPECT_NE(s.find("[methods.point] expected_area_ha: an expected area is given for a "
+                     "catchment of the catchment table"),
+              std::string::npos)
+        << s;
+}

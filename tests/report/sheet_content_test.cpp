@@ -39,6 +39,35 @@ bool contains(const std::string &text, const std::string &part) {
     return text.find(part) != std::string::npos;
 }
 
+TEST(SheetContent, TheSnapOfADemPointIsListedWithItsCatchments) {
+    auto r = test::sample_results(1, units::System::si);
+    SnapFigures snap;
+    snap.rule = SnapRule::largest_flow;
+    snap.radius_m = 10.0;
+    snap.given_cell_area_m2 = 1500.0;
+    snap.snapped_area_m2 = 4967000.0;
+    snap.min_area_within_radius_m2 = 100.0;
+    snap.max_area_within_radius_m2 = 4967000.0;
+    snap.direction = "north-east";
+    r.points[0].snap = snap;
+    const auto doc = sheet_content(r);
+    const auto paragraphs = blocks_of<ParagraphBlock>(doc.sections[2]);
+    ASSERT_FALSE(paragraphs.empty());
+    const std::string &text = paragraphs[0]->markup;
+    // Areas in ha to 4 significant figures, as the sheet prints areas.
+    EXPECT_TRUE(contains(text, "to the north-east, to the cell of largest flow accumulation "
+                               "within 10.00 m ([settings] snap = &quot;largest_flow&quot;)"))
+        << text;
+    EXPECT_TRUE(contains(text, "Catchment of the cell under the given point 0.1500 ha, of the "
+                               "snapped cell 496.7 ha; within the snap radius smallest 0.01000 "
+                               "ha, largest 496.7 ha."))
+        << text;
+    // A table catchment has no snap: the sentence is not there.
+    const auto plain = blocks_of<ParagraphBlock>(
+        sheet_content(test::sample_results(1, units::System::si)).sections[2]);
+    EXPECT_FALSE(contains(plain[0]->markup, "[settings] snap"));
+}
+
 TEST(SheetContent, SectionsInOrderCoverSummaryPointsReferences) {
     const auto r = test::sample_results(3, units::System::si, {5, 25});
     const auto doc = sheet_content(r);

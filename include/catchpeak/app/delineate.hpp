@@ -21,7 +21,14 @@ struct DelineateOptions {
     std::filesystem::path points; ///< design points (vector layer)
     io::DeclaredCrs points_crs;   ///< the CRS of their coordinates when the file does not say
     std::string id_field;         ///< field of the design point ids
-    double snap_radius_m = 0.0;   ///< search radius for snapping to the largest accumulation
+    double snap_radius_m = 0.0;   ///< search radius for snapping
+    SnapRule snap_rule = SnapRule::nearest_stream;
+    double snap_stream_threshold_m2 = 1.0e4; ///< nearest_stream: stream cells drain this area
+    /// The name of the snap radius in messages: the option, or the key of a project.
+    std::string snap_radius_key = "--snap-radius";
+    /// Warn when the snapped catchment is more than this many times the catchment of the cell
+    /// under the point, or the catchments within the radius differ more (our choice: 4).
+    double snap_area_factor = 4.0;
     std::filesystem::path out_dir;
     std::optional<std::filesystem::path> breach_lines; ///< lines lowered into the DEM
     double stream_threshold_m2 = 1.0e5; ///< streams drain at least this area; 0 = no streams
@@ -40,9 +47,12 @@ struct DelineateSummary {
 /// The catchments of every design point, in memory: what `delineate` writes and what `run`
 /// weights and computes.
 struct Delineation {
-    io::Dem dem;                   ///< the DEM as read (metres)
-    std::string points_source;     ///< the design point file (and layer), for messages
-    terrain::TerrainResult result; ///< points, labels, flow paths, streams, warnings
+    io::Dem dem;               ///< the DEM as read (metres)
+    std::string points_source; ///< the design point file (and layer), for messages
+    /// The design points as read (in the order of result.points), with their expected areas.
+    std::vector<io::DesignPoint> given_points;
+    std::string expected_area_field; ///< the layer's field of expected areas; "" if none
+    terrain::TerrainResult result;   ///< points, labels, flow paths, streams, warnings
     /// Per design point (in the order of result.points), ISO WKB: the total catchment (own
     /// part and every nested catchment upstream) and the local part alone.
     std::vector<std::vector<unsigned char>> total_wkb;
@@ -56,6 +66,19 @@ struct Delineation {
     std::optional<io::Reprojection> points_reprojection;
     std::optional<io::Reprojection> breach_lines_reprojection;
 };
+
+/// The snap rule named by `delineate --snap`; throws InputError naming the option, with a
+/// suggestion, for any other text.
+[[nodiscard]] SnapRule snap_rule_option(const std::string &text);
+
+/// The checks of one design point's snap that fail; `run` and `delineate` word them.
+struct SnapChecks {
+    bool no_stream = false; ///< nearest_stream found no stream cell within the radius
+    bool grew = false;   ///< the snapped catchment exceeds factor x that of the given point's cell
+    bool spread = false; ///< the largest catchment within the radius exceeds factor x the smallest
+};
+
+[[nodiscard]] SnapChecks snap_checks(const terrain::DesignPointTerrain &point, double area_factor);
 
 /// "design points ('DP-1', 'DP-2', and 7 more)", for messages.
 [[nodiscard]] std::string design_points_named(const io::DesignPointLayer &points);

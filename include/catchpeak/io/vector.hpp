@@ -51,6 +51,9 @@ struct DesignPoint {
     double x = 0.0;
     double y = 0.0;
     std::int64_t fid = -1; ///< feature id in the file, for messages
+    /// The catchment area the engineer expects (field expected_area_ha or expected_area_ac),
+    /// m2; unset when the layer has no such field or the feature leaves it empty.
+    std::optional<double> expected_area_m2;
 };
 
 struct DesignPointLayer {
@@ -60,12 +63,14 @@ struct DesignPointLayer {
     std::vector<std::string> notes;
     std::optional<Extent> extent;             ///< of the points (target CRS)
     std::optional<Reprojection> reprojection; ///< set when reprojected to the target CRS
+    std::string expected_area_field; ///< "expected_area_ha" or "expected_area_ac"; "" if none
 };
 
 /// Reads design points: Point geometries (a MultiPoint of exactly one point is accepted) with
 /// an id in `id_field`. InputError naming file, field and feature for: a missing field (the
 /// message lists the fields present), an empty layer, a missing (null or blank) or duplicate
-/// id, an empty or non-point geometry; and as read_vector_layer for the CRS (`declared`).
+/// id, an empty or non-point geometry; both fields expected_area_ha and expected_area_ac, or a
+/// value in them that is not a number > 0; and as read_vector_layer for the CRS (`declared`).
 [[nodiscard]] DesignPointLayer read_design_points(const std::filesystem::path &path,
                                                   const std::string &id_field,
                                                   const std::string &target_crs_wkt,

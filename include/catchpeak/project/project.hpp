@@ -2,6 +2,7 @@
 #pragma once
 
 #include "catchpeak/core/methods.hpp"
+#include "catchpeak/core/snap_rule.hpp"
 #include "catchpeak/core/spelling.hpp"
 #include "catchpeak/hydro/tables.hpp"
 #include "catchpeak/hydro/tc.hpp"
@@ -125,6 +126,10 @@ struct PointOverride {
     std::optional<double> pond_swamp_percent; ///< overrides [settings] pond_swamp_percent
     SegmentalParameters tr55_segmental;       ///< the project's, with this point's keys over them
     KerbyParameters kerby_kirpich;            ///< the project's, with this point's keys over them
+    /// The catchment area the engineer expects (from a map, a previous study), m2; the run
+    /// refuses a delineated area outside [settings] expected_area_tolerance_percent of it.
+    std::optional<double> expected_area_m2;
+    std::string expected_area_key; ///< "expected_area_ha" or "expected_area_ac" as written
 };
 
 /// [methods]
@@ -142,6 +147,21 @@ struct Methods {
 /// [settings]. SI, unit in every name.
 struct Settings {
     double snap_radius_m = 10.0;
+    std::size_t snap_radius_line = 0; ///< line of the key, 0 when not given
+    /// How a design point moves onto the flow network (core/snap_rule.hpp). Default
+    /// nearest_stream: it keeps the point on the channel it was drawn beside.
+    SnapRule snap = SnapRule::nearest_stream;
+    /// nearest_stream: cells draining at least this area are streams (our choice: 1 ha, so
+    /// that a flow line down a valley side is none but the swales and gutter lines of most
+    /// culverts and inlets are; a point without one keeps its cell, with a warning).
+    double snap_stream_threshold_m2 = 1.0e4;
+    /// Warn when the snapped catchment is more than this many times the catchment of the cell
+    /// under the given point, or when the largest and smallest catchment within the snap
+    /// radius differ by more (our choice, no source).
+    double snap_area_factor = 4.0;
+    /// A design point's delineated area outside this share of its expected area (a key of
+    /// [[methods.point]] or a field of the design points) is refused; a project choice.
+    double expected_area_tolerance_percent = 25.0;
     double minimum_tc_min = 5.0;
     double rational_area_limit_ha = 80.0;   ///< common practice, no source (REFERENCES.md 4)
     double sheet_flow_max_length_m = 30.48; ///< 100 ft, NEH 630 ch. 15 (REFERENCES.md 9)

@@ -3,6 +3,7 @@
 
 #include "catchpeak/core/calc_line.hpp"
 #include "catchpeak/core/methods.hpp"
+#include "catchpeak/core/snap_rule.hpp"
 #include "catchpeak/core/units.hpp"
 
 #include <cstdint>
@@ -191,13 +192,29 @@ struct CulvertResult {
     std::vector<CulvertCurvePoint> curve;
 };
 
+/// How a design point of a DEM was snapped (terrain::snap_point), SI. The areas are flow
+/// accumulations (cells draining through a cell x the cell area).
+struct SnapFigures {
+    SnapRule rule = SnapRule::nearest_stream;
+    double radius_m = 0.0;
+    double stream_threshold_m2 = 0.0; ///< nearest_stream: stream cells drain at least this
+    double given_cell_area_m2 = 0.0;  ///< the catchment of the cell under the given point
+    double snapped_area_m2 = 0.0;     ///< the catchment of the snapped cell
+    double min_area_within_radius_m2 = 0.0;
+    double max_area_within_radius_m2 = 0.0;
+    bool no_stream_within_radius = false; ///< nearest_stream found none: not moved
+    std::string direction;                ///< of the move ("north-east"), "" when not moved
+    double area_factor = 0.0;             ///< [settings] snap_area_factor
+};
+
 /// Everything about one design point.
 struct DesignPointResult {
     std::string id;
     std::pair<double, double> given_xy{0.0, 0.0};
     std::pair<double, double> snapped_xy{0.0, 0.0};
     double snap_distance_m = 0.0;
-    bool from_table = false; ///< catchment from a catchment table, not from the DEM
+    std::optional<SnapFigures> snap; ///< a design point of a DEM; unset for a table catchment
+    bool from_table = false;         ///< catchment from a catchment table, not from the DEM
     CatchmentFigures catchment;
     LandWeighting land;
     double tc_min = 0.0;

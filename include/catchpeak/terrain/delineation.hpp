@@ -20,7 +20,11 @@
 namespace catchpeak::terrain {
 
 struct TerrainSettings {
-    double snap_radius_m = 30.0;        ///< search radius for snapping
+    double snap_radius_m = 30.0; ///< search radius for snapping
+    SnapRule snap_rule = SnapRule::nearest_stream;
+    double snap_stream_threshold_m2 = 1.0e4; ///< nearest_stream: stream cells drain this
+    /// How the caller names the snap radius in messages ("[settings] snap_radius_m").
+    std::string snap_radius_key = "snap radius";
     double far_snap_warning_m = 20.0;   ///< warn when a point moves further than this
     double tiny_catchment_m2 = 1000.0;  ///< warn when a total catchment is smaller
     double stream_threshold_m2 = 1.0e5; ///< streams: accumulation area >= this; <= 0: none
@@ -41,6 +45,14 @@ struct DesignPointTerrain {
     std::size_t cell = 0;           ///< snapped cell index
     std::uint32_t accumulation = 0; ///< cells draining through the snapped cell
     double accumulation_m2 = 0.0;
+    /// Accumulation areas (cells x cell area) of the cell under the given point and the
+    /// smallest and largest of the cells within the snap radius (terrain::snap_point).
+    double given_cell_area_m2 = 0.0;
+    double min_area_within_radius_m2 = 0.0;
+    double max_area_within_radius_m2 = 0.0;
+    /// The rule was nearest_stream and no stream cell lay within the radius (the caller warns:
+    /// it names the settings).
+    bool no_stream_within_radius = false;
     /// Value of this point's local catchment in TerrainResult::labels. Points snapped to the
     /// same cell share a label (the later ones get a warning).
     std::uint32_t label = 0;
