@@ -105,6 +105,17 @@ report::CulvertCase case_result(const hydraulics::CaseResult &c) {
     return out;
 }
 
+/// The id of the last line with `key` among the first `end` lines (the controlling headwater
+/// of a case is the last such line of its lines: with a road, the barrels at their share).
+std::string last_id_before(const CalcLines &lines, std::size_t end, std::string_view key) {
+    for (std::size_t i = end; i-- > 0;) {
+        if (lines.lines()[i].key == key) {
+            return lines.lines()[i].id;
+        }
+    }
+    return {};
+}
+
 hydraulics::Crossing crossing_of(const Project &p, const CulvertSpec &s) {
     hydraulics::Crossing x;
     x.culvert.section = s.size.value_or(hydraulics::Section{});
@@ -168,6 +179,7 @@ void design_one(const Project &p, const CulvertSpec &s,
         qty("So", x.culvert.slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m));
     lines.append(d.sizing_lines);
     report::CulvertResult out;
+    std::vector<std::size_t> case_ends; // one past each case's last line
     for (const auto &c : d.cases) {
         const auto *pk = peaks.at(c.flow.return_period_yr);
         lines.note(case_note, {qty("T", c.flow.return_period_yr, Unit::yr, Shown::exact()),
@@ -176,7 +188,9 @@ void design_one(const Project &p, const CulvertSpec &s,
                                    us ? Unit::ft3_per_s : Unit::m3_per_s),
                                word("method", report::method_title(pk->method))});
         lines.append(c.lines);
+        case_ends.push_back(lines.size());
         out.cases.push_back(case_result(c));
+        out.cases.back().flow_line_id = pk->line_id;
     }
     out.shape = d.size.shape == hydraulics::Shape::box ? "box" : "circular";
     out.barrels = s.barrels;
@@ -196,6 +210,9 @@ void design_one(const Project &p, const CulvertSpec &s,
             {pt.flow_m3_s, pt.headwater_elevation_m, pt.hw_inlet_m, pt.hw_outlet_m, pt.road_m3_s});
     }
     number_lines(lines, dp.id, dp.lines.size() + 1);
+    for (std::size_t i = 0; i < out.cases.size(); ++i) {
+        out.cases[i].headwater_line_id = last_id_before(lines, case_ends[i], hydraulics::keys::hw);
+    }
     dp.lines.append(lines);
     dp.culvert = std::move(out);
 }

@@ -169,6 +169,8 @@ Json culvert_json(const CulvertResult &c) {
         kj["control"] = k.control;
         kj["outlet_velocity_m_per_s"] = number(k.outlet_velocity_m_per_s);
         kj["passes"] = k.passes;
+        kj["headwater_line_id"] = k.headwater_line_id;
+        kj["flow_line_id"] = k.flow_line_id;
         cases.push_back(std::move(kj));
     }
     j["cases"] = std::move(cases);
@@ -415,6 +417,11 @@ bool flag(const Reader &r, std::string_view key) {
     return v.get<bool>();
 }
 
+/// A string member that a results.json of an older run may lack ("" then).
+std::string optional_str(const Reader &r, std::string_view key) {
+    return r.json().contains(std::string(key)) ? r.str(key) : std::string();
+}
+
 CulvertResult parse_culvert(const Reader &r) {
     CulvertResult c;
     c.shape = r.str("shape");
@@ -438,7 +445,8 @@ CulvertResult parse_culvert(const Reader &r) {
                            k.num("tailwater_m"), k.num("inlet_control_headwater_m"),
                            k.num("outlet_control_headwater_m"), k.num("headwater_m"),
                            k.num("headwater_elevation_m"), k.num("allowed_headwater_m"),
-                           k.str("control"), k.num("outlet_velocity_m_per_s"), flag(k, "passes")});
+                           k.str("control"), k.num("outlet_velocity_m_per_s"), flag(k, "passes"),
+                           optional_str(k, "headwater_line_id"), optional_str(k, "flow_line_id")});
     }
     const auto &curve = r.array("performance_curve");
     for (std::size_t i = 0; i < curve.size(); ++i) {

@@ -5,6 +5,7 @@
 #include "catchpeak/report/line_text.hpp"
 #include "catchpeak/report/sheet.hpp"
 #include "catchpeak/report/sheet_units.hpp"
+#include "internal/sheet_culvert.hpp"
 
 #include <fmt/format.h>
 
@@ -346,6 +347,7 @@ SheetSection design_point(const DesignPointResult &p, const Formats &f) {
     }
     figures(p, f, s.blocks);
     land_table(p, f, s.blocks);
+    culvert_blocks(p, f.system(), s.blocks);
     calc_lines(p, s.blocks);
     for (const auto &pk : p.peaks) {
         if (pk.hydrograph && !pk.hydrograph->q_m3_s.empty()) {

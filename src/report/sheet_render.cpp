@@ -2,6 +2,7 @@
 #include "internal/sheet_render.hpp"
 
 #include "internal/sheet_chart.hpp"
+#include "internal/sheet_culvert.hpp"
 #include "internal/sheet_map.hpp"
 
 #include <fmt/format.h>
@@ -137,6 +138,10 @@ void render_block(PageLayout &page, const SheetBlock &block, units::System syste
             } else if constexpr (std::is_same_v<B, ChartBlock>) {
                 if (b.hydrograph != nullptr) {
                     draw_chart_block(page, b.title, *b.hydrograph, b.point_id, system);
+                }
+            } else if constexpr (std::is_same_v<B, CulvertCurveBlock>) {
+                if (b.culvert != nullptr) {
+                    draw_culvert_curve_block(page, b.title, *b.culvert, system);
                 }
             } else {
                 draw(page, b);

@@ -3,6 +3,8 @@
 
 #include <fmt/format.h>
 
+#include <cmath>
+
 namespace catchpeak::report {
 
 namespace {
@@ -26,10 +28,31 @@ SheetValue sheet_depth(double depth_mm, units::System system) noexcept {
     return us(system) ? SheetValue{units::mm_to_in(depth_mm), "in"} : SheetValue{depth_mm, "mm"};
 }
 
+SheetValue sheet_velocity(double v_m_s, units::System system) noexcept {
+    return us(system) ? SheetValue{units::m_to_ft(v_m_s), "ft/s"} : SheetValue{v_m_s, "m/s"};
+}
+
 std::string_view area_key_unit(units::System system) noexcept { return us(system) ? "acre" : "ha"; }
 
 std::string_view flow_key_unit(units::System system) noexcept {
     return us(system) ? "cfs" : "m3_s";
+}
+
+std::string_view length_key_unit(units::System system) noexcept { return us(system) ? "ft" : "m"; }
+
+std::string_view velocity_key_unit(units::System system) noexcept {
+    return us(system) ? "ft_s" : "m_s";
+}
+
+std::string culvert_size_title(bool box, double span_m, double rise_m, units::System system) {
+    const bool in = us(system);
+    const auto len = [&](double m) {
+        return in ? fmt::format("{:g}", std::round(units::m_to_ft(m) * 120.0) / 10.0)
+                  : fmt::format("{:g}", std::round(m * 1000.0));
+    };
+    const std::string_view unit = in ? "in" : "mm";
+    return box ? fmt::format("{} x {} {}", len(span_m), len(rise_m), unit)
+               : fmt::format("{} {}", len(rise_m), unit);
 }
 
 std::string method_title(PeakMethod method) {

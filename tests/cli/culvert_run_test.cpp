@@ -10,8 +10,14 @@
 #include <nlohmann/json.hpp>
 
 #include <algorithm>
+#include <array>
+#include <cmath>
+#include <cstdio>
 #include <fstream>
+#include <memory>
+#include <sstream>
 #include <string>
+#include <vector>
 
 namespace {
 
@@ -88,6 +94,124 @@ TEST(CulvertRun, EachFlowIsTheLargestPeakAndTheDesignFlowPasses) {
             caution || n.get<std::string>().find("fish and wildlife passage") != std::string::npos;
     }
     EXPECT_TRUE(caution);
+}
+
+/// What a command printed on stdout.
+std::string stdout_of(const std::string &command) {
+    std::unique_ptr<FILE, int (*)(FILE *)> pipe(popen(command.c_str(), "r"), pclose);
+    std::string out;
+    if (!pipe) {
+        return out;
+    }
+    std::array<char, 4096> buf{};
+    for (std::size_t n = 0; (n = std::fread(buf.data(), 1, buf.size(), pipe.get())) > 0;) {
+        out.append(buf.data(), n);
+    }
+    return out;
+}
+
+/// Whether `line` holds every one of `parts`, in that order.
+bool holds_in_order(const std::string &line, const std::vector<std::string> &parts) {
+    std::size_t at = 0;
+    for (const auto &part : parts) {
+        at = line.find(part, at);
+        if (at == std::string::npos) {
+            return false;
+        }
+        at += part.size();
+    }
+    return true;
+}
+
+/// 4 significant figures, as the sheet prints a number (catchpeak::sig, restated here from
+/// its documented rule so that the test does not print with the code it checks).
+std::string four_figures(double v) {
+    if (v == 0.0) {
+        return "0";
+    }
+    // Rounded to 4 figures first, so that 9.99996 prints as 10.00.
+    const double scale = std::pow(10.0, 3 - std::floor(std::log10(std::abs(v))));
+    const double rounded = std::round(v * scale) / scale;
+    const int decimals = 3 - static_cast<int>(std::floor(std::log10(std::abs(rounded))));
+    std::ostringstream s;
+    s.setf(std::ios::fixed);
+    s.precision(std::max(decimals, 0));
+    s << rounded;
+    return s.str();
+}
+
+std::string three_decimals(double v) {
+    std::ostringstream s;
+    s.setf(std::ios::fixed);
+    s.precision(3);
+    s << v;
+    return s.str();
+}
+
+// The sheet's culvert table shows, for every flow checked, the numbers of results.json as the
+// sheet prints them, in the order of the columns; and the performance curve is drawn under its
+// title, with the road crest named. The road overtops at the 10-year flow (a 600 mm pipe under
+// a crest 1.2 m above the inlet invert).
+TEST(CulvertRun, SheetTableHoldsTheNumbersOfResultsJsonAndTheCurve) {
+    TestProject p("culvert_sheet");
+    p.catchments(catchments).idf(idf);
+    p.rainfall.set("return_periods_yr", "[2, 10]");
+    p.inputs.text("culvert_table", "culverts.csv");
+    p.design.set("culvert_return_period_yr", "10");
+    p.with_file("culverts.csv",
+                "id,shape,diameter_mm,inlet,manning_n,length_m,invert_in_m,invert_out_m,"
+                "hw_d_max,crest_m,crest_length_m\n"
+                "IN-1,circular,600,concrete_groove_headwall,0.012,25,100.0,99.7,1.5,101.2,15\n");
+    const auto r = p.command("run", {"--quiet"});
+    ASSERT_EQ(r.code, static_cast<int>(ExitCode::success)) << r.err;
+    const auto j = read_json(p.out_dir() / "results.json");
+    const auto &c = j.at("design_points")[0].at("culvert");
+    const std::string text = stdout_of("pdftotext -layout -enc UTF-8 '" +
+                                       (p.out_dir() / "calculation-sheet.pdf").string() + "' -");
+    ASSERT_FALSE(text.empty()) << "pdftotext gave nothing";
+    std::vector<std::string> lines;
+    std::istringstream in(text);
+    for (std::string l; std::getline(in, l);) {
+        lines.push_back(l);
+    }
+    bool overtops = false;
+    const double rise = c.at("rise_m").get<double>();
+    for (const auto &k : c.at("cases")) {
+        const double hw = k.at("headwater_m").get<double>();
+        overtops = overtops || k.at("overtopping_flow_m3_per_s").get<double>() > 0.0;
+        const auto rp = std::to_string(k.at("return_period_yr").get<int>()) + "-yr";
+        const std::vector<std::string> row = {
+            rp,
+            four_figures(k.at("flow_m3_per_s").get<double>()),
+            four_figures(k.at("culvert_flow_m3_per_s").get<double>()),
+            four_figures(k.at("overtopping_flow_m3_per_s").get<double>()),
+            three_decimals(k.at("headwater_elevation_m").get<double>()),
+            four_figures(hw / rise),
+            k.at("control").get<std::string>(),
+            four_figures(k.at("outlet_velocity_m_per_s").get<double>()),
+            three_decimals(100.0 + k.at("allowed_headwater_m").get<double>()),
+            k.at("passes").get<bool>() ? "passes" : "fails",
+            k.at("headwater_line_id").get<std::string>()};
+        const bool found = std::any_of(lines.begin(), lines.end(), [&](const std::string &l) {
+            return holds_in_order(l, row);
+        });
+        EXPECT_TRUE(found) << "no table row for " << rp << " with the numbers of results.json:\n"
+                           << text;
+    }
+    EXPECT_TRUE(overtops) << "the project was meant to overtop the road";
+    EXPECT_NE(text.find("Culvert performance curve: headwater elevation against flow"),
+              std::string::npos);
+    EXPECT_NE(text.find("road crest 101.200 m"), std::string::npos);
+    EXPECT_NE(text.find("Flow through the barrels alone"), std::string::npos);
+    // summary.csv has the culvert rows, with the controlling headwater's line.
+    std::ifstream csv(p.out_dir() / "summary.csv");
+    std::stringstream all;
+    all << csv.rdbuf();
+    for (const auto &k : c.at("cases")) {
+        EXPECT_NE(all.str().find("," + k.at("headwater_line_id").get<std::string>() + "\n"),
+                  std::string::npos)
+            << all.str();
+    }
 }
 
 TEST(CulvertRun, CheckNamesEveryBadCell) {

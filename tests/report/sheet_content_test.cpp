@@ -8,6 +8,7 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <string>
 #include <vector>
 
@@ -202,6 +203,85 @@ TEST(SheetContent, CalculationRowShowsTheLinesFields) {
     const auto note = calc_line_row(lines.lines()[2]);
     EXPECT_EQ(note.cells[1].markup, "<i><b>Catchment area</b>\nfrom the DEM</i>");
     EXPECT_EQ(note.cells[2].markup, ""); // no value
+}
+
+// A design point with a culvert: its heading and description, one table row per flow checked
+// (a failing one shaded and marked), and the performance curve's block pointing at it, all
+// before the calculation lines.
+TEST(SheetContent, CulvertTableAndCurveBeforeTheCalculation) {
+    auto r = test::sample_results(1, units::System::si, {10, 100});
+    CulvertResult c;
+    c.shape = "box";
+    c.barrels = 2;
+    c.span_m = 1.5;
+    c.rise_m = 1.2;
+    c.sized = false;
+    c.inlet = "box_wingwall_30_75";
+    c.inlet_invert_m = 50.0;
+    c.outlet_invert_m = 49.5;
+    c.length_m = 30.0;
+    c.crest_elevation_m = 52.5;
+    CulvertCase ok;
+    ok.return_period_yr = 10.0;
+    ok.design = true;
+    ok.flow_m3_s = ok.culvert_flow_m3_s = 3.0;
+    ok.headwater_m = 1.8;
+    ok.headwater_elevation_m = 51.8;
+    ok.allowed_headwater_m = 2.4;
+    ok.control = "inlet";
+    ok.outlet_velocity_m_per_s = 2.5;
+    ok.passes = true;
+    ok.headwater_line_id = "DP1-L30";
+    CulvertCase bad = ok;
+    bad.return_period_yr = 100.0;
+    bad.design = false;
+    bad.flow_m3_s = 6.0;
+    bad.overtopping_flow_m3_s = 0.5;
+    bad.culvert_flow_m3_s = 5.5;
+    bad.headwater_m = 2.7;
+    bad.headwater_elevation_m = 52.7;
+    bad.passes = false;
+    bad.headwater_line_id = "DP1-L44";
+    c.cases = {ok, bad};
+    c.curve = {{0.0, 50.0, 0.0, 0.0, 0.0}, {6.0, 52.7, 2.7, 1.0, 0.5}};
+    r.points[0].culvert = c;
+    const auto doc = sheet_content(r);
+    const auto &s = doc.sections[2];
+    const auto h = headings(s);
+    const auto at = [&](const std::string &t) { return std::find(h.begin(), h.end(), t); };
+    ASSERT_NE(at("Culvert at design point DP1"), h.end());
+    EXPECT_LT(at("Culvert at design point DP1"), at("Calculation"));
+    const auto curves = blocks_of<CulvertCurveBlock>(s);
+    ASSERT_EQ(curves.size(), 1U);
+    EXPECT_EQ(curves[0]->culvert, &*r.points[0].culvert);
+    EXPECT_EQ(curves[0]->title, "Culvert performance curve: headwater elevation against flow");
+    const TableBlock *table = nullptr;
+    for (const auto *t : blocks_of<TableBlock>(s)) {
+        if (t->columns.size() == 11) {
+            table = t;
+        }
+    }
+    ASSERT_NE(table, nullptr);
+    ASSERT_EQ(table->rows.size(), 2U);
+    const auto &row = table->rows[0].cells;
+    EXPECT_TRUE(contains(row[0].markup, "10-yr (design)"));
+    EXPECT_EQ(row[1].markup, "3.000");
+    EXPECT_TRUE(contains(row[4].markup, "51.800"));
+    EXPECT_EQ(row[5].markup, "1.500");  // HW/D = 1.8/1.2
+    EXPECT_EQ(row[8].markup, "52.400"); // 50.0 + 2.4
+    EXPECT_EQ(row[9].markup, "passes");
+    EXPECT_EQ(row[10].markup, "DP1-L30");
+    EXPECT_FALSE(table->rows[0].fill);
+    const auto &fails = table->rows[1].cells;
+    EXPECT_EQ(fails[3].markup, "0.5000");
+    EXPECT_TRUE(contains(fails[9].markup, "fails"));
+    EXPECT_TRUE(table->rows[1].fill);
+    bool described = false;
+    for (const auto *p : blocks_of<ParagraphBlock>(s)) {
+        described = described || (contains(p->markup, "2 barrels of 1500 x 1200 mm (size given)") &&
+                                  contains(p->markup, "road crest 52.500 m"));
+    }
+    EXPECT_TRUE(described);
 }
 
 TEST(SheetContent, ReferencesOrAWordThatNoneWasUsed) {

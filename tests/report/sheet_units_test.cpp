@@ -47,5 +47,18 @@ TEST(SheetUnits, Titles) {
     EXPECT_EQ(return_period_title(2.33), "2.33-yr");
 }
 
+// A culvert's size: whole millimetres, or inches to 0.1 in (1 in = 25.4 mm exactly, so
+// 1.8288 m = 72 in and 1.2192 m = 48 in).
+TEST(SheetUnits, CulvertSize) {
+    EXPECT_EQ(culvert_size_title(false, 1.2, 1.2, units::System::si), "1200 mm");
+    EXPECT_EQ(culvert_size_title(true, 1.5, 1.2, units::System::si), "1500 x 1200 mm");
+    EXPECT_EQ(culvert_size_title(true, 1.8288, 1.2192, units::System::us_customary), "72 x 48 in");
+    EXPECT_EQ(culvert_size_title(false, 0.45, 0.45, units::System::us_customary), "17.7 in");
+    EXPECT_EQ(length_key_unit(units::System::us_customary), "ft");
+    EXPECT_EQ(velocity_key_unit(units::System::si), "m_s");
+    // 3.048 m/s = 10 ft/s exactly.
+    EXPECT_DOUBLE_EQ(sheet_velocity(3.048, units::System::us_customary).value, 10.0);
+}
+
 } // namespace
 } // namespace catchpeak::report

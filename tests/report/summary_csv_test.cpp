@@ -61,6 +61,80 @@ TEST(SummaryCsv, SiHeaderAndValues) {
                     "\"Outfall, east\",2,rational,123.5,7.000,1.000,,0\n");
 }
 
+/// A culvert at DP1: two 1200 mm pipes chosen from the list, checked for one flow that overtops
+/// the road (round values, so the printed fields follow by hand).
+RunResults with_culvert(units::System system) {
+    RunResults r = two_points(system);
+    CulvertResult c;
+    c.shape = "circular";
+    c.barrels = 2;
+    c.span_m = c.rise_m = 1.2;
+    c.sized = true;
+    CulvertCase k;
+    k.return_period_yr = 10.0;
+    k.design = true;
+    k.flow_m3_s = 2.5;
+    k.culvert_flow_m3_s = 2.0;
+    k.overtopping_flow_m3_s = 0.5;
+    k.headwater_m = 1.8;
+    k.headwater_elevation_m = 101.8;
+    k.control = "inlet";
+    k.outlet_velocity_m_per_s = 3.25;
+    k.passes = true;
+    k.headwater_line_id = "DP1-L40";
+    k.flow_line_id = "DP1-L7";
+    c.cases.push_back(k);
+    k.return_period_yr = 100.0;
+    k.design = false;
+    k.control = "outlet";
+    k.passes = false;
+    k.headwater_line_id = "DP1-L61";
+    k.flow_line_id = "DP1-L9";
+    c.cases.push_back(k);
+    r.points[0].culvert = c;
+    return r;
+}
+
+// A run with a culvert: the twelve culvert columns after the peak columns, empty on the peak
+// rows, and one row per culvert case (HW/D = 1.8/1.2 = 1.5; the size in whole mm).
+TEST(SummaryCsv, CulvertRowsAndColumns) {
+    const auto text = summary_csv(with_culvert(units::System::si));
+    const std::string empty12 = ",,,,,,,,,,,,";
+    EXPECT_EQ(text, "design_point,return_period_yr,method,area_ha,tc_min,q_m3_s,peak_line_id,"
+                    "warning_count,culvert_size,size_basis,barrels,culvert_flow_m3_s,"
+                    "road_flow_m3_s,headwater_m,headwater_elevation_m,hw_over_d,control,"
+                    "outlet_velocity_m_s,passes,headwater_line_id\n"
+                    "DP1,10,rational,4.047,12.50,2.832,DP1-L7,2" +
+                        empty12 +
+                        "\n"
+                        "DP1,100,tr55_graphical,4.047,12.50,0.2832,DP1-L9,2" +
+                        empty12 +
+                        "\n"
+                        "DP1,10,culvert,4.047,12.50,2.500,DP1-L7,2,1200 mm,chosen,2,2.000,"
+                        "0.5000,1.800,101.800,1.500,inlet,3.250,yes,DP1-L40\n"
+                        "DP1,100,culvert,4.047,12.50,2.500,DP1-L9,2,1200 mm,chosen,2,2.000,"
+                        "0.5000,1.800,101.800,1.500,outlet,3.250,no,DP1-L61\n"
+                        "\"Outfall, east\",2,rational,123.5,7.000,1.000,,0" +
+                        empty12 + "\n");
+}
+
+// US customary: the size in inches, the lengths in ft, the velocity in ft/s, the elevation to
+// 0.01 ft. 1.2 m = 47.24 in (computed: 1.2/0.0254), 1.8 m = 5.906 ft, 101.8 m = 333.99 ft,
+// 3.25 m/s = 10.66 ft/s, 2.5 m3/s = 88.29 cfs (computed with 1 ft = 0.3048 m).
+TEST(SummaryCsv, CulvertRowsInUsCustomaryUnits) {
+    auto r = with_culvert(units::System::us_customary);
+    r.points[0].culvert->sized = false;
+    const auto text = summary_csv(r);
+    EXPECT_NE(text.find("culvert_flow_cfs,road_flow_cfs,headwater_ft,headwater_elevation_ft,"
+                        "hw_over_d,control,outlet_velocity_ft_s,passes,headwater_line_id\n"),
+              std::string::npos)
+        << text;
+    EXPECT_NE(text.find("DP1,10,culvert,10.00,12.50,88.29,DP1-L7,2,47.2 in,given,2,70.63,17.66,"
+                        "5.906,333.99,1.500,inlet,10.66,yes,DP1-L40\n"),
+              std::string::npos)
+        << text;
+}
+
 TEST(SummaryCsv, WrittenFileHoldsTheSameText) {
     const auto r = two_points(units::System::si);
     const auto dir = test::scratch_dir("summary_csv");

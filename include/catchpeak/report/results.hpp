@@ -164,6 +164,10 @@ struct CulvertCase {
     std::string control;              ///< "inlet" or "outlet"
     double outlet_velocity_m_per_s = 0.0;
     bool passes = false;
+    /// Id of the line that gives the controlling headwater (e.g. "DP3-L52"), and of the line of
+    /// the peak whose flow the culvert carries; empty when the runner did not record them.
+    std::string headwater_line_id;
+    std::string flow_line_id;
 };
 
 /// One point of a culvert's performance curve.

@@ -83,9 +83,15 @@ struct ChartBlock {
     std::string point_id;
 };
 
-using SheetBlock =
-    std::variant<HeadingBlock, ParagraphBlock, SpaceBlock, TableBlock, CoverTitleBlock,
-                 InfoWithSealBlock, KeyValuesBlock, ListBlock, WarningsBlock, MapBlock, ChartBlock>;
+/// The performance curve of a culvert, under its heading. Points into the results.
+struct CulvertCurveBlock {
+    std::string title; ///< plain text
+    const CulvertResult *culvert = nullptr;
+};
+
+using SheetBlock = std::variant<HeadingBlock, ParagraphBlock, SpaceBlock, TableBlock,
+                                CoverTitleBlock, InfoWithSealBlock, KeyValuesBlock, ListBlock,
+                                WarningsBlock, MapBlock, ChartBlock, CulvertCurveBlock>;
 
 /// A section starts on a new page; its title is shown in the page header.
 struct SheetSection {

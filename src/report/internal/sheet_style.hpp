@@ -93,6 +93,8 @@ inline constexpr std::array<double, 2> figure_columns_pt = {300.0, 215.0};
 inline constexpr std::array<double, 7> land_columns_pt = {150.0, 55.0, 65.0, 55.0,
                                                           50.0,  50.0, 75.0};
 inline constexpr std::array<double, 4> line_columns_pt = {58.0, 250.0, 82.0, 125.0};
+inline constexpr std::array<double, 11> culvert_columns_pt = {72.0, 42.0, 44.0, 42.0, 50.0, 40.0,
+                                                              40.0, 42.0, 52.0, 42.0, 52.0};
 
 // ----- blocks -----------------------------------------------------------------------------------
 inline constexpr double note_gap_after_pt = 6.0; ///< after a small note under a heading
@@ -189,5 +191,20 @@ inline constexpr double rain_ticks = 2.0;     ///< about this many steps on the 
 inline constexpr double flow_ticks = 4.0;     ///< ... on the flow axis
 inline constexpr double time_ticks = 8.0;     ///< ... on the time axis
 inline constexpr double flow_headroom = 1.08; ///< the flow axis reaches 8 % above the peak
+
+// ----- culvert performance curve ----------------------------------------------------------------
+inline constexpr double curve_block_h_pt = 250.0;
+inline constexpr double curve_panel_dy_pt = 6.0;
+inline constexpr double curve_panel_h_pt = 170.0;
+inline constexpr double curve_line_w_pt = 1.4;
+inline constexpr double barrels_line_w_pt = 1.1;
+inline constexpr std::array<double, 2> barrels_dash_pt = {4.0, 2.5};
+inline constexpr double crest_line_w_pt = 0.9;
+inline constexpr std::array<double, 2> crest_dash_pt = {1.5, 2.0};
+inline constexpr double case_dot_radius_pt = 2.4;
+inline constexpr double curve_x_ticks = 5.0;     ///< about this many steps on the flow axis
+inline constexpr double curve_y_ticks = 4.0;     ///< ... on the elevation axis
+inline constexpr double curve_headroom = 0.10;   ///< share of the elevation range above the top
+inline constexpr double curve_min_range_m = 0.1; ///< elevation range of a flat curve
 
 } // namespace catchpeak::report::style
