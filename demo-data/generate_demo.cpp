@@ -295,9 +295,11 @@ void write_breach_line(const fs::path &file) {
     OGR_L_CreateField(lyr, fd, TRUE);
     OGR_Fld_Destroy(fd);
     OGRFeatureH f = OGR_F_Create(OGR_L_GetLayerDefn(lyr));
-    OGR_F_SetFieldString(f, 0, "Hatchmere Road culvert, 1.2 m pipe");
+    OGR_F_SetFieldString(f, 0, "Hatchmere Road culvert");
     OGRGeometryH g = OGR_G_CreateGeometry(wkbLineString);
-    for (double x = road_x - 25.0; x <= road_x + 25.0; x += 5.0) {
+    // Along the barrel, from beyond the upstream toe of the embankment (13 m from the road's
+    // centre line) to beyond the downstream toe: the culvert's inverts are read at its ends.
+    for (double x = road_x - 15.0; x <= road_x + 15.0; x += 5.0) {
         OGR_G_AddPoint_2D(g, x0 + x, y0 + creek_y(x));
     }
     OGR_F_SetGeometryDirectly(f, g);
@@ -345,6 +347,19 @@ void write_rainfall(const fs::path &dir) {
 }
 
 /// The subdivision's inlet catchments as drawn by hand from the site plan (a catchment table).
+/// The culvert under Hatchmere Road, to be sized by the run: no diameter, no inverts (read from
+/// the DEM at the ends of the breach line), the road crest at the embankment's low point over the
+/// creek, level for some 210 m (where natural ground lies less than 4.2 m above the creek bed),
+/// and the creek below as the outlet channel.
+void write_culvert_table(const fs::path &dir) {
+    const double crest_m = natural_ground(road_x, creek_y(road_x)) + 4.5;
+    write_text(dir / "culverts.csv",
+               "id,shape,barrels,diameter_in,inlet,manning_n,length_ft,hw_d_max,crest_ft,"
+               "crest_length_ft,channel_bottom_ft,channel_side_slope,channel_n,channel_slope\n"
+               "CV-1,circular,1,,concrete_groove_headwall,0.012,90,1.5," +
+                   fixed(crest_m / 0.3048, 2) + ",690,6,2,0.035,0.012\n");
+}
+
 void write_inlet_table(const fs::path &dir) {
     write_text(dir / "inlet-catchments.csv",
                "# Larkspur Rise inlet catchments, drawn by hand from the site plan (invented).\n"
@@ -397,6 +412,7 @@ int main(int argc, char **argv) {
         write_breach_line(dir / "breach_lines.gpkg");
         write_rainfall(dir);
         write_inlet_table(dir);
+        write_culvert_table(dir);
         std::fprintf(stderr, "demo: written to %s\n", dir.string().c_str());
     } catch (const std::exception &e) {
         std::fprintf(stderr, "catchpeak_demo_data: %s\n", e.what());

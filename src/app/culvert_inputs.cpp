@@ -261,7 +261,7 @@ void read_barrel(RowReader &r, const Columns &c, bool inverts_from_dem, CulvertS
         r.problem("only one invert is given",
                   "both invert_in and invert_out, or neither (read from the DEM)");
     } else if (!in && !inverts_from_dem) {
-        r.problem("no inverts, and the project has no DEM to read them from",
+        r.problem("no inverts, and the project has no DEM with breach lines to read them from",
                   "invert_in_m|invert_in_ft and invert_out_m|invert_out_ft");
     }
 }

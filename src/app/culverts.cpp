@@ -28,6 +28,20 @@ constexpr Formula culvert_note{"culvert.design", "Culvert", "",
                                Ref::project_input, " (the culvert table)"};
 constexpr Formula barrel_slope{"culvert.slope", "Barrel slope", "So = (ELi - ELo)/L",
                                "So = ({ELi} - {ELo})/{L}", Ref::none, "geometry of the barrel"};
+constexpr Formula dem_inverts{"culvert.dem_inverts", "Inverts from the DEM", "",
+                              "ELi = {ELi} {ELi:u} at ({xi}, {yi}) and ELo = {ELo} {ELo:u} at "
+                              "({xo}, {yo}): the DEM in the cells under the ends of breach "
+                              "line {line}, {d} {d:u} from the design point as given; the "
+                              "higher end is the inlet", Ref::none,
+                              "the DEM as given (before conditioning); the culvert table gives "
+                              "no inverts"};
+constexpr Formula line_length_differs{"culvert.line_length", "Breach line and barrel lengths differ",
+                                      "",
+                                      "the breach line is {Ll} {Ll:u} long, the barrel L = {L} "
+                                      "{L:u}: the inverts read at the line's ends may not be the "
+                                      "barrel's; give invert_in and invert_out in the culvert "
+                                      "table", Ref::none,
+                                      "a difference over 25 % of L (common practice, no source)"};
 constexpr Formula case_note{"culvert.case", "Culvert, flow checked", "",
                             "T = {T} {T:u}{design}: Q = {Q} {Q:u}, the largest of this design "
                             "point's peaks for T ({method})", Ref::none,
@@ -52,7 +66,8 @@ Loaded load_tables(const Project &p) {
 std::vector<CulvertSpec> read_specs(const Project &p, const Loaded &t,
                                     const std::vector<std::string> &ids, Problems &problems) {
     auto specs =
-        read_culvert_table(p.inputs.culvert_table->resolved, t.inlets, ids, false, problems);
+        read_culvert_table(p.inputs.culvert_table->resolved, t.inlets, ids,
+                           p.inputs.dem.has_value() && p.inputs.breach_lines.has_value(), problems);
     const std::string where = p.inputs.culvert_table->resolved.string();
     for (const auto &s : specs) {
         const auto rp = s.design_return_period_yr ? s.design_return_period_yr
@@ -145,8 +160,32 @@ std::string size_words(const hydraulics::Section &s, units::System sys) {
                : fmt::format("span {} x rise {}", len(s.span_m), len(s.rise_m));
 }
 
+/// The lines that say where the inverts read from the DEM come from.
+void dem_invert_lines(const terrain::BreachEnds &e, const CulvertSpec &s, units::System sys,
+                      CalcLines &lines) {
+    const bool us = sys == units::System::us_customary;
+    const Unit lu = us ? Unit::ft : Unit::m;
+    const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
+    const auto elev = [&](const char *sym, double m) {
+        return qty(sym, len(m), lu, Shown::fixed(us ? 2 : 3));
+    };
+    const auto coord = [](const char *sym, double v) {
+        return word(sym, fmt::format("{:.1f}", v));
+    };
+    lines.note(dem_inverts,
+               {elev("ELi", *s.invert_in_m), coord("xi", e.inlet.xy.first),
+                coord("yi", e.inlet.xy.second), elev("ELo", *s.invert_out_m),
+                coord("xo", e.outlet.xy.first), coord("yo", e.outlet.xy.second),
+                word("line", e.line_id), qty("d", len(e.distance_m), lu, Shown::fixed(1))});
+    if (std::abs(e.length_m - s.length_m) > 0.25 * s.length_m) {
+        lines.warn(line_length_differs,
+                   {qty("Ll", len(e.length_m), lu), qty("L", len(s.length_m), lu)});
+    }
+}
+
 void design_one(const Project &p, const CulvertSpec &s,
-                const std::vector<hydraulics::Section> &sizes, report::DesignPointResult &dp) {
+                const std::vector<hydraulics::Section> &sizes, const terrain::BreachEnds *ends,
+                report::DesignPointResult &dp) {
     const units::System sys = p.info.units;
     const double design_rp =
         s.design_return_period_yr.value_or(p.design.culvert_return_period_yr.value_or(0.0));
@@ -158,6 +197,9 @@ void design_one(const Project &p, const CulvertSpec &s,
     const hydraulics::Crossing x = crossing_of(p, s);
     const auto d = hydraulics::design_crossing(x, flows, sizes, sys);
     CalcLines lines;
+    if (ends != nullptr) {
+        dem_invert_lines(*ends, s, sys, lines);
+    }
     const bool us = sys == units::System::us_customary;
     const Unit lu = us ? Unit::ft : Unit::m;
     const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
@@ -217,6 +259,64 @@ void design_one(const Project &p, const CulvertSpec &s,
     dp.culvert = std::move(out);
 }
 
+/// The inverts of a row that leaves them out, from the breach line at its design point; a
+/// problem when there is none within reach, or an end is off the DEM's data.
+const terrain::BreachEnds *take_dem_inverts(const Project &p, const CulvertSites &sites,
+                                            CulvertSpec &s, Problems &problems) {
+    const std::string where =
+        fmt::format("{}:{}", p.inputs.culvert_table->resolved.string(), s.line);
+    const auto it = sites.ends.find(s.id);
+    const std::string fix = "invert_in_m|invert_in_ft and invert_out_m|invert_out_ft in the "
+                            "culvert table, or a breach line drawn along the culvert";
+    if (it == sites.ends.end()) {
+        problems.add(
+            input_message(where,
+                          fmt::format("culvert '{}' gives no inverts, and there is no breach line "
+                                      "([inputs] breach_lines) to read them from",
+                                      s.id),
+                          fix));
+        return nullptr;
+    }
+    const terrain::BreachEnds &e = it->second;
+    if (e.distance_m > sites.reach_m) {
+        problems.add(input_message(
+            where,
+            fmt::format("culvert '{}' gives no inverts, and the nearest breach line ({}, [inputs] "
+                        "breach_lines) is "
+                        "{:.1f} m from design point '{}', farther than {:.1f} m ([settings] "
+                        "snap_radius_m plus one cell diagonal)",
+                        s.id, e.line_id, e.distance_m, s.id, sites.reach_m),
+            fix));
+        return nullptr;
+    }
+    if (!e.inlet.elevation_m || !e.outlet.elevation_m) {
+        problems.add(input_message(
+            where,
+            fmt::format("culvert '{}' gives no inverts, and an end of its breach line ({}) lies "
+                        "on a DEM cell without data or off the DEM",
+                        s.id, e.line_id),
+            fix));
+        return nullptr;
+    }
+    s.invert_in_m = e.inlet.elevation_m;
+    s.invert_out_m = e.outlet.elevation_m;
+    const auto above = [&](std::optional<double> el, const char *what, const char *col) {
+        if (el && *el <= *s.invert_in_m) {
+            problems.add(input_message(
+                fmt::format("{}: column '{}'", where, col),
+                fmt::format("{} {:.3f} m of culvert '{}' is not above the inlet invert {:.3f} m "
+                            "read from the DEM at the end of {}",
+                            what, *el, s.id, *s.invert_in_m, e.line_id),
+                "an elevation above the inlet invert, or the inverts in the culvert table"));
+        }
+    };
+    above(s.limit.elevation_m, "the allowed headwater", "headwater_max");
+    if (s.road) {
+        above(s.road->crest_elevation_m, "the road crest", "crest");
+    }
+    return &e;
+}
+
 } // namespace
 
 void check_culverts(const Project &p, const std::vector<std::string> &ids, Problems &problems) {
@@ -231,7 +331,7 @@ void check_culverts(const Project &p, const std::vector<std::string> &ids, Probl
     }
 }
 
-void design_culverts(const Project &p, report::RunResults &r) {
+void design_culverts(const Project &p, report::RunResults &r, const CulvertSites &sites) {
     if (!p.inputs.culvert_table) {
         return;
     }
@@ -241,7 +341,13 @@ void design_culverts(const Project &p, report::RunResults &r) {
         ids.push_back(dp.id);
     }
     Problems problems;
-    const auto specs = read_specs(p, t, ids, problems);
+    auto specs = read_specs(p, t, ids, problems);
+    std::vector<const terrain::BreachEnds *> ends(specs.size(), nullptr);
+    for (std::size_t k = 0; k < specs.size(); ++k) {
+        if (!specs[k].invert_in_m) {
+            ends[k] = take_dem_inverts(p, sites, specs[k], problems);
+        }
+    }
     problems.throw_if_any();
     if (!specs.empty()) {
         r.caution_notes.emplace_back(
@@ -250,10 +356,11 @@ void design_culverts(const Project &p, report::RunResults &r) {
             "cover and the reviewing agency's headwater and freeboard criteria are outside the "
             "calculation and must be checked by the engineer.");
     }
-    for (const auto &s : specs) {
+    for (std::size_t k = 0; k < specs.size(); ++k) {
+        const auto &s = specs[k];
         auto it = std::find_if(r.points.begin(), r.points.end(),
                                [&](const auto &dp) { return dp.id == s.id; });
-        design_one(p, s, t.sizes, *it);
+        design_one(p, s, t.sizes, ends[k], *it);
     }
 }
 

@@ -348,7 +348,8 @@ Delineation delineate_catchments(const DelineateOptions &options, std::ostream *
     for (const auto &p : points.points) {
         tpoints.push_back(terrain::DesignPoint{p.id, p.x, p.y});
     }
-    const std::vector<terrain::BreachLine> breach = read_breach_lines(options, dem_box, bar, out);
+    out.breach_lines = read_breach_lines(options, dem_box, bar, out);
+    const std::vector<terrain::BreachLine> &breach = out.breach_lines;
 
     terrain::TerrainSettings settings;
     settings.snap_radius_m = options.snap_radius_m;

@@ -13,6 +13,7 @@
 #include "catchpeak/io/wkb.hpp"
 #include "catchpeak/land/overlay.hpp"
 #include "catchpeak/land/tables.hpp"
+#include "catchpeak/terrain/breach_ends.hpp"
 
 #include <fmt/format.h>
 
@@ -650,6 +651,29 @@ void check_expected_areas(const Project &p, const Delineation &d) {
     problems.throw_if_any();
 }
 
+/// The breach line nearest to each design point, for culverts without inverts in the table.
+CulvertSites culvert_sites(const Project &p, const Delineation &d) {
+    CulvertSites sites;
+    if (!p.inputs.culvert_table || !p.inputs.breach_lines || d.breach_lines.empty()) {
+        return sites;
+    }
+    const auto &g = d.dem.elevation_m;
+    sites.reach_m =
+        p.settings.snap_radius_m + std::hypot(g.transform.cell_dx(), g.transform.cell_dy());
+    for (const auto &pt : d.result.points) {
+        if (auto e = terrain::nearest_breach_ends(g, d.breach_lines, pt.given_x, pt.given_y)) {
+            // The line as the project names its file ("'lines.gpkg' feature 3"), not by the
+            // path of this machine.
+            const auto at = e->line_id.rfind(": feature ");
+            e->line_id =
+                fmt::format("'{}'{}", p.inputs.breach_lines->given,
+                            at == std::string::npos ? std::string() : e->line_id.substr(at + 1));
+            sites.ends.emplace(pt.id, std::move(*e));
+        }
+    }
+    return sites;
+}
+
 } // namespace
 
 DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
@@ -749,6 +773,7 @@ DemPoints compute_dem_points(const Project &p, const HydrologyTables &tables,
         compute_point_hydrology(p, in, tables, dp);
         out.points.push_back(std::move(dp));
     }
+    out.culvert_sites = culvert_sites(p, d);
     return out;
 }
 

@@ -223,6 +223,7 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
     land_problems.throw_if_any();
     const LoadedTables tables = load_hydrology_tables(p, config_dir());
     report::RunResults r;
+    CulvertSites culvert_sites; // a DEM project's breach line ends, for culvert inverts
     if (p.uses_table()) {
         if (!quiet) {
             progress << fmt::format("catchpeak: computing {} design points x {} return periods\n",
@@ -240,12 +241,13 @@ report::RunResults compute_project(const Project &p, std::ostream &progress, boo
         if (gpkg_layers != nullptr) {
             *gpkg_layers = std::move(dem.layers);
         }
+        culvert_sites = std::move(dem.culvert_sites);
     }
 
     if (auto note = storm_averaging_caution(tables.view(), r.points)) {
         r.caution_notes.push_back(std::move(*note));
     }
-    design_culverts(p, r);
+    design_culverts(p, r, culvert_sites);
 
     stamp_inputs(p, tables, land_parts, r);
     return r;

@@ -65,6 +65,8 @@ struct Delineation {
     /// The design points' and the breach lines' reprojections to the DEM's CRS, when they were.
     std::optional<io::Reprojection> points_reprojection;
     std::optional<io::Reprojection> breach_lines_reprojection;
+    /// The breach lines as read, in the DEM's CRS (culvert inverts are read at their ends).
+    std::vector<terrain::BreachLine> breach_lines;
 };
 
 /// The snap rule named by `delineate --snap`; throws InputError naming the option, with a

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 #pragma once
 
+#include "catchpeak/app/culverts.hpp"
 #include "catchpeak/app/point_hydrology.hpp"
 #include "catchpeak/io/gpkg.hpp"
 #include "catchpeak/project/project.hpp"
@@ -18,6 +19,7 @@ struct DemPoints {
     /// The layers of catchments.gpkg (as `delineate` writes them).
     std::vector<io::OutLayer> layers;
     std::vector<report::Reference> references; ///< terrain and land sources the lines cite
+    CulvertSites culvert_sites; ///< breach line ends (only with a culvert table and breach lines)
 };
 
 /// Delineates the catchment of every design point of a project with [inputs] dem, weights
