@@ -418,7 +418,9 @@ SnapChecks snap_checks(const terrain::DesignPointTerrain &p, double area_factor)
     SnapChecks c;
     c.no_stream = p.no_stream_within_radius;
     c.grew = p.accumulation_m2 > area_factor * p.given_cell_area_m2;
-    c.spread = p.max_area_within_radius_m2 > area_factor * p.min_area_within_radius_m2;
+    // A much larger route within the radius than the one taken. (The smallest within the radius
+    // is not compared: beside any channel some cell drains almost nothing.)
+    c.spread = p.max_area_within_radius_m2 > area_factor * p.accumulation_m2;
     return c;
 }
 
@@ -485,11 +487,11 @@ std::vector<std::string> snap_warnings(const DelineateOptions &o,
     }
     if (c.spread) {
         out.push_back(fmt::format(
-            "the cells within {} m ({}) drain from {} to {}, more than {} times apart "
-            "(--snap-area-factor): the catchment depends on where within the radius the point "
-            "lies",
-            o.snap_radius_m, o.snap_radius_key, area(p.min_area_within_radius_m2),
-            area(p.max_area_within_radius_m2), sig(o.snap_area_factor)));
+            "a cell within {} m ({}) drains {}, more than {} times the {} of the snapped cell "
+            "(--snap-area-factor; the smallest within the radius drains {}): the catchment "
+            "depends on where within the radius the point lies",
+            o.snap_radius_m, o.snap_radius_key, area(p.max_area_within_radius_m2),
+            sig(o.snap_area_factor), area(p.accumulation_m2), area(p.min_area_within_radius_m2)));
     }
     return out;
 }

@@ -284,11 +284,12 @@ constexpr Formula snap_grew_warning{
     d8_where};
 constexpr Formula snap_spread_warning{
     "terrain.snap_spread",
-    "Catchments within the snap radius differ widely",
+    "A much larger flow route within the snap radius",
     "",
-    "the cells within {r} {r:u} ([settings] snap_radius_m) drain from {Amin} {Amin:u} to {Amax} "
-    "{Amax:u}, more than {k} times apart ([settings] snap_area_factor = {k}): the catchment "
-    "depends on where within the radius the point lies; check the snapped cell on the map",
+    "a cell within {r} {r:u} ([settings] snap_radius_m) drains {Amax} {Amax:u}, more than {k} "
+    "times the {As} {As:u} of the snapped cell ([settings] snap_area_factor = {k}; the smallest "
+    "within the radius drains {Amin} {Amin:u}): the catchment depends on where within the "
+    "radius the point lies; check on the map that the snapped cell is on the intended channel",
     Ref::none,
     d8_where};
 constexpr Formula area_note{
@@ -483,7 +484,7 @@ void add_snap_lines(CalcLines &lines, const Project &p, const terrain::DesignPoi
         lines.warn(snap_grew_warning, {len("d", pt.snap_distance_m), dir, snapped, factor, given});
     }
     if (checks.spread) {
-        lines.warn(snap_spread_warning, {radius, smallest, largest, factor});
+        lines.warn(snap_spread_warning, {radius, largest, factor, snapped, smallest});
     }
 }
 

@@ -77,7 +77,7 @@ struct Delineation {
 struct SnapChecks {
     bool no_stream = false; ///< nearest_stream found no stream cell within the radius
     bool grew = false;   ///< the snapped catchment exceeds factor x that of the given point's cell
-    bool spread = false; ///< the largest catchment within the radius exceeds factor x the smallest
+    bool spread = false; ///< the largest catchment within the radius exceeds factor x the snapped
 };
 
 [[nodiscard]] SnapChecks snap_checks(const terrain::DesignPointTerrain &point, double area_factor);
