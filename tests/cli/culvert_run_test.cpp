@@ -228,3 +228,24 @@ TEST(CulvertRun, CheckNamesEveryBadCell) {
 }
 
 } // namespace
+
+// Issue 15: `recheck` covers the culverts. An unchanged run is reproduced line by line; a
+// culvert table changed after the run (a rougher barrel) is named, and the culvert's lines
+// differ while the peaks are still reproduced.
+TEST(CulvertRun, RecheckReproducesTheCulvertLinesAndNamesAChangedCulvertTable) {
+    auto p = culvert_project("culvert_recheck", "IN-1,circular,900,concrete_groove_headwall,"
+                                                "0.012,25,100.0,99.7,1.5\n");
+    ASSERT_EQ(p.command("run", {"--quiet"}).code, static_cast<int>(ExitCode::success));
+    const auto same = catchpeak::test::cli({"recheck", p.out_dir().string()});
+    EXPECT_EQ(same.code, static_cast<int>(ExitCode::success)) << same.out << same.err;
+    EXPECT_NE(same.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << same.out;
+    catchpeak::test::write_file(p.dir() / "culverts.csv",
+                                std::string(head) + "IN-1,circular,900,concrete_groove_headwall,"
+                                                    "0.024,25,100.0,99.7,1.5\n");
+    const auto changed = catchpeak::test::cli({"recheck", p.out_dir().string()});
+    EXPECT_EQ(changed.code, static_cast<int>(ExitCode::inputs_changed))
+        << changed.out << changed.err;
+    EXPECT_NE(changed.out.find("culvert table 'culverts.csv'"), std::string::npos) << changed.out;
+    EXPECT_NE(changed.out.find("line IN-1-L"), std::string::npos) << changed.out;
+    EXPECT_EQ(changed.out.find(" lines reproduced, 0 differ\n"), std::string::npos) << changed.out;
+}
