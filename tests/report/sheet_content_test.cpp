@@ -64,8 +64,9 @@ TEST(SheetContent, TheSnapOfADemPointIsListedWithItsCatchments) {
                                "ha, largest 496.7 ha."))
         << text;
     // A table catchment has no snap: the sentence is not there.
-    const auto plain = blocks_of<ParagraphBlock>(
-        sheet_content(test::sample_results(1, units::System::si)).sections[2]);
+    const auto plain_doc = sheet_content(test::sample_results(1, units::System::si));
+    const auto plain = blocks_of<ParagraphBlock>(plain_doc.sections[2]);
+    ASSERT_FALSE(plain.empty());
     EXPECT_FALSE(contains(plain[0]->markup, "[settings] snap"));
 }
 
