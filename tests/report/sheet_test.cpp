@@ -23,7 +23,7 @@
 // default font map lives. Every leak reported in these tests comes from libfontconfig itself;
 // leaks of our own code are still reported.
 // Debian 12's cairo (1.16) also keeps two blocks allocated inside cairo_surface_finish when the
-X
+// PDF embeds a subset of a CJK font (IdsAndNamesInAnyScriptAreDrawnWithRealGlyphs); LeakSanitizer's
 // fast unwinder stops inside libcairo, so only the library can name it. Cairo objects of ours
 // left undestroyed are still caught by the other test programs that write sheets (app and cli).
 extern "C" const char *__lsan_default_suppressions() {
