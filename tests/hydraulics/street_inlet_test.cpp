@@ -142,6 +142,29 @@ TEST(CurbInSag, SiAndUsCoefficientsAgree) {
     }
 }
 
+// Every line of every inlet function prints in both unit systems: each template names only
+// quantities its line holds (the report throws otherwise), and each line names its source.
+TEST(StreetInlet, EveryLinePrints) {
+    const Gutter depressed{0.02, 0.01, 0.016, 0.6, 0.05};
+    for (const auto system : {System::si, System::us_customary}) {
+        std::vector<CalcLines> all;
+        all.push_back(curb_on_grade(plain, 3.0, 0.05, system).lines);
+        all.push_back(curb_on_grade(depressed, 3.0, 0.05, system).lines);
+        all.push_back(curb_on_grade(depressed, 1.0, 0.01, system).lines); // spread within W
+        for (const double d : {0.05, 0.12, 0.3}) {
+            all.push_back(curb_in_sag(depressed, {2.0, 0.15}, d, system).lines);
+            all.push_back(grate_in_sag({1.8, 0.2, 0.0}, d, system).lines);
+        }
+        for (const auto &lines : all) {
+            for (const auto &l : lines.lines()) {
+                const auto t = test::text(l);
+                EXPECT_FALSE(t.numbers.empty()) << l.key;
+                EXPECT_FALSE(t.source.empty()) << l.key;
+            }
+        }
+    }
+}
+
 TEST(StreetInlet, RefusesWhatIsNotAnInlet) {
     EXPECT_THROW((void)curb_on_grade(plain, 0.0, 0.05, System::si), InputError);
     EXPECT_THROW((void)curb_in_sag(plain, {2.0, 0.0}, 0.1, System::si), InputError);

@@ -45,8 +45,9 @@ struct SagCapacity {
     SagRegime regime = SagRegime::weir;
 };
 
-/// A curb opening in a sag at depth d at the curb (measured from the pavement's cross slope,
-/// as the gutter's depth). The depth at the opening's lip is di = d + a in a composite gutter.
+/// A curb opening in a sag at depth d at the curb, measured from the pavement's cross slope
+/// extended to the curb (d = T Sx: GutterFlow::depth_m less the depression a). The depth at
+/// the opening's lip is di = d + a in a composite gutter.
 /// Weir: Q = Cw (L + 1.8 W) d^1.5 in a depressed gutter (Cw = 1.25 SI, 2.3 US), Q = Cw L d^1.5
 /// without depression or when L > 3.6 m (12 ft) (Cw = 1.60 SI, 3.0 US). Orifice: Q = Co h L
 /// (2 g do)^0.5, Co = 0.67, do = di - h/2. Weir while di <= h, orifice from di >= 1.4 h, the
