@@ -101,6 +101,12 @@ Entry entry(Ref r) noexcept {
     case Ref::chow_1959:
         return {"Chow (1959)",
                 "Chow, V.T. (1959). Open-Channel Hydraulics. McGraw-Hill, New York."};
+    case Ref::hec22_2009:
+        return {"FHWA HEC-22, 3rd ed. (2009)",
+                "Brown, S.A., Schall, J.D., Morris, J.L., Doherty, C.L., Stein, S.M. and Warner, "
+                "J.C. (2009). Urban Drainage Design Manual, Hydraulic Engineering Circular No. 22, "
+                "third edition. FHWA-NHI-10-009. Federal Highway Administration (citation from "
+                "memory, not checked)."};
     }
     return {"", ""};
 }

@@ -33,6 +33,7 @@ enum class Ref : std::uint8_t {
     nist_sp811,
     hds5_2012,
     chow_1959,
+    hec22_2009,
 };
 
 /// The short form of a source as a line prints it ("TR-55 (1986)"; "" for Ref::none).
