@@ -143,7 +143,9 @@ constexpr std::string_view utf8_bom = "\xEF\xBB\xBF";
 /// Throws when the header row is separated by something else than commas: a semicolon (what
 /// spreadsheet programs write where the decimal separator is a comma) or a tab.
 void check_separator(const CsvTable &table, std::size_t line) {
-    for (const auto &[sep, name] : {std::pair{';', "semicolons (';')"}, std::pair{'\t', "tabs"}}) {
+    for (const auto &[sep_found, name] :
+         {std::pair{';', "semicolons (';')"}, std::pair{'\t', "tabs"}}) {
+        const char sep = sep_found; // a structured binding is not captured by clang 14
         const bool found = std::any_of(table.header.begin(), table.header.end(),
                                        [sep](auto &h) { return h.find(sep) != std::string::npos; });
         if (found) {
