@@ -160,26 +160,36 @@ std::string size_words(const hydraulics::Section &s, units::System sys) {
                : fmt::format("span {} x rise {}", len(s.span_m), len(s.rise_m));
 }
 
+/// Lengths and elevations of a culvert's lines in the sheet's units (elevations to 0.01 ft or
+/// 0.001 m, as levels are surveyed).
+struct LineLengths {
+    bool us = false;
+    Unit unit = Unit::m;
+    explicit LineLengths(units::System sys)
+        : us(sys == units::System::us_customary), unit(us ? Unit::ft : Unit::m) {}
+    [[nodiscard]] double of(double m) const { return us ? units::m_to_ft(m) : m; }
+    [[nodiscard]] Quantity length(const char *sym, double m, Shown shown = {}) const {
+        return qty(sym, of(m), unit, shown);
+    }
+    [[nodiscard]] Quantity elevation(const char *sym, double m) const {
+        return qty(sym, of(m), unit, Shown::fixed(us ? 2 : 3));
+    }
+};
+
 /// The lines that say where the inverts read from the DEM come from.
 void dem_invert_lines(const terrain::BreachEnds &e, const CulvertSpec &s, units::System sys,
                       CalcLines &lines) {
-    const bool us = sys == units::System::us_customary;
-    const Unit lu = us ? Unit::ft : Unit::m;
-    const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
-    const auto elev = [&](const char *sym, double m) {
-        return qty(sym, len(m), lu, Shown::fixed(us ? 2 : 3));
-    };
+    const LineLengths u(sys);
     const auto coord = [](const char *sym, double v) {
         return word(sym, fmt::format("{:.1f}", v));
     };
     lines.note(dem_inverts,
-               {elev("ELi", *s.invert_in_m), coord("xi", e.inlet.xy.first),
-                coord("yi", e.inlet.xy.second), elev("ELo", *s.invert_out_m),
+               {u.elevation("ELi", *s.invert_in_m), coord("xi", e.inlet.xy.first),
+                coord("yi", e.inlet.xy.second), u.elevation("ELo", *s.invert_out_m),
                 coord("xo", e.outlet.xy.first), coord("yo", e.outlet.xy.second),
-                word("line", e.line_id), qty("d", len(e.distance_m), lu, Shown::fixed(1))});
+                word("line", e.line_id), u.length("d", e.distance_m, Shown::fixed(1))});
     if (std::abs(e.length_m - s.length_m) > 0.25 * s.length_m) {
-        lines.warn(line_length_differs,
-                   {qty("Ll", len(e.length_m), lu), qty("L", len(s.length_m), lu)});
+        lines.warn(line_length_differs, {u.length("Ll", e.length_m), u.length("L", s.length_m)});
     }
 }
 
@@ -200,25 +210,22 @@ void design_one(const Project &p, const CulvertSpec &s,
     if (ends != nullptr) {
         dem_invert_lines(*ends, s, sys, lines);
     }
-    const bool us = sys == units::System::us_customary;
-    const Unit lu = us ? Unit::ft : Unit::m;
-    const auto len = [&](double m) { return us ? units::m_to_ft(m) : m; };
-    const auto elev = [&](const char *sym, double m) {
-        return qty(sym, len(m), lu, Shown::fixed(us ? 2 : 3));
-    };
+    const LineLengths u(sys);
+    const bool us = u.us;
     lines.note(culvert_note,
                {word("shape", s.shape == hydraulics::Shape::box ? "box" : "circular"),
                 qty("N", s.barrels, Unit::none, Shown::integer()), word("inlet", s.inlet),
-                word("desc", s.inlet_row.source), qty("L", len(s.length_m), lu),
-                elev("ELi", *s.invert_in_m), elev("ELo", *s.invert_out_m), qty("n", s.manning_n),
+                word("desc", s.inlet_row.source), u.length("L", s.length_m),
+                u.elevation("ELi", *s.invert_in_m), u.elevation("ELo", *s.invert_out_m),
+                qty("n", s.manning_n),
                 word("size", s.size ? "size given: " + size_words(*s.size, sys)
                                     : fmt::format("size chosen for the {:g}-year flow from the "
                                                   "list of standard sizes",
                                                   design_rp))});
-    lines.calc(
-        barrel_slope,
-        {elev("ELi", *s.invert_in_m), elev("ELo", *s.invert_out_m), qty("L", len(s.length_m), lu)},
-        qty("So", x.culvert.slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m));
+    lines.calc(barrel_slope,
+               {u.elevation("ELi", *s.invert_in_m), u.elevation("ELo", *s.invert_out_m),
+                u.length("L", s.length_m)},
+               qty("So", x.culvert.slope_m_per_m, us ? Unit::ft_per_ft : Unit::m_per_m));
     lines.append(d.sizing_lines);
     report::CulvertResult out;
     std::vector<std::size_t> case_ends; // one past each case's last line
